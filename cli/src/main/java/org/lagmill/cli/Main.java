@@ -1,0 +1,77 @@
+package org.lagmill.cli;
+
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.file.NoSuchFileException;
+import org.lagmill.ingest.InputFormatException;
+import org.lagmill.memory.MemoryBudgetExceededException;
+import org.lagmill.store.CorruptStoreException;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+
+/** The {@code lagmill} command: parses arguments, runs one subcommand, maps failures to documented exit codes. */
+@Command(
+    name = "lagmill",
+    mixinStandardHelpOptions = true,
+    versionProvider = VersionProvider.class,
+    description = "Daily demand forecasting for item-store series from a compact off-heap store.",
+    subcommands = {CommandLine.HelpCommand.class},
+    footer = {"", "Example:", "  lagmill demo --out demo-run", "",
+        "Exit codes: 0 ok, 1 internal error, 2 usage error, 3 bad input, 4 corrupt store,",
+        "            5 out of memory budget, 6 file not readable or writable"})
+public final class Main {
+
+  public static void main(String[] args) {
+    System.exit(run(args));
+  }
+
+  /** Runs the command line and returns its exit code; tests call this instead of {@link #main}. */
+  public static int run(String... args) {
+    CommandLine cli = commandLine();
+    return cli.execute(args);
+  }
+
+  static CommandLine commandLine() {
+    CommandLine cli = new CommandLine(new Main());
+    for (Object sub : Subcommands.all()) {
+      cli.addSubcommand(sub);
+    }
+    cli.setExecutionExceptionHandler((e, commandLine, parseResult) -> {
+      Throwable t = e instanceof UncheckedIOException u ? u.getCause() : e;
+      commandLine.getErr().println("lagmill: " + message(t));
+      return exitCodeOf(t);
+    });
+    return cli;
+  }
+
+  static int exitCodeOf(Throwable t) {
+    if (t instanceof InputFormatException) {
+      return ExitCodes.BAD_INPUT;
+    }
+    if (t instanceof CorruptStoreException) {
+      return ExitCodes.CORRUPT_STORE;
+    }
+    if (t instanceof MemoryBudgetExceededException || t instanceof OutOfMemoryError) {
+      return ExitCodes.OUT_OF_MEMORY_BUDGET;
+    }
+    if (t instanceof IllegalArgumentException) {
+      return ExitCodes.USAGE_ERROR;
+    }
+    if (t instanceof IOException) {
+      return ExitCodes.IO_ERROR;
+    }
+    return ExitCodes.INTERNAL_ERROR;
+  }
+
+  private static String message(Throwable t) {
+    if (t instanceof NoSuchFileException n) {
+      return "no such file: " + n.getFile();
+    }
+    if (t instanceof InputFormatException || t instanceof CorruptStoreException
+        || t instanceof MemoryBudgetExceededException || t instanceof IllegalArgumentException
+        || t instanceof IOException) {
+      return t.getMessage();
+    }
+    return "internal error: " + t + " (please report it with the command you ran)";
+  }
+}

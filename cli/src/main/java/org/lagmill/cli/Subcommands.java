@@ -1,0 +1,12 @@
+package org.lagmill.cli;
+
+import java.util.List;
+
+/** The subcommands of {@code lagmill}, in the order {@code --help} lists them. */
+final class Subcommands {
+  private Subcommands() {}
+
+  static List<Object> all() {
+    return List.of();
+  }
+}

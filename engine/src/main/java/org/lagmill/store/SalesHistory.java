@@ -1,0 +1,56 @@
+package org.lagmill.store;
+
+import java.time.LocalDate;
+
+/**
+ * Read access to daily unit sales of many series, by index: the one view that feature, evaluation and forecast code
+ * read. Implemented by the memory-mapped {@link SalesStore} and, for tests and scratch copies, by
+ * {@link ArraySalesHistory}.
+ *
+ * <p>Series are numbered {@code 0 .. seriesCount()-1}; days {@code 0 .. dayCount()-1} from {@link #firstDate()}. A day
+ * whose units are not known reads as {@link #UNKNOWN_UNITS}. Implementations are safe for concurrent reads while open.
+ */
+public interface SalesHistory {
+  /** Units value of a day whose sales are not known (an empty cell in the input). */
+  int UNKNOWN_UNITS = -1;
+
+  /** {@link #firstSaleDayIndex(int)} of a series that never sold. */
+  int NO_SALE = -1;
+
+  int seriesCount();
+
+  /** Number of days of sales held, the same for every series. */
+  int dayCount();
+
+  /** Date of day index 0. */
+  LocalDate firstDate();
+
+  /** Units sold by one series on one day, or {@link #UNKNOWN_UNITS}. */
+  int units(int seriesIndex, int dayIndex);
+
+  /**
+   * Copies {@code count} consecutive days of one series into {@code dst}; unknown days read as {@link #UNKNOWN_UNITS}.
+   *
+   * @param fromDayIndex first day to copy, {@code >= 0}; {@code fromDayIndex + count <= dayCount()}
+   */
+  void readUnits(int seriesIndex, int fromDayIndex, int[] dst, int dstOffset, int count);
+
+  /** First day index with a non-zero sale, or {@link #NO_SALE}. */
+  int firstSaleDayIndex(int seriesIndex);
+
+  /** Largest daily units of the series (0 when it never sold or every day is unknown). */
+  int maxUnits(int seriesIndex);
+
+  SeriesAttributes attributes();
+
+  /** Shelf prices; {@link PriceTable#isEmpty()} when none were ingested. */
+  PriceTable prices();
+
+  /** Day-level calendar columns; may cover days after the last sales day. */
+  DayCalendar calendar();
+
+  /** Date of a day index, which may lie past the last sales day. */
+  default LocalDate dateOf(int dayIndex) {
+    return firstDate().plusDays(dayIndex);
+  }
+}
