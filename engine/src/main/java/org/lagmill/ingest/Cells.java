@@ -1,0 +1,144 @@
+package org.lagmill.ingest;
+
+import java.nio.file.Path;
+import java.time.DateTimeException;
+import java.time.LocalDate;
+import java.util.Arrays;
+
+/** Strict parsing of single CSV cells shared by the parsers; each failure message says what was found and expected. */
+final class Cells {
+  /** {@link #epochDay} result of a cell that is not an ISO date. */
+  static final long NOT_A_DATE = Long.MIN_VALUE;
+  /** {@link #units} result of a cell that is not a non-negative integer. */
+  static final long NOT_UNITS = -1;
+
+  private Cells() {}
+
+  /** Days since 1970-01-01 of a {@code yyyy-mm-dd} cell, or {@link #NOT_A_DATE}. */
+  static long epochDay(String text) {
+    if (text.length() != 10 || text.charAt(4) != '-' || text.charAt(7) != '-') {
+      return NOT_A_DATE;
+    }
+    int year = digits(text, 0, 4);
+    int month = digits(text, 5, 7);
+    int day = digits(text, 8, 10);
+    if (year < 0 || month < 0 || day < 0) {
+      return NOT_A_DATE;
+    }
+    try {
+      return LocalDate.of(year, month, day).toEpochDay();
+    } catch (DateTimeException e) {
+      return NOT_A_DATE;
+    }
+  }
+
+  /** Epoch day of a date cell; an {@link InputFormatException} naming the column otherwise. */
+  static long requireDate(Path file, long line, int column, String columnName, String text) {
+    long epochDay = epochDay(text);
+    if (epochDay == NOT_A_DATE) {
+      throw new InputFormatException(file, line, column,
+          columnName + " '" + text + "': expected an ISO date like 2024-03-05");
+    }
+    return epochDay;
+  }
+
+  private static int digits(String text, int from, int to) {
+    int value = 0;
+    for (int i = from; i < to; i++) {
+      char c = text.charAt(i);
+      if (c < '0' || c > '9') {
+        return -1;
+      }
+      value = value * 10 + (c - '0');
+    }
+    return value;
+  }
+
+  /**
+   * True when the cell is a plain decimal number: optional sign, digits with an optional point, optional exponent.
+   * Stricter than {@link Double#parseDouble}, which also takes "NaN", "Infinity", "1f" and hex.
+   */
+  static boolean isDecimal(String text) {
+    int n = text.length();
+    int i = 0;
+    if (i < n && (text.charAt(i) == '+' || text.charAt(i) == '-')) {
+      i++;
+    }
+    int mantissaDigits = 0;
+    while (i < n && isDigit(text.charAt(i))) {
+      i++;
+      mantissaDigits++;
+    }
+    if (i < n && text.charAt(i) == '.') {
+      i++;
+      while (i < n && isDigit(text.charAt(i))) {
+        i++;
+        mantissaDigits++;
+      }
+    }
+    if (mantissaDigits == 0) {
+      return false;
+    }
+    if (i < n && (text.charAt(i) == 'e' || text.charAt(i) == 'E')) {
+      i++;
+      if (i < n && (text.charAt(i) == '+' || text.charAt(i) == '-')) {
+        i++;
+      }
+      int exponentDigits = 0;
+      while (i < n && isDigit(text.charAt(i))) {
+        i++;
+        exponentDigits++;
+      }
+      if (exponentDigits == 0) {
+        return false;
+      }
+    }
+    return i == n;
+  }
+
+  private static boolean isDigit(char c) {
+    return c >= '0' && c <= '9';
+  }
+
+  /**
+   * A non-negative integer cell as a long (values past {@link Integer#MAX_VALUE} are returned as they are, capped at
+   * {@code Integer.MAX_VALUE + 1}, so the caller can report overflow), or {@link #NOT_UNITS}.
+   */
+  static long units(String text) {
+    int n = text.length();
+    if (n == 0) {
+      return NOT_UNITS;
+    }
+    long value = 0;
+    for (int i = 0; i < n; i++) {
+      char c = text.charAt(i);
+      if (!isDigit(c)) {
+        return NOT_UNITS;
+      }
+      value = Math.min(value * 10 + (c - '0'), Integer.MAX_VALUE + 1L);
+    }
+    return value;
+  }
+
+  /** 0-based index of a header column, or an {@link InputFormatException} naming the option that renames it. */
+  static int requireColumn(Path file, String[] header, String name, String option) {
+    int index = Arrays.asList(header).indexOf(name);
+    if (index < 0) {
+      throw new InputFormatException(file, 1, 0, "no column '" + name + "' in header " + String.join(",", header)
+          + ": expected one (or name it with " + option + ")");
+    }
+    return index;
+  }
+
+  /** An {@link InputFormatException} when a header names a column twice. */
+  static void requireDistinct(Path file, String[] header) {
+    for (int i = 0; i < header.length; i++) {
+      for (int j = 0; j < i; j++) {
+        if (header[i].equals(header[j])) {
+          throw new InputFormatException(file, 1, i + 1,
+              "column '" + header[i] + "' appears twice: expected distinct column names");
+        }
+      }
+    }
+  }
+}

@@ -1,0 +1,248 @@
+package org.lagmill.ingest;
+
+import de.siegmar.fastcsv.reader.CsvRecord;
+import it.unimi.dsi.fastutil.longs.LongArrayList;
+import it.unimi.dsi.fastutil.objects.Object2IntOpenHashMap;
+import java.nio.file.Path;
+import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import org.lagmill.memory.MemoryBudget;
+import org.lagmill.memory.NativeIntArray;
+import org.lagmill.store.SalesHistory;
+
+/**
+ * Reads long-format sales: one row per series and day, in any order, with a date column, a units column and attribute
+ * columns naming the series (by its {@code series_id} cell when that column is present, otherwise by all attribute
+ * values together). Days between the file's first and last date that a series lacks are unknown.
+ *
+ * <p>Two passes over the file: the first finds the series and the date range and validates every cell; the second
+ * fills a series × day units matrix in native memory reserved from a {@link MemoryBudget} (4 bytes per cell), which
+ * is then handed to a {@link SeriesSink} one series at a time and freed.
+ */
+public final class LongSalesReader {
+  public static final String DEFAULT_DATE_COLUMN = "date";
+  public static final String DEFAULT_UNITS_COLUMN = "units";
+  public static final String DEFAULT_SERIES_ID_COLUMN = "series_id";
+
+  /** A matrix cell whose row was present with an empty units cell: unknown, but taken for duplicate detection. */
+  private static final int PRESENT_UNKNOWN = -2;
+  private static final char KEY_SEPARATOR = '\u0000';
+
+  private LongSalesReader() {}
+
+  /** As {@link #read(Path, String, String, String, MemoryBudget, SeriesSink)} with the series id column "series_id". */
+  public static LongSalesHeader read(Path file, String dateColumn, String unitsColumn, MemoryBudget budget,
+      SeriesSink sink) {
+    return read(file, dateColumn, unitsColumn, DEFAULT_SERIES_ID_COLUMN, budget, sink);
+  }
+
+  /**
+   * Reads a long-format sales file and hands each series to {@code sink}.
+   *
+   * @param budget pays for the {@code seriesCount × dayCount × 4} bytes of the units matrix while it is filled
+   * @return the file's shape (also given to {@link SeriesSink#begin} before the first series)
+   * @throws InputFormatException on any violation of the format, with file, line, column and an exact message
+   */
+  public static LongSalesHeader read(Path file, String dateColumn, String unitsColumn, String seriesIdColumn,
+      MemoryBudget budget, SeriesSink sink) {
+    Layout layout;
+    List<String[]> valuesBySeries = new ArrayList<>();
+    Object2IntOpenHashMap<String> seriesIndexByKey = new Object2IntOpenHashMap<>();
+    seriesIndexByKey.defaultReturnValue(-1);
+    long minEpochDay = Long.MAX_VALUE;
+    long maxEpochDay = Long.MIN_VALUE;
+    try (CsvSource source = CsvSource.open(file)) {
+      layout = Layout.of(file, source.readHeader(), dateColumn, unitsColumn, seriesIdColumn);
+      LongArrayList firstLineBySeries = new LongArrayList();
+      for (CsvRecord record = source.next(); record != null; record = source.next()) {
+        long line = source.lineNumber();
+        long epochDay = Cells.requireDate(file, line, layout.dateIndex + 1, dateColumn,
+            record.getField(layout.dateIndex));
+        checkUnits(file, line, layout, unitsColumn, record.getField(layout.unitsIndex));
+        minEpochDay = Math.min(minEpochDay, epochDay);
+        maxEpochDay = Math.max(maxEpochDay, epochDay);
+        String key = layout.seriesKey(record);
+        int seriesIndex = seriesIndexByKey.getInt(key);
+        if (seriesIndex < 0) {
+          seriesIndexByKey.put(key, valuesBySeries.size());
+          valuesBySeries.add(layout.attributeValues(record));
+          firstLineBySeries.add(line);
+        } else if (layout.seriesIdIndex >= 0) {
+          layout.checkSameAttributes(file, line, record, valuesBySeries.get(seriesIndex),
+              firstLineBySeries.getLong(seriesIndex));
+        }
+      }
+      if (valuesBySeries.isEmpty()) {
+        throw new InputFormatException(file, 0, 0, "no sales rows: expected at least one row after the header");
+      }
+    }
+    long dayCountLong = maxEpochDay - minEpochDay + 1;
+    if (dayCountLong > Integer.MAX_VALUE) {
+      throw new InputFormatException(file, 0, 0, "dates span " + dayCountLong + " days: expected at most "
+          + Integer.MAX_VALUE);
+    }
+    int dayCount = (int) dayCountLong;
+    int seriesCount = valuesBySeries.size();
+    LongSalesHeader header = new LongSalesHeader(layout.attributeNames(), LocalDate.ofEpochDay(minEpochDay),
+        dayCount, seriesCount);
+    try (NativeIntArray matrix = new NativeIntArray(budget, (long) seriesCount * dayCount)) {
+      matrix.fill(0, (int) matrix.length(), SalesHistory.UNKNOWN_UNITS);
+      fill(file, layout, seriesIndexByKey, minEpochDay, dayCount, matrix);
+      sink.begin(header);
+      int[] units = new int[dayCount];
+      for (int s = 0; s < seriesCount; s++) {
+        matrix.read(s * dayCount, units, 0, dayCount);
+        for (int d = 0; d < dayCount; d++) {
+          if (units[d] == PRESENT_UNKNOWN) {
+            units[d] = SalesHistory.UNKNOWN_UNITS;
+          }
+        }
+        sink.accept(valuesBySeries.get(s), units);
+      }
+    }
+    return header;
+  }
+
+  private static void fill(Path file, Layout layout, Object2IntOpenHashMap<String> seriesIndexByKey,
+      long minEpochDay, int dayCount, NativeIntArray matrix) {
+    try (CsvSource source = CsvSource.open(file)) {
+      source.readHeader();
+      for (CsvRecord record = source.next(); record != null; record = source.next()) {
+        int seriesIndex = seriesIndexByKey.getInt(layout.seriesKey(record));
+        String dateText = record.getField(layout.dateIndex);
+        int dayIndex = (int) (Cells.epochDay(dateText) - minEpochDay);
+        String unitsText = record.getField(layout.unitsIndex);
+        int cell = seriesIndex * dayCount + dayIndex;
+        if (matrix.get(cell) != SalesHistory.UNKNOWN_UNITS) {
+          long firstLine = findFirstLine(file, layout, record, source.lineNumber());
+          throw new InputFormatException(file, source.lineNumber(), 0, "duplicate row for series "
+              + layout.describe(record) + " on " + dateText + ": lines " + firstLine + " and " + source.lineNumber()
+              + ", expected one row per series and date");
+        }
+        matrix.set(cell, unitsText.isEmpty() ? PRESENT_UNKNOWN : (int) Cells.units(unitsText));
+      }
+    }
+  }
+
+  /** Error path only: the earlier line holding the same series and date as {@code duplicate}. */
+  private static long findFirstLine(Path file, Layout layout, CsvRecord duplicate, long duplicateLine) {
+    String key = layout.seriesKey(duplicate);
+    long epochDay = Cells.epochDay(duplicate.getField(layout.dateIndex));
+    try (CsvSource source = CsvSource.open(file)) {
+      source.readHeader();
+      for (CsvRecord record = source.next(); record != null && source.lineNumber() < duplicateLine;
+          record = source.next()) {
+        if (Cells.epochDay(record.getField(layout.dateIndex)) == epochDay && layout.seriesKey(record).equals(key)) {
+          return source.lineNumber();
+        }
+      }
+    }
+    throw new IllegalStateException("no earlier row of a duplicate on line " + duplicateLine + " of " + file);
+  }
+
+  private static void checkUnits(Path file, long line, Layout layout, String unitsColumn, String text) {
+    if (text.isEmpty()) {
+      return;
+    }
+    long units = Cells.units(text);
+    if (units == Cells.NOT_UNITS) {
+      throw new InputFormatException(file, line, layout.unitsIndex + 1,
+          unitsColumn + " '" + text + "': expected a non-negative integer or an empty cell");
+    }
+    if (units > Integer.MAX_VALUE) {
+      throw new InputFormatException(file, line, layout.unitsIndex + 1,
+          unitsColumn + " '" + text + "': expected an integer at most " + Integer.MAX_VALUE);
+    }
+  }
+
+  /** Which header column holds what. */
+  private static final class Layout {
+    final String[] header;
+    final int dateIndex;
+    final int unitsIndex;
+    final int seriesIdIndex;
+    final int[] attributeColumns;
+
+    private Layout(String[] header, int dateIndex, int unitsIndex, int seriesIdIndex, int[] attributeColumns) {
+      this.header = header;
+      this.dateIndex = dateIndex;
+      this.unitsIndex = unitsIndex;
+      this.seriesIdIndex = seriesIdIndex;
+      this.attributeColumns = attributeColumns;
+    }
+
+    static Layout of(Path file, String[] header, String dateColumn, String unitsColumn, String seriesIdColumn) {
+      Cells.requireDistinct(file, header);
+      int dateIndex = Cells.requireColumn(file, header, dateColumn, "--date-column");
+      int unitsIndex = Cells.requireColumn(file, header, unitsColumn, "--units-column");
+      int[] attributeColumns = new int[header.length - 2];
+      int k = 0;
+      for (int c = 0; c < header.length; c++) {
+        if (c != dateIndex && c != unitsIndex) {
+          attributeColumns[k++] = c;
+        }
+      }
+      if (attributeColumns.length == 0) {
+        throw new InputFormatException(file, 1, 0, "no attribute columns: expected at least one column naming the"
+            + " series besides '" + dateColumn + "' and '" + unitsColumn + "'");
+      }
+      int seriesIdIndex = Arrays.asList(header).indexOf(seriesIdColumn);
+      return new Layout(header, dateIndex, unitsIndex, seriesIdIndex, attributeColumns);
+    }
+
+    List<String> attributeNames() {
+      List<String> names = new ArrayList<>();
+      for (int c : attributeColumns) {
+        names.add(header[c]);
+      }
+      return names;
+    }
+
+    String seriesKey(CsvRecord record) {
+      if (seriesIdIndex >= 0) {
+        return record.getField(seriesIdIndex);
+      }
+      if (attributeColumns.length == 1) {
+        return record.getField(attributeColumns[0]);
+      }
+      StringBuilder b = new StringBuilder();
+      for (int k = 0; k < attributeColumns.length; k++) {
+        if (k > 0) {
+          b.append(KEY_SEPARATOR);
+        }
+        b.append(record.getField(attributeColumns[k]));
+      }
+      return b.toString();
+    }
+
+    String[] attributeValues(CsvRecord record) {
+      String[] values = new String[attributeColumns.length];
+      for (int k = 0; k < values.length; k++) {
+        values[k] = record.getField(attributeColumns[k]);
+      }
+      return values;
+    }
+
+    /** The series' name as the store will show it: the series id, or the attribute values joined by '/'. */
+    String describe(CsvRecord record) {
+      if (seriesIdIndex >= 0) {
+        return record.getField(seriesIdIndex);
+      }
+      return String.join("/", attributeValues(record));
+    }
+
+    void checkSameAttributes(Path file, long line, CsvRecord record, String[] firstValues, long firstLine) {
+      for (int k = 0; k < attributeColumns.length; k++) {
+        String value = record.getField(attributeColumns[k]);
+        if (!value.equals(firstValues[k])) {
+          String name = header[attributeColumns[k]];
+          throw new InputFormatException(file, line, attributeColumns[k] + 1, "series "
+              + record.getField(seriesIdIndex) + " has " + name + "=" + value + ": expected " + name + "="
+              + firstValues[k] + " as on line " + firstLine);
+        }
+      }
+    }
+  }
+}

@@ -1,0 +1,117 @@
+package org.lagmill.ingest;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertNull;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+
+import de.siegmar.fastcsv.reader.CsvRecord;
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+class CsvSourceTest {
+  @TempDir Path dir;
+
+  @BeforeAll
+  static void createTempRoot() {
+    IngestFiles.ensureTempRoot();
+  }
+
+  private static List<String> readAll(Path file) {
+    List<String> lines = new ArrayList<>();
+    try (CsvSource source = CsvSource.open(file)) {
+      lines.add(String.join("|", source.readHeader()));
+      for (CsvRecord r = source.next(); r != null; r = source.next()) {
+        lines.add(source.lineNumber() + ":" + String.join("|", r.getFields()));
+      }
+    }
+    return lines;
+  }
+
+  @Test
+  void shouldReadGzipLikePlainText() {
+    StringBuilder text = new StringBuilder("a,b\n");
+    for (int i = 0; i < 5000; i++) {
+      text.append(i).append(",\"x ").append(i * 7).append("\"\n");
+    }
+    assertEquals(readAll(IngestFiles.write(dir, "t.csv", text.toString())),
+        readAll(IngestFiles.write(dir, "t.csv.gz", text.toString())));
+  }
+
+  @Test
+  void shouldSkipBlankLinesAndByteOrderMark() {
+    Path file = IngestFiles.write(dir, "t.csv", "\uFEFFa,b\n\n1,2\r\n3,4\n");
+    assertEquals(List.of("a|b", "3:1|2", "4:3|4"), readAll(file));
+  }
+
+  @Test
+  void shouldNameTheLineOfAnInvalidUtf8Byte() throws IOException {
+    // The bad byte sits far past the decoder's first read-ahead block, so only the locating re-scan can name its line.
+    ByteArrayOutputStream bytes = new ByteArrayOutputStream();
+    bytes.write("a,b\n".getBytes(StandardCharsets.UTF_8));
+    for (int i = 0; i < 3000; i++) {
+      bytes.write(("caf\u00e9,line " + (i + 2) + "\n").getBytes(StandardCharsets.UTF_8));
+    }
+    bytes.write(new byte[] {'x', ',', (byte) 0xFF, '\n'});
+    bytes.write("y,z\n".getBytes(StandardCharsets.UTF_8));
+    for (String name : new String[] {"bad.csv", "bad.csv.gz"}) {
+      Path file = IngestFiles.write(dir, name, bytes.toByteArray());
+      InputFormatException e = assertThrows(InputFormatException.class, () -> readAll(file));
+      assertEquals(file + ", line 3002: invalid UTF-8 byte 0xFF: expected UTF-8 text", e.getMessage());
+      assertEquals(3002, e.lineNumber());
+    }
+  }
+
+  @Test
+  void shouldRejectTruncatedGzip() throws IOException {
+    StringBuilder text = new StringBuilder("a,b\n");
+    for (int i = 0; i < 2000; i++) {
+      text.append(i).append(',').append(i * 31 % 97).append('\n');
+    }
+    Path whole = IngestFiles.write(dir, "whole.csv.gz", text.toString());
+    byte[] gz = Files.readAllBytes(whole);
+    Path cut = IngestFiles.write(dir, "cut.csv", Arrays.copyOf(gz, gz.length / 2));
+    Path cutGz = Files.move(cut, dir.resolve("cut.csv.gz"));
+    InputFormatException e = assertThrows(InputFormatException.class, () -> readAll(cutGz));
+    assertEquals(cutGz + ": truncated gzip stream", e.getMessage());
+  }
+
+  @Test
+  void shouldRejectPlainTextNamedGz() throws IOException {
+    Path plain = IngestFiles.write(dir, "p.csv", "a,b\n1,2\n");
+    Path named = Files.move(plain, dir.resolve("p.csv.gz"));
+    InputFormatException e = assertThrows(InputFormatException.class, () -> readAll(named));
+    assertEquals(named + ": not gzip data: expected a gzip stream in a file named .gz", e.getMessage());
+  }
+
+  @Test
+  void shouldRejectEmptyFileMissingFileAndRaggedRows() {
+    Path empty = IngestFiles.write(dir, "e.csv", "");
+    assertEquals(empty + ": empty file: expected a header line",
+        assertThrows(InputFormatException.class, () -> readAll(empty)).getMessage());
+    Path missing = dir.resolve("none.csv");
+    assertEquals(missing + ": file not found",
+        assertThrows(InputFormatException.class, () -> readAll(missing)).getMessage());
+    Path ragged = IngestFiles.write(dir, "r.csv", "a,b\n1,2\n3\n");
+    assertEquals(ragged + ", line 3: found 1 fields, expected 2 as in the header",
+        assertThrows(InputFormatException.class, () -> readAll(ragged)).getMessage());
+  }
+
+  @Test
+  void shouldReturnNullAtEnd() {
+    Path file = IngestFiles.write(dir, "h.csv", "a\n");
+    try (CsvSource source = CsvSource.open(file)) {
+      assertArrayEquals(new String[] {"a"}, source.readHeader());
+      assertNull(source.next());
+    }
+  }
+}

@@ -1,0 +1,166 @@
+package org.lagmill.ingest;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+
+import java.nio.file.Path;
+import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.Collections;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Random;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.memory.MemoryBudget;
+import org.lagmill.store.SalesHistory;
+
+class LongSalesReaderTest {
+  private static final long MASTER_SEED = 0x10A65L;
+  private static final int U = SalesHistory.UNKNOWN_UNITS;
+
+  @TempDir Path dir;
+
+  @BeforeAll
+  static void createTempRoot() {
+    IngestFiles.ensureTempRoot();
+  }
+
+  /** Collects what the reader hands out, copying the reused arrays. */
+  private static final class Collected implements SeriesSink {
+    final Map<String, int[]> unitsBySeries = new LinkedHashMap<>();
+    LongSalesHeader begun;
+
+    @Override public void begin(LongSalesHeader header) { begun = header; }
+
+    @Override
+    public void accept(String[] attributeValues, int[] units) {
+      unitsBySeries.put(String.join("/", attributeValues), units.clone());
+    }
+  }
+
+  private Collected read(Path file) {
+    Collected sink = new Collected();
+    try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
+      LongSalesHeader header = LongSalesReader.read(file, "date", "units", budget, sink);
+      assertEquals(header, sink.begun);
+    }
+    return sink;
+  }
+
+  @Test
+  void shouldFillUnknownDaysBetweenFirstAndLastDate() {
+    Collected c = read(IngestFiles.write(dir, "s.csv", "item,store,date,units\n"
+        + "oat_bar,north_1,2024-03-03,5\n"
+        + "tea_tin,north_1,2024-03-01,0\n"
+        + "oat_bar,north_1,2024-03-01,2\n"
+        + "tea_tin,north_1,2024-03-04,\n"));
+    assertEquals(new LongSalesHeader(List.of("item", "store"), LocalDate.of(2024, 3, 1), 4, 2), c.begun);
+    assertEquals(List.of("oat_bar/north_1", "tea_tin/north_1"), new ArrayList<>(c.unitsBySeries.keySet()));
+    assertArrayEquals(new int[] {2, U, 5, U}, c.unitsBySeries.get("oat_bar/north_1"));
+    assertArrayEquals(new int[] {0, U, U, U}, c.unitsBySeries.get("tea_tin/north_1"));
+  }
+
+  @Test
+  void shouldNameSeriesBySeriesIdAndCheckItsAttributes() {
+    Collected c = read(IngestFiles.write(dir, "s.csv", "series_id,item,date,units\na,oat_bar,2024-03-01,1\n"
+        + "a,oat_bar,2024-03-02,2\n"));
+    assertArrayEquals(new int[] {1, 2}, c.unitsBySeries.get("a/oat_bar"));
+    assertEquals("F, line 3, column 2: series a has item=tea_tin: expected item=oat_bar as on line 2",
+        error("series_id,item,date,units\na,oat_bar,2024-03-01,1\na,tea_tin,2024-03-02,2\n"));
+  }
+
+  private String error(String text) {
+    Path file = IngestFiles.write(dir, "bad.csv", text);
+    try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
+      return assertThrows(InputFormatException.class,
+          () -> LongSalesReader.read(file, "date", "units", budget, new Collected())).getMessage()
+          .replace(file.toString(), "F");
+    }
+  }
+
+  @Test
+  void shouldReportEveryErrorExactly() {
+    assertEquals("F, line 5: duplicate row for series oat_bar on 2024-03-01: lines 2 and 5, expected one row per"
+        + " series and date", error("item,date,units\noat_bar,2024-03-01,1\ntea_tin,2024-03-01,1\n"
+        + "oat_bar,2024-03-02,1\noat_bar,2024-03-01,3\n"));
+    assertEquals("F, line 3: duplicate row for series oat_bar/north_1 on 2024-03-01: lines 2 and 3, expected one"
+        + " row per series and date", error("item,store,date,units\noat_bar,north_1,2024-03-01,\n"
+        + "oat_bar,north_1,2024-03-01,4\n"));
+    for (String units : new String[] {"-3", "1.5", "x", "+2"}) {
+      assertEquals("F, line 2, column 3: units '" + units + "': expected a non-negative integer or an empty cell",
+          error("item,date,units\noat_bar,2024-03-01," + units + "\n"));
+    }
+    assertEquals("F, line 2, column 3: units '2147483648': expected an integer at most 2147483647",
+        error("item,date,units\noat_bar,2024-03-01,2147483648\n"));
+    assertEquals("F, line 1: no column 'date' in header item,day,units: expected one (or name it with"
+        + " --date-column)", error("item,day,units\n"));
+    assertEquals("F, line 1: no column 'units' in header item,date,qty: expected one (or name it with"
+        + " --units-column)", error("item,date,qty\n"));
+    assertEquals("F: empty file: expected a header line", error(""));
+    assertEquals("F: no sales rows: expected at least one row after the header", error("item,date,units\n"));
+    assertEquals("F, line 2, column 2: date '20240301': expected an ISO date like 2024-03-05",
+        error("item,date,units\noat_bar,20240301,1\n"));
+    assertEquals("F, line 1: no attribute columns: expected at least one column naming the series besides 'date'"
+        + " and 'units'", error("date,units\n2024-03-01,1\n"));
+  }
+
+  @Test
+  void shouldMatchReferenceOnRandomShuffledFiles() {
+    Random master = new Random(MASTER_SEED);
+    for (int round = 0; round < 30; round++) {
+      long seed = master.nextLong();
+      Random random = new Random(seed);
+      String message = "master seed " + MASTER_SEED + ", round " + round + ", seed " + seed;
+      LocalDate start = LocalDate.of(2023, 12, 20).plusDays(random.nextInt(30));
+      int seriesCount = 1 + random.nextInt(8);
+      int dayCount = 2 + random.nextInt(40);
+      // Reference: a plain map from "item/store" to its units per day, UNKNOWN where no row was written.
+      Map<String, int[]> expected = new LinkedHashMap<>();
+      List<String> rows = new ArrayList<>();
+      for (int s = 0; s < seriesCount; s++) {
+        int[] units = new int[dayCount];
+        for (int d = 0; d < dayCount; d++) {
+          int kind = random.nextInt(10);
+          units[d] = kind < 2 ? U : kind < 4 ? 0 : random.nextInt(kind == 9 ? 100_000 : 20);
+          if (units[d] != U || random.nextInt(4) == 0) {
+            rows.add("item" + s + ",store" + (s % 3) + "," + start.plusDays(d) + "," + (units[d] == U ? ""
+                : units[d]));
+          }
+        }
+        expected.put("item" + s + "/store" + (s % 3), units);
+      }
+      // Make sure the first and last day appear so the date range is known to the reference.
+      rows.add("anchor,x," + start + ",1");
+      rows.add("anchor,x," + start.plusDays(dayCount - 1) + ",2");
+      int[] anchor = new int[dayCount];
+      Arrays.fill(anchor, U);
+      anchor[0] = 1;
+      anchor[dayCount - 1] = 2;
+      expected.put("anchor/x", anchor);
+      Collections.shuffle(rows, random);
+      StringBuilder text = new StringBuilder("item,store,date,units\n");
+      rows.forEach(r -> text.append(r).append('\n'));
+      Collected c = read(IngestFiles.write(dir, "r" + round + (round % 2 == 0 ? ".csv" : ".csv.gz"),
+          text.toString()));
+      assertEquals(start, c.begun.firstDate(), message);
+      assertEquals(dayCount, c.begun.dayCount(), message);
+      int seriesWithRows = 0;
+      for (Map.Entry<String, int[]> e : expected.entrySet()) {
+        boolean anyRow = false;
+        for (String r : rows) {
+          anyRow |= r.startsWith(e.getKey().replace('/', ',') + ",");
+        }
+        if (anyRow) {
+          seriesWithRows++;
+          assertArrayEquals(e.getValue(), c.unitsBySeries.get(e.getKey()), message + ", series " + e.getKey());
+        }
+      }
+      assertEquals(seriesWithRows, c.begun.seriesCount(), message);
+    }
+  }
+}
