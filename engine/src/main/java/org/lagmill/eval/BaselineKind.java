@@ -1,0 +1,54 @@
+package org.lagmill.eval;
+
+/**
+ * Simple per-series forecasts that a model must beat. Every kernel reads days {@code firstUsableDay .. originDay-1} of
+ * a unit array, skips unknown days (negative values, {@link org.lagmill.store.SalesHistory#UNKNOWN_UNITS}), starts at
+ * the first day with a sale (pre-launch zeros are not demand), and forecasts 0 when nothing sold. Forecasts are never
+ * negative. Rules and parameters: docs/metrics.md, section "Baselines".
+ */
+public enum BaselineKind {
+  /** Last known value. */
+  NAIVE,
+  /** Value of the same weekday in the latest week with a known value; the naive value when there is none. */
+  SEASONAL_NAIVE,
+  /** Mean of the known days among the last {@link BaselineKernels#MOVING_AVERAGE_DAYS} days. */
+  MOVING_AVERAGE,
+  /** Simple exponential smoothing, alpha chosen per series from a small grid by in-sample one-step squared error. */
+  SES,
+  /** Croston's method, alpha {@link BaselineKernels#CROSTON_ALPHA} for sizes and intervals. */
+  CROSTON,
+  /** Croston with the Syntetos–Boylan bias correction (1 − alpha/2). */
+  SBA;
+
+  /**
+   * Writes {@code horizon} forecasts for days {@code originDay ..} into {@code dst[dstOffset ..]}; allocates nothing.
+   *
+   * @param units daily units from day 0, at least {@code originDay} long; negative values are unknown days
+   * @param firstUsableDay first day the kernel may read, {@code 0 .. originDay}
+   */
+  public void forecast(int[] units, int firstUsableDay, int originDay, int horizon, double[] dst, int dstOffset) {
+    if (firstUsableDay < 0 || firstUsableDay > originDay || originDay > units.length) {
+      throw new IllegalArgumentException("need 0 <= firstUsableDay (" + firstUsableDay + ") <= originDay ("
+          + originDay + ") <= units.length (" + units.length + ")");
+    }
+    if (horizon < 0 || dstOffset < 0 || dstOffset + horizon > dst.length) {
+      throw new IllegalArgumentException("horizon " + horizon + " at offset " + dstOffset + " does not fit dst of "
+          + dst.length);
+    }
+    switch (this) {
+      case NAIVE -> BaselineKernels.naive(units, firstUsableDay, originDay, horizon, dst, dstOffset);
+      case SEASONAL_NAIVE -> BaselineKernels.seasonalNaive(units, firstUsableDay, originDay, horizon, dst, dstOffset);
+      case MOVING_AVERAGE -> BaselineKernels.movingAverage(units, firstUsableDay, originDay, horizon, dst, dstOffset);
+      case SES -> BaselineKernels.ses(units, firstUsableDay, originDay, horizon, dst, dstOffset);
+      case CROSTON -> BaselineKernels.croston(units, firstUsableDay, originDay, horizon, dst, dstOffset, false);
+      case SBA -> BaselineKernels.croston(units, firstUsableDay, originDay, horizon, dst, dstOffset, true);
+    }
+  }
+
+  /** As {@link #forecast(int[], int, int, int, double[], int)} into a new array. */
+  public double[] forecast(int[] units, int firstUsableDay, int originDay, int horizon) {
+    double[] result = new double[horizon];
+    forecast(units, firstUsableDay, originDay, horizon, result, 0);
+    return result;
+  }
+}

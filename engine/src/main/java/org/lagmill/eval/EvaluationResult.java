@@ -1,0 +1,46 @@
+package org.lagmill.eval;
+
+import java.util.List;
+
+/**
+ * The scores of one forecast at one origin, as plain records that serialise with jackson. Formulas: docs/metrics.md.
+ *
+ * @param originDay first forecast day (day index)
+ * @param horizon forecast days scored
+ * @param weightBasis how weights were measured: sales value or, lacking prices, unit volume
+ * @param wrmsse mean over levels of the weighted RMSSE
+ * @param wspl mean over levels of the weighted scaled pinball loss; null when no quantile forecasts were given
+ * @param unknownActualCount bottom series-days in the horizon whose actual units were unknown (scored as 0)
+ * @param unknownTrainingCount bottom series-days before the origin whose units were unknown (counted as 0)
+ */
+public record EvaluationResult(int originDay, int horizon, String weightBasis, double wrmsse, Double wspl,
+    List<LevelResult> levels, List<HorizonDayError> horizonDays, long unknownActualCount, long unknownTrainingCount) {
+
+  public EvaluationResult {
+    levels = List.copyOf(levels);
+    horizonDays = List.copyOf(horizonDays);
+  }
+
+  /**
+   * One level's scores.
+   *
+   * @param wrmsseContribution {@code weightedRmsse / levelCount}: this level's share of {@code wrmsse}
+   * @param weightedRmsse Σ weight × RMSSE over the level's aggregates
+   * @param mae mean absolute error in units over aggregates and horizon days
+   * @param bias mean of (forecast − actual) in units over aggregates and horizon days
+   * @param excludedCount aggregates given weight 0 because their scale is 0 or undefined
+   * @param weightedSpl Σ weight × SPL, null without quantile forecasts
+   */
+  public record LevelResult(String name, int aggregateCount, double wrmsseContribution, double weightedRmsse,
+      double mae, double bias, int excludedCount, Double weightedSpl) {}
+
+  /**
+   * Errors on one horizon day.
+   *
+   * @param dayOffset 0 for the origin day
+   * @param weightedScaledError mean over levels of Σ weight × |actual − forecast| / sqrt(squared scale): the RMSSE of
+   *     that single day, weighted as WRMSSE is
+   * @param finestLevelMae mean absolute error in units over the aggregates of the level with the most aggregates
+   */
+  public record HorizonDayError(int dayOffset, double weightedScaledError, double finestLevelMae) {}
+}

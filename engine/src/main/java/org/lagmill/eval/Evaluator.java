@@ -1,0 +1,153 @@
+package org.lagmill.eval;
+
+import java.util.ArrayList;
+import java.util.List;
+import org.lagmill.store.SalesHistory;
+
+/**
+ * Scores forecasts of a history's bottom series against its actuals on every level of a hierarchy: WRMSSE, per-level
+ * MAE and bias, per-day errors and, given quantile forecasts, WSPL. Bottom forecasts are summed up the hierarchy
+ * (bottom-up reconciliation). Formulas and sources: docs/metrics.md.
+ *
+ * <p>Usage: {@code new Evaluator(history, Hierarchy.parse(List.of("region>store", "category>item")))
+ * .evaluate(originDay, forecasts)}. Not thread-safe (one aggregator buffer); use one evaluator per thread.
+ */
+public final class Evaluator {
+  /** Days before the origin whose sales set the weights, as in the published rules. */
+  public static final int DEFAULT_WEIGHT_DAYS = 28;
+
+  private final SalesHistory history;
+  private final Aggregator aggregator;
+  private final int weightDayCount;
+
+  public Evaluator(SalesHistory history, Hierarchy hierarchy) {
+    this(history, hierarchy.bind(history), DEFAULT_WEIGHT_DAYS);
+  }
+
+  /** @param levels levels bound to this history; @param weightDayCount days before the origin that set the weights */
+  public Evaluator(SalesHistory history, List<Level> levels, int weightDayCount) {
+    this.history = history;
+    this.aggregator = new Aggregator(levels);
+    this.weightDayCount = weightDayCount;
+    if (aggregator.seriesCount() != history.seriesCount()) {
+      throw new IllegalArgumentException("levels cover " + aggregator.seriesCount() + " series, history has "
+          + history.seriesCount());
+    }
+  }
+
+  public Aggregator aggregator() {
+    return aggregator;
+  }
+
+  /** Scales and weights for an origin; compute once and reuse for several forecasts of the same origin. */
+  public OriginStatistics statistics(int originDay) {
+    return OriginStatistics.compute(history, aggregator, originDay, weightDayCount);
+  }
+
+  /** @param bottomForecasts {@code [seriesIndex][dayOffset]} from the origin day on */
+  public EvaluationResult evaluate(int originDay, double[][] bottomForecasts) {
+    return evaluate(statistics(originDay), aggregator.aggregateForecasts(bottomForecasts), null);
+  }
+
+  /**
+   * Scores forecasts of every aggregate (e.g. from {@link Aggregator#aggregateForecasts}) and optional quantiles.
+   *
+   * @param quantiles may be null; when given, its horizon must equal the forecasts'
+   */
+  public EvaluationResult evaluate(OriginStatistics statistics, AggregateTable forecasts, QuantileForecasts quantiles) {
+    int origin = statistics.originDay();
+    int horizon = forecasts.dayCount();
+    if (horizon < 1 || origin + horizon > history.dayCount()) {
+      throw new IllegalArgumentException("horizon " + horizon + " from origin " + origin + " needs actuals up to day "
+          + (origin + horizon - 1) + ", history ends at day " + (history.dayCount() - 1));
+    }
+    if (quantiles != null && (quantiles.horizon() != horizon
+        || quantiles.table(0).levelCount() != forecasts.levelCount())) {
+      throw new IllegalArgumentException("quantiles cover " + quantiles.table(0).levelCount() + " levels x "
+          + quantiles.horizon() + " days; forecasts cover " + forecasts.levelCount() + " levels x " + horizon);
+    }
+    if (forecasts.levelCount() != aggregator.levels().size()) {
+      throw new IllegalArgumentException("forecasts cover " + forecasts.levelCount() + " levels, expected "
+          + aggregator.levels().size());
+    }
+    AggregateTable actuals = aggregator.aggregateActuals(history, origin, horizon);
+    List<Level> levels = aggregator.levels();
+    int levelCount = levels.size();
+    int finest = 0;
+    for (int l = 1; l < levelCount; l++) {
+      if (levels.get(l).aggregateCount() > levels.get(finest).aggregateCount()) {
+        finest = l;
+      }
+    }
+    double[] dayScaledError = new double[horizon];
+    double[] finestDayAbsError = new double[horizon];
+    List<EvaluationResult.LevelResult> levelResults = new ArrayList<>();
+    double wrmsse = 0;
+    double wspl = 0;
+    for (int l = 0; l < levelCount; l++) {
+      double[] y = actuals.levelValues(l);
+      double[] f = forecasts.levelValues(l);
+      int aggregateCount = levels.get(l).aggregateCount();
+      double weightedRmsse = 0;
+      double weightedSpl = 0;
+      double absSum = 0;
+      double biasSum = 0;
+      for (int g = 0; g < aggregateCount; g++) {
+        int base = g * horizon;
+        double squaredSum = 0;
+        for (int k = 0; k < horizon; k++) {
+          double e = f[base + k] - y[base + k];
+          squaredSum += e * e;
+          absSum += Math.abs(e);
+          biasSum += e;
+          if (l == finest) {
+            finestDayAbsError[k] += Math.abs(e);
+          }
+        }
+        double w = statistics.weight(l, g);
+        if (w == 0) {
+          continue;
+        }
+        double scale = statistics.squaredScale(l, g);
+        weightedRmsse += w * Math.sqrt(squaredSum / horizon / scale);
+        double rootScale = Math.sqrt(scale);
+        for (int k = 0; k < horizon; k++) {
+          dayScaledError[k] += w * Math.abs(f[base + k] - y[base + k]) / rootScale;
+        }
+        if (quantiles != null) {
+          weightedSpl += w * scaledPinball(quantiles, l, g, y, base, horizon, statistics.absoluteScale(l, g));
+        }
+      }
+      double cells = (double) aggregateCount * horizon;
+      levelResults.add(new EvaluationResult.LevelResult(levels.get(l).name(), aggregateCount,
+          weightedRmsse / levelCount, weightedRmsse, absSum / cells, biasSum / cells, statistics.excludedCount(l),
+          quantiles == null ? null : weightedSpl));
+      wrmsse += weightedRmsse;
+      wspl += weightedSpl;
+    }
+    List<EvaluationResult.HorizonDayError> days = new ArrayList<>();
+    for (int k = 0; k < horizon; k++) {
+      days.add(new EvaluationResult.HorizonDayError(k, dayScaledError[k] / levelCount,
+          finestDayAbsError[k] / levels.get(finest).aggregateCount()));
+    }
+    return new EvaluationResult(origin, horizon, statistics.weightBasis().name(), wrmsse / levelCount,
+        quantiles == null ? null : wspl / levelCount, levelResults, days, actuals.unknownCount(),
+        statistics.unknownTrainingCount());
+  }
+
+  /** SPL of one aggregate: mean over quantile levels of (1/h) Σ pinball / absolute scale. */
+  private static double scaledPinball(QuantileForecasts quantiles, int levelIndex, int aggregateIndex, double[] y,
+      int base, int horizon, double absoluteScale) {
+    double total = 0;
+    for (int q = 0; q < quantiles.quantileCount(); q++) {
+      double tau = quantiles.quantileLevel(q);
+      double[] values = quantiles.table(q).levelValues(levelIndex);
+      double sum = 0;
+      for (int k = 0; k < horizon; k++) {
+        sum += SeriesMetrics.pinball(tau, y[base + k], values[aggregateIndex * horizon + k]);
+      }
+      total += sum / horizon / absoluteScale;
+    }
+    return total / quantiles.quantileCount();
+  }
+}
