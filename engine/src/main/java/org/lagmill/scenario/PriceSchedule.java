@@ -15,7 +15,7 @@ final class PriceSchedule {
   /** Regional price level (Northvale, Saltmarsh, Highmoor). */
   static final double[] REGION_PRICE_LEVEL = {1.00, 1.03, 0.97};
   static final int MIN_PRICE_CENTS = 19;
-  private static final long PRICE_RISE = 0x5851_F42D_4C95_7F2DL;
+  private static final long PRICE_RISE = 0x5851F42D4C957F2DL;
 
   private final int dayCount;
   /** Price on each day in cents; 0 before launch (no price). */
