@@ -20,7 +20,7 @@ import picocli.CommandLine.Spec;
     description = {"Writes an invented retail scenario: wide daily sales per item-store series, a calendar with events",
         "and per-region paydays, and price change points with promotions. Same arguments, same bytes."},
     footer = {"", "Example:", "  lagmill generate --out demo-data --series 3000 --days 1095 --seed 7",
-        "  writes demo-data/sales.csv, calendar.csv and prices.csv (three years, 10 stores, 300 items)"})
+        "  (three years of 300 items in 10 stores: sales.csv, calendar.csv, prices.csv)"})
 public final class GenerateCommand implements Callable<Integer> {
   @Spec
   CommandSpec spec;
