@@ -1,0 +1,64 @@
+package org.lagmill.scenario;
+
+import java.time.LocalDate;
+
+/**
+ * What to generate: {@code seriesCount} item-store series of {@code dayCount} sales days from {@code startDate}, with
+ * calendar and prices reaching {@code futureDayCount} days further so a forecast can read its horizon.
+ *
+ * @param seriesCount number of item-store series, 1 .. {@value #MAX_SERIES_COUNT}
+ * @param dayCount number of sales days, 1 .. {@value #MAX_DAY_COUNT}
+ * @param startDate the first sales day, years {@value #MIN_YEAR} .. {@value #MAX_YEAR}
+ * @param seed master seed; equal specs give byte-identical files
+ * @param futureDayCount days of calendar and prices past the last sales day, 0 .. {@value #MAX_FUTURE_DAY_COUNT}
+ * @param gzip whether files are written gzip-compressed with a {@code .gz} suffix
+ */
+public record ScenarioSpec(int seriesCount, int dayCount, LocalDate startDate, long seed, int futureDayCount,
+    boolean gzip) {
+  public static final int MAX_SERIES_COUNT = 50_000_000;
+  public static final int MAX_DAY_COUNT = 36_600;
+  public static final int MAX_FUTURE_DAY_COUNT = 3_660;
+  public static final int MIN_YEAR = 1900;
+  public static final int MAX_YEAR = 2200;
+  public static final LocalDate DEFAULT_START_DATE = LocalDate.of(2023, 1, 2);
+  public static final long DEFAULT_SEED = 42L;
+  public static final int DEFAULT_FUTURE_DAY_COUNT = 28;
+
+  public ScenarioSpec {
+    if (seriesCount < 1 || seriesCount > MAX_SERIES_COUNT) {
+      throw new IllegalArgumentException("series count must be in [1, " + MAX_SERIES_COUNT + "], got " + seriesCount
+          + "; hint: --series 600 gives a small demo");
+    }
+    if (dayCount < 1 || dayCount > MAX_DAY_COUNT) {
+      throw new IllegalArgumentException("day count must be in [1, " + MAX_DAY_COUNT + "], got " + dayCount
+          + "; hint: --days 730 gives two years of history");
+    }
+    if (futureDayCount < 0 || futureDayCount > MAX_FUTURE_DAY_COUNT) {
+      throw new IllegalArgumentException("future day count must be in [0, " + MAX_FUTURE_DAY_COUNT + "], got "
+          + futureDayCount + "; hint: use the forecast horizon, e.g. --future-days 28");
+    }
+    if (startDate == null) {
+      throw new IllegalArgumentException("start date is missing; hint: e.g. --start " + DEFAULT_START_DATE);
+    }
+    LocalDate lastDate = startDate.plusDays((long) dayCount + futureDayCount - 1);
+    if (startDate.getYear() < MIN_YEAR || lastDate.getYear() > MAX_YEAR) {
+      throw new IllegalArgumentException("dates must lie in years [" + MIN_YEAR + ", " + MAX_YEAR + "], got "
+          + startDate + " .. " + lastDate + "; hint: pick a start date such as " + DEFAULT_START_DATE);
+    }
+  }
+
+  /** A spec with the default start date, seed and future days, plain (not gzipped) files. */
+  public static ScenarioSpec of(int seriesCount, int dayCount) {
+    return new ScenarioSpec(seriesCount, dayCount, DEFAULT_START_DATE, DEFAULT_SEED, DEFAULT_FUTURE_DAY_COUNT, false);
+  }
+
+  /** Days covered by the calendar and prices: sales days plus future days. */
+  public int calendarDayCount() {
+    return dayCount + futureDayCount;
+  }
+
+  /** Number of sales cells written: series times sales days. */
+  public long itemDayCount() {
+    return (long) seriesCount * dayCount;
+  }
+}

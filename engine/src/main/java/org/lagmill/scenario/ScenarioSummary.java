@@ -1,0 +1,19 @@
+package org.lagmill.scenario;
+
+import java.nio.file.Path;
+import java.util.List;
+
+/**
+ * What one {@link ScenarioGenerator#write} produced.
+ *
+ * @param files the files written, in the order sales, calendar, prices
+ * @param seriesCount number of sales rows
+ * @param dayCount number of sales days per row
+ * @param itemDayCount sales cells written (series times days)
+ * @param fileBytes total size of the files on disk in bytes (compressed size when gzipped)
+ */
+public record ScenarioSummary(List<Path> files, int seriesCount, int dayCount, long itemDayCount, long fileBytes) {
+  public ScenarioSummary {
+    files = List.copyOf(files);
+  }
+}
