@@ -21,7 +21,7 @@ import java.util.List;
 /**
  * Reads and writes a {@link FeatureSpec} as YAML (docs/configuration.md lists every key). Keys left out keep their
  * defaults; an unknown key, a wrong type or an invalid value raises {@link IllegalArgumentException} naming the file
- * and, where known, the line and column.
+ * and, where known, the line.
  */
 public final class FeatureSpecYaml {
   static final List<String> KEYS = List.of("horizonDays", "strategy", "lagDays", "rollingWindowDays",
@@ -80,7 +80,8 @@ public final class FeatureSpecYaml {
     if (location == null || location.getLineNr() < 1) {
       return source + ": ";
     }
-    return source + " line " + location.getLineNr() + ", column " + location.getColumnNr() + ": ";
+    // Jackson places the location after the offending token, so only the line is reliable enough to print
+    return source + " line " + location.getLineNr() + ": ";
   }
 
   /** The file's shape; null fields keep the defaults. */
