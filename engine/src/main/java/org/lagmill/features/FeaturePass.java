@@ -1,0 +1,313 @@
+package org.lagmill.features;
+
+import java.time.LocalDate;
+import java.time.temporal.ChronoUnit;
+import java.util.ArrayList;
+import java.util.List;
+import org.lagmill.store.SalesHistory;
+import org.lagmill.store.SeriesAttributes;
+
+/**
+ * Streams feature rows of a {@link SalesHistory} under a {@link FeatureSpec}: series by series in the order of the
+ * selection, each series' rows by ascending day. Each series' units (and prices) are read once into buffers sized once
+ * per pass, then every feature family ({@link FeatureKernel}) fills its columns with running state, so nothing is
+ * allocated per row or per series.
+ *
+ * <p>Two row selections:
+ * <ul>
+ *   <li>{@link #training}: every series, days of a window, label = units; rows whose units are unknown are skipped,
+ *       and with {@link FeatureSpec#skipPreLaunch()} a series' rows start at its first sale plus the longest lag;
+ *   <li>{@link #prediction}: chosen series, a run of target days that may pass the end of the history; the label is the
+ *       units when known and NaN otherwise, and no row is skipped.
+ * </ul>
+ * Features read units only from days before the history's {@link SalesHistory#dayCount()}; a recursive forecaster
+ * writes its predictions into a scratch {@code ArraySalesHistory} copy to make later days readable.
+ *
+ * <p>{@link #rowCount()} is exact and known at construction; streaming again yields the same rows in the same order.
+ * Not thread-safe: one {@link #stream} at a time.
+ */
+public final class FeaturePass implements RowStream {
+  private final SalesHistory history;
+  private final FeatureSpec spec;
+  private final boolean training;
+  private final int[] seriesIndexes;
+  private final int firstDayIndex;
+  private final int lastDayIndex;
+  private final float[] weightBySeries;
+  private final List<FeatureKernel> kernels = new ArrayList<>();
+  private final int[] firstFeatureIndexes;
+  private final FeatureSchema schema;
+  private final boolean withPrices;
+  private final SeriesContext context;
+  private final int[] rowDays;
+  private final float[] rowLabels;
+  private final long rowCount;
+  private final long tableHeapBytes;
+
+  private FeaturePass(SalesHistory history, FeatureSpec spec, boolean training, int[] seriesIndexes, int firstDayIndex,
+      int lastDayIndex, float[] weightBySeries) {
+    this.history = history;
+    this.spec = spec;
+    this.training = training;
+    this.seriesIndexes = seriesIndexes;
+    this.firstDayIndex = firstDayIndex;
+    this.lastDayIndex = lastDayIndex;
+    this.weightBySeries = weightBySeries;
+    int dayCount = history.dayCount();
+    for (int window : spec.rollingWindowDays()) {
+      if (window > dayCount) {
+        throw new IllegalArgumentException("rolling window " + window + " days is longer than the history of "
+            + dayCount + " days; use windows of at most " + dayCount + " days");
+      }
+    }
+    SeriesAttributes attributes = history.attributes();
+    int endDayIndex = Math.max(firstDayIndex, lastDayIndex + 1);
+    this.withPrices = !history.prices().isEmpty() && !spec.priceFeatures().isEmpty();
+    addKernel(new LagKernel(spec.lagDays()));
+    addKernel(new RollingKernel(spec.rollingWindowDays(), spec.rollingShiftDays(), spec.rollingStats()));
+    CalendarKernel calendar = new CalendarKernel(history, spec.calendarFeatures(), spec.calendarColumns(),
+        firstDayIndex, endDayIndex);
+    addKernel(calendar);
+    long tables = 4L * spec.calendarFeatures().size() * (endDayIndex - firstDayIndex);
+    if (withPrices) {
+      PriceKernel price = new PriceKernel(history, spec.priceFeatures(), priceGroupAttributes(spec, attributes),
+          firstDayIndex, endDayIndex);
+      addKernel(price);
+      tables += price.heapBytes();
+    }
+    addKernel(new SeriesKernel(attributes, categoricalAttributes(spec, attributes), spec.seriesFeatures(),
+        spec.shortestShiftDays()));
+    List<String> names = new ArrayList<>();
+    List<Boolean> categorical = new ArrayList<>();
+    firstFeatureIndexes = new int[kernels.size()];
+    for (int k = 0; k < kernels.size(); k++) {
+      firstFeatureIndexes[k] = names.size();
+      kernels.get(k).describe(names, categorical);
+    }
+    if (names.isEmpty()) {
+      throw new IllegalArgumentException("the feature spec selects no feature for this history; enable lags, rolling"
+          + " windows, calendar, price or series features");
+    }
+    this.schema = new FeatureSchema(names, categorical);
+    this.context = new SeriesContext(dayCount, withPrices ? endDayIndex : 0, attributes.attributeCount());
+    this.rowDays = new int[Math.max(0, endDayIndex - firstDayIndex)];
+    this.rowLabels = new float[rowDays.length];
+    this.tableHeapBytes = tables;
+    long rows = 0;
+    for (int s : seriesIndexes) {
+      rows += selectRows(s);
+    }
+    this.rowCount = rows;
+  }
+
+  /**
+   * Training rows of every series over days {@code [firstDayIndex, lastDayIndex]} intersected with the spec's
+   * {@code fromDate}/{@code untilDate}.
+   *
+   * @param lastDayIndex inclusive, {@code < history.dayCount()}
+   */
+  public static FeaturePass training(SalesHistory history, FeatureSpec spec, int firstDayIndex, int lastDayIndex) {
+    if (firstDayIndex < 0 || lastDayIndex >= history.dayCount() || lastDayIndex < firstDayIndex) {
+      throw new IllegalArgumentException("training days [" + firstDayIndex + ", " + lastDayIndex
+          + "] are out of range: need 0 <= firstDayIndex <= lastDayIndex <= " + (history.dayCount() - 1)
+          + " (the history's last day)");
+    }
+    int first = firstDayIndex;
+    int last = lastDayIndex;
+    if (spec.fromDate() != null) {
+      first = (int) Math.max(first, dayIndexOf(history, spec.fromDate()));
+    }
+    if (spec.untilDate() != null) {
+      last = (int) Math.min(last, dayIndexOf(history, spec.untilDate()));
+    }
+    if (last < first) {
+      last = first - 1;
+    }
+    return new FeaturePass(history, spec, true, allSeries(history), first, last, null);
+  }
+
+  /** Training rows over the spec's window ({@code fromDate}..{@code untilDate}, the whole history by default). */
+  public static FeaturePass training(SalesHistory history, FeatureSpec spec) {
+    return training(history, spec, 0, history.dayCount() - 1);
+  }
+
+  /**
+   * Prediction rows: each listed series (in the given order) on days {@code [firstDayIndex, firstDayIndex + dayCount)},
+   * which may reach past the history's last day.
+   *
+   * @param seriesIndexes series to predict, or null for every series in index order
+   */
+  public static FeaturePass prediction(SalesHistory history, FeatureSpec spec, int[] seriesIndexes, int firstDayIndex,
+      int dayCount) {
+    if (firstDayIndex < 0 || dayCount < 1) {
+      throw new IllegalArgumentException("prediction days: firstDayIndex " + firstDayIndex + " and dayCount "
+          + dayCount + " are out of range: need firstDayIndex >= 0 and dayCount >= 1");
+    }
+    int[] series = seriesIndexes == null ? allSeries(history) : seriesIndexes.clone();
+    for (int s : series) {
+      if (s < 0 || s >= history.seriesCount()) {
+        throw new IllegalArgumentException("series index " + s + " is out of range [0, " + history.seriesCount()
+            + ")");
+      }
+    }
+    return new FeaturePass(history, spec, false, series, firstDayIndex, firstDayIndex + dayCount - 1, null);
+  }
+
+  /** The same rows with each row's weight taken from {@code weightBySeries[seriesIndex]} (default weight 1). */
+  public FeaturePass withSeriesWeights(float[] weightBySeries) {
+    if (weightBySeries.length != history.seriesCount()) {
+      throw new IllegalArgumentException("weightBySeries has " + weightBySeries.length + " entries, need one per"
+          + " series: " + history.seriesCount());
+    }
+    return new FeaturePass(history, spec, training, seriesIndexes, firstDayIndex, lastDayIndex,
+        weightBySeries.clone());
+  }
+
+  private static long dayIndexOf(SalesHistory history, LocalDate date) {
+    return ChronoUnit.DAYS.between(history.firstDate(), date);
+  }
+
+  private static int[] allSeries(SalesHistory history) {
+    int[] all = new int[history.seriesCount()];
+    for (int s = 0; s < all.length; s++) {
+      all[s] = s;
+    }
+    return all;
+  }
+
+  private static int[] priceGroupAttributes(FeatureSpec spec, SeriesAttributes attributes) {
+    List<String> names = spec.priceGroupAttributes();
+    if (names == null) {
+      for (String name : FeatureSpec.DEFAULT_PRICE_GROUP_ATTRIBUTES) {
+        if (attributes.attributeIndex(name) < 0) {
+          return new int[0];
+        }
+      }
+      names = FeatureSpec.DEFAULT_PRICE_GROUP_ATTRIBUTES;
+    }
+    return attributeIndexes("price group", names, attributes);
+  }
+
+  private static int[] categoricalAttributes(FeatureSpec spec, SeriesAttributes attributes) {
+    List<String> names = spec.categoricalAttributes();
+    if (names == null) {
+      List<Integer> all = new ArrayList<>();
+      for (int a = 0; a < attributes.attributeCount(); a++) {
+        if (!attributes.attributeName(a).equals(FeatureSpec.SERIES_ID_ATTRIBUTE)) {
+          all.add(a);
+        }
+      }
+      return all.stream().mapToInt(Integer::intValue).toArray();
+    }
+    return attributeIndexes("categorical", names, attributes);
+  }
+
+  private static int[] attributeIndexes(String what, List<String> names, SeriesAttributes attributes) {
+    int[] indexes = new int[names.size()];
+    for (int i = 0; i < indexes.length; i++) {
+      indexes[i] = attributes.attributeIndex(names.get(i));
+      if (indexes[i] < 0) {
+        List<String> known = new ArrayList<>();
+        for (int a = 0; a < attributes.attributeCount(); a++) {
+          known.add(attributes.attributeName(a));
+        }
+        throw new IllegalArgumentException(what + " attribute '" + names.get(i) + "' does not exist; the series have: "
+            + String.join(", ", known));
+      }
+    }
+    return indexes;
+  }
+
+  private void addKernel(FeatureKernel kernel) {
+    if (kernel.featureCount() > 0) {
+      kernels.add(kernel);
+    }
+  }
+
+  /**
+   * Loads series {@code s} into the context and fills {@link #rowDays}/{@link #rowLabels} with its rows.
+   *
+   * @return the series' row count
+   */
+  private int selectRows(int s) {
+    int first = firstDayIndex;
+    if (training && spec.skipPreLaunch()) {
+      int firstSale = history.firstSaleDayIndex(s);
+      if (firstSale == SalesHistory.NO_SALE) {
+        return 0;
+      }
+      first = (int) Math.max(first, (long) firstSale + spec.launchSkipDays());
+    }
+    if (first > lastDayIndex) {
+      return 0;
+    }
+    int dayCount = history.dayCount();
+    context.load(history, s, Math.min(dayCount, lastDayIndex + 1), lastDayIndex + 1, withPrices);
+    int[] units = context.units;
+    int rows = 0;
+    for (int day = first; day <= lastDayIndex; day++) {
+      int label = day < dayCount ? units[day] : SalesHistory.UNKNOWN_UNITS;
+      if (training && label < 0) {
+        continue;
+      }
+      rowDays[rows] = day;
+      rowLabels[rows] = label < 0 ? Float.NaN : label;
+      rows++;
+    }
+    return rows;
+  }
+
+  @Override
+  public FeatureSchema schema() {
+    return schema;
+  }
+
+  @Override
+  public long rowCount() {
+    return rowCount;
+  }
+
+  /** Heap bytes held for the whole pass: day tables, group mean prices and the per-series buffers. */
+  public long heapBytes() {
+    return tableHeapBytes + 4L * (context.units.length + context.prices.length + rowDays.length + rowLabels.length);
+  }
+
+  @Override
+  public void stream(FeatureBatch batch, BatchConsumer consumer) {
+    if (batch.featureCount() != schema.featureCount()) {
+      throw new IllegalArgumentException("batch has " + batch.featureCount() + " features, the schema has "
+          + schema.featureCount() + "; create the batch with schema().featureCount()");
+    }
+    batch.reset(0);
+    int kernelCount = kernels.size();
+    for (int s : seriesIndexes) {
+      int seriesRows = selectRows(s);
+      if (seriesRows == 0) {
+        continue;
+      }
+      float weight = weightBySeries == null ? 1f : weightBySeries[s];
+      for (int k = 0; k < kernelCount; k++) {
+        kernels.get(k).beginSeries(context);
+      }
+      int offset = 0;
+      while (offset < seriesRows) {
+        if (batch.isFull()) {
+          consumer.accept(batch);
+          batch.reset(batch.firstRowIndex() + batch.rowCount());
+        }
+        int batchRow = batch.rowCount();
+        int chunkRows = Math.min(seriesRows - offset, batch.capacityRows() - batchRow);
+        for (int i = 0; i < chunkRows; i++) {
+          batch.addRow(s, rowDays[offset + i], rowLabels[offset + i], weight);
+        }
+        for (int k = 0; k < kernelCount; k++) {
+          kernels.get(k).compute(context, batch, batchRow, rowDays, offset, chunkRows, firstFeatureIndexes[k]);
+        }
+        offset += chunkRows;
+      }
+    }
+    if (batch.rowCount() > 0) {
+      consumer.accept(batch);
+    }
+  }
+}

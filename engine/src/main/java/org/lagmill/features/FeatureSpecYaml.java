@@ -1,0 +1,181 @@
+package org.lagmill.features;
+
+import com.fasterxml.jackson.annotation.JsonAutoDetect;
+import com.fasterxml.jackson.annotation.JsonInclude;
+import com.fasterxml.jackson.annotation.JsonPropertyOrder;
+import com.fasterxml.jackson.core.JsonLocation;
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.DeserializationFeature;
+import com.fasterxml.jackson.databind.exc.UnrecognizedPropertyException;
+import com.fasterxml.jackson.dataformat.yaml.YAMLFactory;
+import com.fasterxml.jackson.dataformat.yaml.YAMLGenerator;
+import com.fasterxml.jackson.dataformat.yaml.YAMLMapper;
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.LocalDate;
+import java.time.format.DateTimeParseException;
+import java.util.List;
+
+/**
+ * Reads and writes a {@link FeatureSpec} as YAML (docs/configuration.md lists every key). Keys left out keep their
+ * defaults; an unknown key, a wrong type or an invalid value raises {@link IllegalArgumentException} naming the file
+ * and, where known, the line.
+ */
+public final class FeatureSpecYaml {
+  static final List<String> KEYS = List.of("horizonDays", "strategy", "lagDays", "rollingWindowDays",
+      "rollingShiftDays", "rollingStats", "calendarFeatures", "calendarColumns", "priceFeatures",
+      "priceGroupAttributes", "categoricalAttributes", "seriesFeatures", "fromDate", "untilDate", "skipPreLaunch");
+
+  private static final YAMLMapper MAPPER = YAMLMapper.builder(
+          YAMLFactory.builder().disable(YAMLGenerator.Feature.WRITE_DOC_START_MARKER).build())
+      .enable(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES)
+      .serializationInclusion(JsonInclude.Include.NON_NULL)
+      .build();
+
+  private FeatureSpecYaml() {}
+
+  /** Parses a spec file; an empty file gives the defaults. */
+  public static FeatureSpec read(Path file) throws IOException {
+    return parse(Files.readString(file), file.toString());
+  }
+
+  /** Parses spec text; {@code source} names it in error messages. */
+  public static FeatureSpec parse(String yaml, String source) {
+    if (yaml.isBlank()) {
+      return FeatureSpec.defaults();
+    }
+    Document doc;
+    try {
+      doc = MAPPER.readValue(yaml, Document.class);
+    } catch (UnrecognizedPropertyException e) {
+      throw new IllegalArgumentException(where(source, e.getLocation()) + "unknown key '" + e.getPropertyName()
+          + "'; allowed: " + String.join(", ", KEYS), e);
+    } catch (JsonProcessingException e) {
+      throw new IllegalArgumentException(where(source, e.getLocation()) + e.getOriginalMessage().lines().findFirst()
+          .orElse("unreadable YAML"), e);
+    }
+    try {
+      return doc == null ? FeatureSpec.defaults() : doc.toSpec();
+    } catch (IllegalArgumentException e) {
+      throw new IllegalArgumentException(source + ": " + e.getMessage(), e);
+    }
+  }
+
+  /** Writes every setting of {@code spec}, so the file documents the run. */
+  public static void write(FeatureSpec spec, Path file) throws IOException {
+    Files.writeString(file, format(spec));
+  }
+
+  public static String format(FeatureSpec spec) {
+    try {
+      return MAPPER.writeValueAsString(Document.of(spec));
+    } catch (JsonProcessingException e) {
+      throw new UncheckedIOException(e);
+    }
+  }
+
+  private static String where(String source, JsonLocation location) {
+    if (location == null || location.getLineNr() < 1) {
+      return source + ": ";
+    }
+    // Jackson places the location after the offending token, so only the line is reliable enough to print
+    return source + " line " + location.getLineNr() + ": ";
+  }
+
+  /** The file's shape; null fields keep the defaults. */
+  @JsonAutoDetect(fieldVisibility = JsonAutoDetect.Visibility.ANY)
+  @JsonPropertyOrder({"horizonDays", "strategy", "lagDays", "rollingWindowDays", "rollingShiftDays", "rollingStats",
+      "calendarFeatures", "calendarColumns", "priceFeatures", "priceGroupAttributes", "categoricalAttributes",
+      "seriesFeatures", "fromDate", "untilDate", "skipPreLaunch"})
+  static final class Document {
+    Integer horizonDays;
+    String strategy;
+    int[] lagDays;
+    int[] rollingWindowDays;
+    Integer rollingShiftDays;
+    List<String> rollingStats;
+    List<String> calendarFeatures;
+    Boolean calendarColumns;
+    List<String> priceFeatures;
+    List<String> priceGroupAttributes;
+    List<String> categoricalAttributes;
+    List<String> seriesFeatures;
+    String fromDate;
+    String untilDate;
+    Boolean skipPreLaunch;
+
+    static Document of(FeatureSpec spec) {
+      Document d = new Document();
+      d.horizonDays = spec.horizonDays();
+      d.strategy = spec.strategy().configName();
+      d.lagDays = spec.lagDays();
+      d.rollingWindowDays = spec.rollingWindowDays();
+      d.rollingShiftDays = spec.hasExplicitRollingShift() ? spec.rollingShiftDays() : null;
+      d.rollingStats = spec.rollingStats().stream().map(FeatureSpec.RollingStat::configName).toList();
+      d.calendarFeatures = spec.calendarFeatures().stream().map(FeatureSpec.CalendarFeature::configName).toList();
+      d.calendarColumns = spec.calendarColumns();
+      d.priceFeatures = spec.priceFeatures().stream().map(FeatureSpec.PriceFeature::configName).toList();
+      d.priceGroupAttributes = spec.priceGroupAttributes();
+      d.categoricalAttributes = spec.categoricalAttributes();
+      d.seriesFeatures = spec.seriesFeatures().stream().map(FeatureSpec.SeriesFeature::configName).toList();
+      d.fromDate = spec.fromDate() == null ? null : spec.fromDate().toString();
+      d.untilDate = spec.untilDate() == null ? null : spec.untilDate().toString();
+      d.skipPreLaunch = spec.skipPreLaunch();
+      return d;
+    }
+
+    FeatureSpec toSpec() {
+      FeatureSpec.Builder b = FeatureSpec.builder();
+      if (horizonDays != null) {
+        b.horizonDays(horizonDays);
+      }
+      if (strategy != null) {
+        b.strategy(FeatureSpec.Strategy.parse(strategy));
+      }
+      if (lagDays != null) {
+        b.lagDays(lagDays);
+      }
+      if (rollingWindowDays != null) {
+        b.rollingWindowDays(rollingWindowDays);
+      }
+      b.rollingShiftDays(rollingShiftDays);
+      if (rollingStats != null) {
+        b.rollingStatNames(rollingStats);
+      }
+      if (calendarFeatures != null) {
+        b.calendarFeatureNames(calendarFeatures);
+      }
+      if (calendarColumns != null) {
+        b.calendarColumns(calendarColumns);
+      }
+      if (priceFeatures != null) {
+        b.priceFeatureNames(priceFeatures);
+      }
+      b.priceGroupAttributes(priceGroupAttributes);
+      b.categoricalAttributes(categoricalAttributes);
+      if (seriesFeatures != null) {
+        b.seriesFeatureNames(seriesFeatures);
+      }
+      b.fromDate(date("fromDate", fromDate));
+      b.untilDate(date("untilDate", untilDate));
+      if (skipPreLaunch != null) {
+        b.skipPreLaunch(skipPreLaunch);
+      }
+      return b.build();
+    }
+
+    private static LocalDate date(String key, String text) {
+      if (text == null) {
+        return null;
+      }
+      try {
+        return LocalDate.parse(text);
+      } catch (DateTimeParseException e) {
+        throw new IllegalArgumentException(key + " '" + text + "' is not a date; write it as yyyy-mm-dd, e.g. 2024-01-31",
+            e);
+      }
+    }
+  }
+}

@@ -1,0 +1,86 @@
+package org.lagmill.features;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.LocalDate;
+import java.util.List;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.features.FeatureSpec.RollingStat;
+import org.lagmill.features.FeatureSpec.Strategy;
+
+class FeatureSpecYamlTest {
+  @BeforeAll
+  static void createTemporaryFolder() throws IOException {
+    // surefire points java.io.tmpdir at a per-fork folder that it does not create
+    Files.createDirectories(Path.of(System.getProperty("java.io.tmpdir")));
+  }
+
+  @Test
+  void shouldReadEveryKey(@TempDir Path dir) throws IOException {
+    Path file = dir.resolve("features.yaml");
+    Files.writeString(file, String.join("\n",
+        "horizonDays: 14",
+        "strategy: recursive",
+        "lagDays: [1, 7, 14]",
+        "rollingWindowDays: [7, 28]",
+        "rollingShiftDays: 1",
+        "rollingStats: [mean, std, zero_share]",
+        "calendarFeatures: [day_of_week, week_of_year]",
+        "calendarColumns: false",
+        "priceFeatures: [price, promo]",
+        "priceGroupAttributes: [store]",
+        "categoricalAttributes: [item, store]",
+        "seriesFeatures: [zero_run]",
+        "fromDate: 2023-01-02",
+        "untilDate: 2024-06-30",
+        "skipPreLaunch: false", ""));
+    FeatureSpec spec = FeatureSpecYaml.read(file);
+    FeatureSpec expected = FeatureSpec.builder().horizonDays(14).strategy(Strategy.RECURSIVE).lagDays(1, 7, 14)
+        .rollingWindowDays(7, 28).rollingShiftDays(1)
+        .rollingStats(List.of(RollingStat.MEAN, RollingStat.STD, RollingStat.ZERO_SHARE))
+        .calendarFeatures(List.of(FeatureSpec.CalendarFeature.DAY_OF_WEEK, FeatureSpec.CalendarFeature.WEEK_OF_YEAR))
+        .calendarColumns(false).priceFeatures(List.of(FeatureSpec.PriceFeature.PRICE, FeatureSpec.PriceFeature.PROMO))
+        .priceGroupAttributes(List.of("store")).categoricalAttributes(List.of("item", "store"))
+        .seriesFeatures(List.of(FeatureSpec.SeriesFeature.ZERO_RUN)).fromDate(LocalDate.of(2023, 1, 2))
+        .untilDate(LocalDate.of(2024, 6, 30)).skipPreLaunch(false).build();
+    assertEquals(expected, spec);
+  }
+
+  @Test
+  void shouldRoundTripAndGiveDefaultsForAnEmptyFile(@TempDir Path dir) throws IOException {
+    Path file = dir.resolve("spec.yaml");
+    FeatureSpec spec = FeatureSpec.defaults().withRollingStats(List.of(RollingStat.MAX, RollingStat.MEAN));
+    FeatureSpecYaml.write(spec, file);
+    assertEquals(spec, FeatureSpecYaml.read(file));
+    assertEquals(FeatureSpec.defaults(), FeatureSpecYaml.parse("", "empty.yaml"));
+    assertEquals(FeatureSpec.defaults(), FeatureSpecYaml.parse("horizonDays: 28\n", "min.yaml"));
+  }
+
+  @Test
+  void shouldNameAnUnknownKey() {
+    IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+        () -> FeatureSpecYaml.parse("horizonDays: 28\nlags: [28]\n", "features.yaml"));
+    assertEquals("features.yaml line 2: unknown key 'lags'; allowed: horizonDays, strategy, lagDays,"
+        + " rollingWindowDays, rollingShiftDays, rollingStats, calendarFeatures, calendarColumns, priceFeatures,"
+        + " priceGroupAttributes, categoricalAttributes, seriesFeatures, fromDate, untilDate, skipPreLaunch",
+        e.getMessage());
+  }
+
+  @Test
+  void shouldPrefixValidationErrorsWithTheFile() {
+    IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+        () -> FeatureSpecYaml.parse("rollingStats: [mean, median]\n", "features.yaml"));
+    assertEquals("features.yaml: unknown rolling statistic 'median'; allowed: mean, std, min, max, zero_share",
+        e.getMessage());
+    e = assertThrows(IllegalArgumentException.class,
+        () -> FeatureSpecYaml.parse("fromDate: 2024/01/31\n", "features.yaml"));
+    assertEquals("features.yaml: fromDate '2024/01/31' is not a date; write it as yyyy-mm-dd, e.g. 2024-01-31",
+        e.getMessage());
+  }
+}
