@@ -1,0 +1,232 @@
+package org.lagmill.learner;
+
+import com.microsoft.ml.lightgbm.SWIGTYPE_p_double;
+import com.microsoft.ml.lightgbm.SWIGTYPE_p_int;
+import com.microsoft.ml.lightgbm.SWIGTYPE_p_p_double;
+import com.microsoft.ml.lightgbm.SWIGTYPE_p_p_int;
+import com.microsoft.ml.lightgbm.SWIGTYPE_p_p_void;
+import com.microsoft.ml.lightgbm.SWIGTYPE_p_void;
+import com.microsoft.ml.lightgbm.lightgbmlib;
+import com.microsoft.ml.lightgbm.lightgbmlibConstants;
+import org.lagmill.features.FeatureBatch;
+import org.lagmill.features.FeatureSchema;
+import org.lagmill.features.RowStream;
+import org.lagmill.memory.MemoryBudget;
+import org.lagmill.memory.NativeFloatArray;
+import org.lagmill.memory.ProcessMemory;
+
+/**
+ * Builds LightGBM Datasets from a {@link RowStream} without ever holding the full feature matrix: one pass samples
+ * rows to place the bin boundaries, a second pass pushes row batches straight from the batch's native memory, then
+ * the Dataset is finished by hand and labels (and weights) are set.
+ *
+ * <p>Memory: the feature batch, the label and weight arrays and the sampled columns are reserved from the budget
+ * given here and freed before a build returns; LightGBM's binned Dataset itself lives outside the budget (see
+ * {@link DatasetStats}). Not thread-safe; one builder may build several Datasets one after the other.
+ */
+public final class DatasetBuilder {
+  private static final int ROW_LIMIT = Integer.MAX_VALUE;
+
+  private final MemoryBudget budget;
+  private final DatasetParameters parameters;
+
+  public DatasetBuilder(MemoryBudget budget, DatasetParameters parameters) {
+    this.budget = budget;
+    this.parameters = parameters;
+    NativeLibrary.load();
+  }
+
+  public DatasetParameters parameters() {
+    return parameters;
+  }
+
+  /**
+   * Builds a training Dataset from every row of {@code rows}; its bins come from a seeded sample of
+   * {@link DatasetParameters#sampleRowCount()} rows (all rows when fewer).
+   *
+   * @throws IllegalArgumentException when the stream is empty, holds 2^31 rows or more, or has a NaN/infinite label
+   */
+  public TrainingDataset build(RowStream rows) {
+    FeatureSchema schema = rows.schema();
+    int rowCount = checkedRowCount(rows);
+    int sampleRowCount = Math.min(parameters.sampleRowCount(), rowCount);
+    long residentBefore = ProcessMemory.residentBytes();
+    RowSample sample = new RowSample(rowCount, sampleRowCount, schema.featureCount(), parameters.seed());
+    try (FeatureBatch batch = newBatch(schema, rowCount)) {
+      rows.stream(batch, sample::accept);
+      if (sample.rowsSeen() != rowCount || sample.rowsSelected() != sampleRowCount) {
+        throw new IllegalStateException("row stream promised " + rowCount + " rows but produced " + sample.rowsSeen()
+            + "; a RowStream must report its exact rowCount()");
+      }
+      SWIGTYPE_p_void handle = createFromSample(sample, schema, sampleRowCount, rowCount);
+      try {
+        pushRowsAndFinish(handle, rows, batch, rowCount);
+      } catch (RuntimeException | Error e) {
+        lightgbmlib.LGBM_DatasetFree(handle);
+        throw e;
+      }
+      DatasetStats stats = new DatasetStats(rowCount, schema.featureCount(), sampleRowCount,
+          sample.keptValueCount(), residentBefore, ProcessMemory.residentBytes());
+      return new TrainingDataset(handle, schema, stats, false);
+    }
+  }
+
+  /**
+   * Builds a validation Dataset binned exactly like {@code reference} (LightGBM's CreateByReference), for early
+   * stopping. The reference must stay open while a Booster uses both.
+   */
+  public TrainingDataset createValidation(TrainingDataset reference, RowStream rows) {
+    FeatureSchema schema = rows.schema();
+    if (!schema.equals(reference.schema())) {
+      throw new IllegalArgumentException("validation rows have schema " + schema.names() + " but the training "
+          + "Dataset has " + reference.schema().names() + "; build both from the same feature definition");
+    }
+    if (reference.isValidation()) {
+      throw new IllegalArgumentException("reference must be a training Dataset, got a validation Dataset");
+    }
+    int rowCount = checkedRowCount(rows);
+    long residentBefore = ProcessMemory.residentBytes();
+    SWIGTYPE_p_p_void out = lightgbmlib.new_voidpp();
+    int returnCode = lightgbmlib.LGBM_DatasetCreateByReference(reference.handle(), rowCount, out);
+    SWIGTYPE_p_void handle = Native.takeHandle(out);
+    Native.check(returnCode, "LGBM_DatasetCreateByReference");
+    try (FeatureBatch batch = newBatch(schema, rowCount)) {
+      pushRowsAndFinish(handle, rows, batch, rowCount);
+    } catch (RuntimeException | Error e) {
+      lightgbmlib.LGBM_DatasetFree(handle);
+      throw e;
+    }
+    DatasetStats stats = new DatasetStats(rowCount, schema.featureCount(), 0, 0, residentBefore,
+        ProcessMemory.residentBytes());
+    return new TrainingDataset(handle, schema, stats, true);
+  }
+
+  /** The Dataset parameter string a stream of {@code schema} with {@code rowCount} rows is built with. */
+  String parameterString(FeatureSchema schema, int rowCount) {
+    return parameters.toLightGbmString(schema, Math.min(parameters.sampleRowCount(), rowCount));
+  }
+
+  private FeatureBatch newBatch(FeatureSchema schema, int rowCount) {
+    return new FeatureBatch(budget, Math.min(parameters.batchRowCount(), rowCount), schema.featureCount());
+  }
+
+  private static int checkedRowCount(RowStream rows) {
+    long rowCount = rows.rowCount();
+    if (rowCount < 1 || rowCount >= ROW_LIMIT) {
+      throw new IllegalArgumentException("a Dataset needs between 1 and " + (ROW_LIMIT - 1) + " rows, got "
+          + rowCount + " (LightGBM counts rows in int32; train on fewer days or per partition)");
+    }
+    return (int) rowCount;
+  }
+
+  /**
+   * Copies the kept sample into LightGBM's {@code double**}/{@code int**} column arrays and creates the empty
+   * Dataset. The copies are transient: LightGBM reads them only inside the call.
+   */
+  private SWIGTYPE_p_void createFromSample(RowSample sample, FeatureSchema schema, int sampleRowCount, int rowCount) {
+    int featureCount = schema.featureCount();
+    long sampleBytes = sample.keptValueCount() * (Double.BYTES + Integer.BYTES)
+        + (long) featureCount * (2L * Long.BYTES + Integer.BYTES);
+    budget.reserve(sampleBytes);
+    SWIGTYPE_p_p_double columnValues = lightgbmlib.new_doublePtrArray(featureCount);
+    SWIGTYPE_p_p_int columnPositions = lightgbmlib.new_intPtrArray(featureCount);
+    SWIGTYPE_p_int keptCounts = lightgbmlib.new_intArray(featureCount);
+    SWIGTYPE_p_double[] valueArrays = new SWIGTYPE_p_double[featureCount];
+    SWIGTYPE_p_int[] positionArrays = new SWIGTYPE_p_int[featureCount];
+    try {
+      for (int column = 0; column < featureCount; column++) {
+        int kept = sample.keptCount(column);
+        // never a zero-length allocation: LightGBM reads only `kept` entries, and 1 keeps the pointer non-null
+        valueArrays[column] = lightgbmlib.new_doubleArray(Math.max(kept, 1));
+        positionArrays[column] = lightgbmlib.new_intArray(Math.max(kept, 1));
+        for (int i = 0; i < kept; i++) {
+          lightgbmlib.doubleArray_setitem(valueArrays[column], i, sample.value(column, i));
+          lightgbmlib.intArray_setitem(positionArrays[column], i, sample.position(column, i));
+        }
+        lightgbmlib.doublePtrArray_setitem(columnValues, column, valueArrays[column]);
+        lightgbmlib.intPtrArray_setitem(columnPositions, column, positionArrays[column]);
+        lightgbmlib.intArray_setitem(keptCounts, column, kept);
+      }
+      SWIGTYPE_p_p_void out = lightgbmlib.new_voidpp();
+      // single machine: the local row count and the distributed row count are both the full row count
+      int returnCode = lightgbmlib.LGBM_DatasetCreateFromSampledColumn(columnValues, columnPositions, featureCount,
+          keptCounts, sampleRowCount, rowCount, rowCount, parameterString(schema, rowCount), out);
+      SWIGTYPE_p_void handle = Native.takeHandle(out);
+      Native.check(returnCode, "LGBM_DatasetCreateFromSampledColumn");
+      return handle;
+    } finally {
+      for (int column = 0; column < featureCount; column++) {
+        if (valueArrays[column] != null) {
+          lightgbmlib.delete_doubleArray(valueArrays[column]);
+        }
+        if (positionArrays[column] != null) {
+          lightgbmlib.delete_intArray(positionArrays[column]);
+        }
+      }
+      lightgbmlib.delete_doublePtrArray(columnValues);
+      lightgbmlib.delete_intPtrArray(columnPositions);
+      lightgbmlib.delete_intArray(keptCounts);
+      budget.release(sampleBytes);
+    }
+  }
+
+  /**
+   * Second pass: pushes every batch at its start row, finishes the Dataset by hand and sets the label (and weight)
+   * fields. Manual finish matters: left to itself, LightGBM finishes the Dataset as soon as a push ends at the last
+   * row, and would silently ignore any push after that.
+   */
+  private void pushRowsAndFinish(SWIGTYPE_p_void handle, RowStream rows, FeatureBatch batch, int rowCount) {
+    int featureCount = rows.schema().featureCount();
+    Native.check(lightgbmlib.LGBM_DatasetSetWaitForManualFinish(handle, 1), "LGBM_DatasetSetWaitForManualFinish");
+    try (NativeFloatArray labels = new NativeFloatArray(budget, rowCount);
+        NativeFloatArray weights = new NativeFloatArray(budget, parameters.useWeights() ? rowCount : 0)) {
+      long[] pushedRows = {0};
+      rows.stream(batch, full -> {
+        int batchRows = full.rowCount();
+        if (full.firstRowIndex() != pushedRows[0] || pushedRows[0] + batchRows > rowCount) {
+          throw new IllegalStateException("row stream handed rows " + full.firstRowIndex() + ".."
+              + (full.firstRowIndex() + batchRows - 1) + " after " + pushedRows[0] + " of " + rowCount
+              + " rows; a RowStream must produce its rows in order and exactly rowCount() of them");
+        }
+        copyLabels(full, (int) pushedRows[0], labels, weights);
+        Native.check(lightgbmlib.LGBM_DatasetPushRows(handle, Native.voidPointer(full.valuesAddress()),
+            lightgbmlibConstants.C_API_DTYPE_FLOAT32, batchRows, featureCount, (int) pushedRows[0]),
+            "LGBM_DatasetPushRows");
+        pushedRows[0] += batchRows;
+      });
+      if (pushedRows[0] != rowCount) {
+        throw new IllegalStateException("row stream promised " + rowCount + " rows but produced " + pushedRows[0]
+            + "; a RowStream must report its exact rowCount()");
+      }
+      Native.check(lightgbmlib.LGBM_DatasetMarkFinished(handle), "LGBM_DatasetMarkFinished");
+      Native.check(lightgbmlib.LGBM_DatasetSetField(handle, "label", Native.voidPointer(labels.address()), rowCount,
+          lightgbmlibConstants.C_API_DTYPE_FLOAT32), "LGBM_DatasetSetField(label)");
+      if (parameters.useWeights()) {
+        Native.check(lightgbmlib.LGBM_DatasetSetField(handle, "weight", Native.voidPointer(weights.address()),
+            rowCount, lightgbmlibConstants.C_API_DTYPE_FLOAT32), "LGBM_DatasetSetField(weight)");
+      }
+    }
+  }
+
+  private void copyLabels(FeatureBatch batch, int firstRow, NativeFloatArray labels, NativeFloatArray weights) {
+    float[] batchLabels = batch.labels();
+    float[] batchWeights = batch.weights();
+    boolean useWeights = parameters.useWeights();
+    for (int row = 0; row < batch.rowCount(); row++) {
+      float label = batchLabels[row];
+      if (!Float.isFinite(label)) {
+        throw new IllegalArgumentException("label of row " + (firstRow + row) + " is " + label
+            + "; training rows need a finite label (rows to forecast belong in a prediction stream)");
+      }
+      labels.set(firstRow + row, label);
+      if (useWeights) {
+        float weight = batchWeights[row];
+        if (!(weight >= 0) || Float.isInfinite(weight)) {
+          throw new IllegalArgumentException("weight of row " + (firstRow + row) + " is " + weight
+              + "; weights must be finite and >= 0");
+        }
+        weights.set(firstRow + row, weight);
+      }
+    }
+  }
+}

@@ -1,0 +1,33 @@
+package org.lagmill.learner;
+
+/** The loss a model is trained for; each names LightGBM's objective and the validation metric early stopping uses. */
+public enum Objective {
+  /** Tweedie deviance with a log link: suits counts with many zeros and a long tail (daily unit sales). */
+  TWEEDIE("tweedie", "tweedie"),
+  /** Poisson deviance with a log link. */
+  POISSON("poisson", "poisson"),
+  /** Squared error (L2) on the raw scale. */
+  REGRESSION("regression", "l2");
+
+  private final String lightGbmName;
+  private final String metricName;
+
+  Objective(String lightGbmName, String metricName) {
+    this.lightGbmName = lightGbmName;
+    this.metricName = metricName;
+  }
+
+  String lightGbmName() {
+    return lightGbmName;
+  }
+
+  /** LightGBM's name of this objective's own metric (lower is better). */
+  public String metricName() {
+    return metricName;
+  }
+
+  /** True when predictions are exp(raw score): the model learns log(mean). */
+  public boolean hasLogLink() {
+    return this != REGRESSION;
+  }
+}

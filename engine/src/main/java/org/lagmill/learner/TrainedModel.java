@@ -1,0 +1,211 @@
+package org.lagmill.learner;
+
+import com.microsoft.ml.lightgbm.SWIGTYPE_p_double;
+import com.microsoft.ml.lightgbm.SWIGTYPE_p_int;
+import com.microsoft.ml.lightgbm.SWIGTYPE_p_long_long;
+import com.microsoft.ml.lightgbm.SWIGTYPE_p_p_void;
+import com.microsoft.ml.lightgbm.SWIGTYPE_p_void;
+import com.microsoft.ml.lightgbm.lightgbmlib;
+import com.microsoft.ml.lightgbm.lightgbmlibConstants;
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+import org.lagmill.features.FeatureBatch;
+
+/**
+ * A trained LightGBM Booster owned by this object, cut back to its best iteration.
+ *
+ * <p>Predictions with {@link #predict} are on the response scale: for tweedie and poisson LightGBM applies the log
+ * link's inverse ({@code exp}) itself; {@link #predictRaw} gives the raw score (log of the mean for those objectives).
+ *
+ * <p>Lifetime: closing frees the Booster; twice is harmless; any use after close throws {@link IllegalStateException}.
+ * Not thread-safe. A trained model does not need its Datasets any more once {@link Trainer#train} returned.
+ */
+public final class TrainedModel implements AutoCloseable {
+  private final int bestIteration;
+  private final double[] validationCurve;
+  private final double[] validationRmseCurve;
+  private final int featureCount;
+  private SWIGTYPE_p_void booster;
+
+  TrainedModel(SWIGTYPE_p_void booster, int bestIteration, double[] validationCurve, double[] validationRmseCurve) {
+    this.booster = booster;
+    this.bestIteration = bestIteration;
+    this.validationCurve = validationCurve;
+    this.validationRmseCurve = validationRmseCurve;
+    SWIGTYPE_p_int out = lightgbmlib.new_intp();
+    try {
+      Native.check(lightgbmlib.LGBM_BoosterGetNumFeature(booster, out), "LGBM_BoosterGetNumFeature");
+      this.featureCount = lightgbmlib.intp_value(out);
+    } finally {
+      lightgbmlib.delete_intp(out);
+    }
+  }
+
+  /**
+   * Loads a model written by {@link #saveTo}. Its validation curves are empty; its best iteration is its
+   * iteration count (a saved model holds only the iterations up to the best one).
+   *
+   * @throws UncheckedIOException wrapping {@link NoSuchFileException} when the file does not exist
+   * @throws LearnerException when LightGBM cannot parse the file
+   */
+  public static TrainedModel load(Path modelFile) {
+    NativeLibrary.load();
+    if (!Files.isRegularFile(modelFile)) {
+      throw new UncheckedIOException(new NoSuchFileException(modelFile.toString(), null, "model file not found"));
+    }
+    SWIGTYPE_p_int iterationCount = lightgbmlib.new_intp();
+    SWIGTYPE_p_p_void out = lightgbmlib.new_voidpp();
+    try {
+      int returnCode = lightgbmlib.LGBM_BoosterCreateFromModelfile(modelFile.toString(), iterationCount, out);
+      SWIGTYPE_p_void handle = Native.takeHandle(out);
+      Native.check(returnCode, "LGBM_BoosterCreateFromModelfile(" + modelFile + ")");
+      return new TrainedModel(handle, lightgbmlib.intp_value(iterationCount), new double[0], new double[0]);
+    } finally {
+      lightgbmlib.delete_intp(iterationCount);
+    }
+  }
+
+  /**
+   * 1-based iteration with the lowest validation loss (the last one when trained without validation rows); 0 when
+   * no split was possible at all and the model is the constant initial score.
+   */
+  public int bestIteration() {
+    return bestIteration;
+  }
+
+  /** Number of boosting iterations the Booster holds (equal to {@link #bestIteration()} after training). */
+  public int iterationCount() {
+    SWIGTYPE_p_int out = lightgbmlib.new_intp();
+    try {
+      Native.check(lightgbmlib.LGBM_BoosterGetCurrentIteration(handle(), out), "LGBM_BoosterGetCurrentIteration");
+      return lightgbmlib.intp_value(out);
+    } finally {
+      lightgbmlib.delete_intp(out);
+    }
+  }
+
+  public int featureCount() {
+    return featureCount;
+  }
+
+  /** The objective's own validation metric after each iteration trained (index 0 = iteration 1), a copy. */
+  public double[] validationCurve() {
+    return validationCurve.clone();
+  }
+
+  /** Validation RMSE after each iteration trained (index 0 = iteration 1), a copy. */
+  public double[] validationRmseCurve() {
+    return validationRmseCurve.clone();
+  }
+
+  /** One importance per feature in schema order, over the iterations the model holds. */
+  public double[] featureImportance(FeatureImportance type) {
+    int importanceType = type == FeatureImportance.GAIN
+        ? lightgbmlibConstants.C_API_FEATURE_IMPORTANCE_GAIN
+        : lightgbmlibConstants.C_API_FEATURE_IMPORTANCE_SPLIT;
+    SWIGTYPE_p_double out = lightgbmlib.new_doubleArray(featureCount);
+    try {
+      Native.check(lightgbmlib.LGBM_BoosterFeatureImportance(handle(), 0, importanceType, out),
+          "LGBM_BoosterFeatureImportance");
+      double[] importance = new double[featureCount];
+      for (int feature = 0; feature < featureCount; feature++) {
+        importance[feature] = lightgbmlib.doubleArray_getitem(out, feature);
+      }
+      return importance;
+    } finally {
+      lightgbmlib.delete_doubleArray(out);
+    }
+  }
+
+  /**
+   * Writes the model as LightGBM text to a temporary file beside {@code modelFile}, then renames it into place, so
+   * a reader never sees a half-written model.
+   */
+  public void saveTo(Path modelFile) {
+    SWIGTYPE_p_void handle = handle();
+    Path absolute = modelFile.toAbsolutePath();
+    Path temporary = absolute.resolveSibling(absolute.getFileName() + ".tmp");
+    try {
+      Native.check(lightgbmlib.LGBM_BoosterSaveModel(handle, 0, 0, lightgbmlibConstants.C_API_FEATURE_IMPORTANCE_SPLIT,
+          temporary.toString()), "LGBM_BoosterSaveModel(" + temporary + ")");
+      Files.move(temporary, absolute, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
+    } catch (IOException e) {
+      throw new UncheckedIOException("cannot move the saved model into place at " + absolute, e);
+    } finally {
+      try {
+        Files.deleteIfExists(temporary);
+      } catch (IOException ignored) {
+        // the temporary file is only litter; the real failure (if any) is already on its way up
+      }
+    }
+  }
+
+  /**
+   * Predicts the first {@code batch.rowCount()} rows of {@code batch} on the response scale, reading the features
+   * straight from the batch's native matrix.
+   *
+   * @param out receives one prediction per row, from index 0; length at least {@code batch.rowCount()}
+   */
+  public void predict(FeatureBatch batch, double[] out) {
+    predict(batch, out, lightgbmlibConstants.C_API_PREDICT_NORMAL);
+  }
+
+  /** As {@link #predict}, but the raw score: log of the predicted mean for tweedie and poisson. */
+  public void predictRaw(FeatureBatch batch, double[] out) {
+    predict(batch, out, lightgbmlibConstants.C_API_PREDICT_RAW_SCORE);
+  }
+
+  private void predict(FeatureBatch batch, double[] out, int predictType) {
+    SWIGTYPE_p_void handle = handle();
+    int rowCount = batch.rowCount();
+    if (batch.featureCount() != featureCount) {
+      throw new IllegalArgumentException("batch has " + batch.featureCount() + " features but the model was trained on "
+          + featureCount + "; predict with the feature definition the model was trained with");
+    }
+    if (out.length < rowCount) {
+      throw new IllegalArgumentException("out holds " + out.length + " values but the batch has " + rowCount
+          + " rows; size it to at least batch.capacityRows()");
+    }
+    if (rowCount == 0) {
+      return;
+    }
+    SWIGTYPE_p_double result = lightgbmlib.new_doubleArray(rowCount);
+    SWIGTYPE_p_long_long resultCount = lightgbmlib.new_int64_tp();
+    try {
+      // num_iteration 0 = every iteration held, which is the best one: training rolled the rest back
+      Native.check(lightgbmlib.LGBM_BoosterPredictForMat(handle, Native.voidPointer(batch.valuesAddress()),
+          lightgbmlibConstants.C_API_DTYPE_FLOAT32, rowCount, featureCount, 1, predictType, 0, 0, "", resultCount,
+          result), "LGBM_BoosterPredictForMat");
+      long written = lightgbmlib.int64_tp_value(resultCount);
+      if (written != rowCount) {
+        throw new LearnerException("LightGBM wrote " + written + " predictions for " + rowCount + " rows");
+      }
+      for (int row = 0; row < rowCount; row++) {
+        out[row] = lightgbmlib.doubleArray_getitem(result, row);
+      }
+    } finally {
+      lightgbmlib.delete_doubleArray(result);
+      lightgbmlib.delete_int64_tp(resultCount);
+    }
+  }
+
+  SWIGTYPE_p_void handle() {
+    if (booster == null) {
+      throw new IllegalStateException("trained model is closed");
+    }
+    return booster;
+  }
+
+  @Override
+  public void close() {
+    if (booster != null) {
+      SWIGTYPE_p_void freed = booster;
+      booster = null;
+      Native.check(lightgbmlib.LGBM_BoosterFree(freed), "LGBM_BoosterFree");
+    }
+  }
+}

@@ -1,0 +1,132 @@
+package org.lagmill.learner;
+
+import com.microsoft.ml.lightgbm.SWIGTYPE_p_double;
+import com.microsoft.ml.lightgbm.SWIGTYPE_p_int;
+import com.microsoft.ml.lightgbm.SWIGTYPE_p_p_void;
+import com.microsoft.ml.lightgbm.SWIGTYPE_p_void;
+import com.microsoft.ml.lightgbm.lightgbmlib;
+import java.util.Arrays;
+
+/**
+ * Trains a LightGBM Booster on a {@link TrainingDataset}, optionally early-stopping on a validation Dataset: after
+ * every iteration it reads the objective's own metric on the validation rows, and when that has not improved for
+ * {@link TrainParameters#earlyStoppingRounds()} iterations it stops and rolls the Booster back to the best one.
+ *
+ * <p>Stateless apart from its parameters; one training at a time per Dataset.
+ */
+public final class Trainer {
+  /** Metrics the Booster evaluates, in this order: the objective's own, then rmse. */
+  private static final int METRIC_COUNT = 2;
+  private static final int VALIDATION_DATA_INDEX = 1;
+
+  private final TrainParameters parameters;
+
+  public Trainer(TrainParameters parameters) {
+    this.parameters = parameters;
+    NativeLibrary.load();
+  }
+
+  public TrainParameters parameters() {
+    return parameters;
+  }
+
+  /** Trains {@link TrainParameters#maxRounds()} iterations with no validation rows and no early stopping. */
+  public TrainedModel train(TrainingDataset training, TrainingListener listener) {
+    return train(training, null, listener);
+  }
+
+  /**
+   * Trains on {@code training}; with {@code validation} (built by {@link DatasetBuilder#createValidation}) stops
+   * early and keeps the best iteration. Both Datasets may be closed once this returns.
+   *
+   * @param validation validation rows binned like {@code training}, or null
+   */
+  public TrainedModel train(TrainingDataset training, TrainingDataset validation, TrainingListener listener) {
+    if (training.isValidation()) {
+      throw new IllegalArgumentException("training data must be a training Dataset, got a validation Dataset");
+    }
+    if (validation != null && !validation.isValidation()) {
+      throw new IllegalArgumentException("validation data must come from DatasetBuilder.createValidation so it "
+          + "shares the training Dataset's bins");
+    }
+    SWIGTYPE_p_p_void out = lightgbmlib.new_voidpp();
+    int returnCode = lightgbmlib.LGBM_BoosterCreate(training.handle(), parameters.toLightGbmString(), out);
+    SWIGTYPE_p_void booster = Native.takeHandle(out);
+    Native.check(returnCode, "LGBM_BoosterCreate");
+    try {
+      if (validation != null) {
+        Native.check(lightgbmlib.LGBM_BoosterAddValidData(booster, validation.handle()), "LGBM_BoosterAddValidData");
+      }
+      return boost(booster, validation != null, listener);
+    } catch (RuntimeException | Error e) {
+      lightgbmlib.LGBM_BoosterFree(booster);
+      throw e;
+    }
+  }
+
+  private TrainedModel boost(SWIGTYPE_p_void booster, boolean validating, TrainingListener listener) {
+    int maxRounds = parameters.maxRounds();
+    int patience = validating && parameters.earlyStoppingRounds() > 0
+        ? parameters.earlyStoppingRounds() : Integer.MAX_VALUE;
+    double[] curve = new double[validating ? maxRounds : 0];
+    double[] rmseCurve = new double[validating ? maxRounds : 0];
+    SWIGTYPE_p_int finished = lightgbmlib.new_intp();
+    SWIGTYPE_p_int evalCount = lightgbmlib.new_intp();
+    SWIGTYPE_p_double evals = lightgbmlib.new_doubleArray(METRIC_COUNT);
+    long startNanos = System.nanoTime();
+    int trainedCount = 0;
+    int bestIteration = 0;
+    double bestLoss = Double.POSITIVE_INFINITY;
+    try {
+      for (int iteration = 1; iteration <= maxRounds; iteration++) {
+        Native.check(lightgbmlib.LGBM_BoosterUpdateOneIter(booster, finished), "LGBM_BoosterUpdateOneIter");
+        if (lightgbmlib.intp_value(finished) == 1) {
+          // no leaf could be split: LightGBM added no iteration (only a constant first tree when nothing was built)
+          break;
+        }
+        trainedCount = iteration;
+        double loss = Double.NaN;
+        if (validating) {
+          Native.check(lightgbmlib.LGBM_BoosterGetEval(booster, VALIDATION_DATA_INDEX, evalCount, evals),
+              "LGBM_BoosterGetEval");
+          if (lightgbmlib.intp_value(evalCount) != METRIC_COUNT) {
+            throw new LearnerException("LightGBM evaluated " + lightgbmlib.intp_value(evalCount)
+                + " metrics, expected " + METRIC_COUNT + " (" + parameters.objective().metricName() + ", rmse)");
+          }
+          loss = lightgbmlib.doubleArray_getitem(evals, 0);
+          curve[iteration - 1] = loss;
+          rmseCurve[iteration - 1] = lightgbmlib.doubleArray_getitem(evals, 1);
+          if (loss < bestLoss) {
+            bestLoss = loss;
+            bestIteration = iteration;
+          }
+        } else {
+          bestIteration = iteration;
+        }
+        listener.onIteration(iteration, (System.nanoTime() - startNanos) / 1e9, loss);
+        if (iteration - bestIteration >= patience) {
+          break;
+        }
+      }
+      for (int held = currentIteration(booster); held > bestIteration; held--) {
+        Native.check(lightgbmlib.LGBM_BoosterRollbackOneIter(booster), "LGBM_BoosterRollbackOneIter");
+      }
+    } finally {
+      lightgbmlib.delete_intp(finished);
+      lightgbmlib.delete_intp(evalCount);
+      lightgbmlib.delete_doubleArray(evals);
+    }
+    return new TrainedModel(booster, bestIteration, Arrays.copyOf(curve, validating ? trainedCount : 0),
+        Arrays.copyOf(rmseCurve, validating ? trainedCount : 0));
+  }
+
+  private static int currentIteration(SWIGTYPE_p_void booster) {
+    SWIGTYPE_p_int out = lightgbmlib.new_intp();
+    try {
+      Native.check(lightgbmlib.LGBM_BoosterGetCurrentIteration(booster, out), "LGBM_BoosterGetCurrentIteration");
+      return lightgbmlib.intp_value(out);
+    } finally {
+      lightgbmlib.delete_intp(out);
+    }
+  }
+}

@@ -1,0 +1,68 @@
+package org.lagmill.learner;
+
+import com.microsoft.ml.lightgbm.SWIGTYPE_p_void;
+import com.microsoft.ml.lightgbm.lightgbmlib;
+import org.lagmill.features.FeatureSchema;
+
+/**
+ * A finished LightGBM Dataset (binned features, labels and optional weights) owned by this object. Only finished
+ * Datasets are ever wrapped: creating a Booster on an unfinished one crashes the JVM.
+ *
+ * <p>Lifetime: close it after every Booster trained on it is done (a {@link TrainedModel} no longer needs it);
+ * closing frees the native Dataset, twice is harmless, any use after close throws {@link IllegalStateException}.
+ * Not thread-safe.
+ */
+public final class TrainingDataset implements AutoCloseable {
+  private final FeatureSchema schema;
+  private final DatasetStats stats;
+  private final boolean validation;
+  private SWIGTYPE_p_void handle;
+
+  TrainingDataset(SWIGTYPE_p_void handle, FeatureSchema schema, DatasetStats stats, boolean validation) {
+    this.handle = handle;
+    this.schema = schema;
+    this.stats = stats;
+    this.validation = validation;
+  }
+
+  public FeatureSchema schema() {
+    return schema;
+  }
+
+  public long rowCount() {
+    return stats.rowCount();
+  }
+
+  public int featureCount() {
+    return schema.featureCount();
+  }
+
+  public DatasetStats stats() {
+    return stats;
+  }
+
+  /** True for a Dataset built by reference to a training Dataset's bins (usable only for validation). */
+  public boolean isValidation() {
+    return validation;
+  }
+
+  public boolean isClosed() {
+    return handle == null;
+  }
+
+  SWIGTYPE_p_void handle() {
+    if (handle == null) {
+      throw new IllegalStateException("training dataset is closed");
+    }
+    return handle;
+  }
+
+  @Override
+  public void close() {
+    if (handle != null) {
+      SWIGTYPE_p_void freed = handle;
+      handle = null;
+      Native.check(lightgbmlib.LGBM_DatasetFree(freed), "LGBM_DatasetFree");
+    }
+  }
+}

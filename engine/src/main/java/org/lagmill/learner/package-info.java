@@ -1,0 +1,10 @@
+/**
+ * The bridge to LightGBM: builds its Dataset from a {@link org.lagmill.features.RowStream} without a full feature
+ * matrix (a sampling pass, then row batches pushed straight from native memory), trains with early stopping, saves,
+ * loads and predicts. LightGBM types never leave this package.
+ *
+ * <p>Entry points: {@link org.lagmill.learner.DatasetBuilder} (owned {@link org.lagmill.learner.TrainingDataset}s),
+ * {@link org.lagmill.learner.Trainer} (an owned {@link org.lagmill.learner.TrainedModel}) and
+ * {@link org.lagmill.learner.TrainedModel#load}. Depends on {@code memory} and {@code features}; see docs/learner.md.
+ */
+package org.lagmill.learner;
