@@ -107,6 +107,15 @@ public final class FeaturePass implements RowStream {
    * @param lastDayIndex inclusive, {@code < history.dayCount()}
    */
   public static FeaturePass training(SalesHistory history, FeatureSpec spec, int firstDayIndex, int lastDayIndex) {
+    return training(history, spec, null, firstDayIndex, lastDayIndex);
+  }
+
+  /**
+   * Training rows of the listed series (in the given order; null for every series) over days
+   * {@code [firstDayIndex, lastDayIndex]} intersected with the spec's window: one model partition's rows.
+   */
+  public static FeaturePass training(SalesHistory history, FeatureSpec spec, int[] seriesIndexes, int firstDayIndex,
+      int lastDayIndex) {
     if (firstDayIndex < 0 || lastDayIndex >= history.dayCount() || lastDayIndex < firstDayIndex) {
       throw new IllegalArgumentException("training days [" + firstDayIndex + ", " + lastDayIndex
           + "] are out of range: need 0 <= firstDayIndex <= lastDayIndex <= " + (history.dayCount() - 1)
@@ -123,7 +132,7 @@ public final class FeaturePass implements RowStream {
     if (last < first) {
       last = first - 1;
     }
-    return new FeaturePass(history, spec, true, allSeries(history), first, last, null);
+    return new FeaturePass(history, spec, true, checkedSeries(history, seriesIndexes), first, last, null);
   }
 
   /** Training rows over the spec's window ({@code fromDate}..{@code untilDate}, the whole history by default). */
@@ -143,6 +152,11 @@ public final class FeaturePass implements RowStream {
       throw new IllegalArgumentException("prediction days: firstDayIndex " + firstDayIndex + " and dayCount "
           + dayCount + " are out of range: need firstDayIndex >= 0 and dayCount >= 1");
     }
+    return new FeaturePass(history, spec, false, checkedSeries(history, seriesIndexes), firstDayIndex,
+        firstDayIndex + dayCount - 1, null);
+  }
+
+  private static int[] checkedSeries(SalesHistory history, int[] seriesIndexes) {
     int[] series = seriesIndexes == null ? allSeries(history) : seriesIndexes.clone();
     for (int s : series) {
       if (s < 0 || s >= history.seriesCount()) {
@@ -150,7 +164,7 @@ public final class FeaturePass implements RowStream {
             + ")");
       }
     }
-    return new FeaturePass(history, spec, false, series, firstDayIndex, firstDayIndex + dayCount - 1, null);
+    return series;
   }
 
   /** The same rows with each row's weight taken from {@code weightBySeries[seriesIndex]} (default weight 1). */
