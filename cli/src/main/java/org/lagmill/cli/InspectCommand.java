@@ -1,0 +1,62 @@
+package org.lagmill.cli;
+
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.SerializationFeature;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import org.lagmill.memory.MemoryBudget;
+import org.lagmill.store.SalesStore;
+import org.lagmill.store.StoreSummary;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code lagmill inspect}: verifies a store and prints its summary. */
+@Command(name = "inspect", mixinStandardHelpOptions = true,
+    description = "Verify a store (sizes, checksums) and print its extent, widths and bytes per item-day.",
+    footer = {"", "Example:", "  lagmill inspect --store stores/chain --json"})
+final class InspectCommand implements Callable<Integer> {
+  @Spec CommandSpec spec;
+
+  @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory")
+  Path store;
+
+  @Option(names = "--json", description = "print the summary as JSON")
+  boolean json;
+
+  @Override
+  public Integer call() throws Exception {
+    StoreSummary summary;
+    try (MemoryBudget budget = CliBudgets.root(null); SalesStore opened = SalesStore.open(store, budget)) {
+      summary = StoreSummary.of(opened);
+    }
+    PrintWriter out = spec.commandLine().getOut();
+    if (json) {
+      out.println(new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(summary.toMap()));
+      return ExitCodes.OK;
+    }
+    out.printf("store                 %s%n", store);
+    out.printf("series                %,d%n", summary.seriesCount());
+    out.printf("days                  %,d (%s .. %s)%n", summary.dayCount(), summary.firstDate(), summary.lastDate());
+    for (Map.Entry<String, Integer> e : summary.attributeCardinalities().entrySet()) {
+      out.printf("attribute %-11s %,d distinct values%n", e.getKey(), e.getValue());
+    }
+    out.printf("series by width       1 byte: %,d  2 bytes: %,d  4 bytes: %,d%n",
+        summary.seriesCountByWidth().get("BYTE"), summary.seriesCountByWidth().get("SHORT"),
+        summary.seriesCountByWidth().get("INT"));
+    out.printf("units file            %,d bytes (%.3f bytes per item-day)%n", summary.unitsFileBytes(),
+        summary.unitsBytesPerItemDay());
+    out.printf("store on disk         %,d bytes (%.3f bytes per item-day)%n", summary.diskBytes(),
+        summary.storeBytesPerItemDay());
+    out.printf("as int64 columns      %,d bytes%n", summary.int64ColumnBytes());
+    out.printf("source CSV            %,d bytes%n", summary.sourceCsvBytes());
+    out.printf("mapped off-heap       %,d bytes%n", summary.offHeapBytes());
+    out.printf("zero days             %.1f%% of known item-days; %,d item-days unknown%n",
+        100 * summary.zeroDayShare(), summary.unknownDayCount());
+    out.printf("fingerprint           %s%n", summary.fingerprint());
+    return ExitCodes.OK;
+  }
+}

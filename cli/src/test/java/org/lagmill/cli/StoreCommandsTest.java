@@ -1,0 +1,74 @@
+package org.lagmill.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import picocli.CommandLine;
+
+class StoreCommandsTest {
+  @TempDir Path temp;
+
+  private final StringWriter out = new StringWriter();
+  private final StringWriter err = new StringWriter();
+
+  private int run(String... args) {
+    CommandLine cli = Main.commandLine();
+    cli.setOut(new PrintWriter(out, true));
+    cli.setErr(new PrintWriter(err, true));
+    return cli.execute(args);
+  }
+
+  @Test
+  void shouldIngestAppendAndInspectAStore() throws Exception {
+    Path sales = temp.resolve("sales.csv");
+    Files.writeString(sales, "item,store,2024-01-30,2024-01-31\na,s1,0,3\nb,s1,300,\n");
+    Path next = temp.resolve("next.csv");
+    Files.writeString(next, "store,item,2024-02-01\ns1,b,4\ns2,c,1\n");
+    Path store = temp.resolve("store");
+    assertEquals(0, run("ingest", "--sales", sales.toString(), "--store", store.toString(), "--quiet"), err.toString());
+    assertEquals("", out.toString());
+    assertEquals(0, run("append", "--store", store.toString(), "--sales", next.toString()), err.toString());
+    assertTrue(out.toString().contains("3 series x 3 days (2024-01-30 .. 2024-02-01)"), out.toString());
+    out.getBuffer().setLength(0);
+    assertEquals(0, run("inspect", "--store", store.toString(), "--json"), err.toString());
+    JsonNode json = new ObjectMapper().readTree(out.toString());
+    assertEquals(3, json.get("seriesCount").asInt());
+    assertEquals("2024-02-01", json.get("lastDate").asText());
+    assertEquals(1, json.get("seriesCountByWidth").get("SHORT").asInt());
+    assertEquals(3 * 3 * 8, json.get("int64ColumnBytes").asInt());
+    out.getBuffer().setLength(0);
+    assertEquals(0, run("inspect", "--store", store.toString()), err.toString());
+    assertTrue(out.toString().contains("series by width       1 byte: 2  2 bytes: 1  4 bytes: 0"), out.toString());
+  }
+
+  @Test
+  void shouldMapFailuresToExitCodes() throws Exception {
+    Path bad = temp.resolve("bad.csv");
+    Files.writeString(bad, "item,2024-01-01\na,-1\n");
+    assertEquals(ExitCodes.BAD_INPUT, run("ingest", "--sales", bad.toString(), "--store", temp.resolve("s").toString()));
+    assertEquals("lagmill: " + bad + ", line 2, column 2: expected a non-negative integer number of units, found "
+        + "\"-1\"", err.toString().trim());
+    assertEquals(ExitCodes.IO_ERROR, run("ingest", "--sales", temp.resolve("none.csv").toString(), "--store",
+        temp.resolve("s").toString()));
+    Path good = temp.resolve("good.csv");
+    Files.writeString(good, "item,2024-01-01\na,1\n");
+    Path store = temp.resolve("store");
+    assertEquals(0, run("ingest", "--sales", good.toString(), "--store", store.toString(), "--quiet"));
+    byte[] units = Files.readAllBytes(store.resolve("units.bin"));
+    units[0] ^= 1;
+    Files.write(store.resolve("units.bin"), units);
+    assertEquals(ExitCodes.CORRUPT_STORE, run("inspect", "--store", store.toString()));
+    assertEquals(ExitCodes.USAGE_ERROR, run("ingest", "--sales", good.toString(), "--store", store.toString(),
+        "--memory-limit", "0"));
+    assertEquals(0, run("ingest", "--help"));
+    assertTrue(out.toString().contains("lagmill ingest --sales sales.csv.gz --store stores/chain"), out.toString());
+  }
+}

@@ -1,0 +1,171 @@
+package org.lagmill.ingest;
+
+import it.unimi.dsi.fastutil.objects.Object2IntOpenHashMap;
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.HashSet;
+import java.util.List;
+import org.lagmill.memory.MemoryBudget;
+import org.lagmill.store.PriceTable;
+import org.lagmill.store.SalesHistory;
+import org.lagmill.store.SalesStore;
+import org.lagmill.store.SeriesAttributes;
+import org.lagmill.store.StoreDirectories;
+import org.lagmill.store.StoreManifest;
+import org.lagmill.store.StoreWriter;
+
+/**
+ * Adds the days of a wide sales file whose first date is the store's next day. The store is rewritten into a
+ * temporary sibling (each old series streamed from the mapped store plus its new days; its width may widen) and
+ * published atomically.
+ *
+ * <p>Series in the store but absent from the file get unknown units for the new days; series new in the file are
+ * added after the old ones, in file order, with unknown units for every earlier day. Prices and calendar are carried
+ * over unchanged. The file's units are held on the heap until the rewrite (4 bytes per new item-day), because its rows
+ * may come in any order.
+ */
+public final class StoreAppend {
+  private StoreAppend() {}
+
+  /**
+   * @param seriesIdColumn the file's column naming each series (as at ingest)
+   * @return the manifest of the published store
+   * @throws InputFormatException when the file does not start the day after the store's last day, its attribute
+   *     columns differ from the store's, or a row is malformed or repeated
+   */
+  public static StoreManifest append(Path storeDir, Path salesFile, String seriesIdColumn, MemoryBudget budget)
+      throws IOException {
+    try (MemoryBudget stage = budget.child("append")) {
+      Path temp;
+      StoreManifest manifest;
+      try (SalesStore store = SalesStore.open(storeDir, stage);
+          WideSalesReader reader = WideSalesReader.open(salesFile, seriesIdColumn)) {
+        LocalDate expectedFirst = store.firstDate().plusDays(store.dayCount());
+        if (!reader.firstDate().equals(expectedFirst)) {
+          throw new InputFormatException(salesFile, 1, 0, "expected the first date column to be " + expectedFirst
+              + " (the day after the store's last day " + store.dateOf(store.dayCount() - 1) + "), found "
+              + reader.firstDate());
+        }
+        SeriesAttributes attributes = store.attributes();
+        int[] fileColumnOfAttribute = matchAttributes(attributes, reader);
+        NewDays newDays = readNewDays(store, reader, fileColumnOfAttribute);
+        temp = StoreDirectories.createTempSibling(storeDir);
+        try {
+          manifest = rewrite(store, temp, newDays, salesFile, stage);
+        } catch (IOException | RuntimeException | Error e) {
+          StoreDirectories.deleteRecursively(temp);
+          throw e;
+        }
+      }
+      StoreDirectories.publish(temp, storeDir);
+      return manifest;
+    }
+  }
+
+  /** The appended file's rows: new days of known series by store index, then series new to the store. */
+  private record NewDays(int dayCount, int[][] unitsBySeries, List<String[]> newSeriesAttributes,
+      List<int[]> newSeriesUnits) {}
+
+  private static int[] matchAttributes(SeriesAttributes attributes, WideSalesReader reader) {
+    List<String> storeNames = new ArrayList<>();
+    for (int a = 0; a < attributes.attributeCount(); a++) {
+      storeNames.add(attributes.attributeName(a));
+    }
+    List<String> fileNames = reader.attributeNames();
+    if (!new HashSet<>(storeNames).equals(new HashSet<>(fileNames))) {
+      throw new InputFormatException(reader.file(), 1, 0, "expected the attribute columns of the store "
+          + storeNames + ", found " + fileNames);
+    }
+    int[] fileColumn = new int[storeNames.size()];
+    for (int a = 0; a < fileColumn.length; a++) {
+      fileColumn[a] = fileNames.indexOf(storeNames.get(a));
+    }
+    return fileColumn;
+  }
+
+  private static NewDays readNewDays(SalesStore store, WideSalesReader reader, int[] fileColumnOfAttribute)
+      throws IOException {
+    int dayCount = reader.dayCount();
+    int[][] unitsBySeries = new int[store.seriesCount()][];
+    List<String[]> newAttributes = new ArrayList<>();
+    List<int[]> newUnits = new ArrayList<>();
+    Object2IntOpenHashMap<String> newIndexById = new Object2IntOpenHashMap<>();
+    newIndexById.defaultReturnValue(-1);
+    int idAttribute = store.attributes().attributeIndex("series_id");
+    String[] fileValues = new String[fileColumnOfAttribute.length];
+    int[] row = new int[dayCount];
+    while (reader.next(fileValues, row)) {
+      String[] values = new String[fileColumnOfAttribute.length];
+      for (int a = 0; a < values.length; a++) {
+        values[a] = fileValues[fileColumnOfAttribute[a]];
+      }
+      String seriesId = idAttribute >= 0 ? values[idAttribute] : String.join("/", values);
+      int seriesIndex = store.attributes().seriesIndexOf(seriesId);
+      boolean repeated = seriesIndex >= 0 ? unitsBySeries[seriesIndex] != null : newIndexById.containsKey(seriesId);
+      if (repeated) {
+        throw new InputFormatException(reader.file(), reader.lineNumber(), 0, "duplicate series \"" + seriesId
+            + "\": each series may appear once");
+      }
+      if (seriesIndex >= 0) {
+        unitsBySeries[seriesIndex] = row.clone();
+      } else {
+        newIndexById.put(seriesId, newAttributes.size());
+        newAttributes.add(values);
+        newUnits.add(row.clone());
+      }
+    }
+    return new NewDays(dayCount, unitsBySeries, newAttributes, newUnits);
+  }
+
+  private static StoreManifest rewrite(SalesStore store, Path temp, NewDays newDays, Path salesFile,
+      MemoryBudget budget) throws IOException {
+    int oldDayCount = store.dayCount();
+    int dayCount = oldDayCount + newDays.dayCount();
+    SeriesAttributes attributes = store.attributes();
+    List<String> names = new ArrayList<>();
+    for (int a = 0; a < attributes.attributeCount(); a++) {
+      names.add(attributes.attributeName(a));
+    }
+    try (StoreWriter writer = new StoreWriter(temp, store.firstDate(), dayCount, names, budget)) {
+      int[] row = new int[dayCount];
+      String[] values = new String[names.size()];
+      for (int s = 0; s < store.seriesCount(); s++) {
+        store.readUnits(s, 0, row, 0, oldDayCount);
+        int[] added = newDays.unitsBySeries()[s];
+        if (added == null) {
+          Arrays.fill(row, oldDayCount, dayCount, SalesHistory.UNKNOWN_UNITS);
+        } else {
+          System.arraycopy(added, 0, row, oldDayCount, added.length);
+        }
+        for (int a = 0; a < values.length; a++) {
+          values[a] = attributes.value(a, attributes.code(s, a));
+        }
+        writer.addSeries(values, row);
+      }
+      Arrays.fill(row, 0, oldDayCount, SalesHistory.UNKNOWN_UNITS);
+      for (int n = 0; n < newDays.newSeriesAttributes().size(); n++) {
+        System.arraycopy(newDays.newSeriesUnits().get(n), 0, row, oldDayCount, newDays.dayCount());
+        writer.addSeries(newDays.newSeriesAttributes().get(n), row);
+      }
+      writer.writePrices(extended(store.prices(), store.seriesCount()));
+      writer.writeCalendar(store.calendar());
+      List<StoreManifest.SourceFile> sources = new ArrayList<>(store.manifest().sources());
+      sources.add(new StoreManifest.SourceFile(salesFile.getFileName().toString(), Files.size(salesFile)));
+      return writer.finish(sources);
+    }
+  }
+
+  /** The old price table, with no prices for series added by the append. */
+  private static PriceTable extended(PriceTable prices, int oldSeriesCount) {
+    return new PriceTable() {
+      @Override public boolean isEmpty() { return prices.isEmpty(); }
+      @Override public int changeCount(int s) { return s < oldSeriesCount ? prices.changeCount(s) : 0; }
+      @Override public int changeDayIndex(int s, int k) { return prices.changeDayIndex(s, k); }
+      @Override public float changePrice(int s, int k) { return prices.changePrice(s, k); }
+    };
+  }
+}

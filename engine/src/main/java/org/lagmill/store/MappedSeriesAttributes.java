@@ -1,0 +1,168 @@
+package org.lagmill.store;
+
+import it.unimi.dsi.fastutil.objects.Object2IntOpenHashMap;
+import java.nio.ByteOrder;
+import java.nio.file.Path;
+import java.util.Arrays;
+import org.agrona.concurrent.UnsafeBuffer;
+import org.lagmill.memory.MemoryBudget;
+
+/**
+ * {@link SeriesAttributes} over a mapped {@code attributes.bin}: dictionaries are decoded to the heap once at open
+ * (they are small: distinct values only), per-series codes are read from the mapping.
+ */
+final class MappedSeriesAttributes implements SeriesAttributes, AutoCloseable {
+  private final MappedRegion region;
+  private final UnsafeBuffer buffer;
+  private final int seriesCount;
+  private final String[] names;
+  private final String[][] values;
+  private final Object2IntOpenHashMap<String>[] codeByValue;
+  private final long codesOffset;
+  private final int seriesIdAttribute;
+  private final long heapBytes;
+  private Object2IntOpenHashMap<String> seriesIndexById;
+  private volatile boolean closed;
+
+  @SuppressWarnings("unchecked")
+  private MappedSeriesAttributes(Path file, MappedRegion region, int expectedSeriesCount) {
+    this.region = region;
+    this.buffer = region.buffer();
+    MappedFileReads reads = new MappedFileReads(file, buffer, AttributesLayout.SERIES_COUNT_OFFSET,
+        region.byteCount() - StoreFileFormat.FOOTER_BYTES);
+    seriesCount = reads.getInt();
+    if (seriesCount != expectedSeriesCount) {
+      throw new CorruptStoreException(file, "wrong series count: expected " + expectedSeriesCount + " (manifest), "
+          + "actual " + seriesCount);
+    }
+    int attributeCount = reads.getCount("attribute count", 1 << 16);
+    names = new String[attributeCount];
+    values = new String[attributeCount][];
+    codeByValue = new Object2IntOpenHashMap[attributeCount];
+    long heap = 0;
+    int idAttribute = -1;
+    for (int a = 0; a < attributeCount; a++) {
+      names[a] = reads.getString();
+      if (names[a].equals(AttributeDictionaryBuilder.SERIES_ID)) {
+        idAttribute = a;
+      }
+      int valueCount = reads.getCount("dictionary size", seriesCount);
+      values[a] = new String[valueCount];
+      codeByValue[a] = new Object2IntOpenHashMap<>(valueCount);
+      codeByValue[a].defaultReturnValue(-1);
+      for (int code = 0; code < valueCount; code++) {
+        values[a][code] = reads.getString();
+        codeByValue[a].put(values[a][code], code);
+        heap += 56 + 2L * values[a][code].length() + 24;
+      }
+    }
+    seriesIdAttribute = idAttribute;
+    reads.alignTo(Integer.BYTES);
+    codesOffset = reads.position();
+    AttributesLayout.checkFileSize(file, codesOffset, seriesCount, attributeCount, region.byteCount());
+    heapBytes = heap;
+  }
+
+  static MappedSeriesAttributes open(Path file, long fileBytes, int expectedSeriesCount, MemoryBudget budget) {
+    MappedRegion region = MappedRegion.map(file, 0, fileBytes, budget);
+    try {
+      return new MappedSeriesAttributes(file, region, expectedSeriesCount);
+    } catch (RuntimeException e) {
+      region.close();
+      throw e;
+    }
+  }
+
+  long offHeapBytes() {
+    return closed ? 0 : region.byteCount();
+  }
+
+  long heapBytes() {
+    return heapBytes + (seriesIndexById == null ? 0 : 80L * seriesCount);
+  }
+
+  @Override
+  public int attributeCount() {
+    checkOpen();
+    return names.length;
+  }
+
+  @Override
+  public String attributeName(int attributeIndex) {
+    checkOpen();
+    return names[attributeIndex];
+  }
+
+  @Override
+  public int attributeIndex(String attributeName) {
+    checkOpen();
+    return Arrays.asList(names).indexOf(attributeName);
+  }
+
+  @Override
+  public int cardinality(int attributeIndex) {
+    checkOpen();
+    return values[attributeIndex].length;
+  }
+
+  @Override
+  public int code(int seriesIndex, int attributeIndex) {
+    checkOpen();
+    if (seriesIndex < 0 || seriesIndex >= seriesCount) {
+      throw new IndexOutOfBoundsException("seriesIndex " + seriesIndex + " outside [0, " + seriesCount + ")");
+    }
+    return buffer.getInt((int) AttributesLayout.codeOffset(codesOffset, seriesCount, seriesIndex, attributeIndex),
+        ByteOrder.LITTLE_ENDIAN);
+  }
+
+  @Override
+  public String value(int attributeIndex, int code) {
+    checkOpen();
+    return values[attributeIndex][code];
+  }
+
+  @Override
+  public int codeOf(int attributeIndex, String value) {
+    checkOpen();
+    return codeByValue[attributeIndex].getInt(value);
+  }
+
+  @Override
+  public String seriesId(int seriesIndex) {
+    if (seriesIdAttribute >= 0) {
+      return value(seriesIdAttribute, code(seriesIndex, seriesIdAttribute));
+    }
+    String[] parts = new String[names.length];
+    for (int a = 0; a < names.length; a++) {
+      parts[a] = value(a, code(seriesIndex, a));
+    }
+    return String.join("/", parts);
+  }
+
+  /** Builds the id index on first use: most readers go by series index and never pay for it. */
+  @Override
+  public synchronized int seriesIndexOf(String seriesId) {
+    checkOpen();
+    if (seriesIndexById == null) {
+      Object2IntOpenHashMap<String> index = new Object2IntOpenHashMap<>(seriesCount);
+      index.defaultReturnValue(-1);
+      for (int s = 0; s < seriesCount; s++) {
+        index.put(seriesId(s), s);
+      }
+      seriesIndexById = index;
+    }
+    return seriesIndexById.getInt(seriesId);
+  }
+
+  private void checkOpen() {
+    if (closed) {
+      throw new IllegalStateException("the store is closed");
+    }
+  }
+
+  @Override
+  public void close() {
+    closed = true;
+    region.close();
+  }
+}

@@ -1,0 +1,97 @@
+package org.lagmill.store;
+
+import java.io.IOException;
+import java.nio.file.AtomicMoveNotSupportedException;
+import java.nio.file.FileVisitResult;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.SimpleFileVisitor;
+import java.nio.file.StandardCopyOption;
+import java.nio.file.attribute.BasicFileAttributes;
+import java.security.SecureRandom;
+import java.util.HexFormat;
+
+/**
+ * Builds stores beside their target and swaps them in by rename, so a reader never sees a half-written store and a
+ * failed build leaves the previous store as it was.
+ */
+public final class StoreDirectories {
+  private static final SecureRandom RANDOM = new SecureRandom();
+
+  private StoreDirectories() {}
+
+  /** Creates an empty sibling {@code .<name>.tmp-<random>} of {@code targetDir} to build a store in. */
+  public static Path createTempSibling(Path targetDir) throws IOException {
+    Path absolute = targetDir.toAbsolutePath().normalize();
+    Path parent = absolute.getParent();
+    Files.createDirectories(parent);
+    return Files.createDirectory(parent.resolve("." + absolute.getFileName() + ".tmp-" + randomSuffix()));
+  }
+
+  /**
+   * Moves a finished store from {@code tempDir} to {@code targetDir}: an existing target is first renamed to a sibling
+   * backup, then the temp directory is renamed into place, then the backup is deleted. On any failure the temp
+   * directory is deleted and the existing store is restored.
+   */
+  public static void publish(Path tempDir, Path targetDir) throws IOException {
+    Path target = targetDir.toAbsolutePath().normalize();
+    Path backup = null;
+    try {
+      if (Files.exists(target)) {
+        backup = target.resolveSibling("." + target.getFileName() + ".old-" + randomSuffix());
+        move(target, backup);
+      }
+      move(tempDir, target);
+    } catch (IOException | RuntimeException e) {
+      try {
+        deleteRecursively(tempDir);
+        if (backup != null && Files.exists(backup) && !Files.exists(target)) {
+          move(backup, target);
+        }
+      } catch (IOException suppressed) {
+        e.addSuppressed(suppressed);
+      }
+      throw e;
+    }
+    if (backup != null) {
+      deleteRecursively(backup);
+    }
+  }
+
+  private static void move(Path from, Path to) throws IOException {
+    try {
+      Files.move(from, to, StandardCopyOption.ATOMIC_MOVE);
+    } catch (AtomicMoveNotSupportedException e) {
+      Files.move(from, to);
+    }
+  }
+
+  /** Deletes a directory tree; a missing path is not an error. */
+  public static void deleteRecursively(Path dir) throws IOException {
+    if (!Files.exists(dir)) {
+      return;
+    }
+    Files.walkFileTree(dir, new SimpleFileVisitor<>() {
+      @Override
+      public FileVisitResult visitFile(Path file, BasicFileAttributes attrs) throws IOException {
+        Files.delete(file);
+        return FileVisitResult.CONTINUE;
+      }
+
+      @Override
+      public FileVisitResult postVisitDirectory(Path d, IOException e) throws IOException {
+        if (e != null) {
+          throw e;
+        }
+        Files.delete(d);
+        return FileVisitResult.CONTINUE;
+      }
+    });
+  }
+
+  private static String randomSuffix() {
+    byte[] bytes = new byte[6];
+    RANDOM.nextBytes(bytes);
+    return HexFormat.of().formatHex(bytes);
+  }
+}

@@ -1,0 +1,123 @@
+package org.lagmill.store;
+
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.DeserializationFeature;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.SerializationFeature;
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.security.MessageDigest;
+import java.security.NoSuchAlgorithmException;
+import java.time.LocalDate;
+import java.util.HexFormat;
+import java.util.List;
+
+/**
+ * The {@code manifest.json} of a store directory: what the binary files hold and how to check them.
+ *
+ * @param formatVersion store format version; must equal the reader's
+ * @param firstDate ISO date of day index 0
+ * @param dayCount days of sales held per series
+ * @param seriesCount number of series
+ * @param attributeNames series attribute names, in code order
+ * @param sources the input files the store was built from, with their byte sizes
+ * @param files every binary file with its byte size and CRC32C (8 hex digits)
+ * @param fingerprint 16 hex digits of SHA-256 over the files' names, sizes and checksums; model files record it
+ */
+public record StoreManifest(int formatVersion, String firstDate, int dayCount, int seriesCount,
+    List<String> attributeNames, List<SourceFile> sources, List<StoreFile> files, String fingerprint) {
+
+  public static final String FILE_NAME = "manifest.json";
+
+  private static final ObjectMapper JSON = new ObjectMapper()
+      .enable(SerializationFeature.INDENT_OUTPUT)
+      .disable(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES);
+
+  /** An input file the store was built from: its file name and size in bytes. */
+  public record SourceFile(String name, long bytes) {}
+
+  /** A binary store file: its name, size in bytes and CRC32C as 8 hex digits. */
+  public record StoreFile(String name, long bytes, String crc32c) {
+    int checksum() {
+      return Integer.parseUnsignedInt(crc32c, 16);
+    }
+  }
+
+  public StoreManifest {
+    attributeNames = List.copyOf(attributeNames);
+    sources = List.copyOf(sources);
+    files = List.copyOf(files);
+  }
+
+  public LocalDate firstLocalDate() {
+    return LocalDate.parse(firstDate);
+  }
+
+  /** The manifest entry of one file, or null. */
+  public StoreFile file(String name) {
+    for (StoreFile f : files) {
+      if (f.name().equals(name)) {
+        return f;
+      }
+    }
+    return null;
+  }
+
+  /** Total bytes of the binary files (the manifest itself excluded). */
+  public long binaryBytes() {
+    long total = 0;
+    for (StoreFile f : files) {
+      total += f.bytes();
+    }
+    return total;
+  }
+
+  /** Total bytes of the source files. */
+  public long sourceBytes() {
+    long total = 0;
+    for (SourceFile f : sources) {
+      total += f.bytes();
+    }
+    return total;
+  }
+
+  static String fingerprintOf(List<StoreFile> files) {
+    try {
+      MessageDigest sha = MessageDigest.getInstance("SHA-256");
+      for (StoreFile f : files) {
+        sha.update((f.name() + "\n" + f.bytes() + "\n" + f.crc32c() + "\n").getBytes(StandardCharsets.UTF_8));
+      }
+      return HexFormat.of().formatHex(sha.digest(), 0, 8);
+    } catch (NoSuchAlgorithmException e) {
+      throw new IllegalStateException("every Java runtime provides SHA-256", e);
+    }
+  }
+
+  void write(Path dir) throws IOException {
+    Files.write(dir.resolve(FILE_NAME), JSON.writeValueAsBytes(this));
+  }
+
+  /** Reads and sanity-checks a store's manifest. */
+  public static StoreManifest read(Path dir) throws IOException {
+    Path file = dir.resolve(FILE_NAME);
+    byte[] bytes = Files.readAllBytes(file);
+    StoreManifest manifest;
+    try {
+      manifest = JSON.readValue(bytes, StoreManifest.class);
+    } catch (JsonProcessingException e) {
+      throw new CorruptStoreException(file, "not a valid manifest: " + e.getOriginalMessage(), e);
+    }
+    if (manifest.formatVersion() != StoreFileFormat.FORMAT_VERSION_CURRENT) {
+      throw new CorruptStoreException(file, "unsupported format version: expected "
+          + StoreFileFormat.FORMAT_VERSION_CURRENT + ", actual " + manifest.formatVersion());
+    }
+    String fingerprint = fingerprintOf(manifest.files());
+    if (!fingerprint.equals(manifest.fingerprint())) {
+      throw new CorruptStoreException(file, "fingerprint mismatch: expected " + fingerprint + " (from the files "
+          + "listed), actual " + manifest.fingerprint());
+    }
+    return manifest;
+  }
+}

@@ -1,0 +1,118 @@
+package org.lagmill.ingest;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Random;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.memory.MemoryBudget;
+import org.lagmill.store.ArraySalesHistory;
+import org.lagmill.store.RandomStoreData;
+import org.lagmill.store.SalesHistory;
+import org.lagmill.store.SalesStore;
+import org.lagmill.store.StoreAssertions;
+
+class StoreAppendTest {
+  private static final long MASTER_SEED = 99_173L;
+
+  @TempDir Path temp;
+
+  /**
+   * Append equals ingesting the concatenated file: the old series keep their order, then the series new in the
+   * appended file (unknown before it), and a series missing from the appended file is unknown on the new days.
+   */
+  @Test
+  void shouldEqualIngestingTheConcatenatedFile() throws Exception {
+    Random seeds = new Random(MASTER_SEED);
+    for (int round = 0; round < 3; round++) {
+      long seed = seeds.nextLong();
+      String where = "master seed " + MASTER_SEED + ", round " + round;
+      RandomStoreData data = new RandomStoreData(seed, 30, 60);
+      int oldDays = 40;
+      int oldSeries = 25;
+      int missing = 3;
+      int[][] expected = new int[data.seriesCount()][];
+      for (int s = 0; s < data.seriesCount(); s++) {
+        expected[s] = data.units[s].clone();
+        if (s >= oldSeries) {
+          Arrays.fill(expected[s], 0, oldDays, SalesHistory.UNKNOWN_UNITS);
+        }
+        if (s == missing) {
+          Arrays.fill(expected[s], oldDays, data.dayCount, SalesHistory.UNKNOWN_UNITS);
+        }
+      }
+      List<String> names = RandomStoreData.ATTRIBUTE_NAMES;
+      Path first = temp.resolve("first-" + round + ".csv");
+      Files.writeString(first, WideCsv.of(names, Arrays.copyOf(data.attributeValues, oldSeries),
+          RandomStoreData.FIRST_DATE, Arrays.copyOf(data.units, oldSeries), 0, oldDays));
+      // The appended file lists series in another order, attributes in another order, one old series missing.
+      List<String> reordered = List.of("region", "store", "item", "series_id");
+      int[] order = {7, 30 - 1, 0, 26, 12, 25, 1, 2, 4, 5, 6, 8, 9, 10, 11, 13, 14, 15, 16, 17, 18, 19, 20, 21, 22, 23,
+          24, 27, 28};
+      String[][] values = new String[order.length][];
+      int[][] units = new int[order.length][];
+      for (int i = 0; i < order.length; i++) {
+        String[] v = data.attributeValues[order[i]];
+        values[i] = new String[] {v[3], v[2], v[1], v[0]};
+        units[i] = data.units[order[i]];
+      }
+      Path next = temp.resolve("next-" + round + ".csv");
+      Files.writeString(next, WideCsv.of(reordered, values, RandomStoreData.FIRST_DATE, units, oldDays, data.dayCount));
+      // New series enter in the appended file's order: 29, 26, 25, 27, 28.
+      int[] storeOrder = new int[data.seriesCount()];
+      for (int s = 0; s < oldSeries; s++) {
+        storeOrder[s] = s;
+      }
+      int[] added = {29, 26, 25, 27, 28};
+      System.arraycopy(added, 0, storeOrder, oldSeries, added.length);
+      int[][] expectedUnits = new int[data.seriesCount()][];
+      String[][] expectedValues = new String[data.seriesCount()][];
+      for (int s = 0; s < storeOrder.length; s++) {
+        expectedUnits[s] = expected[storeOrder[s]];
+        expectedValues[s] = data.attributeValues[storeOrder[s]];
+      }
+      Path concatenated = temp.resolve("all-" + round + ".csv");
+      Files.writeString(concatenated, WideCsv.of(names, expectedValues, RandomStoreData.FIRST_DATE, expectedUnits, 0,
+          data.dayCount));
+
+      try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
+        Path appended = temp.resolve("appended-" + round);
+        StoreIngest.ingest(IngestOptions.of(first, appended), budget);
+        StoreAppend.append(appended, next, "series_id", budget);
+        Path whole = temp.resolve("whole-" + round);
+        StoreIngest.ingest(IngestOptions.of(concatenated, whole), budget);
+        try (SalesStore a = SalesStore.open(appended, budget); SalesStore b = SalesStore.open(whole, budget)) {
+          StoreAssertions.assertSameHistory(b, a, new Random(seed), where);
+          StoreAssertions.assertSameHistory(new ArraySalesHistory(RandomStoreData.FIRST_DATE, expectedUnits,
+              b.attributes(), b.prices(), b.calendar()), a, new Random(seed), where);
+          assertArrayEquals(b.seriesCountByWidth(), a.seriesCountByWidth(), where);
+          assertEquals(2, a.manifest().sources().size());
+        }
+        assertEquals(0, budget.heldBytes());
+      }
+    }
+  }
+
+  @Test
+  void shouldRejectAFileThatDoesNotStartTheDayAfterTheStore() throws Exception {
+    Path first = temp.resolve("first.csv");
+    Files.writeString(first, "item,2024-01-01,2024-01-02\na,1,2\n");
+    Path gap = temp.resolve("gap.csv");
+    Files.writeString(gap, "item,2024-01-04\na,1\n");
+    try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
+      StoreIngest.ingest(IngestOptions.of(first, temp.resolve("store")), budget);
+      InputFormatException e = assertThrows(InputFormatException.class,
+          () -> StoreAppend.append(temp.resolve("store"), gap, "series_id", budget));
+      assertEquals(gap + ", line 1: expected the first date column to be 2024-01-03 (the day after the store's last "
+          + "day 2024-01-02), found 2024-01-04", e.getMessage());
+      assertEquals(0, budget.heldBytes());
+    }
+    assertEquals(List.of("first.csv", "gap.csv", "store"), StoreIngestTest.listing(temp));
+  }
+}
