@@ -64,6 +64,11 @@ public record TrainParameters(
         baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic);
   }
 
+  public TrainParameters withTweedieVariancePower(double value) {
+    return new TrainParameters(objective, value, learningRate, leafCount, minDataInLeaf, featureFraction,
+        baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic);
+  }
+
   public TrainParameters withLearningRate(double value) {
     return new TrainParameters(objective, tweedieVariancePower, value, leafCount, minDataInLeaf, featureFraction,
         baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic);

@@ -1,0 +1,101 @@
+package org.lagmill.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.time.LocalDate;
+import java.time.temporal.ChronoUnit;
+import java.util.concurrent.Callable;
+import org.lagmill.features.FeatureSpec;
+import org.lagmill.forecast.ModelDirectory;
+import org.lagmill.forecast.ModelSet;
+import org.lagmill.forecast.ModelTraining;
+import org.lagmill.forecast.PartitionReport;
+import org.lagmill.forecast.TrainingPlan;
+import org.lagmill.memory.MemoryBudget;
+import org.lagmill.memory.ProcessMemory;
+import org.lagmill.store.SalesStore;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code lagmill train}: streams features from a store into LightGBM and saves the model directory. */
+@Command(name = "train", mixinStandardHelpOptions = true,
+    description = {"Train a model on a store's history: features stream from the store into LightGBM's Dataset,",
+        "the last --horizon days before the cut are the validation window for early stopping."},
+    footer = {"", "Example:", "  lagmill train --store stores/chain --model models/week49 --rounds 800",
+        "  lagmill train --store stores/chain --model models/by-store --partition-by store --until 2026-11-29"})
+final class TrainCommand implements Callable<Integer> {
+  @Spec CommandSpec commandSpec;
+
+  @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory")
+  Path store;
+
+  @Option(names = "--model", required = true, paramLabel = "DIR", description = "model directory to write")
+  Path model;
+
+  @Option(names = "--until", paramLabel = "DATE", description = "last day the model may learn from (default: the "
+      + "store's last day)")
+  LocalDate until;
+
+  @Option(names = "--memory-limit", paramLabel = "BYTES", description = "off-heap budget in bytes (default: none)")
+  Long memoryLimitBytes;
+
+  @Option(names = "--quiet", description = "print nothing but errors")
+  boolean quiet;
+
+  @Mixin TrainingOptions training;
+
+  @Override
+  public Integer call() throws Exception {
+    RunRecord run = new RunRecord("train");
+    FeatureSpec spec = training.featureSpec();
+    try (MemoryBudget budget = CliBudgets.root(memoryLimitBytes);
+        SalesStore opened = SalesStore.open(store, budget.child("store"))) {
+      int cut = until == null ? opened.dayCount() - 1 : (int) ChronoUnit.DAYS.between(opened.firstDate(), until);
+      if (cut < 0 || cut >= opened.dayCount()) {
+        throw new IllegalArgumentException("--until " + until + " is outside the store's days " + opened.firstDate()
+            + " .. " + opened.dateOf(opened.dayCount() - 1));
+      }
+      TrainingPlan plan = training.plan(spec, cut);
+      run.configure("store", store.toString()).configure("model", model.toString())
+          .configure("cutDate", opened.dateOf(cut).toString()).configure("plan", plan.toString());
+      run.endStage("open store", opened.offHeapBytes(), 0);
+      MemoryBudget learnerBudget = budget.child("learner");
+      try (ModelSet models = ModelTraining.train(opened, plan, learnerBudget,
+          ConsoleProgress.forCommand(quiet))) {
+        long rows = models.partitions().stream().mapToLong(p -> p.report().trainingRowCount()).sum();
+        run.endStage("train", opened.offHeapBytes() + learnerBudget.peakBytes(), rows);
+        ModelDirectory.save(models, model, opened, plan, opened.fingerprint());
+        run.result("partitions", models.partitions().stream().map(ModelSet.Partition::report).toList());
+        run.endStage("save model", opened.offHeapBytes(), 0);
+        printSummary(models, opened, learnerBudget);
+      } finally {
+        learnerBudget.close();
+      }
+    }
+    run.write(model);
+    return ExitCodes.OK;
+  }
+
+  private void printSummary(ModelSet models, SalesStore opened, MemoryBudget learnerBudget) {
+    if (quiet) {
+      return;
+    }
+    PrintWriter out = commandSpec.commandLine().getOut();
+    for (ModelSet.Partition partition : models.partitions()) {
+      PartitionReport r = partition.report();
+      out.printf("model %-12s %,d series, Dataset %,d rows x %d features (%.1f bytes per row), best iteration %d of"
+          + " %d, validation %s %.5f%n", r.partitionValue(), r.seriesCount(), r.trainingRowCount(), r.featureCount(),
+          r.datasetBytesPerRow(), r.bestIteration(), r.iterationCount(), r.validationMetric(),
+          r.validationCurve().length == 0 ? Double.NaN : r.validationCurve()[Math.max(0, r.bestIteration() - 1)]);
+    }
+    long peak = ProcessMemory.peakResidentBytes();
+    long rows = models.partitions().stream().mapToLong(p -> p.report().trainingRowCount()).max().orElse(0);
+    out.printf("peak RSS %,d MB (%.1f bytes per training row of the largest partition); off-heap held: store %,d MB "
+        + "mapped, learner peak %,d KB%n", peak >> 20, rows == 0 ? 0 : peak / (double) rows, opened.offHeapBytes() >> 20,
+        learnerBudget.peakBytes() >> 10);
+    out.printf("model written to %s%n", model);
+  }
+}

@@ -1,0 +1,115 @@
+package org.lagmill.cli;
+
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.Locale;
+import org.lagmill.features.FeatureSpec;
+import org.lagmill.features.FeatureSpecYaml;
+import org.lagmill.learner.DatasetParameters;
+import org.lagmill.learner.Objective;
+import org.lagmill.learner.TrainParameters;
+import org.lagmill.forecast.TrainingPlan;
+import picocli.CommandLine.Option;
+
+/** Options shared by every command that trains ({@code train}, {@code backtest}, {@code demo}). */
+final class TrainingOptions {
+  @Option(names = "--config", paramLabel = "FILE", description = "feature spec YAML (see docs/configuration.md)")
+  Path config;
+
+  @Option(names = "--horizon", paramLabel = "DAYS", description = "forecast horizon and validation window in days "
+      + "(default: the config's horizonDays, 28)")
+  Integer horizonDays;
+
+  @Option(names = "--lags", split = ",", paramLabel = "DAYS", description = "lags of units, e.g. 28,35,42")
+  int[] lagDays;
+
+  @Option(names = "--windows", split = ",", paramLabel = "DAYS", description = "rolling windows, e.g. 7,28,56")
+  int[] windowDays;
+
+  @Option(names = "--rounds", paramLabel = "N", defaultValue = "1000", description = "most boosting rounds "
+      + "(default: ${DEFAULT-VALUE})")
+  int rounds;
+
+  @Option(names = "--early-stopping", paramLabel = "N", defaultValue = "50",
+      description = "stop after N rounds without validation gain; 0 disables (default: ${DEFAULT-VALUE})")
+  int earlyStoppingRounds;
+
+  @Option(names = "--objective", paramLabel = "NAME", defaultValue = "tweedie",
+      description = "tweedie, poisson or l2 (default: ${DEFAULT-VALUE})")
+  String objective;
+
+  @Option(names = "--tweedie-power", paramLabel = "P", defaultValue = "1.1",
+      description = "tweedie variance power in [1, 2) (default: ${DEFAULT-VALUE})")
+  double tweediePower;
+
+  @Option(names = "--learning-rate", paramLabel = "RATE", defaultValue = "0.05",
+      description = "shrinkage per round (default: ${DEFAULT-VALUE})")
+  double learningRate;
+
+  @Option(names = "--leaves", paramLabel = "N", defaultValue = "127", description = "leaves per tree "
+      + "(default: ${DEFAULT-VALUE})")
+  int leafCount;
+
+  @Option(names = "--threads", paramLabel = "N", description = "threads (default: all processors)")
+  Integer threadCount;
+
+  @Option(names = "--seed", paramLabel = "N", defaultValue = "1", description = "random seed (default: "
+      + "${DEFAULT-VALUE})")
+  long seed;
+
+  @Option(names = "--deterministic", description = "bit-identical models for the same inputs and thread count")
+  boolean deterministic;
+
+  @Option(names = "--partition-by", paramLabel = "ATTRIBUTE",
+      description = "train one model per value of this attribute (e.g. store), one after another")
+  String partitionAttribute;
+
+  @Option(names = "--weights", paramLabel = "KIND", defaultValue = "none",
+      description = "row weights: none or sales-value (the error metric's weights) (default: ${DEFAULT-VALUE})")
+  String weights;
+
+  @Option(names = "--sample-rows", paramLabel = "N", defaultValue = "200000",
+      description = "rows sampled to fix LightGBM's bin boundaries (default: ${DEFAULT-VALUE})")
+  int sampleRowCount;
+
+  /** The feature spec: the config file (or defaults) with command-line overrides. */
+  FeatureSpec featureSpec() throws IOException {
+    FeatureSpec spec = config == null ? FeatureSpec.defaults() : FeatureSpecYaml.read(config);
+    FeatureSpec.Builder builder = spec.toBuilder();
+    if (horizonDays != null) {
+      builder.horizonDays(horizonDays);
+    }
+    if (lagDays != null) {
+      builder.lagDays(lagDays);
+    }
+    if (windowDays != null) {
+      builder.rollingWindowDays(windowDays);
+    }
+    return builder.build();
+  }
+
+  TrainingPlan plan(FeatureSpec spec, int cutDayIndex) {
+    int threads = threadCount == null ? Runtime.getRuntime().availableProcessors() : threadCount;
+    TrainParameters train = TrainParameters.defaults().withObjective(objective(objective))
+        .withTweedieVariancePower(tweediePower).withLearningRate(learningRate).withLeafCount(leafCount)
+        .withRounds(rounds, earlyStoppingRounds).withThreadCount(threads).withSeed(seed)
+        .withDeterministic(deterministic);
+    boolean salesValue = switch (weights.toLowerCase(Locale.ROOT)) {
+      case "none" -> false;
+      case "sales-value" -> true;
+      default -> throw new IllegalArgumentException("--weights must be none or sales-value, got '" + weights + "'");
+    };
+    DatasetParameters dataset = DatasetParameters.defaults().withSampleRowCount(sampleRowCount).withSeed(seed)
+        .withDeterministic(deterministic).withUseWeights(salesValue).withThreadCount(threads);
+    return new TrainingPlan(spec, train, dataset, cutDayIndex, spec.horizonDays(), partitionAttribute, salesValue);
+  }
+
+  static Objective objective(String name) {
+    return switch (name.toLowerCase(Locale.ROOT)) {
+      case "tweedie" -> Objective.TWEEDIE;
+      case "poisson" -> Objective.POISSON;
+      case "l2", "regression" -> Objective.REGRESSION;
+      default -> throw new IllegalArgumentException("--objective must be tweedie, poisson or l2, got '" + name + "'");
+    };
+  }
+}

@@ -1,0 +1,201 @@
+package org.lagmill.forecast;
+
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import org.lagmill.features.FeatureBatch;
+import org.lagmill.features.FeaturePass;
+import org.lagmill.features.FeatureSchema;
+import org.lagmill.learner.DatasetBuilder;
+import org.lagmill.learner.FeatureImportance;
+import org.lagmill.learner.TrainedModel;
+import org.lagmill.learner.Trainer;
+import org.lagmill.learner.TrainingDataset;
+import org.lagmill.memory.MemoryBudget;
+import org.lagmill.memory.ProcessMemory;
+import org.lagmill.progress.ProgressListener;
+import org.lagmill.store.SalesHistory;
+import org.lagmill.store.SeriesAttributes;
+
+/**
+ * Trains a {@link ModelSet} from a history: per partition, the training rows stream from the store into LightGBM's
+ * Dataset, the validation rows (the last days before the cut) into a Dataset binned like it, the booster stops early
+ * on them, and the held-out predictions set each series' interval dispersion. Partitions are trained one after
+ * another and each Dataset is freed before the next is built, so peak memory follows the largest partition.
+ */
+public final class ModelTraining {
+  private ModelTraining() {}
+
+  public static ModelSet train(SalesHistory history, TrainingPlan plan, MemoryBudget budget,
+      ProgressListener progress) {
+    checkWindows(history, plan);
+    Map<String, int[]> partitionSeries = partitionSeries(history, plan.partitionAttribute());
+    float[] weights = plan.salesValueWeights()
+        ? SalesValueWeights.compute(history, plan.validationFirstDayIndex()) : null;
+    DispersionEstimator dispersion = new DispersionEstimator(history.seriesCount());
+    List<ModelSet.Partition> partitions = new ArrayList<>();
+    try {
+      for (Map.Entry<String, int[]> entry : partitionSeries.entrySet()) {
+        partitions.add(trainPartition(history, plan, entry.getKey(), entry.getValue(), weights, dispersion, budget,
+            progress));
+      }
+    } catch (RuntimeException | Error e) {
+      partitions.forEach(p -> p.model().close());
+      throw e;
+    }
+    return new ModelSet(plan.spec(), plan.partitionAttribute(), partitions, dispersion.alphas());
+  }
+
+  private static void checkWindows(SalesHistory history, TrainingPlan plan) {
+    if (plan.cutDayIndex() >= history.dayCount() || plan.cutDayIndex() < 0) {
+      throw new IllegalArgumentException("the training cut (day " + plan.cutDayIndex() + ") must lie within the "
+          + history.dayCount() + " days of history");
+    }
+    int minimumTrainingDays = plan.spec().launchSkipDays() + 1;
+    if (plan.trainingLastDayIndex() < minimumTrainingDays) {
+      throw new IllegalArgumentException("the history before the validation window has " + (plan
+          .trainingLastDayIndex() + 1) + " days, too few for the longest lag (" + plan.spec().launchSkipDays()
+          + " days) plus at least one training day; use a longer history or shorter lags");
+    }
+  }
+
+  private static ModelSet.Partition trainPartition(SalesHistory history, TrainingPlan plan, String value,
+      int[] seriesIndexes, float[] weights, DispersionEstimator dispersion, MemoryBudget budget,
+      ProgressListener progress) {
+    FeaturePass trainingRows = FeaturePass.training(history, plan.spec(), seriesIndexes, 0,
+        plan.trainingLastDayIndex());
+    FeaturePass validationRows = FeaturePass.training(history, plan.spec(), seriesIndexes,
+        plan.validationFirstDayIndex(), plan.cutDayIndex());
+    if (weights != null) {
+      trainingRows = trainingRows.withSeriesWeights(weights);
+      validationRows = validationRows.withSeriesWeights(weights);
+    }
+    if (trainingRows.rowCount() == 0) {
+      throw new IllegalArgumentException("partition " + value + " has no training rows: its series have no known"
+          + " sales after launch plus the longest lag before the validation window");
+    }
+    String stage = "all".equals(value) ? "" : " " + value;
+    DatasetBuilder builder = new DatasetBuilder(budget, plan.datasetParameters());
+    long datasetStart = System.nanoTime();
+    progress.startStage("dataset" + stage, "rows streamed", 2 * trainingRows.rowCount()
+        + 2 * validationRows.rowCount());
+    long residentBefore = ProcessMemory.residentBytes();
+    TrainedModel model;
+    long validationRowCount = validationRows.rowCount();
+    double trainSeconds;
+    double datasetSeconds;
+    try (TrainingDataset training = builder.build(new ProgressRowStream(trainingRows, progress))) {
+      long residentAfter = ProcessMemory.residentBytes();
+      try (TrainingDataset validation = validationRowCount > 0
+          ? builder.createValidation(training, validationRows) : null) {
+        progress.endStage();
+        datasetSeconds = (System.nanoTime() - datasetStart) / 1e9;
+        long trainStart = System.nanoTime();
+        progress.startStage("train" + stage, "iterations", plan.trainParameters().maxRounds());
+        model = new Trainer(plan.trainParameters()).train(training, validation, (iteration, seconds, loss) -> {
+          progress.advance(iteration);
+          if (iteration % 25 == 0 || iteration == 1) {
+            progress.note(String.format(java.util.Locale.ROOT, "iteration %d, validation %s %.5f, %.1f s",
+                iteration, plan.trainParameters().objective().metricName(), loss, seconds));
+          }
+        });
+        progress.endStage();
+        trainSeconds = (System.nanoTime() - trainStart) / 1e9;
+      }
+      try {
+        double pooled = estimateDispersion(validationRows, model, dispersion, budget, plan);
+        PartitionReport report = new PartitionReport(value, modelFileName(value), seriesIndexes.length,
+            training.rowCount(), validationRowCount, training.featureCount(), model.bestIteration(),
+            model.iterationCount(), model.validationCurve(), plan.trainParameters().objective().metricName(),
+            importance(trainingRows.schema(), model), datasetSeconds, trainSeconds,
+            residentAfter == ProcessMemory.UNAVAILABLE ? 0 : residentAfter - residentBefore,
+            ProcessMemory.peakResidentBytes(), pooled);
+        return new ModelSet.Partition(value, seriesIndexes, model, report);
+      } catch (RuntimeException | Error e) {
+        model.close();
+        throw e;
+      }
+    }
+  }
+
+  /** Predicts the validation rows and feeds their errors to the dispersion estimate; returns the pooled estimate. */
+  private static double estimateDispersion(FeaturePass validationRows, TrainedModel model,
+      DispersionEstimator dispersion, MemoryBudget budget, TrainingPlan plan) {
+    if (validationRows.rowCount() == 0) {
+      return 0;
+    }
+    DispersionEstimator partitionOnly = new DispersionEstimator(1);
+    int batchRows = (int) Math.min(Forecaster.DEFAULT_BATCH_ROWS, validationRows.rowCount());
+    double[] predictions = new double[batchRows];
+    try (FeatureBatch batch = new FeatureBatch(budget, batchRows, validationRows.schema().featureCount())) {
+      validationRows.stream(batch, full -> {
+        model.predict(full, predictions);
+        for (int row = 0; row < full.rowCount(); row++) {
+          double actual = full.labels()[row];
+          dispersion.add(full.seriesIndexes()[row], predictions[row], actual);
+          partitionOnly.add(0, predictions[row], actual);
+        }
+      });
+    }
+    return partitionOnly.pooledAlpha();
+  }
+
+  private static List<PartitionReport.FeatureImportanceRow> importance(FeatureSchema schema, TrainedModel model) {
+    double[] gain = model.featureImportance(FeatureImportance.GAIN);
+    double[] split = model.featureImportance(FeatureImportance.SPLIT);
+    List<PartitionReport.FeatureImportanceRow> rows = new ArrayList<>();
+    for (int f = 0; f < schema.featureCount(); f++) {
+      rows.add(new PartitionReport.FeatureImportanceRow(schema.names().get(f), gain[f], Math.round(split[f])));
+    }
+    rows.sort((a, b) -> Double.compare(b.gain(), a.gain()));
+    return rows;
+  }
+
+  static String modelFileName(String partitionValue) {
+    return "all".equals(partitionValue) ? "model.txt"
+        : "model-" + partitionValue.replaceAll("[^A-Za-z0-9._-]", "_") + ".txt";
+  }
+
+  /** Series indexes per partition value, in order of first appearance; one partition "all" without an attribute. */
+  static Map<String, int[]> partitionSeries(SalesHistory history, String partitionAttribute) {
+    Map<String, int[]> result = new LinkedHashMap<>();
+    if (partitionAttribute == null) {
+      int[] all = new int[history.seriesCount()];
+      for (int s = 0; s < all.length; s++) {
+        all[s] = s;
+      }
+      result.put("all", all);
+      return result;
+    }
+    SeriesAttributes attributes = history.attributes();
+    int attribute = attributes.attributeIndex(partitionAttribute);
+    if (attribute < 0) {
+      List<String> names = new ArrayList<>();
+      for (int a = 0; a < attributes.attributeCount(); a++) {
+        names.add(attributes.attributeName(a));
+      }
+      throw new IllegalArgumentException("unknown partition attribute '" + partitionAttribute + "'; the store has "
+          + names);
+    }
+    int[] counts = new int[attributes.cardinality(attribute)];
+    for (int s = 0; s < history.seriesCount(); s++) {
+      counts[attributes.code(s, attribute)]++;
+    }
+    int[][] members = new int[counts.length][];
+    for (int c = 0; c < counts.length; c++) {
+      members[c] = new int[counts[c]];
+    }
+    int[] filled = new int[counts.length];
+    for (int s = 0; s < history.seriesCount(); s++) {
+      int code = attributes.code(s, attribute);
+      members[code][filled[code]++] = s;
+    }
+    for (int c = 0; c < counts.length; c++) {
+      if (counts[c] > 0) {
+        result.put(attributes.value(attribute, c), members[c]);
+      }
+    }
+    return result;
+  }
+}

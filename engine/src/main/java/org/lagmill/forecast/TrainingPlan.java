@@ -1,0 +1,41 @@
+package org.lagmill.forecast;
+
+import org.lagmill.features.FeatureSpec;
+import org.lagmill.learner.DatasetParameters;
+import org.lagmill.learner.TrainParameters;
+
+/**
+ * What to train: the feature spec, LightGBM's parameters, the last day the model may learn from, and how the series
+ * are split into partitions (one model each).
+ *
+ * @param cutDayIndex last day (inclusive) whose units the model may read; validation is the {@code validationDays}
+ *     days ending here and training uses the days before them
+ * @param validationDays length of the time-based validation window, usually the horizon
+ * @param partitionAttribute attribute whose values split the series into separately trained models, or null for one
+ * @param salesValueWeights weight each series' rows by its recent sales value (units × price), the weight the error
+ *     metric gives it, instead of weighting every row alike
+ */
+public record TrainingPlan(FeatureSpec spec, TrainParameters trainParameters, DatasetParameters datasetParameters,
+    int cutDayIndex, int validationDays, String partitionAttribute, boolean salesValueWeights) {
+
+  public TrainingPlan {
+    if (validationDays < 1) {
+      throw new IllegalArgumentException("validationDays must be >= 1, got " + validationDays);
+    }
+  }
+
+  /** First day of the validation window. */
+  public int validationFirstDayIndex() {
+    return cutDayIndex - validationDays + 1;
+  }
+
+  /** Last day of the training window (inclusive). */
+  public int trainingLastDayIndex() {
+    return cutDayIndex - validationDays;
+  }
+
+  public TrainingPlan withCutDayIndex(int dayIndex) {
+    return new TrainingPlan(spec, trainParameters, datasetParameters, dayIndex, validationDays, partitionAttribute,
+        salesValueWeights);
+  }
+}
