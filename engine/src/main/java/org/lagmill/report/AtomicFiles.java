@@ -1,0 +1,30 @@
+package org.lagmill.report;
+
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.AtomicMoveNotSupportedException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+
+/** Writes a whole file through a temporary file beside it and a rename, so readers never see half a file. */
+final class AtomicFiles {
+  private AtomicFiles() {}
+
+  static void writeString(Path file, String text) throws IOException {
+    Path target = file.toAbsolutePath();
+    Path dir = target.getParent();
+    Files.createDirectories(dir);
+    Path tmp = Files.createTempFile(dir, "." + target.getFileName(), ".tmp");
+    try {
+      Files.writeString(tmp, text, StandardCharsets.UTF_8);
+      try {
+        Files.move(tmp, target, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
+      } catch (AtomicMoveNotSupportedException e) {
+        Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING);
+      }
+    } finally {
+      Files.deleteIfExists(tmp);
+    }
+  }
+}
