@@ -25,6 +25,9 @@ final class ModelSections {
       LineChart chart = SvgCharts.lineChart(ChartFrame.WIDE, curve.values().length)
           .title("Validation " + curve.metricName() + " per boosting iteration")
           .xLabels(i -> Integer.toString(i + 1)).yTitle(curve.metricName());
+      int step = (int) Math.max(1, AxisScale.niceStep(curve.values().length / 8.0));
+      // ticks on round iteration numbers (50, 100, ...), which sit at index iteration - 1
+      chart.xTicks(step, step - 1);
       if (curve.trainingValues() != null) {
         chart.line("training rows", curve.trainingValues(), SvgCharts.TRAINING_COLOUR, "7 4", false);
       }
