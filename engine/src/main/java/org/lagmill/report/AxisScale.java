@@ -53,13 +53,25 @@ public final class AxisScale {
       throw new IllegalArgumentException("targetCount must be >= 2, got " + targetCount);
     }
     if (min == max) {
-      double pad = min == 0 ? 1 : Math.abs(min) * 0.5;
+      // an all-zero series (common for a slow item) reads best on [0, 1]
+      double pad = min == 0 ? 0 : Math.abs(min) * 0.5;
       min -= pad;
-      max += pad;
+      max += min == 0 && max == 0 ? 1 : pad;
     }
     double step = niceStep((max - min) / (targetCount - 1));
-    long first = (long) Math.floor(min / step + 1e-9);
-    long last = (long) Math.ceil(max / step - 1e-9);
+    // the quotient may land a hair off a whole number (0.3 / 0.1 = 2.9999999999999996): settle on the tick values
+    long first = (long) Math.floor(min / step);
+    if (roundToStep((first + 1) * step, step) <= min) {
+      first++;
+    } else if (roundToStep(first * step, step) > min) {
+      first--;
+    }
+    long last = (long) Math.ceil(max / step);
+    if (roundToStep((last - 1) * step, step) >= max) {
+      last--;
+    } else if (roundToStep(last * step, step) < max) {
+      last++;
+    }
     double[] ticks = new double[(int) (last - first + 1)];
     for (int i = 0; i < ticks.length; i++) {
       // multiplying the integer index avoids drift from repeated addition of a step such as 0.1
