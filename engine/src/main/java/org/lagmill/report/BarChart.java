@@ -12,7 +12,7 @@ public final class BarChart {
   private static final int ROW_HEIGHT_PX = 22;
   private static final int BAR_HEIGHT_PX = 14;
   private static final int TOP_PX = 8;
-  private static final int BOTTOM_PX = 30;
+  private static final int BOTTOM_PX = 34;
 
   private final int widthPx;
   private final List<Bar> bars = new ArrayList<>();
@@ -113,7 +113,7 @@ public final class BarChart {
     }
     svg.line(left, TOP_PX, left, bottom, "axis", SvgCharts.AXIS_COLOUR, 1, null);
     if (!axisTitle.isEmpty()) {
-      svg.text(widthPx - 70, heightPx - 2, axisTitle, "end", "axis-title", SvgCharts.TEXT_COLOUR, 11, 0);
+      svg.text(widthPx - 70, heightPx - 4, axisTitle, "end", "axis-title", SvgCharts.TEXT_COLOUR, 11, 0);
     }
     return svg.close();
   }

@@ -27,7 +27,7 @@ final class ReportStyle {
         counter-reset: part; font-size: 14px; }
       nav.contents li { counter-increment: part; }
       nav.contents li::before { content: counter(part) ". "; color: #555555; }
-      a { color: #0b5394; }
+      a { color: #1a4f80; }
       table { border-collapse: collapse; margin: 8px 0 18px; font-size: 14px; }
       caption { caption-side: top; text-align: left; font-weight: bold; padding-bottom: 4px; white-space: nowrap; }
       th, td { padding: 4px 12px 4px 0; border-bottom: 1px solid #dddddd; text-align: left; vertical-align: top; }
