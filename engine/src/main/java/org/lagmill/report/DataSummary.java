@@ -1,0 +1,42 @@
+package org.lagmill.report;
+
+import java.time.LocalDate;
+import java.util.Collections;
+import java.util.LinkedHashMap;
+import java.util.Map;
+
+/**
+ * What the sales history holds and how compactly it is stored. Every field may be null when unknown.
+ *
+ * @param seriesCount item-store series
+ * @param dayCount days per series
+ * @param firstDate first day of the history
+ * @param lastDate last day of the history
+ * @param attributeCardinalities distinct values per series attribute (e.g. "store" to 10), in display order
+ * @param zeroDayShare share of item-days with zero units sold, in [0, 1]
+ * @param storeBytesPerItemDay bytes the store takes per item-day (columns, dictionaries and prices together)
+ * @param int64BytesPerItemDay bytes per item-day of the same history as one 64-bit integer per item-day (8 plus any
+ *     overhead the caller counts)
+ * @param csvBytesPerItemDay bytes per item-day of the input as CSV text
+ */
+public record DataSummary(
+    Long seriesCount,
+    Integer dayCount,
+    LocalDate firstDate,
+    LocalDate lastDate,
+    Map<String, Long> attributeCardinalities,
+    Double zeroDayShare,
+    Double storeBytesPerItemDay,
+    Double int64BytesPerItemDay,
+    Double csvBytesPerItemDay) {
+
+  public DataSummary {
+    attributeCardinalities = attributeCardinalities == null
+        ? Map.of() : Collections.unmodifiableMap(new LinkedHashMap<>(attributeCardinalities));
+  }
+
+  /** Item-days in the history, or null when series or day count is unknown. */
+  public Long itemDayCount() {
+    return seriesCount == null || dayCount == null ? null : seriesCount * dayCount;
+  }
+}
