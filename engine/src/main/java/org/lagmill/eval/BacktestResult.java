@@ -1,0 +1,29 @@
+package org.lagmill.eval;
+
+import java.util.List;
+import java.util.Map;
+import org.lagmill.forecast.PartitionReport;
+
+/**
+ * Scores of a rolling-origin backtest: per origin the model and each baseline under the same metric, and their mean
+ * and spread over origins.
+ */
+public record BacktestResult(List<OriginResult> origins, double meanModelWrmsse, double stdModelWrmsse,
+    Map<String, Double> meanBaselineWrmsse, Double meanModelWspl, Double meanPoissonWspl) {
+
+  /**
+   * One origin.
+   *
+   * @param poissonWspl WSPL of the same point forecasts with Poisson intervals (no dispersion), to show what the
+   *     estimated dispersion buys
+   */
+  public record OriginResult(int originDayIndex, String originDate, EvaluationResult model,
+      Map<String, EvaluationResult> baselines, Double poissonWspl, List<PartitionReport> partitions,
+      double trainSeconds, double forecastSeconds) {}
+
+  /** The model's mean WRMSSE over origins divided by seasonal naive's: below 1 means the model beats it. */
+  public double skillRatioAgainstSeasonalNaive() {
+    Double reference = meanBaselineWrmsse.get(BaselineKind.SEASONAL_NAIVE.name());
+    return reference == null || reference == 0 ? Double.NaN : meanModelWrmsse / reference;
+  }
+}

@@ -1,0 +1,144 @@
+package org.lagmill.forecast;
+
+import de.siegmar.fastcsv.reader.CsvRecord;
+import java.nio.file.Path;
+import java.time.LocalDate;
+import java.time.format.DateTimeParseException;
+import java.time.temporal.ChronoUnit;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import org.lagmill.ingest.CsvSource;
+import org.lagmill.ingest.InputFormatException;
+import org.lagmill.store.SalesHistory;
+import org.lagmill.store.SeriesAttributes;
+
+/**
+ * Reads a long forecast file (the {@link ForecastFileWriter} form, or any file with {@code series_id} or the store's
+ * attribute columns, {@code date}, {@code forecast} and optional {@code q…} columns) against a store, for scoring.
+ * Every series of the store must have a forecast for every day of one run of consecutive days.
+ */
+public final class ForecastFileReader {
+  private ForecastFileReader() {}
+
+  public static ForecastTable read(Path file, SalesHistory history) {
+    SeriesAttributes attributes = history.attributes();
+    try (CsvSource csv = CsvSource.open(file)) {
+      String[] header = csv.readHeader();
+      int dateColumn = column(header, "date", file);
+      int forecastColumn = column(header, "forecast", file);
+      int idColumn = Arrays.asList(header).indexOf("series_id");
+      int[] attributeColumns = new int[attributes.attributeCount()];
+      for (int a = 0; a < attributeColumns.length; a++) {
+        attributeColumns[a] = Arrays.asList(header).indexOf(attributes.attributeName(a));
+        if (idColumn < 0 && attributeColumns[a] < 0) {
+          throw new InputFormatException(file, 1, 0, "expected a series_id column or the store's attribute column '"
+              + attributes.attributeName(a) + "', found neither");
+        }
+      }
+      List<Integer> quantileColumns = new ArrayList<>();
+      List<Double> levels = new ArrayList<>();
+      for (int c = 0; c < header.length; c++) {
+        if (header[c].matches("q0\\.\\d+")) {
+          quantileColumns.add(c);
+          levels.add(Double.parseDouble(header[c].substring(1)));
+        }
+      }
+      List<long[]> cells = new ArrayList<>();
+      List<double[]> values = new ArrayList<>();
+      int firstDay = Integer.MAX_VALUE;
+      int lastDay = Integer.MIN_VALUE;
+      String[] key = new String[attributeColumns.length];
+      CsvRecord record;
+      while ((record = csv.next()) != null) {
+        long line = csv.lineNumber();
+        int series;
+        if (idColumn >= 0) {
+          series = attributes.seriesIndexOf(record.getField(idColumn));
+        } else {
+          for (int a = 0; a < key.length; a++) {
+            key[a] = record.getField(attributeColumns[a]);
+          }
+          series = attributes.seriesIndexOf(String.join("/", key));
+        }
+        if (series < 0) {
+          throw new InputFormatException(file, line, idColumn + 1, "expected a series of the store, found '"
+              + (idColumn >= 0 ? record.getField(idColumn) : String.join("/", key)) + "'");
+        }
+        int day = dayIndex(file, line, dateColumn, record.getField(dateColumn), history);
+        double[] row = new double[1 + quantileColumns.size()];
+        row[0] = number(file, line, forecastColumn, record.getField(forecastColumn));
+        for (int q = 0; q < quantileColumns.size(); q++) {
+          row[1 + q] = number(file, line, quantileColumns.get(q), record.getField(quantileColumns.get(q)));
+        }
+        cells.add(new long[] {series, day, line});
+        values.add(row);
+        firstDay = Math.min(firstDay, day);
+        lastDay = Math.max(lastDay, day);
+      }
+      if (cells.isEmpty()) {
+        throw new InputFormatException(file, 2, 0, "expected forecast rows after the header, found none");
+      }
+      int horizon = lastDay - firstDay + 1;
+      double[][] point = new double[history.seriesCount()][horizon];
+      double[][][] quantiles = new double[quantileColumns.size()][history.seriesCount()][horizon];
+      for (double[] row : point) {
+        Arrays.fill(row, Double.NaN);
+      }
+      for (int i = 0; i < cells.size(); i++) {
+        int s = (int) cells.get(i)[0];
+        int d = (int) cells.get(i)[1] - firstDay;
+        if (!Double.isNaN(point[s][d])) {
+          throw new InputFormatException(file, cells.get(i)[2], dateColumn + 1, "duplicate forecast for series '"
+              + attributes.seriesId(s) + "' on " + history.dateOf(firstDay + d));
+        }
+        point[s][d] = values.get(i)[0];
+        for (int q = 0; q < quantiles.length; q++) {
+          quantiles[q][s][d] = values.get(i)[1 + q];
+        }
+      }
+      for (int s = 0; s < point.length; s++) {
+        for (int d = 0; d < horizon; d++) {
+          if (Double.isNaN(point[s][d])) {
+            throw new InputFormatException(file, 0, 0, "expected a forecast for every series on every day from "
+                + history.dateOf(firstDay) + " to " + history.dateOf(lastDay) + ", missing: series '"
+                + attributes.seriesId(s) + "' on " + history.dateOf(firstDay + d));
+          }
+        }
+      }
+      return new ForecastTable(firstDay, point, levels.stream().mapToDouble(Double::doubleValue).toArray(),
+          quantiles);
+    }
+  }
+
+  private static int column(String[] header, String name, Path file) {
+    int index = Arrays.asList(header).indexOf(name);
+    if (index < 0) {
+      throw new InputFormatException(file, 1, 0, "expected a '" + name + "' column in the header, found "
+          + Arrays.toString(header));
+    }
+    return index;
+  }
+
+  private static int dayIndex(Path file, long line, int column, String text, SalesHistory history) {
+    try {
+      return (int) ChronoUnit.DAYS.between(history.firstDate(), LocalDate.parse(text));
+    } catch (DateTimeParseException e) {
+      throw new InputFormatException(file, line, column + 1, "expected an ISO date (YYYY-MM-DD), found \"" + text
+          + "\"");
+    }
+  }
+
+  private static double number(Path file, long line, int column, String text) {
+    try {
+      double value = Double.parseDouble(text);
+      if (value < 0 || Double.isNaN(value) || Double.isInfinite(value)) {
+        throw new NumberFormatException();
+      }
+      return value;
+    } catch (NumberFormatException e) {
+      throw new InputFormatException(file, line, column + 1, "expected a non-negative number of units, found \""
+          + text + "\"");
+    }
+  }
+}

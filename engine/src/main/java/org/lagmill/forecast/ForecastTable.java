@@ -1,0 +1,26 @@
+package org.lagmill.forecast;
+
+import java.util.Locale;
+
+/**
+ * Forecasts of every series of a store for consecutive days: point forecasts and, optionally, quantiles.
+ *
+ * @param firstDayIndex store day index of the first forecast day (the store's dayCount for a forward forecast)
+ * @param point {@code [seriesIndex][dayOffset]} expected units; a row of NaN for a series not forecast
+ * @param quantileLevels probabilities of the quantile columns, ascending; empty without intervals
+ * @param quantiles {@code [quantileIndex][seriesIndex][dayOffset]}
+ */
+public record ForecastTable(int firstDayIndex, double[][] point, double[] quantileLevels, double[][][] quantiles) {
+  /** The nine quantiles the weighted scaled pinball loss is published with. */
+  public static final double[] PUBLISHED_QUANTILES = {0.005, 0.025, 0.165, 0.25, 0.5, 0.75, 0.835, 0.975, 0.995};
+
+  public int horizonDays() {
+    return point.length == 0 ? 0 : point[0].length;
+  }
+
+  /** Column name of a quantile, e.g. {@code q0.025}. */
+  public static String quantileColumn(double level) {
+    String text = String.format(Locale.ROOT, "%.6f", level).replaceAll("0+$", "");
+    return "q" + (text.endsWith(".") ? text + "0" : text);
+  }
+}

@@ -1,0 +1,125 @@
+package org.lagmill.report;
+
+import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import org.lagmill.eval.BacktestResult;
+import org.lagmill.eval.BaselineKind;
+import org.lagmill.eval.EvaluationResult;
+import org.lagmill.forecast.PartitionReport;
+import org.lagmill.store.StoreSummary;
+
+/**
+ * Turns engine results (store summary, training reports, backtest and evaluation results) into the report's own
+ * records, so the HTML and the run's JSON hold the very numbers the engine computed.
+ */
+public final class ReportAssembler {
+  private ReportAssembler() {}
+
+  public static DataSummary dataSummary(StoreSummary store) {
+    Map<String, Long> cardinalities = new LinkedHashMap<>();
+    store.attributeCardinalities().forEach((name, count) -> cardinalities.put(name, count.longValue()));
+    double itemDays = (double) store.seriesCount() * store.dayCount();
+    return new DataSummary((long) store.seriesCount(), store.dayCount(), store.firstDate(), store.lastDate(),
+        cardinalities, store.zeroDayShare(), store.storeBytesPerItemDay(), store.int64ColumnBytes() / itemDays,
+        store.sourceCsvBytes() > 0 ? store.sourceCsvBytes() / itemDays : null);
+  }
+
+  /** Validation curve of the largest partition and feature gain summed over partitions. */
+  public static TrainingSummary training(List<PartitionReport> partitions) {
+    if (partitions.isEmpty()) {
+      return null;
+    }
+    PartitionReport largest = partitions.get(0);
+    Map<String, double[]> importance = new LinkedHashMap<>();
+    for (PartitionReport partition : partitions) {
+      if (partition.trainingRowCount() > largest.trainingRowCount()) {
+        largest = partition;
+      }
+      for (PartitionReport.FeatureImportanceRow row : partition.featureImportance()) {
+        double[] sums = importance.computeIfAbsent(row.feature(), k -> new double[2]);
+        sums[0] += row.gain();
+        sums[1] += row.splitCount();
+      }
+    }
+    List<TrainingSummary.FeatureImportance> rows = new ArrayList<>();
+    importance.forEach((name, sums) -> rows.add(new TrainingSummary.FeatureImportance(name, sums[0],
+        (long) sums[1])));
+    rows.sort((a, b) -> Double.compare(b.gain(), a.gain()));
+    TrainingSummary.ValidationCurve curve = largest.validationCurve().length == 0 ? null
+        : new TrainingSummary.ValidationCurve(largest.validationMetric(), largest.validationCurve(), null,
+            largest.bestIteration());
+    return new TrainingSummary(curve, rows);
+  }
+
+  /** Per-level table averaged over the origins, the mean WRMSSE of the model and each baseline, and per origin. */
+  public static AccuracySummary accuracy(BacktestResult backtest) {
+    List<BacktestResult.OriginResult> origins = backtest.origins();
+    EvaluationResult first = origins.get(0).model();
+    List<AccuracySummary.LevelScore> levels = new ArrayList<>();
+    for (int level = 0; level < first.levels().size(); level++) {
+      double model = 0;
+      Map<String, Double> baselines = new LinkedHashMap<>();
+      for (BacktestResult.OriginResult origin : origins) {
+        model += origin.model().levels().get(level).weightedRmsse() / origins.size();
+        for (Map.Entry<String, EvaluationResult> baseline : origin.baselines().entrySet()) {
+          baselines.merge(label(baseline.getKey()), baseline.getValue().levels().get(level).weightedRmsse()
+              / origins.size(), Double::sum);
+        }
+      }
+      EvaluationResult.LevelResult row = first.levels().get(level);
+      levels.add(new AccuracySummary.LevelScore(row.name(), row.aggregateCount(), model, baselines));
+    }
+    Map<String, Double> baselineMeans = new LinkedHashMap<>();
+    backtest.meanBaselineWrmsse().forEach((name, value) -> baselineMeans.put(label(name), value));
+    List<AccuracySummary.OriginScore> originScores = new ArrayList<>();
+    for (BacktestResult.OriginResult origin : origins) {
+      Map<String, Double> scores = new LinkedHashMap<>();
+      origin.baselines().forEach((name, result) -> scores.put(label(name), result.wrmsse()));
+      originScores.add(new AccuracySummary.OriginScore(LocalDate.parse(origin.originDate()), origin.model().wrmsse(),
+          scores));
+    }
+    Map<String, Double> baselineWspl = new LinkedHashMap<>();
+    if (backtest.meanPoissonWspl() != null) {
+      baselineWspl.put("Poisson intervals (no dispersion)", backtest.meanPoissonWspl());
+    }
+    String reference = baselineMeans.containsKey(label(BaselineKind.SEASONAL_NAIVE.name()))
+        ? label(BaselineKind.SEASONAL_NAIVE.name()) : null;
+    return new AccuracySummary(reference, levels, backtest.meanModelWrmsse(), baselineMeans,
+        backtest.meanModelWspl(), baselineWspl, originScores);
+  }
+
+  /** Scaled error per horizon day averaged over origins, the model beside each baseline. */
+  public static HorizonErrors horizon(BacktestResult backtest) {
+    List<BacktestResult.OriginResult> origins = backtest.origins();
+    int horizon = origins.get(0).model().horizonDays().size();
+    double[] model = new double[horizon];
+    Map<String, double[]> baselines = new LinkedHashMap<>();
+    for (BacktestResult.OriginResult origin : origins) {
+      for (int d = 0; d < horizon; d++) {
+        model[d] += origin.model().horizonDays().get(d).weightedScaledError() / origins.size();
+      }
+      for (Map.Entry<String, EvaluationResult> baseline : origin.baselines().entrySet()) {
+        double[] values = baselines.computeIfAbsent(label(baseline.getKey()), k -> new double[horizon]);
+        for (int d = 0; d < horizon; d++) {
+          values[d] += baseline.getValue().horizonDays().get(d).weightedScaledError() / origins.size();
+        }
+      }
+    }
+    List<HorizonErrors.NamedCurve> curves = new ArrayList<>();
+    baselines.forEach((name, values) -> curves.add(new HorizonErrors.NamedCurve(name, values)));
+    return new HorizonErrors("weighted scaled error (RMSSE of one day, WRMSSE weights)", model, curves);
+  }
+
+  /** Display name of a baseline kind, e.g. SEASONAL_NAIVE → "seasonal naive". */
+  public static String label(String baselineKind) {
+    return switch (baselineKind) {
+      case "SES" -> "exponential smoothing";
+      case "SBA" -> "Croston (SBA)";
+      case "CROSTON" -> "Croston";
+      default -> baselineKind.toLowerCase(java.util.Locale.ROOT).replace('_', ' ');
+    };
+  }
+}
