@@ -1,0 +1,96 @@
+package org.lagmill.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.Callable;
+import org.lagmill.features.FeatureSpec;
+import org.lagmill.forecast.TrainingPlan;
+import org.lagmill.memory.MemoryBudget;
+import org.lagmill.report.ReportAssembler;
+import org.lagmill.report.ReportData;
+import org.lagmill.store.SalesStore;
+import org.lagmill.store.StoreSummary;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code lagmill backtest}: rolling-origin backtest of the model against baselines, with a report. */
+@Command(name = "backtest", mixinStandardHelpOptions = true,
+    description = {"Rolling-origin backtest: for each origin, train only on the days before it, forecast the horizon",
+        "as in production and score WRMSSE per level beside naive, seasonal naive, moving average, exponential",
+        "smoothing and Croston baselines on the same days."},
+    footer = {"", "Example:", "  lagmill backtest --store stores/chain --origins 3 --step 28 --report runs/bt1"})
+final class BacktestCommand implements Callable<Integer> {
+  @Spec CommandSpec commandSpec;
+
+  @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory")
+  Path store;
+
+  @Option(names = "--origins", required = true, paramLabel = "K", description = "number of forecast origins")
+  int originCount;
+
+  @Option(names = "--step", paramLabel = "DAYS", description = "days between origins (default: the horizon)")
+  Integer stepDays;
+
+  @Option(names = "--report", required = true, paramLabel = "DIR", description = "folder for report.html, "
+      + "report.json, backtest.json and run.json")
+  Path reportDir;
+
+  @Option(names = "--show", split = ",", paramLabel = "SERIES_ID", description = "series to chart in the report")
+  List<String> shownSeries = List.of();
+
+  @Option(names = "--json", description = "print the backtest result as JSON")
+  boolean json;
+
+  @Option(names = "--memory-limit", paramLabel = "BYTES", description = "off-heap budget in bytes (default: none)")
+  Long memoryLimitBytes;
+
+  @Option(names = "--quiet", description = "print nothing but errors (and the JSON with --json)")
+  boolean quiet;
+
+  @Mixin TrainingOptions training;
+  @Mixin HierarchyOptions hierarchyOptions;
+
+  @Override
+  public Integer call() throws Exception {
+    RunRecord run = new RunRecord("backtest");
+    FeatureSpec spec = training.featureSpec();
+    ReportData.Builder report = ReportOutput.start("lagmill backtest", "lagmill backtest --store " + store
+        + " --origins " + originCount, store.toString());
+    BacktestRun backtest;
+    try (MemoryBudget budget = CliBudgets.root(memoryLimitBytes);
+        SalesStore opened = SalesStore.open(store, budget.child("store"))) {
+      report.data(ReportAssembler.dataSummary(StoreSummary.of(opened)));
+      run.endStage("open store", opened.offHeapBytes(), 0);
+      TrainingPlan plan = training.plan(spec, opened.dayCount() - 1);
+      run.configure("store", store.toString()).configure("origins", originCount)
+          .configure("stepDays", stepDays == null ? spec.horizonDays() : stepDays).configure("plan", plan.toString());
+      try (MemoryBudget learner = budget.child("backtest")) {
+        backtest = BacktestRun.run(opened, plan, originCount, stepDays == null ? spec.horizonDays() : stepDays,
+            hierarchyOptions.hierarchy(opened.attributes()), learner, ConsoleProgress.forCommand(quiet));
+        long rows = backtest.result.origins().stream().flatMap(o -> o.partitions().stream())
+            .mapToLong(p -> p.trainingRowCount()).sum();
+        run.endStage("backtest", opened.offHeapBytes() + learner.peakBytes(), rows);
+      }
+      backtest.addTo(report, opened, shownSeries);
+    }
+    ReportOutput.addStages(report, run.stages(), backtest.lastPartitions().get(0).datasetBytesPerRow());
+    Files.createDirectories(reportDir);
+    RunRecord.JSON.writeValue(reportDir.resolve("backtest.json").toFile(), backtest.result);
+    Path html = ReportOutput.write(report.build(), reportDir);
+    run.result("backtest", backtest.result);
+    run.write(reportDir);
+    PrintWriter out = commandSpec.commandLine().getOut();
+    if (json) {
+      out.println(RunRecord.JSON.writeValueAsString(backtest.result));
+    } else if (!quiet) {
+      backtest.print(out);
+      out.println("report written to " + html);
+    }
+    return ExitCodes.OK;
+  }
+}

@@ -1,0 +1,102 @@
+package org.lagmill.cli;
+
+import java.io.PrintWriter;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import org.lagmill.eval.BacktestResult;
+import org.lagmill.eval.BacktestSettings;
+import org.lagmill.eval.BaselineKind;
+import org.lagmill.eval.Hierarchy;
+import org.lagmill.eval.RollingOriginBacktest;
+import org.lagmill.forecast.ForecastTable;
+import org.lagmill.forecast.PartitionReport;
+import org.lagmill.forecast.TrainingPlan;
+import org.lagmill.memory.MemoryBudget;
+import org.lagmill.progress.ProgressListener;
+import org.lagmill.report.ReportAssembler;
+import org.lagmill.report.ReportData;
+import org.lagmill.report.SeriesChartBuilder;
+import org.lagmill.store.SalesHistory;
+
+/** Runs a backtest and turns it into console lines and report sections; shared by {@code backtest} and {@code demo}. */
+final class BacktestRun {
+  static final List<BaselineKind> DEFAULT_BASELINES = List.of(BaselineKind.NAIVE, BaselineKind.SEASONAL_NAIVE,
+      BaselineKind.MOVING_AVERAGE, BaselineKind.SES, BaselineKind.CROSTON, BaselineKind.SBA);
+
+  final BacktestResult result;
+  final int lastOriginDayIndex;
+  final double[][] lastOriginForecasts;
+  final float[] lastOriginDispersion;
+  final Hierarchy hierarchy;
+
+  private BacktestRun(BacktestResult result, int lastOrigin, double[][] forecasts, float[] dispersion,
+      Hierarchy hierarchy) {
+    this.result = result;
+    this.lastOriginDayIndex = lastOrigin;
+    this.lastOriginForecasts = forecasts;
+    this.lastOriginDispersion = dispersion;
+    this.hierarchy = hierarchy;
+  }
+
+  static BacktestRun run(SalesHistory history, TrainingPlan plan, int originCount, int stepDays, Hierarchy hierarchy,
+      MemoryBudget budget, ProgressListener progress) {
+    BacktestSettings settings = new BacktestSettings(originCount, stepDays, plan.spec().horizonDays(),
+        DEFAULT_BASELINES, hierarchy, ForecastTable.PUBLISHED_QUANTILES);
+    int[] lastOrigin = {-1};
+    double[][][] lastForecasts = new double[1][][];
+    float[][] lastDispersion = new float[1][];
+    BacktestResult result = RollingOriginBacktest.run(history, plan, settings, budget, progress,
+        (origin, point, dispersion) -> {
+          lastOrigin[0] = origin;
+          lastForecasts[0] = point;
+          lastDispersion[0] = dispersion;
+        });
+    return new BacktestRun(result, lastOrigin[0], lastForecasts[0], lastDispersion[0], hierarchy);
+  }
+
+  List<PartitionReport> lastPartitions() {
+    return result.origins().get(result.origins().size() - 1).partitions();
+  }
+
+  void addTo(ReportData.Builder report, SalesHistory history, List<String> shownSeries) {
+    report.accuracy(ReportAssembler.accuracy(result)).horizon(ReportAssembler.horizon(result));
+    if (report.build().training() == null) {
+      report.training(ReportAssembler.training(lastPartitions()));
+    }
+    SeriesChartBuilder.build(history, hierarchy.bind(history), lastOriginDayIndex, lastOriginForecasts,
+        lastOriginDispersion, SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, shownSeries).forEach(chart ->
+        report.series(chart));
+  }
+
+  void print(PrintWriter out) {
+    List<String> names = new ArrayList<>(result.meanBaselineWrmsse().keySet());
+    StringBuilder header = new StringBuilder(String.format(Locale.ROOT, "%-12s %9s", "origin", "model"));
+    for (String name : names) {
+      header.append(String.format(Locale.ROOT, " %22s", ReportAssembler.label(name)));
+    }
+    out.println("WRMSSE by origin (lower is better)");
+    out.println(header);
+    for (BacktestResult.OriginResult origin : result.origins()) {
+      StringBuilder line = new StringBuilder(String.format(Locale.ROOT, "%-12s %9.4f", origin.originDate(),
+          origin.model().wrmsse()));
+      for (String name : names) {
+        line.append(String.format(Locale.ROOT, " %22.4f", origin.baselines().get(name).wrmsse()));
+      }
+      out.println(line);
+    }
+    StringBuilder mean = new StringBuilder(String.format(Locale.ROOT, "%-12s %9.4f", "mean", result.meanModelWrmsse()));
+    for (Map.Entry<String, Double> baseline : result.meanBaselineWrmsse().entrySet()) {
+      mean.append(String.format(Locale.ROOT, " %22.4f", baseline.getValue()));
+    }
+    out.println(mean);
+    out.printf(Locale.ROOT, "model WRMSSE %.4f ± %.4f over %d origins; skill against seasonal naive %.3f (model / "
+        + "seasonal naive, lower is better)%n", result.meanModelWrmsse(), result.stdModelWrmsse(),
+        result.origins().size(), result.skillRatioAgainstSeasonalNaive());
+    if (result.meanModelWspl() != null) {
+      out.printf(Locale.ROOT, "interval WSPL %.4f (negative binomial, estimated dispersion) vs %.4f (Poisson)%n",
+          result.meanModelWspl(), result.meanPoissonWspl());
+    }
+  }
+}

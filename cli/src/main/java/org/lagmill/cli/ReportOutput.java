@@ -1,0 +1,41 @@
+package org.lagmill.cli;
+
+import java.io.IOException;
+import java.nio.file.Path;
+import java.time.Instant;
+import java.util.List;
+import org.lagmill.report.HtmlReportWriter;
+import org.lagmill.report.ReportData;
+import org.lagmill.report.ReportJson;
+import org.lagmill.report.RunInfo;
+import org.lagmill.report.StageStats;
+
+/** Writes a run's {@code report.json} and {@code report.html} side by side. */
+final class ReportOutput {
+  static final String JSON_FILE = "report.json";
+  static final String HTML_FILE = "report.html";
+
+  private ReportOutput() {}
+
+  static ReportData.Builder start(String title, String commandLine, String storePath) {
+    return ReportData.builder(title).run(new RunInfo(Instant.now(), new VersionProvider().getVersion()[0],
+        commandLine, Runtime.getRuntime().availableProcessors(), Runtime.getRuntime().maxMemory(), storePath));
+  }
+
+  static void addStages(ReportData.Builder report, List<RunRecord.Stage> stages, Double datasetBytesPerRow) {
+    for (RunRecord.Stage stage : stages) {
+      boolean training = stage.name().startsWith("train") || stage.name().startsWith("backtest");
+      report.stage(new StageStats(stage.name(), stage.seconds(), stage.peakResidentBytes(), stage.offHeapBytes(),
+          stage.rowCount() > 0 ? stage.rowCount() : null, stage.rowCount() > 0 ? stage.rowsPerSecond() : null,
+          training ? datasetBytesPerRow : null));
+    }
+  }
+
+  /** Writes both files into {@code dir} and returns the HTML path. */
+  static Path write(ReportData report, Path dir) throws IOException {
+    ReportJson.write(report, dir.resolve(JSON_FILE));
+    Path html = dir.resolve(HTML_FILE);
+    HtmlReportWriter.write(report, html);
+    return html;
+  }
+}
