@@ -39,7 +39,7 @@ public final class IngestThroughput {
         Path store = work.resolve("store");
         long start = System.nanoTime();
         try (MemoryBudget budget = MemoryBudget.unlimited("bench")) {
-          StoreIngest.ingest(IngestOptions.of(file, store), budget);
+          StoreIngest.ingest(IngestOptions.of(file, store), budget).manifest();
           long elapsedNanos = System.nanoTime() - start;
           try (SalesStore opened = SalesStore.open(store, budget)) {
             StoreSummary summary = StoreSummary.of(opened);

@@ -2,20 +2,24 @@ package org.lagmill.cli;
 
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
+import org.lagmill.ingest.AppendOptions;
+import org.lagmill.ingest.IngestResult;
 import org.lagmill.ingest.StoreAppend;
-import org.lagmill.ingest.WideSalesReader;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.StoreManifest;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
-/** {@code lagmill append}: adds the next days from a wide sales file to a store. */
+/** {@code lagmill append}: adds a store's next days from a wide sales file; may replace its calendar and prices. */
 @Command(name = "append", mixinStandardHelpOptions = true,
     description = {"Add new days to a store from a wide sales CSV whose first date is the store's next day.",
-        "Series missing from the file get unknown units on the new days; new series get unknown units before them."},
-    footer = {"", "Example:", "  lagmill append --store stores/chain --sales sales-next-week.csv"})
+        "Series missing from the file get unknown units on the new days; new series get unknown units before them.",
+        "A --calendar or --prices file replaces the stored calendar or prices; without it they are kept."},
+    footer = {"", "Example:", "  lagmill append --store stores/chain --sales sales-next-week.csv \\",
+        "      --calendar calendar.csv --prices prices.csv"})
 final class AppendCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
 
@@ -25,17 +29,30 @@ final class AppendCommand implements Callable<Integer> {
   @Option(names = "--sales", required = true, paramLabel = "FILE", description = "wide sales CSV, optionally .gz")
   Path sales;
 
-  @Option(names = "--series-id-column", paramLabel = "NAME", defaultValue = WideSalesReader.DEFAULT_SERIES_ID_COLUMN,
-      description = "column naming each series (default: ${DEFAULT-VALUE})")
-  String seriesIdColumn;
+  @Option(names = "--calendar", paramLabel = "FILE", description = "newer calendar CSV replacing the stored one")
+  Path calendar;
+
+  @Option(names = "--prices", paramLabel = "FILE", description = "newer prices CSV replacing the stored prices")
+  Path prices;
+
+  @Mixin ColumnOptions columns;
+
+  @Option(names = "--quiet", description = "print nothing on success, not even warnings")
+  boolean quiet;
 
   @Override
   public Integer call() throws Exception {
+    AppendOptions options = AppendOptions.of(store, sales).withColumns(columns.names())
+        .withCalendarFile(calendar).withPricesFile(prices);
     try (MemoryBudget budget = CliBudgets.root(null)) {
-      StoreManifest manifest = StoreAppend.append(store, sales, seriesIdColumn, budget);
-      spec.commandLine().getOut().printf("store %s now holds %d series x %d days (%s .. %s)%n", store,
-          manifest.seriesCount(), manifest.dayCount(), manifest.firstDate(),
-          manifest.firstLocalDate().plusDays(manifest.dayCount() - 1L));
+      IngestResult result = StoreAppend.append(options, budget);
+      if (!quiet) {
+        IngestCommand.printWarnings(spec.commandLine().getErr(), result.warnings());
+        StoreManifest manifest = result.manifest();
+        spec.commandLine().getOut().printf("store %s now holds %d series x %d days (%s .. %s)%n", store,
+            manifest.seriesCount(), manifest.dayCount(), manifest.firstDate(),
+            manifest.firstLocalDate().plusDays(manifest.dayCount() - 1L));
+      }
     }
     return ExitCodes.OK;
   }

@@ -1,25 +1,32 @@
 package org.lagmill.cli;
 
+import java.io.PrintWriter;
 import java.nio.file.Path;
+import java.util.List;
 import java.util.concurrent.Callable;
 import org.lagmill.ingest.IngestOptions;
+import org.lagmill.ingest.IngestResult;
+import org.lagmill.ingest.SalesFormat;
 import org.lagmill.ingest.StoreIngest;
-import org.lagmill.ingest.WideSalesReader;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.StoreManifest;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
-/** {@code lagmill ingest}: builds a store from a wide sales file (and, once wired, calendar and prices files). */
+/** {@code lagmill ingest}: builds a store from a sales file (wide or long) and optional calendar and prices files. */
 @Command(name = "ingest", mixinStandardHelpOptions = true,
-    description = "Build a compact store from a wide sales CSV (one row per series, one column per day).",
-    footer = {"", "Example:", "  lagmill ingest --sales sales.csv.gz --store stores/chain"})
+    description = {"Build a compact store from a sales CSV: wide (one row per series, one column per day) or long",
+        "(one row per series and day), with an optional calendar and prices (see docs/formats.md)."},
+    footer = {"", "Example:", "  lagmill ingest --sales sales.csv.gz --store stores/chain",
+        "  lagmill ingest --sales sales.csv --calendar calendar.csv --prices prices.csv \\",
+        "      --store stores/chain"})
 final class IngestCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
 
-  @Option(names = "--sales", required = true, paramLabel = "FILE", description = "wide sales CSV, optionally .gz")
+  @Option(names = "--sales", required = true, paramLabel = "FILE", description = "sales CSV, optionally .gz")
   Path sales;
 
   @Option(names = "--calendar", paramLabel = "FILE", description = "calendar CSV")
@@ -31,24 +38,34 @@ final class IngestCommand implements Callable<Integer> {
   @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory to create or replace")
   Path store;
 
-  @Option(names = "--series-id-column", paramLabel = "NAME", defaultValue = WideSalesReader.DEFAULT_SERIES_ID_COLUMN,
-      description = "column naming each series (default: ${DEFAULT-VALUE}); without it a series is named by its "
-          + "attribute values joined with '/'")
-  String seriesIdColumn;
+  @Option(names = "--sales-format", paramLabel = "FORMAT", defaultValue = "auto",
+      description = "wide, long or auto: wide when a header is an ISO date, long when it has the date and units "
+          + "columns (default: ${DEFAULT-VALUE})")
+  String salesFormat;
+
+  @Mixin ColumnOptions columns;
+
+  @Option(names = "--units-column", paramLabel = "NAME", defaultValue = "units",
+      description = "units column of long sales (default: ${DEFAULT-VALUE})")
+  String unitsColumn;
 
   @Option(names = "--memory-limit", paramLabel = "BYTES", description = "off-heap budget in bytes (default: none)")
   Long memoryLimitBytes;
 
-  @Option(names = "--quiet", description = "print nothing on success")
+  @Option(names = "--quiet", description = "print nothing on success, not even warnings")
   boolean quiet;
 
   @Override
   public Integer call() throws Exception {
-    IngestOptions options = IngestOptions.of(sales, store).withSeriesIdColumn(seriesIdColumn)
+    IngestOptions options = IngestOptions.of(sales, store)
+        .withColumns(columns.names().withUnitsColumn(unitsColumn))
+        .withSalesFormat(SalesFormat.parse(salesFormat))
         .withCalendarFile(calendar).withPricesFile(prices);
     try (MemoryBudget budget = CliBudgets.root(memoryLimitBytes)) {
-      StoreManifest manifest = StoreIngest.ingest(options, budget);
+      IngestResult result = StoreIngest.ingest(options, budget);
       if (!quiet) {
+        printWarnings(spec.commandLine().getErr(), result.warnings());
+        StoreManifest manifest = result.manifest();
         spec.commandLine().getOut().printf("ingested %d series x %d days (%s .. %s) into %s, %d bytes, peak off-heap "
             + "%d bytes%n", manifest.seriesCount(), manifest.dayCount(), manifest.firstDate(),
             manifest.firstLocalDate().plusDays(manifest.dayCount() - 1L), store, manifest.binaryBytes(),
@@ -56,5 +73,12 @@ final class IngestCommand implements Callable<Integer> {
       }
     }
     return ExitCodes.OK;
+  }
+
+  static void printWarnings(PrintWriter err, List<String> warnings) {
+    for (String warning : warnings) {
+      err.println("warning: " + warning);
+    }
+    err.flush();
   }
 }

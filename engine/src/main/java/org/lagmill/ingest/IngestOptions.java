@@ -10,42 +10,61 @@ import org.lagmill.store.SeriesAttributes;
 /**
  * What {@link StoreIngest} reads and where it writes.
  *
- * @param salesFile the wide sales CSV (optionally {@code .gz})
- * @param calendarFile optional calendar CSV, or null
- * @param pricesFile optional prices CSV, or null
+ * @param salesFile the sales CSV, wide or long (optionally {@code .gz})
+ * @param calendarFile optional calendar CSV, or null; read with {@link CalendarFileReader} unless a calendar source is
+ *     given
+ * @param pricesFile optional prices CSV, or null; read with {@link PriceFileReader} unless a prices source is given
  * @param storeDir the store directory to create or replace
- * @param seriesIdColumn name of the column naming each series
- * @param calendarSource builds the calendar from the finished list of series, or null; see {@link #withCalendar}
- * @param pricesSource builds the price table (indexed by series) from the finished list of series, or null
+ * @param columns the column names the readers look for
+ * @param salesFormat wide, long, or auto (decided from the sales file's header)
+ * @param calendarSource builds the calendar from the finished list of series, or null; takes precedence over
+ *     {@code calendarFile} (which is then only recorded as a source)
+ * @param pricesSource builds the price table (indexed by series) from the finished list of series, or null; takes
+ *     precedence over {@code pricesFile}
  */
-public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, Path storeDir, String seriesIdColumn,
-    Function<SeriesAttributes, DayCalendar> calendarSource, Function<SeriesAttributes, PriceTable> pricesSource) {
+public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, Path storeDir, ColumnNames columns,
+    SalesFormat salesFormat, Function<SeriesAttributes, DayCalendar> calendarSource,
+    Function<SeriesAttributes, PriceTable> pricesSource) {
 
   public IngestOptions {
     Objects.requireNonNull(salesFile, "salesFile");
     Objects.requireNonNull(storeDir, "storeDir");
-    Objects.requireNonNull(seriesIdColumn, "seriesIdColumn");
-    if (seriesIdColumn.isEmpty()) {
-      throw new IllegalArgumentException("seriesIdColumn must not be empty; the default is "
-          + WideSalesReader.DEFAULT_SERIES_ID_COLUMN);
-    }
+    Objects.requireNonNull(columns, "columns");
+    Objects.requireNonNull(salesFormat, "salesFormat");
   }
 
-  /** Sales only, the default series-id column. */
+  /** Sales only, default column names, format decided from the header. */
   public static IngestOptions of(Path salesFile, Path storeDir) {
-    return new IngestOptions(salesFile, null, null, storeDir, WideSalesReader.DEFAULT_SERIES_ID_COLUMN, null, null);
+    return new IngestOptions(salesFile, null, null, storeDir, ColumnNames.DEFAULTS, SalesFormat.AUTO, null, null);
+  }
+
+  /** The column naming each series ({@code --series-id-column}). */
+  public String seriesIdColumn() {
+    return columns.seriesIdColumn();
   }
 
   public IngestOptions withSeriesIdColumn(String column) {
-    return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, column, calendarSource, pricesSource);
+    return withColumns(columns.withSeriesIdColumn(column));
+  }
+
+  public IngestOptions withColumns(ColumnNames names) {
+    return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, names, salesFormat, calendarSource,
+        pricesSource);
+  }
+
+  public IngestOptions withSalesFormat(SalesFormat format) {
+    return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, format, calendarSource,
+        pricesSource);
   }
 
   public IngestOptions withCalendarFile(Path file) {
-    return new IngestOptions(salesFile, file, pricesFile, storeDir, seriesIdColumn, calendarSource, pricesSource);
+    return new IngestOptions(salesFile, file, pricesFile, storeDir, columns, salesFormat, calendarSource,
+        pricesSource);
   }
 
   public IngestOptions withPricesFile(Path file) {
-    return new IngestOptions(salesFile, calendarFile, file, storeDir, seriesIdColumn, calendarSource, pricesSource);
+    return new IngestOptions(salesFile, calendarFile, file, storeDir, columns, salesFormat, calendarSource,
+        pricesSource);
   }
 
   /** A calendar already parsed, aligned to day 0 = the first sales date. */
@@ -55,7 +74,8 @@ public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, 
 
   /** A calendar built once the series are known (a keyed column needs the store's attribute codes). */
   public IngestOptions withCalendar(Function<SeriesAttributes, DayCalendar> source) {
-    return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, seriesIdColumn, source, pricesSource);
+    return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, source,
+        pricesSource);
   }
 
   /** A price table already built, indexed by series in the sales file's row order, days from the first sales date. */
@@ -65,6 +85,7 @@ public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, 
 
   /** A price table built once the series are known (the price reader maps its keys to series indexes). */
   public IngestOptions withPrices(Function<SeriesAttributes, PriceTable> source) {
-    return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, seriesIdColumn, calendarSource, source);
+    return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, calendarSource,
+        source);
   }
 }

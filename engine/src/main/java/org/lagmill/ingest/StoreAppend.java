@@ -2,7 +2,6 @@ package org.lagmill.ingest;
 
 import it.unimi.dsi.fastutil.objects.Object2IntOpenHashMap;
 import java.io.IOException;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.LocalDate;
 import java.util.ArrayList;
@@ -25,25 +24,40 @@ import org.lagmill.store.StoreWriter;
  *
  * <p>Series in the store but absent from the file get unknown units for the new days; series new in the file are
  * added after the old ones, in file order, with unknown units for every earlier day. Prices and calendar are carried
- * over unchanged. The file's units are held on the heap until the rewrite (4 bytes per new item-day), because its rows
- * may come in any order.
+ * over unchanged (a series new to the store has no price) unless a newer calendar or prices file is given: its content
+ * then replaces the stored one, read against the store's first date and the appended list of series (a weekly refresh
+ * usually brings next month's prices and events). The file's units are held on the heap until the rewrite (4 bytes
+ * per new item-day), because its rows may come in any order.
  */
 public final class StoreAppend {
   private StoreAppend() {}
 
-  /**
-   * @param seriesIdColumn the file's column naming each series (as at ingest)
-   * @return the manifest of the published store
-   * @throws InputFormatException when the file does not start the day after the store's last day, its attribute
-   *     columns differ from the store's, or a row is malformed or repeated
-   */
+  /** As {@link #append(AppendOptions, MemoryBudget)} with sales only; returns the manifest. */
   public static StoreManifest append(Path storeDir, Path salesFile, String seriesIdColumn, MemoryBudget budget)
       throws IOException {
+    AppendOptions options = AppendOptions.of(storeDir, salesFile)
+        .withColumns(ColumnNames.DEFAULTS.withSeriesIdColumn(seriesIdColumn));
+    return append(options, budget).manifest();
+  }
+
+  /**
+   * Appends the sales file's days and, when given, replaces the calendar and prices. Nothing is published unless
+   * every file reads without error; the existing store is left byte-identical otherwise.
+   *
+   * @param budget charged for the mapped store and the writer's buffers; a child budget is taken and closed
+   * @return the manifest of the published store and the calendar and price readers' warnings
+   * @throws InputFormatException when the sales file does not start the day after the store's last day, its
+   *     attribute columns differ from the store's, a row is malformed or repeated, or the calendar or prices file is
+   *     malformed
+   */
+  public static IngestResult append(AppendOptions options, MemoryBudget budget) throws IOException {
+    Path storeDir = options.storeDir();
+    Path salesFile = options.salesFile();
     try (MemoryBudget stage = budget.child("append")) {
       Path temp;
-      StoreManifest manifest;
+      IngestResult result;
       try (SalesStore store = SalesStore.open(storeDir, stage);
-          WideSalesReader reader = WideSalesReader.open(salesFile, seriesIdColumn)) {
+          WideSalesReader reader = WideSalesReader.open(salesFile, options.columns().seriesIdColumn())) {
         LocalDate expectedFirst = store.firstDate().plusDays(store.dayCount());
         if (!reader.firstDate().equals(expectedFirst)) {
           throw new InputFormatException(salesFile, 1, 0, "expected the first date column to be " + expectedFirst
@@ -55,14 +69,18 @@ public final class StoreAppend {
         NewDays newDays = readNewDays(store, reader, fileColumnOfAttribute);
         temp = StoreDirectories.createTempSibling(storeDir);
         try {
-          manifest = rewrite(store, temp, newDays, salesFile, stage);
+          result = rewrite(store, temp, newDays, options, stage);
         } catch (IOException | RuntimeException | Error e) {
-          StoreDirectories.deleteRecursively(temp);
+          try {
+            StoreDirectories.deleteRecursively(temp);
+          } catch (IOException suppressed) {
+            e.addSuppressed(suppressed);
+          }
           throw e;
         }
       }
       StoreDirectories.publish(temp, storeDir);
-      return manifest;
+      return result;
     }
   }
 
@@ -121,7 +139,7 @@ public final class StoreAppend {
     return new NewDays(dayCount, unitsBySeries, newAttributes, newUnits);
   }
 
-  private static StoreManifest rewrite(SalesStore store, Path temp, NewDays newDays, Path salesFile,
+  private static IngestResult rewrite(SalesStore store, Path temp, NewDays newDays, AppendOptions options,
       MemoryBudget budget) throws IOException {
     int oldDayCount = store.dayCount();
     int dayCount = oldDayCount + newDays.dayCount();
@@ -151,11 +169,20 @@ public final class StoreAppend {
         System.arraycopy(newDays.newSeriesUnits().get(n), 0, row, oldDayCount, newDays.dayCount());
         writer.addSeries(newDays.newSeriesAttributes().get(n), row);
       }
-      writer.writePrices(extended(store.prices(), store.seriesCount()));
-      writer.writeCalendar(store.calendar());
+      List<String> warnings = new ArrayList<>();
+      if (options.pricesFile() != null) {
+        CalendarAndPrices.writePrices(writer, options.pricesFile(), options.columns(), warnings);
+      } else {
+        writer.writePrices(extended(store.prices(), store.seriesCount()));
+      }
+      if (options.calendarFile() != null) {
+        CalendarAndPrices.writeCalendar(writer, options.calendarFile(), options.columns(), warnings);
+      } else {
+        writer.writeCalendar(store.calendar());
+      }
       List<StoreManifest.SourceFile> sources = new ArrayList<>(store.manifest().sources());
-      sources.add(new StoreManifest.SourceFile(salesFile.getFileName().toString(), Files.size(salesFile)));
-      return writer.finish(sources);
+      sources.addAll(StoreIngest.sourcesOf(options.salesFile(), options.calendarFile(), options.pricesFile()));
+      return new IngestResult(writer.finish(sources), warnings);
     }
   }
 

@@ -1,6 +1,7 @@
 package org.lagmill.ingest;
 
 import java.io.IOException;
+import java.io.UncheckedIOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -11,48 +12,45 @@ import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreWriter;
 
 /**
- * Builds a store from input files: streams the wide sales file row by row into a {@link StoreWriter} in a temporary
- * sibling of the target, then publishes it atomically. The heap holds one row buffer plus the attribute
- * dictionaries, whatever the file size. A failure leaves any existing store untouched and no temporary directory.
+ * Builds a store from input files into a temporary sibling of the target, then publishes it atomically. Wide sales
+ * stream row by row ({@link WideSalesReader}: the heap holds one row plus the attribute dictionaries); long sales take
+ * two passes ({@link LongSalesReader}, with a series × day matrix of 4 bytes per item-day charged to the budget). Once
+ * every series is written, the calendar ({@link CalendarFileReader}) and prices ({@link PriceFileReader}) are read
+ * against the store's first date and series. A failure leaves any existing store untouched and no temporary directory.
  */
 public final class StoreIngest {
   private StoreIngest() {}
 
   /**
-   * @param budget charged for the writer's direct I/O buffers; a child budget is taken and closed
-   * @return the manifest of the published store
+   * @param budget charged for the writer's direct I/O buffers and, for long sales, the units matrix; a child budget
+   *     is taken and closed
+   * @return the manifest of the published store and the readers' warnings
    * @throws InputFormatException for a malformed input file (file, line, column, found, expected)
    */
-  public static StoreManifest ingest(IngestOptions options, MemoryBudget budget) throws IOException {
+  public static IngestResult ingest(IngestOptions options, MemoryBudget budget) throws IOException {
+    ColumnNames columns = options.columns();
+    SalesFormat format = options.salesFormat().resolve(options.salesFile(), columns.dateColumn(),
+        columns.unitsColumn());
     Path temp = StoreDirectories.createTempSibling(options.storeDir());
     try (MemoryBudget stage = budget.child("ingest")) {
+      List<String> warnings = new ArrayList<>();
       StoreManifest manifest;
-      try (WideSalesReader reader = WideSalesReader.open(options.salesFile(), options.seriesIdColumn());
-          StoreWriter writer = new StoreWriter(temp, reader.firstDate(), reader.dayCount(), reader.attributeNames(),
-              stage)) {
-        copyRows(reader, writer);
-        if (writer.seriesCount() == 0) {
-          throw new InputFormatException(options.salesFile(), reader.lineNumber() + 1, 0,
-              "expected at least one series row after the header, found none");
-        }
-        // Hook for the prices file: the lead wires PriceFileReader here as pricesSource = attrs -> read(file, attrs).
+      try (StoreWriter writer = format == SalesFormat.LONG ? writeLong(options, temp, stage)
+          : writeWide(options, temp, stage)) {
         if (options.pricesSource() != null) {
           writer.writePrices(options.pricesSource().apply(writer.attributes()));
         } else if (options.pricesFile() != null) {
-          throw new IllegalArgumentException("--prices " + options.pricesFile() + " given but no price reader is "
-              + "wired in this build; pass a PriceTable through IngestOptions.withPrices");
+          CalendarAndPrices.writePrices(writer, options.pricesFile(), columns, warnings);
         }
-        // Hook for the calendar file: CalendarFileReader plugs in here as calendarSource.
         if (options.calendarSource() != null) {
           writer.writeCalendar(options.calendarSource().apply(writer.attributes()));
         } else if (options.calendarFile() != null) {
-          throw new IllegalArgumentException("--calendar " + options.calendarFile() + " given but no calendar reader "
-              + "is wired in this build; pass a DayCalendar through IngestOptions.withCalendar");
+          CalendarAndPrices.writeCalendar(writer, options.calendarFile(), columns, warnings);
         }
         manifest = writer.finish(sources(options));
       }
       StoreDirectories.publish(temp, options.storeDir());
-      return manifest;
+      return new IngestResult(manifest, warnings);
     } catch (IOException | RuntimeException | Error e) {
       try {
         StoreDirectories.deleteRecursively(temp);
@@ -60,6 +58,54 @@ public final class StoreIngest {
         e.addSuppressed(suppressed);
       }
       throw e;
+    }
+  }
+
+  /** Streams a wide file into a new writer; the writer is closed when this fails. */
+  private static StoreWriter writeWide(IngestOptions options, Path dir, MemoryBudget budget) throws IOException {
+    try (WideSalesReader reader = WideSalesReader.open(options.salesFile(), options.seriesIdColumn())) {
+      StoreWriter writer = new StoreWriter(dir, reader.firstDate(), reader.dayCount(), reader.attributeNames(),
+          budget);
+      try {
+        copyRows(reader, writer);
+        if (writer.seriesCount() == 0) {
+          throw new InputFormatException(options.salesFile(), reader.lineNumber() + 1, 0,
+              "expected at least one series row after the header, found none");
+        }
+        return writer;
+      } catch (IOException | RuntimeException | Error e) {
+        closeAfterFailure(writer, e);
+        throw e;
+      }
+    }
+  }
+
+  /** Reads a long file in its two passes into a new writer; the writer is closed when this fails. */
+  private static StoreWriter writeLong(IngestOptions options, Path dir, MemoryBudget budget) throws IOException {
+    ColumnNames columns = options.columns();
+    StoreWriterSink sink = new StoreWriterSink(options.salesFile(), dir, columns.seriesIdColumn(), budget);
+    try {
+      LongSalesReader.read(options.salesFile(), columns.dateColumn(), columns.unitsColumn(), columns.seriesIdColumn(),
+          budget, sink);
+      return sink.writer();
+    } catch (UncheckedIOException e) {
+      IOException cause = e.getCause();
+      closeAfterFailure(sink.writer(), cause);
+      throw cause;
+    } catch (RuntimeException | Error e) {
+      closeAfterFailure(sink.writer(), e);
+      throw e;
+    }
+  }
+
+  private static void closeAfterFailure(StoreWriter writer, Throwable failure) {
+    if (writer == null) {
+      return;
+    }
+    try {
+      writer.close();
+    } catch (IOException | RuntimeException suppressed) {
+      failure.addSuppressed(suppressed);
     }
   }
 
@@ -77,8 +123,13 @@ public final class StoreIngest {
   }
 
   static List<StoreManifest.SourceFile> sources(IngestOptions options) throws IOException {
+    return sourcesOf(options.salesFile(), options.calendarFile(), options.pricesFile());
+  }
+
+  /** The given files (nulls skipped) with their sizes, as the manifest records them. */
+  static List<StoreManifest.SourceFile> sourcesOf(Path... files) throws IOException {
     List<StoreManifest.SourceFile> sources = new ArrayList<>();
-    for (Path file : new Path[] {options.salesFile(), options.calendarFile(), options.pricesFile()}) {
+    for (Path file : files) {
       if (file != null) {
         sources.add(new StoreManifest.SourceFile(file.getFileName().toString(), Files.size(file)));
       }

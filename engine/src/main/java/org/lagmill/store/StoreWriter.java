@@ -64,6 +64,11 @@ public final class StoreWriter implements AutoCloseable {
     return dayCount;
   }
 
+  /** Date of day index 0. */
+  public LocalDate firstDate() {
+    return firstDate;
+  }
+
   public int seriesCount() {
     return attributes.seriesCount();
   }

@@ -46,7 +46,7 @@ class StoreIngestTest {
       Path storeDir = temp.resolve("store-" + round);
       try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
         StoreManifest manifest = StoreIngest.ingest(IngestOptions.of(csv, storeDir).withPrices(data.prices())
-            .withCalendar(data.calendar), budget);
+            .withCalendar(data.calendar), budget).manifest();
         assertEquals(List.of(new StoreManifest.SourceFile(csv.getFileName().toString(), Files.size(csv))),
             manifest.sources());
         try (SalesStore store = SalesStore.open(storeDir, budget)) {

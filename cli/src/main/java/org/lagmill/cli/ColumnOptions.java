@@ -1,0 +1,29 @@
+package org.lagmill.cli;
+
+import org.lagmill.ingest.ColumnNames;
+import picocli.CommandLine.Option;
+
+/** The column-name options shared by {@code ingest} and {@code append}; defaults as in docs/formats.md. */
+final class ColumnOptions {
+  @Option(names = "--series-id-column", paramLabel = "NAME", defaultValue = "series_id",
+      description = "column naming each series (default: ${DEFAULT-VALUE}); without it a series is named by its "
+          + "attribute values joined with '/'")
+  String seriesIdColumn;
+
+  @Option(names = "--date-column", paramLabel = "NAME", defaultValue = "date",
+      description = "date column of the calendar and of long sales (default: ${DEFAULT-VALUE})")
+  String dateColumn;
+
+  @Option(names = "--from-column", paramLabel = "NAME", defaultValue = "from",
+      description = "date column of prices (default: ${DEFAULT-VALUE})")
+  String fromColumn;
+
+  @Option(names = "--price-column", paramLabel = "NAME", defaultValue = "price",
+      description = "price column of prices (default: ${DEFAULT-VALUE})")
+  String priceColumn;
+
+  ColumnNames names() {
+    return ColumnNames.DEFAULTS.withSeriesIdColumn(seriesIdColumn).withDateColumn(dateColumn)
+        .withFromColumn(fromColumn).withPriceColumn(priceColumn);
+  }
+}

@@ -1,0 +1,38 @@
+package org.lagmill.ingest;
+
+import java.nio.file.Path;
+import java.util.Objects;
+
+/**
+ * What {@link StoreAppend} adds to a store.
+ *
+ * @param storeDir the existing store, replaced atomically by the appended one
+ * @param salesFile a wide sales CSV whose first date is the store's next day
+ * @param calendarFile a newer calendar replacing the stored one, or null to keep it
+ * @param pricesFile a newer prices file replacing the stored prices, or null to keep them
+ * @param columns column names (series id, calendar date, prices from and price; the units column does not apply)
+ */
+public record AppendOptions(Path storeDir, Path salesFile, Path calendarFile, Path pricesFile, ColumnNames columns) {
+  public AppendOptions {
+    Objects.requireNonNull(storeDir, "storeDir");
+    Objects.requireNonNull(salesFile, "salesFile");
+    Objects.requireNonNull(columns, "columns");
+  }
+
+  /** Sales only, default column names: calendar and prices are carried over. */
+  public static AppendOptions of(Path storeDir, Path salesFile) {
+    return new AppendOptions(storeDir, salesFile, null, null, ColumnNames.DEFAULTS);
+  }
+
+  public AppendOptions withCalendarFile(Path file) {
+    return new AppendOptions(storeDir, salesFile, file, pricesFile, columns);
+  }
+
+  public AppendOptions withPricesFile(Path file) {
+    return new AppendOptions(storeDir, salesFile, calendarFile, file, columns);
+  }
+
+  public AppendOptions withColumns(ColumnNames names) {
+    return new AppendOptions(storeDir, salesFile, calendarFile, pricesFile, names);
+  }
+}

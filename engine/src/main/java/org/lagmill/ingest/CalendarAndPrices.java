@@ -1,0 +1,32 @@
+package org.lagmill.ingest;
+
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.List;
+import org.lagmill.store.StoreWriter;
+
+/**
+ * Reads the calendar and prices files against the finished list of series of a {@link StoreWriter} and writes them
+ * into it, collecting the readers' warnings. Shared by ingest and append so both read the files the same way.
+ */
+final class CalendarAndPrices {
+  private CalendarAndPrices() {}
+
+  /** Reads and writes the prices file; call after the last series was added. */
+  static void writePrices(StoreWriter writer, Path pricesFile, ColumnNames columns, List<String> warnings)
+      throws IOException {
+    PriceReadResult read = PriceFileReader.read(pricesFile, writer.firstDate(), writer.attributes(),
+        writer.seriesCount(), columns.fromColumn(), columns.priceColumn());
+    warnings.addAll(read.warnings());
+    writer.writePrices(read.prices());
+  }
+
+  /** Reads and writes the calendar file; call after the last series was added. */
+  static void writeCalendar(StoreWriter writer, Path calendarFile, ColumnNames columns, List<String> warnings)
+      throws IOException {
+    CalendarReadResult read = CalendarFileReader.read(calendarFile, writer.firstDate(), writer.attributes(),
+        columns.dateColumn());
+    warnings.addAll(read.warnings());
+    writer.writeCalendar(read.calendar());
+  }
+}
