@@ -1,0 +1,93 @@
+package org.lagmill.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.LinkedHashMap;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import org.lagmill.eval.AggregateTable;
+import org.lagmill.eval.BaselineForecaster;
+import org.lagmill.eval.BaselineKind;
+import org.lagmill.eval.EvaluationResult;
+import org.lagmill.eval.Evaluator;
+import org.lagmill.eval.OriginStatistics;
+import org.lagmill.eval.QuantileForecasts;
+import org.lagmill.forecast.ForecastFileReader;
+import org.lagmill.forecast.ForecastTable;
+import org.lagmill.memory.MemoryBudget;
+import org.lagmill.report.ReportAssembler;
+import org.lagmill.store.SalesStore;
+import org.lagmill.store.TruncatedHistory;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code lagmill evaluate}: scores a forecast file against the actuals the store holds for its days. */
+@Command(name = "evaluate", mixinStandardHelpOptions = true,
+    description = {"Score a forecast file (long form: attributes or series_id, date, forecast, optional q… columns)",
+        "against the store's actuals: WRMSSE and the per-level table, beside the baselines from the same origin."},
+    footer = {"", "Example:", "  lagmill evaluate --store stores/chain --forecast week45.csv.gz --json"})
+final class EvaluateCommand implements Callable<Integer> {
+  @Spec CommandSpec commandSpec;
+
+  @Option(names = "--store", required = true, paramLabel = "DIR", description = "store holding the actuals")
+  Path store;
+
+  @Option(names = "--forecast", required = true, paramLabel = "FILE", description = "forecast CSV (.gz allowed)")
+  Path forecast;
+
+  @Option(names = "--json", description = "print the result as JSON")
+  boolean json;
+
+  @Mixin HierarchyOptions hierarchyOptions;
+
+  @Override
+  public Integer call() throws Exception {
+    PrintWriter out = commandSpec.commandLine().getOut();
+    try (MemoryBudget budget = CliBudgets.root(null); SalesStore opened = SalesStore.open(store, budget)) {
+      ForecastTable table = ForecastFileReader.read(forecast, opened);
+      int origin = table.firstDayIndex();
+      int lastDay = origin + table.horizonDays() - 1;
+      if (origin < 1 || lastDay >= opened.dayCount()) {
+        throw new IllegalArgumentException("the forecast covers " + opened.dateOf(origin) + " .. "
+            + opened.dateOf(lastDay) + " but the store holds actuals for " + opened.firstDate() + " .. "
+            + opened.dateOf(opened.dayCount() - 1) + "; append the actuals first (lagmill append)");
+      }
+      Evaluator evaluator = new Evaluator(opened, hierarchyOptions.hierarchy(opened.attributes()));
+      OriginStatistics statistics = evaluator.statistics(origin);
+      QuantileForecasts quantiles = table.quantileLevels().length == 0 ? null
+          : QuantileForecasts.bottomUp(evaluator.aggregator(), table.quantileLevels(), table.quantiles());
+      AggregateTable aggregated = evaluator.aggregator().aggregateForecasts(table.point());
+      EvaluationResult result = evaluator.evaluate(statistics, aggregated, quantiles);
+      Map<String, Double> baselines = new LinkedHashMap<>();
+      TruncatedHistory known = new TruncatedHistory(opened, origin);
+      for (BaselineKind kind : BacktestRun.DEFAULT_BASELINES) {
+        double[][] baseline = BaselineForecaster.forecastAll(known, origin, table.horizonDays(), kind);
+        baselines.put(ReportAssembler.label(kind.name()), evaluator.evaluate(statistics,
+            evaluator.aggregator().aggregateForecasts(baseline), null).wrmsse());
+      }
+      if (json) {
+        Map<String, Object> document = new LinkedHashMap<>();
+        document.put("forecast", result);
+        document.put("baselineWrmsse", baselines);
+        out.println(RunRecord.JSON.writeValueAsString(document));
+        return ExitCodes.OK;
+      }
+      out.printf(Locale.ROOT, "forecast %s, %s .. %s, %d days%n", forecast, opened.dateOf(origin),
+          opened.dateOf(lastDay), table.horizonDays());
+      out.printf(Locale.ROOT, "%-40s %6s %10s %10s %10s%n", "level", "series", "RMSSE", "MAE", "bias");
+      for (EvaluationResult.LevelResult level : result.levels()) {
+        out.printf(Locale.ROOT, "%-40s %6d %10.4f %10.3f %10.3f%n", level.name(), level.aggregateCount(),
+            level.weightedRmsse(), level.mae(), level.bias());
+      }
+      out.printf(Locale.ROOT, "WRMSSE %.4f%s%n", result.wrmsse(), result.wspl() == null ? ""
+          : String.format(Locale.ROOT, ", WSPL %.4f (aggregate quantiles summed from the series' quantiles)",
+              result.wspl()));
+      baselines.forEach((name, value) -> out.printf(Locale.ROOT, "  baseline %-24s WRMSSE %.4f%n", name, value));
+    }
+    return ExitCodes.OK;
+  }
+}

@@ -1,0 +1,120 @@
+package org.lagmill.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.Callable;
+import org.lagmill.forecast.ForecastFileWriter;
+import org.lagmill.forecast.ForecastTable;
+import org.lagmill.forecast.HorizonCoverage;
+import org.lagmill.forecast.ModelDirectory;
+import org.lagmill.forecast.ModelManifest;
+import org.lagmill.forecast.ModelSet;
+import org.lagmill.memory.MemoryBudget;
+import org.lagmill.report.ReportAssembler;
+import org.lagmill.report.ReportData;
+import org.lagmill.report.SeriesChartBuilder;
+import org.lagmill.store.SalesStore;
+import org.lagmill.store.StoreSummary;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code lagmill forecast}: forecasts every series for the days after the store's last day. */
+@Command(name = "forecast", mixinStandardHelpOptions = true,
+    description = {"Forecast each series' daily units for the horizon after the store's last day, with optional",
+        "quantile intervals. Forecasts are estimates for a planner to review, never automatic orders."},
+    footer = {"", "Example:", "  lagmill forecast --store stores/chain --model models/week49 --out week49.csv.gz "
+        + "--intervals --report runs/week49"})
+final class ForecastCommand implements Callable<Integer> {
+  @Spec CommandSpec commandSpec;
+
+  @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory")
+  Path store;
+
+  @Option(names = "--model", required = true, paramLabel = "DIR", description = "model directory from train")
+  Path model;
+
+  @Option(names = "--horizon", paramLabel = "DAYS", description = "days to forecast (default: the model's horizon)")
+  Integer horizonDays;
+
+  @Option(names = "--out", required = true, paramLabel = "FILE", description = "forecast CSV (.gz compresses)")
+  Path out;
+
+  @Option(names = "--intervals", description = "add the nine published quantile columns q0.005 .. q0.995")
+  boolean intervals;
+
+  @Option(names = "--wide", description = "one row per series, one column per date (point forecasts only)")
+  boolean wide;
+
+  @Option(names = "--report", paramLabel = "DIR", description = "also write report.html and report.json here")
+  Path reportDir;
+
+  @Option(names = "--show", split = ",", paramLabel = "SERIES_ID", description = "series to chart in the report")
+  List<String> shownSeries = List.of();
+
+  @Option(names = "--quiet", description = "print nothing but errors")
+  boolean quiet;
+
+  @Mixin HierarchyOptions hierarchyOptions;
+
+  @Override
+  public Integer call() throws Exception {
+    RunRecord run = new RunRecord("forecast");
+    PrintWriter outText = commandSpec.commandLine().getOut();
+    try (MemoryBudget budget = CliBudgets.root(null);
+        SalesStore opened = SalesStore.open(store, budget.child("store"));
+        ModelSet models = ModelDirectory.open(model, opened);
+        MemoryBudget forecastBudget = budget.child("forecast")) {
+      ModelManifest manifest = ModelDirectory.readManifest(model);
+      int horizon = horizonDays == null ? models.spec().horizonDays() : horizonDays;
+      HorizonCoverage coverage = HorizonCoverage.check(opened, models.spec(), horizon);
+      if (!quiet) {
+        coverage.warnings().forEach(w -> System.err.println("warning: " + w));
+        if (!manifest.storeFingerprint().equals(opened.fingerprint())) {
+          System.err.println("warning: the model was trained on another version of the store (fingerprint "
+              + manifest.storeFingerprint() + ", this store " + opened.fingerprint() + "); retrain after a refresh");
+        }
+      }
+      run.endStage("open", opened.offHeapBytes(), 0);
+      double[][] point = models.forecast(opened, horizon, forecastBudget);
+      double[] levels = intervals ? ForecastTable.PUBLISHED_QUANTILES : new double[0];
+      ForecastTable table = new ForecastTable(opened.dayCount(), point, levels,
+          intervals ? models.quantiles(point, levels) : new double[0][][]);
+      run.endStage("forecast", opened.offHeapBytes() + forecastBudget.peakBytes(), (long) point.length * horizon);
+      if (wide) {
+        ForecastFileWriter.writeWide(table, opened, out);
+      } else {
+        ForecastFileWriter.writeLong(table, opened, out);
+      }
+      run.endStage("write", opened.offHeapBytes(), 0);
+      run.configure("store", store.toString()).configure("model", model.toString()).configure("horizonDays", horizon)
+          .configure("intervals", intervals).result("forecastFile", out.toString())
+          .result("firstDate", opened.dateOf(opened.dayCount()).toString())
+          .result("lastDate", opened.dateOf(opened.dayCount() + horizon - 1).toString());
+      if (reportDir != null) {
+        ReportData.Builder report = ReportOutput.start("lagmill forecast", "lagmill forecast --store " + store
+            + " --model " + model, store.toString());
+        report.data(ReportAssembler.dataSummary(StoreSummary.of(opened)))
+            .training(ReportAssembler.training(manifest.partitions()));
+        SeriesChartBuilder.build(opened, hierarchyOptions.hierarchy(opened.attributes()).bind(opened),
+            opened.dayCount(), point, models.dispersionBySeries(), SeriesChartBuilder.DEFAULT_CONTEXT_DAYS,
+            shownSeries).forEach(report::series);
+        ReportOutput.addStages(report, run.stages(), null);
+        Path html = ReportOutput.write(report.build(), reportDir);
+        run.write(reportDir);
+        if (!quiet) {
+          outText.println("report written to " + html);
+        }
+      }
+      if (!quiet) {
+        outText.printf("forecast %,d series x %d days (%s .. %s) written to %s%n", point.length, horizon,
+            opened.dateOf(opened.dayCount()), opened.dateOf(opened.dayCount() + horizon - 1), out);
+        outText.println("These are estimates for a planner to review, not orders.");
+      }
+    }
+    return ExitCodes.OK;
+  }
+}
