@@ -87,7 +87,8 @@ final class RunRecord {
   /** Writes {@code dir/run.json} through a temporary file. */
   void write(Path dir) throws IOException {
     Files.createDirectories(dir);
-    Path temp = Files.createTempFile(dir, ".run", ".json.tmp");
+    // Not Files.createTempFile: its owner-only permissions would carry over to run.json.
+    Path temp = dir.resolve("." + FILE_NAME + ".tmp-" + System.nanoTime());
     try {
       JSON.writeValue(temp.toFile(), toMap());
       Files.move(temp, dir.resolve(FILE_NAME), StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);

@@ -82,7 +82,8 @@ public final class ForecastFileWriter {
   private static void write(Path file, Body body) throws IOException {
     Path absolute = file.toAbsolutePath();
     Files.createDirectories(absolute.getParent());
-    Path temp = Files.createTempFile(absolute.getParent(), "." + absolute.getFileName(), ".tmp");
+    // Not Files.createTempFile: its owner-only permissions would carry over to the published file.
+    Path temp = absolute.resolveSibling("." + absolute.getFileName() + ".tmp-" + System.nanoTime());
     try {
       try (OutputStream raw = Files.newOutputStream(temp);
           OutputStream maybeZipped = file.toString().endsWith(".gz") ? new GZIPOutputStream(raw, 1 << 16) : raw;

@@ -7,7 +7,8 @@
  * <p>Entry points: build a {@code ReportData} with {@link org.lagmill.report.ReportData#builder(String)}, then
  * {@code ReportJson.write} and {@code HtmlReportWriter.write}; {@code ReportJson.read} rebuilds it from a run.
  *
- * <p>Depends on no other lagmill stage: callers (eval, forecast, cli) copy their figures into these records. It uses
- * jackson for JSON and {@link org.lagmill.store.CorruptStoreException} for an unreadable report file; nothing else.
+ * <p>The records and the renderer depend on no other lagmill stage; {@link org.lagmill.report.ReportAssembler} and
+ * {@link org.lagmill.report.SeriesChartBuilder} copy the figures of {@code store}, {@code forecast} and {@code eval}
+ * results into them (the report sits last in the data flow, so it may read every stage).
  */
 package org.lagmill.report;
