@@ -27,15 +27,28 @@ final class LagKernel implements FeatureKernel {
   public void beginSeries(SeriesContext series) {}
 
   @Override
-  public void compute(SeriesContext series, FeatureBatch batch, int batchRow, int[] dayIndexes, int dayOffset,
+  public void compute(SeriesContext series, float[] rows, int rowStride, int[] dayIndexes, int dayOffset,
       int rowCount, int firstFeatureIndex) {
     int[] lags = lagDays;
+    int lagCount = lags.length;
+    float[] values = series.readableValues;
+    int pad = series.lookbackDays;
+    int out = firstFeatureIndex;
     for (int i = 0; i < rowCount; i++) {
-      int day = dayIndexes[dayOffset + i];
-      int row = batchRow + i;
-      for (int k = 0; k < lags.length; k++) {
-        batch.set(row, firstFeatureIndex + k, series.unitsOrNaN(day - lags[k]));
+      int base = pad + dayIndexes[dayOffset + i];
+      for (int k = 0; k < lagCount; k++) {
+        rows[out + k] = values[base - lags[k]];
       }
+      out += rowStride;
     }
+  }
+
+  /** The farthest day before a row's day this kernel reads. */
+  int lookbackDays() {
+    int longest = 0;
+    for (int lag : lagDays) {
+      longest = Math.max(longest, lag);
+    }
+    return longest;
   }
 }

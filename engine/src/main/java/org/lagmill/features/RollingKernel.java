@@ -66,20 +66,32 @@ final class RollingKernel implements FeatureKernel {
   }
 
   @Override
-  public void compute(SeriesContext series, FeatureBatch batch, int batchRow, int[] dayIndexes, int dayOffset,
+  public void compute(SeriesContext series, float[] rows, int rowStride, int[] dayIndexes, int dayOffset,
       int rowCount, int firstFeatureIndex) {
     int statCount = statCodes.length;
+    int[] readable = series.readableUnits;
+    // windows move in the padded day coordinates of readableUnits, where every day a window covers is >= 0
+    int endOffset = series.lookbackDays - shiftDays;
     for (int w = 0; w < windows.length; w++) {
       Window window = windows[w];
-      int firstColumn = firstFeatureIndex + w * statCount;
+      int out = firstFeatureIndex + w * statCount;
       for (int i = 0; i < rowCount; i++) {
-        window.moveTo(series, dayIndexes[dayOffset + i] - shiftDays);
-        int row = batchRow + i;
+        window.moveTo(readable, dayIndexes[dayOffset + i] + endOffset);
         for (int k = 0; k < statCount; k++) {
-          batch.set(row, firstColumn + k, window.value(series, statCodes[k]));
+          rows[out + k] = window.value(readable, statCodes[k]);
         }
+        out += rowStride;
       }
     }
+  }
+
+  /** The farthest day before a row's day this kernel reads: the first day of the longest window. */
+  int lookbackDays() {
+    int longest = 0;
+    for (Window window : windows) {
+      longest = Math.max(longest, shiftDays + window.lengthDays - 1);
+    }
+    return longest;
   }
 
   /** Running state of one window length. */
@@ -113,7 +125,11 @@ final class RollingKernel implements FeatureKernel {
       this.maxDeque = new int[trackMax ? capacity : 0];
     }
 
-    void moveTo(SeriesContext series, int newLastDayIndex) {
+    /**
+     * Slides the window to end on {@code newLastDayIndex}; days are indexes into {@code readable} (units, or −1 for a
+     * day that is not readable).
+     */
+    void moveTo(int[] readable, int newLastDayIndex) {
       int newFirstDayIndex = newLastDayIndex - lengthDays + 1;
       if (!started || newFirstDayIndex > lastDayIndex || newLastDayIndex < lastDayIndex) {
         count = 0;
@@ -122,14 +138,14 @@ final class RollingKernel implements FeatureKernel {
         zeroCount = 0;
         minHead = minTail = maxHead = maxTail = 0;
         for (int d = newFirstDayIndex; d <= newLastDayIndex; d++) {
-          add(series, d);
+          add(readable, d);
         }
       } else {
         for (int d = firstDayIndex; d < newFirstDayIndex; d++) {
-          remove(series, d);
+          remove(readable, d);
         }
         for (int d = lastDayIndex + 1; d <= newLastDayIndex; d++) {
-          add(series, d);
+          add(readable, d);
         }
       }
       firstDayIndex = newFirstDayIndex;
@@ -137,12 +153,11 @@ final class RollingKernel implements FeatureKernel {
       started = true;
     }
 
-    private void add(SeriesContext series, int dayIndex) {
-      if (!series.isReadable(dayIndex)) {
+    private void add(int[] readable, int dayIndex) {
+      int u = readable[dayIndex];
+      if (u < 0) {
         return;
       }
-      int[] units = series.units;
-      int u = units[dayIndex];
       count++;
       sum += u;
       sumSquares += (long) u * u;
@@ -150,24 +165,24 @@ final class RollingKernel implements FeatureKernel {
         zeroCount++;
       }
       if (trackMin) {
-        while (minTail > minHead && units[minDeque[(minTail - 1) & mask]] >= u) {
+        while (minTail > minHead && readable[minDeque[(minTail - 1) & mask]] >= u) {
           minTail--;
         }
         minDeque[minTail++ & mask] = dayIndex;
       }
       if (trackMax) {
-        while (maxTail > maxHead && units[maxDeque[(maxTail - 1) & mask]] <= u) {
+        while (maxTail > maxHead && readable[maxDeque[(maxTail - 1) & mask]] <= u) {
           maxTail--;
         }
         maxDeque[maxTail++ & mask] = dayIndex;
       }
     }
 
-    private void remove(SeriesContext series, int dayIndex) {
-      if (!series.isReadable(dayIndex)) {
+    private void remove(int[] readable, int dayIndex) {
+      int u = readable[dayIndex];
+      if (u < 0) {
         return;
       }
-      int u = series.units[dayIndex];
       count--;
       sum -= u;
       sumSquares -= (long) u * u;
@@ -182,7 +197,7 @@ final class RollingKernel implements FeatureKernel {
       }
     }
 
-    float value(SeriesContext series, int statCode) {
+    float value(int[] readable, int statCode) {
       if (count == 0) {
         return Float.NaN;
       }
@@ -198,9 +213,9 @@ final class RollingKernel implements FeatureKernel {
           return (float) Math.sqrt(Math.max(0.0, variance));
         }
         case MIN:
-          return series.units[minDeque[minHead & mask]];
+          return readable[minDeque[minHead & mask]];
         case MAX:
-          return series.units[maxDeque[maxHead & mask]];
+          return readable[maxDeque[maxHead & mask]];
         case ZERO_SHARE:
           return (float) zeroCount / count;
         default:
