@@ -12,6 +12,10 @@ import java.util.List;
  *
  * <p>Each window slides with the rows: a day entering or leaving updates a running count, sum and sum of squares
  * (exact in {@code long}) and monotonic deques of day indexes for min and max, so each row costs O(1) amortised.
+ * A chunk of rows is done in two steps: the window slides over every row, keeping each row's count and sums in
+ * scratch columns, then each statistic is computed over the whole column in a loop without branches the compiler can
+ * vectorise (the divisions and square roots dominate). The formulas are the same double-precision expressions either
+ * way, so the values are identical.
  */
 final class RollingKernel implements FeatureKernel {
   private static final int MEAN = 0;
@@ -24,6 +28,15 @@ final class RollingKernel implements FeatureKernel {
   private final int[] statCodes;
   private final String[] statNames;
   private final Window[] windows;
+  private final boolean trackZeros;
+  /** Per row of a chunk, as doubles so the statistic loops need no conversion: readable days, sum, sum of squares. */
+  private final double[] counts = new double[FeaturePass.STRIP_ROWS];
+  private final double[] sums = new double[FeaturePass.STRIP_ROWS];
+  private final double[] sumSquares = new double[FeaturePass.STRIP_ROWS];
+  private final double[] statValues = new double[FeaturePass.STRIP_ROWS];
+  private final int[] zeroCounts;
+  private final int[] minUnits;
+  private final int[] maxUnits;
 
   RollingKernel(int[] windowDays, int shiftDays, List<FeatureSpec.RollingStat> stats) {
     this.shiftDays = shiftDays;
@@ -31,12 +44,18 @@ final class RollingKernel implements FeatureKernel {
     this.statNames = new String[stats.size()];
     boolean trackMin = false;
     boolean trackMax = false;
+    boolean trackZeros = false;
     for (int i = 0; i < stats.size(); i++) {
       statCodes[i] = stats.get(i).ordinal();
       statNames[i] = stats.get(i).configName();
       trackMin |= statCodes[i] == MIN;
       trackMax |= statCodes[i] == MAX;
+      trackZeros |= statCodes[i] == ZERO_SHARE;
     }
+    this.trackZeros = trackZeros;
+    this.zeroCounts = new int[trackZeros ? FeaturePass.STRIP_ROWS : 0];
+    this.minUnits = new int[trackMin ? FeaturePass.STRIP_ROWS : 0];
+    this.maxUnits = new int[trackMax ? FeaturePass.STRIP_ROWS : 0];
     this.windows = new Window[windowDays.length];
     for (int w = 0; w < windowDays.length; w++) {
       windows[w] = new Window(windowDays[w], trackMin, trackMax);
@@ -68,20 +87,73 @@ final class RollingKernel implements FeatureKernel {
   @Override
   public void compute(SeriesContext series, float[] rows, int rowStride, int[] dayIndexes, int dayOffset,
       int rowCount, int firstFeatureIndex) {
+    assert rowCount <= FeaturePass.STRIP_ROWS : rowCount;
     int statCount = statCodes.length;
     int[] readable = series.readableUnits;
     // windows move in the padded day coordinates of readableUnits, where every day a window covers is >= 0
     int endOffset = series.lookbackDays - shiftDays;
     for (int w = 0; w < windows.length; w++) {
       Window window = windows[w];
-      int out = firstFeatureIndex + w * statCount;
       for (int i = 0; i < rowCount; i++) {
         window.moveTo(readable, dayIndexes[dayOffset + i] + endOffset);
-        for (int k = 0; k < statCount; k++) {
-          rows[out + k] = window.value(readable, statCodes[k]);
+        counts[i] = window.count;
+        sums[i] = window.sum;
+        sumSquares[i] = window.sumSquares;
+        if (trackZeros) {
+          zeroCounts[i] = window.zeroCount;
         }
-        out += rowStride;
+        if (window.trackMin && window.count > 0) {
+          minUnits[i] = readable[window.minDeque[window.minHead & window.mask]];
+        }
+        if (window.trackMax && window.count > 0) {
+          maxUnits[i] = readable[window.maxDeque[window.maxHead & window.mask]];
+        }
       }
+      for (int k = 0; k < statCount; k++) {
+        writeStatistic(statCodes[k], rows, rowStride, firstFeatureIndex + w * statCount + k, rowCount);
+      }
+    }
+  }
+
+  private void writeStatistic(int statCode, float[] rows, int rowStride, int out, int rowCount) {
+    double[] n = counts;
+    double[] values = statValues;
+    switch (statCode) {
+      case MEAN:
+        for (int i = 0; i < rowCount; i++) {
+          values[i] = sums[i] / n[i];
+        }
+        for (int i = 0; i < rowCount; i++, out += rowStride) {
+          rows[out] = n[i] == 0 ? Float.NaN : (float) values[i];
+        }
+        break;
+      case STD:
+        for (int i = 0; i < rowCount; i++) {
+          double s = sums[i];
+          double variance = (sumSquares[i] - s * s / n[i]) / (n[i] - 1);
+          values[i] = Math.sqrt(Math.max(0.0, variance));
+        }
+        for (int i = 0; i < rowCount; i++, out += rowStride) {
+          rows[out] = n[i] < 2 ? Float.NaN : (float) values[i];
+        }
+        break;
+      case MIN:
+        for (int i = 0; i < rowCount; i++, out += rowStride) {
+          rows[out] = n[i] == 0 ? Float.NaN : minUnits[i];
+        }
+        break;
+      case MAX:
+        for (int i = 0; i < rowCount; i++, out += rowStride) {
+          rows[out] = n[i] == 0 ? Float.NaN : maxUnits[i];
+        }
+        break;
+      case ZERO_SHARE:
+        for (int i = 0; i < rowCount; i++, out += rowStride) {
+          rows[out] = n[i] == 0 ? Float.NaN : (float) zeroCounts[i] / (float) n[i];
+        }
+        break;
+      default:
+        throw new AssertionError(statCode);
     }
   }
 
@@ -94,7 +166,10 @@ final class RollingKernel implements FeatureKernel {
     return longest;
   }
 
-  /** Running state of one window length. */
+  /**
+   * Running state of one window length over a series' readable units (units, or −1 for a day that is not readable),
+   * by padded day index.
+   */
   private static final class Window {
     final int lengthDays;
     final boolean trackMin;
@@ -125,10 +200,6 @@ final class RollingKernel implements FeatureKernel {
       this.maxDeque = new int[trackMax ? capacity : 0];
     }
 
-    /**
-     * Slides the window to end on {@code newLastDayIndex}; days are indexes into {@code readable} (units, or −1 for a
-     * day that is not readable).
-     */
     void moveTo(int[] readable, int newLastDayIndex) {
       int newFirstDayIndex = newLastDayIndex - lengthDays + 1;
       if (!started || newFirstDayIndex > lastDayIndex || newLastDayIndex < lastDayIndex) {
@@ -155,22 +226,20 @@ final class RollingKernel implements FeatureKernel {
 
     private void add(int[] readable, int dayIndex) {
       int u = readable[dayIndex];
-      if (u < 0) {
-        return;
-      }
-      count++;
-      sum += u;
-      sumSquares += (long) u * u;
-      if (u == 0) {
-        zeroCount++;
-      }
-      if (trackMin) {
+      // without branches: a day that is not readable (u = -1) adds 0 to every running total
+      int valid = ~u >>> 31;
+      int v = u & ~(u >> 31);
+      count += valid;
+      sum += v;
+      sumSquares += (long) v * v;
+      zeroCount += valid & ((v - 1) >>> 31);
+      if (trackMin && valid != 0) {
         while (minTail > minHead && readable[minDeque[(minTail - 1) & mask]] >= u) {
           minTail--;
         }
         minDeque[minTail++ & mask] = dayIndex;
       }
-      if (trackMax) {
+      if (trackMax && valid != 0) {
         while (maxTail > maxHead && readable[maxDeque[(maxTail - 1) & mask]] <= u) {
           maxTail--;
         }
@@ -180,46 +249,17 @@ final class RollingKernel implements FeatureKernel {
 
     private void remove(int[] readable, int dayIndex) {
       int u = readable[dayIndex];
-      if (u < 0) {
-        return;
-      }
-      count--;
-      sum -= u;
-      sumSquares -= (long) u * u;
-      if (u == 0) {
-        zeroCount--;
-      }
+      int valid = ~u >>> 31;
+      int v = u & ~(u >> 31);
+      count -= valid;
+      sum -= v;
+      sumSquares -= (long) v * v;
+      zeroCount -= valid & ((v - 1) >>> 31);
       if (trackMin && minTail > minHead && minDeque[minHead & mask] == dayIndex) {
         minHead++;
       }
       if (trackMax && maxTail > maxHead && maxDeque[maxHead & mask] == dayIndex) {
         maxHead++;
-      }
-    }
-
-    float value(int[] readable, int statCode) {
-      if (count == 0) {
-        return Float.NaN;
-      }
-      switch (statCode) {
-        case MEAN:
-          return (float) ((double) sum / count);
-        case STD: {
-          if (count < 2) {
-            return Float.NaN;
-          }
-          double s = sum;
-          double variance = (sumSquares - s * s / count) / (count - 1);
-          return (float) Math.sqrt(Math.max(0.0, variance));
-        }
-        case MIN:
-          return readable[minDeque[minHead & mask]];
-        case MAX:
-          return readable[maxDeque[maxHead & mask]];
-        case ZERO_SHARE:
-          return (float) zeroCount / count;
-        default:
-          throw new AssertionError(statCode);
       }
     }
   }
