@@ -94,23 +94,33 @@ final class RollingKernel implements FeatureKernel {
     int endOffset = series.lookbackDays - shiftDays;
     for (int w = 0; w < windows.length; w++) {
       Window window = windows[w];
-      for (int i = 0; i < rowCount; i++) {
-        window.moveTo(readable, dayIndexes[dayOffset + i] + endOffset);
-        counts[i] = window.count;
-        sums[i] = window.sum;
-        sumSquares[i] = window.sumSquares;
-        if (trackZeros) {
-          zeroCounts[i] = window.zeroCount;
-        }
-        if (window.trackMin && window.count > 0) {
-          minUnits[i] = readable[window.minDeque[window.minHead & window.mask]];
-        }
-        if (window.trackMax && window.count > 0) {
-          maxUnits[i] = readable[window.maxDeque[window.maxHead & window.mask]];
-        }
+      if (window.trackMin || window.trackMax) {
+        slideWithDeques(window, readable, dayIndexes, dayOffset, rowCount, endOffset);
+      } else {
+        window.slideTotals(readable, dayIndexes, dayOffset, rowCount, endOffset, counts, sums, sumSquares,
+            trackZeros ? zeroCounts : null);
       }
       for (int k = 0; k < statCount; k++) {
         writeStatistic(statCodes[k], rows, rowStride, firstFeatureIndex + w * statCount + k, rowCount);
+      }
+    }
+  }
+
+  private void slideWithDeques(Window window, int[] readable, int[] dayIndexes, int dayOffset, int rowCount,
+      int endOffset) {
+    for (int i = 0; i < rowCount; i++) {
+      window.moveTo(readable, dayIndexes[dayOffset + i] + endOffset);
+      counts[i] = window.count;
+      sums[i] = window.sum;
+      sumSquares[i] = window.sumSquares;
+      if (trackZeros) {
+        zeroCounts[i] = window.zeroCount;
+      }
+      if (window.trackMin && window.count > 0) {
+        minUnits[i] = readable[window.minDeque[window.minHead & window.mask]];
+      }
+      if (window.trackMax && window.count > 0) {
+        maxUnits[i] = readable[window.maxDeque[window.maxHead & window.mask]];
       }
     }
   }
@@ -198,6 +208,70 @@ final class RollingKernel implements FeatureKernel {
       this.mask = capacity - 1;
       this.minDeque = new int[trackMin ? capacity : 0];
       this.maxDeque = new int[trackMax ? capacity : 0];
+    }
+
+    /**
+     * {@link #moveTo} for each row of a chunk when no deque is kept, recording each row's totals; the running totals
+     * stay in locals for the whole chunk. A day that is not readable (u = -1) adds 0 to every total, without a branch.
+     *
+     * @param zeroCountsOut null when zero days are not counted
+     */
+    void slideTotals(int[] readable, int[] dayIndexes, int dayOffset, int rowCount, int endOffset,
+        double[] countsOut, double[] sumsOut, double[] sumSquaresOut, int[] zeroCountsOut) {
+      int first = firstDayIndex;
+      int last = lastDayIndex;
+      int c = count;
+      long s = sum;
+      long q = sumSquares;
+      int z = zeroCount;
+      boolean moved = started;
+      for (int i = 0; i < rowCount; i++) {
+        int newLast = dayIndexes[dayOffset + i] + endOffset;
+        int newFirst = newLast - lengthDays + 1;
+        int addFrom = last + 1;
+        if (!moved || newFirst > last || newLast < last) {
+          c = 0;
+          s = 0;
+          q = 0;
+          z = 0;
+          addFrom = newFirst;
+          moved = true;
+        } else {
+          for (int d = first; d < newFirst; d++) {
+            int u = readable[d];
+            int valid = ~u >>> 31;
+            int v = u & ~(u >> 31);
+            c -= valid;
+            s -= v;
+            q -= (long) v * v;
+            z -= valid & ((v - 1) >>> 31);
+          }
+        }
+        for (int d = addFrom; d <= newLast; d++) {
+          int u = readable[d];
+          int valid = ~u >>> 31;
+          int v = u & ~(u >> 31);
+          c += valid;
+          s += v;
+          q += (long) v * v;
+          z += valid & ((v - 1) >>> 31);
+        }
+        first = newFirst;
+        last = newLast;
+        countsOut[i] = c;
+        sumsOut[i] = s;
+        sumSquaresOut[i] = q;
+        if (zeroCountsOut != null) {
+          zeroCountsOut[i] = z;
+        }
+      }
+      firstDayIndex = first;
+      lastDayIndex = last;
+      count = c;
+      sum = s;
+      sumSquares = q;
+      zeroCount = z;
+      started = moved;
     }
 
     void moveTo(int[] readable, int newLastDayIndex) {
