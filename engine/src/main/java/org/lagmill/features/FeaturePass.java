@@ -109,6 +109,7 @@ public final class FeaturePass implements RowStream {
     this.rowDays = new int[Math.max(0, endDayIndex - firstDayIndex)];
     this.rowLabels = new float[rowDays.length];
     this.strip = new float[STRIP_ROWS * names.size()];
+    tables += rolling.allocate(context.readableUnits.length);
     this.tableHeapBytes = tables;
     long rows = 0;
     for (int s : seriesIndexes) {

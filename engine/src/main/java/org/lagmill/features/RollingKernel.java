@@ -37,6 +37,16 @@ final class RollingKernel implements FeatureKernel {
   private final int[] zeroCounts;
   private final int[] minUnits;
   private final int[] maxUnits;
+  /**
+   * Running totals of the current series' readable units up to each padded day (entry {@code d} covers days before
+   * {@code d}), as doubles: a window's total is then one subtraction, exact while every total stays below 2^53
+   * ({@link #prefixExact}); a series past that slides its windows instead.
+   */
+  private double[] prefixCounts = new double[0];
+  private double[] prefixSums = new double[0];
+  private double[] prefixSquares = new double[0];
+  private int[] prefixZeros = new int[0];
+  private boolean prefixExact;
 
   RollingKernel(int[] windowDays, int shiftDays, List<FeatureSpec.RollingStat> stats) {
     this.shiftDays = shiftDays;
@@ -77,11 +87,57 @@ final class RollingKernel implements FeatureKernel {
     }
   }
 
+  /** Sizes the per-series prefix totals for the pass's padded day count; returns their heap bytes. */
+  long allocate(int paddedDayCount) {
+    if (windows.length == 0) {
+      return 0;
+    }
+    prefixCounts = new double[paddedDayCount + 1];
+    prefixSums = new double[paddedDayCount + 1];
+    prefixSquares = new double[paddedDayCount + 1];
+    prefixZeros = new int[trackZeros ? paddedDayCount + 1 : 0];
+    return 28L * (paddedDayCount + 1) + 4L * prefixZeros.length;
+  }
+
   @Override
   public void beginSeries(SeriesContext series) {
     for (Window window : windows) {
       window.started = false;
     }
+    prefixExact = windows.length > 0 && accumulate(series.readableUnits);
+  }
+
+  /** Fills the prefix totals; false when a total reaches 2^53 (or the long sum of squares wraps). */
+  private boolean accumulate(int[] readable) {
+    long c = 0;
+    long s = 0;
+    long q = 0;
+    long signs = 0;
+    int z = 0;
+    double[] pc = prefixCounts;
+    double[] ps = prefixSums;
+    double[] pq = prefixSquares;
+    boolean zeros = trackZeros;
+    int dayCount = Math.min(readable.length, pc.length - 1);
+    for (int d = 0; d < dayCount; d++) {
+      int u = readable[d];
+      int valid = ~u >>> 31;
+      int v = u & ~(u >> 31);
+      c += valid;
+      s += v;
+      q += (long) v * v;
+      signs |= q;
+      pc[d + 1] = c;
+      ps[d + 1] = s;
+      pq[d + 1] = q;
+      if (zeros) {
+        z += valid & ((v - 1) >>> 31);
+        prefixZeros[d + 1] = z;
+      }
+    }
+    // terms are < 2^62, so a wrapped sum of squares passes through negative values first
+    long exactLimit = 1L << 53;
+    return signs >= 0 && q < exactLimit && s < exactLimit;
   }
 
   @Override
@@ -96,12 +152,47 @@ final class RollingKernel implements FeatureKernel {
       Window window = windows[w];
       if (window.trackMin || window.trackMax) {
         slideWithDeques(window, readable, dayIndexes, dayOffset, rowCount, endOffset);
+      } else if (prefixExact) {
+        windowTotals(window.lengthDays, dayIndexes, dayOffset, rowCount, endOffset + 1);
       } else {
         window.slideTotals(readable, dayIndexes, dayOffset, rowCount, endOffset, counts, sums, sumSquares,
             trackZeros ? zeroCounts : null);
       }
       for (int k = 0; k < statCount; k++) {
         writeStatistic(statCodes[k], rows, rowStride, firstFeatureIndex + w * statCount + k, rowCount);
+      }
+    }
+  }
+
+  /** Totals of each row's window from the prefix totals; {@code endOffset} maps a day to its window's padded end. */
+  private void windowTotals(int lengthDays, int[] dayIndexes, int dayOffset, int rowCount, int endOffset) {
+    double[] pc = prefixCounts;
+    double[] ps = prefixSums;
+    double[] pq = prefixSquares;
+    int firstEnd = dayIndexes[dayOffset] + endOffset;
+    if (dayIndexes[dayOffset + rowCount - 1] + endOffset - firstEnd == rowCount - 1) {
+      // consecutive days (ascending and distinct): contiguous reads the compiler can vectorise
+      int firstStart = firstEnd - lengthDays;
+      for (int i = 0; i < rowCount; i++) {
+        counts[i] = pc[firstEnd + i] - pc[firstStart + i];
+        sums[i] = ps[firstEnd + i] - ps[firstStart + i];
+        sumSquares[i] = pq[firstEnd + i] - pq[firstStart + i];
+      }
+      if (trackZeros) {
+        for (int i = 0; i < rowCount; i++) {
+          zeroCounts[i] = prefixZeros[firstEnd + i] - prefixZeros[firstStart + i];
+        }
+      }
+      return;
+    }
+    for (int i = 0; i < rowCount; i++) {
+      int end = dayIndexes[dayOffset + i] + endOffset;
+      int start = end - lengthDays;
+      counts[i] = pc[end] - pc[start];
+      sums[i] = ps[end] - ps[start];
+      sumSquares[i] = pq[end] - pq[start];
+      if (trackZeros) {
+        zeroCounts[i] = prefixZeros[end] - prefixZeros[start];
       }
     }
   }
