@@ -180,13 +180,13 @@ final class CalendarKernel implements FeatureKernel {
       int rowCount, int firstFeatureIndex) {
     int dateCount = dateFeatureCount;
     float[] dates = dateTable;
-    int out = firstFeatureIndex;
-    for (int i = 0; i < rowCount; i++) {
-      int tableOffset = (dayIndexes[dayOffset + i] - tableFirstDayIndex) * dateCount;
-      for (int k = 0; k < dateCount; k++) {
-        rows[out + k] = dates[tableOffset + k];
+    int out;
+    for (int k = 0; k < dateCount; k++) {
+      out = firstFeatureIndex + k;
+      int offset = k - tableFirstDayIndex * dateCount;
+      for (int i = 0; i < rowCount; i++, out += rowStride) {
+        rows[out] = dates[offset + dayIndexes[dayOffset + i] * dateCount];
       }
-      out += rowStride;
     }
     for (int c = 0; c < columnIndexes.length; c++) {
       float[] table = columnTables[c];

@@ -29,17 +29,14 @@ final class LagKernel implements FeatureKernel {
   @Override
   public void compute(SeriesContext series, float[] rows, int rowStride, int[] dayIndexes, int dayOffset,
       int rowCount, int firstFeatureIndex) {
-    int[] lags = lagDays;
-    int lagCount = lags.length;
     float[] values = series.readableValues;
-    int pad = series.lookbackDays;
-    int out = firstFeatureIndex;
-    for (int i = 0; i < rowCount; i++) {
-      int base = pad + dayIndexes[dayOffset + i];
-      for (int k = 0; k < lagCount; k++) {
-        rows[out + k] = values[base - lags[k]];
+    int base = series.lookbackDays;
+    // one column at a time: a long inner loop over the rows rather than a short one over the lags
+    for (int k = 0; k < lagDays.length; k++) {
+      int offset = base - lagDays[k];
+      for (int i = 0, out = firstFeatureIndex + k; i < rowCount; i++, out += rowStride) {
+        rows[out] = values[offset + dayIndexes[dayOffset + i]];
       }
-      out += rowStride;
     }
   }
 

@@ -90,7 +90,13 @@ final class SeriesKernel implements FeatureKernel {
       int endOffset = series.lookbackDays - shiftDays;
       for (int i = 0, o = out; i < rowCount; i++, o += rowStride) {
         int readDay = dayIndexes[dayOffset + i] + endOffset;
-        advanceZeroRun(readable, readDay);
+        if (zeroRunStarted && readDay == zeroRunEndDayIndex + 1) {
+          // the common step, one day on
+          zeroRunDays = readable[readDay] == 0 ? zeroRunDays + 1 : 0;
+          zeroRunEndDayIndex = readDay;
+        } else {
+          advanceZeroRun(readable, readDay);
+        }
         rows[o] = readable[readDay] >= 0 ? zeroRunDays : Float.NaN;
       }
     }
