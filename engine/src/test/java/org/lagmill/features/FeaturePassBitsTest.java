@@ -7,6 +7,7 @@ import org.junit.jupiter.api.Test;
 import org.lagmill.features.FeatureSpec.RollingStat;
 import org.lagmill.features.FeatureSpec.Strategy;
 import org.lagmill.memory.MemoryBudget;
+import org.lagmill.store.ArraySalesHistory;
 
 /**
  * Bit-for-bit regression guard: every streamed value, label, weight, series and day of a few fixed passes, folded into
@@ -57,6 +58,34 @@ class FeaturePassBitsTest {
     FeaturePass prediction = FeaturePass.prediction(store.history, FeatureSpec.defaults(), new int[] {15, 3, 7, 0},
         120, 58);
     assertEquals(0x450e5596aeec7baaL, fingerprint(prediction, 11), "prediction rows past the last day");
+  }
+
+  @Test
+  void shouldStreamTheSameBitsForTotalsOnlyStatisticsAndOneDayWindows() {
+    RandomStore store = new RandomStore(7005L, 20, 150, 0, true);
+    FeatureSpec spec = FeatureSpec.builder().rollingStats(List.of(RollingStat.MEAN, RollingStat.STD,
+        RollingStat.ZERO_SHARE)).rollingWindowDays(1, 2, 7, 30).skipPreLaunch(false).build();
+    assertEquals(0x3dd37344fb5d1e70L, fingerprint(FeaturePass.training(store.history, spec), 17), "totals only");
+  }
+
+  @Test
+  void shouldStreamTheSameBitsForUnitsWhoseSquaresPassTwoToThe53() {
+    RandomStore store = new RandomStore(7006L, 12, 120, 0, true);
+    java.util.Random random = new java.util.Random(7006L);
+    int[][] units = new int[12][120];
+    for (int s = 0; s < units.length; s++) {
+      for (int d = 0; d < units[s].length; d++) {
+        // up to 2^30: window sums of squares wrap a long, as the per-value implementation's did
+        units[s][d] = random.nextInt(10) == 0 ? -1 : s < 4 ? random.nextInt(50) : random.nextInt(1 << (8 + 2 * s));
+      }
+    }
+    ArraySalesHistory history = new ArraySalesHistory(RandomStore.FIRST_DATE, units, store.history.attributes(),
+        store.history.prices(), store.history.calendar());
+    FeatureSpec spec = FeatureSpec.builder().rollingStats(List.of(RollingStat.MEAN, RollingStat.STD))
+        .rollingWindowDays(3, 28, 56).build();
+    assertEquals(0x1651b75bc410432L, fingerprint(FeaturePass.training(history, spec), 64), "large units, mean and std");
+    FeatureSpec all = spec.withRollingStats(ALL_STATS);
+    assertEquals(0x216e58d2ea4a3882L, fingerprint(FeaturePass.training(history, all), 64), "large units, every statistic");
   }
 
   private static long fingerprint(RowStream pass, int capacityRows) {
