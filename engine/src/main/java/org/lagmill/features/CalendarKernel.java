@@ -13,9 +13,15 @@ import org.lagmill.store.SeriesAttributes;
  * calendar column reads the value for the series' own code of its key attribute.
  *
  * <p>Date features are tabulated once per pass for the pass's day range ({@code 4 × features × days} heap bytes), so
- * no date object is made per row.
+ * no date object is made per row. Calendar columns are tabulated too, one row of days per key code
+ * ({@code 4 × codes × days} bytes per column, one code for a global column), so no calendar lookup is made per row;
+ * a keyed column whose table would pass {@link #MAX_TABULATED_CELLS} floats in all keeps a single row instead,
+ * refilled when a series has another key code than the series before it.
  */
 final class CalendarKernel implements FeatureKernel {
+  /** Floats of calendar tables held per pass (16 MiB) before a keyed column falls back to one refilled row. */
+  static final int MAX_TABULATED_CELLS = 1 << 22;
+
   private final List<FeatureSpec.CalendarFeature> dateFeatures;
   private final int dateFeatureCount;
   private final int tableFirstDayIndex;
@@ -23,7 +29,13 @@ final class CalendarKernel implements FeatureKernel {
   private final DayCalendar calendar;
   private final int[] columnIndexes;
   private final int[] keyAttributeIndexes;
-  private final int[] keyCodes;
+  private final int tableDayCount;
+  /** Per column: key-code rows of {@link #tableDayCount} values each (one row when refilled per series). */
+  private final float[][] columnTables;
+  private final boolean[] refilledPerSeries;
+  private final int[] refilledKeyCodes;
+  /** Per column: offset of the current series' row in its table, minus the table's first day index. */
+  private final int[] columnOffsets;
 
   /** @param firstDayIndex first row day of the pass; {@code endDayIndex} one past the last */
   CalendarKernel(SalesHistory history, List<FeatureSpec.CalendarFeature> dateFeatures, boolean calendarColumns,
@@ -44,8 +56,13 @@ final class CalendarKernel implements FeatureKernel {
     int columnCount = calendarColumns ? calendar.columnCount() : 0;
     this.columnIndexes = new int[columnCount];
     this.keyAttributeIndexes = new int[columnCount];
-    this.keyCodes = new int[columnCount];
+    this.tableDayCount = dayCount;
+    this.columnTables = new float[columnCount][];
+    this.refilledPerSeries = new boolean[columnCount];
+    this.refilledKeyCodes = new int[columnCount];
+    this.columnOffsets = new int[columnCount];
     SeriesAttributes attributes = history.attributes();
+    long tabulatedCells = 0;
     for (int c = 0; c < columnCount; c++) {
       columnIndexes[c] = c;
       String key = calendar.keyAttribute(c);
@@ -54,7 +71,36 @@ final class CalendarKernel implements FeatureKernel {
         throw new IllegalArgumentException("calendar column '" + calendar.columnName(c) + "' is keyed by attribute '"
             + key + "', which the series do not have; add that attribute to the series or drop the column");
       }
+      int codeCount = key == null ? 1 : Math.max(1, attributes.cardinality(keyAttributeIndexes[c]));
+      long cells = (long) codeCount * dayCount;
+      if (key != null && tabulatedCells + cells > MAX_TABULATED_CELLS) {
+        refilledPerSeries[c] = true;
+        refilledKeyCodes[c] = -1;
+        columnTables[c] = new float[dayCount];
+        tabulatedCells += dayCount;
+      } else {
+        columnTables[c] = new float[(int) cells];
+        for (int code = 0; code < codeCount; code++) {
+          tabulate(c, code, columnTables[c], code * dayCount);
+        }
+        tabulatedCells += cells;
+      }
     }
+  }
+
+  private void tabulate(int column, int keyCode, float[] table, int offset) {
+    for (int d = 0; d < tableDayCount; d++) {
+      table[offset + d] = calendar.value(columnIndexes[column], keyCode, tableFirstDayIndex + d);
+    }
+  }
+
+  /** Heap bytes of the date and calendar tables. */
+  long heapBytes() {
+    long bytes = 4L * dateTable.length;
+    for (float[] table : columnTables) {
+      bytes += 4L * table.length;
+    }
+    return bytes;
   }
 
   static float dateValue(FeatureSpec.CalendarFeature feature, LocalDate date) {
@@ -116,23 +162,39 @@ final class CalendarKernel implements FeatureKernel {
   @Override
   public void beginSeries(SeriesContext series) {
     for (int c = 0; c < columnIndexes.length; c++) {
-      keyCodes[c] = keyAttributeIndexes[c] < 0 ? 0 : series.attributeCodes[keyAttributeIndexes[c]];
+      int keyCode = keyAttributeIndexes[c] < 0 ? 0 : series.attributeCodes[keyAttributeIndexes[c]];
+      if (refilledPerSeries[c]) {
+        if (refilledKeyCodes[c] != keyCode) {
+          tabulate(c, keyCode, columnTables[c], 0);
+          refilledKeyCodes[c] = keyCode;
+        }
+        columnOffsets[c] = -tableFirstDayIndex;
+      } else {
+        columnOffsets[c] = keyCode * tableDayCount - tableFirstDayIndex;
+      }
     }
   }
 
   @Override
-  public void compute(SeriesContext series, FeatureBatch batch, int batchRow, int[] dayIndexes, int dayOffset,
+  public void compute(SeriesContext series, float[] rows, int rowStride, int[] dayIndexes, int dayOffset,
       int rowCount, int firstFeatureIndex) {
-    int columnCount = columnIndexes.length;
-    for (int i = 0; i < rowCount; i++) {
-      int day = dayIndexes[dayOffset + i];
-      int row = batchRow + i;
-      int tableOffset = (day - tableFirstDayIndex) * dateFeatureCount;
-      for (int k = 0; k < dateFeatureCount; k++) {
-        batch.set(row, firstFeatureIndex + k, dateTable[tableOffset + k]);
+    int dateCount = dateFeatureCount;
+    float[] dates = dateTable;
+    int out;
+    for (int k = 0; k < dateCount; k++) {
+      out = firstFeatureIndex + k;
+      int offset = k - tableFirstDayIndex * dateCount;
+      for (int i = 0; i < rowCount; i++, out += rowStride) {
+        rows[out] = dates[offset + dayIndexes[dayOffset + i] * dateCount];
       }
-      for (int c = 0; c < columnCount; c++) {
-        batch.set(row, firstFeatureIndex + dateFeatureCount + c, calendar.value(columnIndexes[c], keyCodes[c], day));
+    }
+    for (int c = 0; c < columnIndexes.length; c++) {
+      float[] table = columnTables[c];
+      int offset = columnOffsets[c];
+      out = firstFeatureIndex + dateCount + c;
+      for (int i = 0; i < rowCount; i++) {
+        rows[out] = table[offset + dayIndexes[dayOffset + i]];
+        out += rowStride;
       }
     }
   }

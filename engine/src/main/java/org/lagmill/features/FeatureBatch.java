@@ -68,6 +68,15 @@ public final class FeatureBatch implements AutoCloseable {
     values.set(row * featureCount + featureIndex, value);
   }
 
+  /**
+   * Sets every feature of rows {@code [firstRow, firstRow + rowCount)} from a row-major heap array (row {@code r},
+   * feature {@code f} at {@code src[r * featureCount() + f]}) in one bulk copy; the rows must have been added.
+   */
+  public void setRows(int firstRow, float[] src, int rowCount) {
+    assert firstRow >= 0 && firstRow + rowCount <= this.rowCount : firstRow + "+" + rowCount;
+    values.put(firstRow * featureCount, src, 0, rowCount * featureCount);
+  }
+
   public float get(int row, int featureIndex) {
     return values.get(row * featureCount + featureIndex);
   }

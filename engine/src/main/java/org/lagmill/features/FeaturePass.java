@@ -27,6 +27,13 @@ import org.lagmill.store.SeriesAttributes;
  * Not thread-safe: one {@link #stream} at a time.
  */
 public final class FeaturePass implements RowStream {
+  /**
+   * Rows the kernels fill on the heap before one bulk copy into the batch's native matrix: small enough that the strip
+   * stays in the core's cache (256 rows × 29 features ≈ 30 KB), large enough that the per-chunk kernel calls cost
+   * nothing per row.
+   */
+  static final int STRIP_ROWS = 256;
+
   private final SalesHistory history;
   private final FeatureSpec spec;
   private final boolean training;
@@ -34,13 +41,16 @@ public final class FeaturePass implements RowStream {
   private final int firstDayIndex;
   private final int lastDayIndex;
   private final float[] weightBySeries;
-  private final List<FeatureKernel> kernels = new ArrayList<>();
+  private final List<FeatureKernel> kernelList = new ArrayList<>();
+  private final FeatureKernel[] kernels;
   private final int[] firstFeatureIndexes;
   private final FeatureSchema schema;
   private final boolean withPrices;
   private final SeriesContext context;
   private final int[] rowDays;
   private final float[] rowLabels;
+  /** Row-major heap staging of up to {@link #STRIP_ROWS} rows, copied into the batch in bulk. */
+  private final float[] strip;
   private final long rowCount;
   private final long tableHeapBytes;
 
@@ -63,35 +73,43 @@ public final class FeaturePass implements RowStream {
     SeriesAttributes attributes = history.attributes();
     int endDayIndex = Math.max(firstDayIndex, lastDayIndex + 1);
     this.withPrices = !history.prices().isEmpty() && !spec.priceFeatures().isEmpty();
-    addKernel(new LagKernel(spec.lagDays()));
-    addKernel(new RollingKernel(spec.rollingWindowDays(), spec.rollingShiftDays(), spec.rollingStats()));
+    LagKernel lags = new LagKernel(spec.lagDays());
+    addKernel(lags);
+    RollingKernel rolling = new RollingKernel(spec.rollingWindowDays(), spec.rollingShiftDays(), spec.rollingStats());
+    addKernel(rolling);
     CalendarKernel calendar = new CalendarKernel(history, spec.calendarFeatures(), spec.calendarColumns(),
         firstDayIndex, endDayIndex);
     addKernel(calendar);
-    long tables = 4L * spec.calendarFeatures().size() * (endDayIndex - firstDayIndex);
+    long tables = calendar.heapBytes();
     if (withPrices) {
       PriceKernel price = new PriceKernel(history, spec.priceFeatures(), priceGroupAttributes(spec, attributes),
           firstDayIndex, endDayIndex);
       addKernel(price);
       tables += price.heapBytes();
     }
-    addKernel(new SeriesKernel(attributes, categoricalAttributes(spec, attributes), spec.seriesFeatures(),
-        spec.shortestShiftDays()));
+    SeriesKernel series = new SeriesKernel(attributes, categoricalAttributes(spec, attributes), spec.seriesFeatures(),
+        spec.shortestShiftDays());
+    addKernel(series);
+    this.kernels = kernelList.toArray(new FeatureKernel[0]);
     List<String> names = new ArrayList<>();
     List<Boolean> categorical = new ArrayList<>();
-    firstFeatureIndexes = new int[kernels.size()];
-    for (int k = 0; k < kernels.size(); k++) {
+    firstFeatureIndexes = new int[kernels.length];
+    for (int k = 0; k < kernels.length; k++) {
       firstFeatureIndexes[k] = names.size();
-      kernels.get(k).describe(names, categorical);
+      kernels[k].describe(names, categorical);
     }
     if (names.isEmpty()) {
       throw new IllegalArgumentException("the feature spec selects no feature for this history; enable lags, rolling"
           + " windows, calendar, price or series features");
     }
     this.schema = new FeatureSchema(names, categorical);
-    this.context = new SeriesContext(dayCount, withPrices ? endDayIndex : 0, attributes.attributeCount());
+    int lookbackDays = Math.max(lags.lookbackDays(), Math.max(rolling.lookbackDays(), series.lookbackDays()));
+    this.context = new SeriesContext(dayCount, withPrices ? endDayIndex : 0, attributes.attributeCount(),
+        endDayIndex, lookbackDays);
     this.rowDays = new int[Math.max(0, endDayIndex - firstDayIndex)];
     this.rowLabels = new float[rowDays.length];
+    this.strip = new float[STRIP_ROWS * names.size()];
+    tables += rolling.allocate(context.readableUnits.length);
     this.tableHeapBytes = tables;
     long rows = 0;
     for (int s : seriesIndexes) {
@@ -234,7 +252,7 @@ public final class FeaturePass implements RowStream {
 
   private void addKernel(FeatureKernel kernel) {
     if (kernel.featureCount() > 0) {
-      kernels.add(kernel);
+      kernelList.add(kernel);
     }
   }
 
@@ -281,9 +299,12 @@ public final class FeaturePass implements RowStream {
     return rowCount;
   }
 
-  /** Heap bytes held for the whole pass: day tables, group mean prices and the per-series buffers. */
+  /**
+   * Heap bytes held for the whole pass: date and calendar tables, group mean prices, the per-series buffers and the
+   * staging strip.
+   */
   public long heapBytes() {
-    return tableHeapBytes + 4L * (context.units.length + context.prices.length + rowDays.length + rowLabels.length);
+    return tableHeapBytes + context.heapBytes() + 4L * (rowDays.length + rowLabels.length + strip.length);
   }
 
   @Override
@@ -293,15 +314,16 @@ public final class FeaturePass implements RowStream {
           + schema.featureCount() + "; create the batch with schema().featureCount()");
     }
     batch.reset(0);
-    int kernelCount = kernels.size();
+    FeatureKernel[] kernels = this.kernels;
+    int featureCount = schema.featureCount();
     for (int s : seriesIndexes) {
       int seriesRows = selectRows(s);
       if (seriesRows == 0) {
         continue;
       }
       float weight = weightBySeries == null ? 1f : weightBySeries[s];
-      for (int k = 0; k < kernelCount; k++) {
-        kernels.get(k).beginSeries(context);
+      for (FeatureKernel kernel : kernels) {
+        kernel.beginSeries(context);
       }
       int offset = 0;
       while (offset < seriesRows) {
@@ -310,13 +332,14 @@ public final class FeaturePass implements RowStream {
           batch.reset(batch.firstRowIndex() + batch.rowCount());
         }
         int batchRow = batch.rowCount();
-        int chunkRows = Math.min(seriesRows - offset, batch.capacityRows() - batchRow);
+        int chunkRows = Math.min(Math.min(seriesRows - offset, batch.capacityRows() - batchRow), STRIP_ROWS);
         for (int i = 0; i < chunkRows; i++) {
           batch.addRow(s, rowDays[offset + i], rowLabels[offset + i], weight);
         }
-        for (int k = 0; k < kernelCount; k++) {
-          kernels.get(k).compute(context, batch, batchRow, rowDays, offset, chunkRows, firstFeatureIndexes[k]);
+        for (int k = 0; k < kernels.length; k++) {
+          kernels[k].compute(context, strip, featureCount, rowDays, offset, chunkRows, firstFeatureIndexes[k]);
         }
+        batch.setRows(batchRow, strip, chunkRows);
         offset += chunkRows;
       }
     }

@@ -27,15 +27,25 @@ final class LagKernel implements FeatureKernel {
   public void beginSeries(SeriesContext series) {}
 
   @Override
-  public void compute(SeriesContext series, FeatureBatch batch, int batchRow, int[] dayIndexes, int dayOffset,
+  public void compute(SeriesContext series, float[] rows, int rowStride, int[] dayIndexes, int dayOffset,
       int rowCount, int firstFeatureIndex) {
-    int[] lags = lagDays;
-    for (int i = 0; i < rowCount; i++) {
-      int day = dayIndexes[dayOffset + i];
-      int row = batchRow + i;
-      for (int k = 0; k < lags.length; k++) {
-        batch.set(row, firstFeatureIndex + k, series.unitsOrNaN(day - lags[k]));
+    float[] values = series.readableValues;
+    int base = series.lookbackDays;
+    // one column at a time: a long inner loop over the rows rather than a short one over the lags
+    for (int k = 0; k < lagDays.length; k++) {
+      int offset = base - lagDays[k];
+      for (int i = 0, out = firstFeatureIndex + k; i < rowCount; i++, out += rowStride) {
+        rows[out] = values[offset + dayIndexes[dayOffset + i]];
       }
     }
+  }
+
+  /** The farthest day before a row's day this kernel reads. */
+  int lookbackDays() {
+    int longest = 0;
+    for (int lag : lagDays) {
+      longest = Math.max(longest, lag);
+    }
+    return longest;
   }
 }

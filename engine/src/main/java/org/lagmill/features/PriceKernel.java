@@ -145,41 +145,55 @@ final class PriceKernel implements FeatureKernel {
   }
 
   @Override
-  public void compute(SeriesContext series, FeatureBatch batch, int batchRow, int[] dayIndexes, int dayOffset,
+  public void compute(SeriesContext series, float[] rows, int rowStride, int[] dayIndexes, int dayOffset,
       int rowCount, int firstFeatureIndex) {
     float[] dayPrices = series.prices;
-    int featureCount = featureCodes.length;
-    for (int i = 0; i < rowCount; i++) {
-      int day = dayIndexes[dayOffset + i];
-      int row = batchRow + i;
-      float price = dayPrices[day];
-      for (int k = 0; k < featureCount; k++) {
-        float value;
-        switch (featureCodes[k]) {
-          case 0:
-            value = price;
-            break;
-          case 1:
-            value = price / seriesMeanPrice;
-            break;
-          case 2:
-            value = price / seriesRegularPrice;
-            break;
-          case 3: {
-            float before = day >= CHANGE_LAG_DAYS ? dayPrices[day - CHANGE_LAG_DAYS] : Float.NaN;
-            value = before > 0 ? price / before - 1f : Float.NaN;
-            break;
+    float mean = seriesMeanPrice;
+    float regular = seriesRegularPrice;
+    // one column at a time so the choice of formula is made once per chunk, not per value
+    for (int k = 0; k < featureCodes.length; k++) {
+      int out = firstFeatureIndex + k;
+      int end = dayOffset + rowCount;
+      switch (featureCodes[k]) {
+        case 0:
+          for (int j = dayOffset; j < end; j++, out += rowStride) {
+            rows[out] = dayPrices[dayIndexes[j]];
           }
-          case 4:
-            value = Float.isNaN(price) ? Float.NaN : (price < seriesRegularPrice ? 1f : 0f);
-            break;
-          case 5:
-            value = price / groupMeanPrices[groupOffset + day];
-            break;
-          default:
-            throw new AssertionError(featureCodes[k]);
+          break;
+        case 1:
+          for (int j = dayOffset; j < end; j++, out += rowStride) {
+            rows[out] = dayPrices[dayIndexes[j]] / mean;
+          }
+          break;
+        case 2:
+          for (int j = dayOffset; j < end; j++, out += rowStride) {
+            rows[out] = dayPrices[dayIndexes[j]] / regular;
+          }
+          break;
+        case 3:
+          for (int j = dayOffset; j < end; j++, out += rowStride) {
+            int day = dayIndexes[j];
+            float before = day >= CHANGE_LAG_DAYS ? dayPrices[day - CHANGE_LAG_DAYS] : Float.NaN;
+            rows[out] = before > 0 ? dayPrices[day] / before - 1f : Float.NaN;
+          }
+          break;
+        case 4:
+          for (int j = dayOffset; j < end; j++, out += rowStride) {
+            float price = dayPrices[dayIndexes[j]];
+            rows[out] = Float.isNaN(price) ? Float.NaN : (price < regular ? 1f : 0f);
+          }
+          break;
+        case 5: {
+          float[] groupMeans = groupMeanPrices;
+          int groupOffset = this.groupOffset;
+          for (int j = dayOffset; j < end; j++, out += rowStride) {
+            int day = dayIndexes[j];
+            rows[out] = dayPrices[day] / groupMeans[groupOffset + day];
+          }
+          break;
         }
-        batch.set(row, firstFeatureIndex + k, value);
+        default:
+          throw new AssertionError(featureCodes[k]);
       }
     }
   }

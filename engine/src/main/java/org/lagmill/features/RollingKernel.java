@@ -12,6 +12,10 @@ import java.util.List;
  *
  * <p>Each window slides with the rows: a day entering or leaving updates a running count, sum and sum of squares
  * (exact in {@code long}) and monotonic deques of day indexes for min and max, so each row costs O(1) amortised.
+ * A chunk of rows is done in two steps: the window slides over every row, keeping each row's count and sums in
+ * scratch columns, then each statistic is computed over the whole column in a loop without branches the compiler can
+ * vectorise (the divisions and square roots dominate). The formulas are the same double-precision expressions either
+ * way, so the values are identical.
  */
 final class RollingKernel implements FeatureKernel {
   private static final int MEAN = 0;
@@ -24,6 +28,25 @@ final class RollingKernel implements FeatureKernel {
   private final int[] statCodes;
   private final String[] statNames;
   private final Window[] windows;
+  private final boolean trackZeros;
+  /** Per row of a chunk, as doubles so the statistic loops need no conversion: readable days, sum, sum of squares. */
+  private final double[] counts = new double[FeaturePass.STRIP_ROWS];
+  private final double[] sums = new double[FeaturePass.STRIP_ROWS];
+  private final double[] sumSquares = new double[FeaturePass.STRIP_ROWS];
+  private final double[] statValues = new double[FeaturePass.STRIP_ROWS];
+  private final int[] zeroCounts;
+  private final int[] minUnits;
+  private final int[] maxUnits;
+  /**
+   * Running totals of the current series' readable units up to each padded day (entry {@code d} covers days before
+   * {@code d}), as doubles: a window's total is then one subtraction, exact while every total stays below 2^53
+   * ({@link #prefixExact}); a series past that slides its windows instead.
+   */
+  private double[] prefixCounts = new double[0];
+  private double[] prefixSums = new double[0];
+  private double[] prefixSquares = new double[0];
+  private int[] prefixZeros = new int[0];
+  private boolean prefixExact;
 
   RollingKernel(int[] windowDays, int shiftDays, List<FeatureSpec.RollingStat> stats) {
     this.shiftDays = shiftDays;
@@ -31,12 +54,18 @@ final class RollingKernel implements FeatureKernel {
     this.statNames = new String[stats.size()];
     boolean trackMin = false;
     boolean trackMax = false;
+    boolean trackZeros = false;
     for (int i = 0; i < stats.size(); i++) {
       statCodes[i] = stats.get(i).ordinal();
       statNames[i] = stats.get(i).configName();
       trackMin |= statCodes[i] == MIN;
       trackMax |= statCodes[i] == MAX;
+      trackZeros |= statCodes[i] == ZERO_SHARE;
     }
+    this.trackZeros = trackZeros;
+    this.zeroCounts = new int[trackZeros ? FeaturePass.STRIP_ROWS : 0];
+    this.minUnits = new int[trackMin ? FeaturePass.STRIP_ROWS : 0];
+    this.maxUnits = new int[trackMax ? FeaturePass.STRIP_ROWS : 0];
     this.windows = new Window[windowDays.length];
     for (int w = 0; w < windowDays.length; w++) {
       windows[w] = new Window(windowDays[w], trackMin, trackMax);
@@ -58,31 +87,190 @@ final class RollingKernel implements FeatureKernel {
     }
   }
 
+  /** Sizes the per-series prefix totals for the pass's padded day count; returns their heap bytes. */
+  long allocate(int paddedDayCount) {
+    if (windows.length == 0) {
+      return 0;
+    }
+    prefixCounts = new double[paddedDayCount + 1];
+    prefixSums = new double[paddedDayCount + 1];
+    prefixSquares = new double[paddedDayCount + 1];
+    prefixZeros = new int[trackZeros ? paddedDayCount + 1 : 0];
+    return 28L * (paddedDayCount + 1) + 4L * prefixZeros.length;
+  }
+
   @Override
   public void beginSeries(SeriesContext series) {
     for (Window window : windows) {
       window.started = false;
     }
+    prefixExact = windows.length > 0 && accumulate(series.readableUnits);
+  }
+
+  /** Fills the prefix totals; false when a total reaches 2^53 (or the long sum of squares wraps). */
+  private boolean accumulate(int[] readable) {
+    long c = 0;
+    long s = 0;
+    long q = 0;
+    long signs = 0;
+    int z = 0;
+    double[] pc = prefixCounts;
+    double[] ps = prefixSums;
+    double[] pq = prefixSquares;
+    boolean zeros = trackZeros;
+    int dayCount = Math.min(readable.length, pc.length - 1);
+    for (int d = 0; d < dayCount; d++) {
+      int u = readable[d];
+      int valid = ~u >>> 31;
+      int v = u & ~(u >> 31);
+      c += valid;
+      s += v;
+      q += (long) v * v;
+      signs |= q;
+      pc[d + 1] = c;
+      ps[d + 1] = s;
+      pq[d + 1] = q;
+      if (zeros) {
+        z += valid & ((v - 1) >>> 31);
+        prefixZeros[d + 1] = z;
+      }
+    }
+    // terms are < 2^62, so a wrapped sum of squares passes through negative values first
+    long exactLimit = 1L << 53;
+    return signs >= 0 && q < exactLimit && s < exactLimit;
   }
 
   @Override
-  public void compute(SeriesContext series, FeatureBatch batch, int batchRow, int[] dayIndexes, int dayOffset,
+  public void compute(SeriesContext series, float[] rows, int rowStride, int[] dayIndexes, int dayOffset,
       int rowCount, int firstFeatureIndex) {
+    assert rowCount <= FeaturePass.STRIP_ROWS : rowCount;
     int statCount = statCodes.length;
+    int[] readable = series.readableUnits;
+    // windows move in the padded day coordinates of readableUnits, where every day a window covers is >= 0
+    int endOffset = series.lookbackDays - shiftDays;
     for (int w = 0; w < windows.length; w++) {
       Window window = windows[w];
-      int firstColumn = firstFeatureIndex + w * statCount;
-      for (int i = 0; i < rowCount; i++) {
-        window.moveTo(series, dayIndexes[dayOffset + i] - shiftDays);
-        int row = batchRow + i;
-        for (int k = 0; k < statCount; k++) {
-          batch.set(row, firstColumn + k, window.value(series, statCodes[k]));
-        }
+      if (window.trackMin || window.trackMax) {
+        slideWithDeques(window, readable, dayIndexes, dayOffset, rowCount, endOffset);
+      } else if (prefixExact) {
+        windowTotals(window.lengthDays, dayIndexes, dayOffset, rowCount, endOffset + 1);
+      } else {
+        window.slideTotals(readable, dayIndexes, dayOffset, rowCount, endOffset, counts, sums, sumSquares,
+            trackZeros ? zeroCounts : null);
+      }
+      for (int k = 0; k < statCount; k++) {
+        writeStatistic(statCodes[k], rows, rowStride, firstFeatureIndex + w * statCount + k, rowCount);
       }
     }
   }
 
-  /** Running state of one window length. */
+  /** Totals of each row's window from the prefix totals; {@code endOffset} maps a day to its window's padded end. */
+  private void windowTotals(int lengthDays, int[] dayIndexes, int dayOffset, int rowCount, int endOffset) {
+    double[] pc = prefixCounts;
+    double[] ps = prefixSums;
+    double[] pq = prefixSquares;
+    int firstEnd = dayIndexes[dayOffset] + endOffset;
+    if (dayIndexes[dayOffset + rowCount - 1] + endOffset - firstEnd == rowCount - 1) {
+      // consecutive days (ascending and distinct): contiguous reads the compiler can vectorise
+      int firstStart = firstEnd - lengthDays;
+      for (int i = 0; i < rowCount; i++) {
+        counts[i] = pc[firstEnd + i] - pc[firstStart + i];
+        sums[i] = ps[firstEnd + i] - ps[firstStart + i];
+        sumSquares[i] = pq[firstEnd + i] - pq[firstStart + i];
+      }
+      if (trackZeros) {
+        for (int i = 0; i < rowCount; i++) {
+          zeroCounts[i] = prefixZeros[firstEnd + i] - prefixZeros[firstStart + i];
+        }
+      }
+      return;
+    }
+    for (int i = 0; i < rowCount; i++) {
+      int end = dayIndexes[dayOffset + i] + endOffset;
+      int start = end - lengthDays;
+      counts[i] = pc[end] - pc[start];
+      sums[i] = ps[end] - ps[start];
+      sumSquares[i] = pq[end] - pq[start];
+      if (trackZeros) {
+        zeroCounts[i] = prefixZeros[end] - prefixZeros[start];
+      }
+    }
+  }
+
+  private void slideWithDeques(Window window, int[] readable, int[] dayIndexes, int dayOffset, int rowCount,
+      int endOffset) {
+    for (int i = 0; i < rowCount; i++) {
+      window.moveTo(readable, dayIndexes[dayOffset + i] + endOffset);
+      counts[i] = window.count;
+      sums[i] = window.sum;
+      sumSquares[i] = window.sumSquares;
+      if (trackZeros) {
+        zeroCounts[i] = window.zeroCount;
+      }
+      if (window.trackMin && window.count > 0) {
+        minUnits[i] = readable[window.minDeque[window.minHead & window.mask]];
+      }
+      if (window.trackMax && window.count > 0) {
+        maxUnits[i] = readable[window.maxDeque[window.maxHead & window.mask]];
+      }
+    }
+  }
+
+  private void writeStatistic(int statCode, float[] rows, int rowStride, int out, int rowCount) {
+    double[] n = counts;
+    double[] values = statValues;
+    switch (statCode) {
+      case MEAN:
+        for (int i = 0; i < rowCount; i++) {
+          values[i] = sums[i] / n[i];
+        }
+        for (int i = 0; i < rowCount; i++, out += rowStride) {
+          rows[out] = n[i] == 0 ? Float.NaN : (float) values[i];
+        }
+        break;
+      case STD:
+        for (int i = 0; i < rowCount; i++) {
+          double s = sums[i];
+          double variance = (sumSquares[i] - s * s / n[i]) / (n[i] - 1);
+          values[i] = Math.sqrt(Math.max(0.0, variance));
+        }
+        for (int i = 0; i < rowCount; i++, out += rowStride) {
+          rows[out] = n[i] < 2 ? Float.NaN : (float) values[i];
+        }
+        break;
+      case MIN:
+        for (int i = 0; i < rowCount; i++, out += rowStride) {
+          rows[out] = n[i] == 0 ? Float.NaN : minUnits[i];
+        }
+        break;
+      case MAX:
+        for (int i = 0; i < rowCount; i++, out += rowStride) {
+          rows[out] = n[i] == 0 ? Float.NaN : maxUnits[i];
+        }
+        break;
+      case ZERO_SHARE:
+        for (int i = 0; i < rowCount; i++, out += rowStride) {
+          rows[out] = n[i] == 0 ? Float.NaN : (float) zeroCounts[i] / (float) n[i];
+        }
+        break;
+      default:
+        throw new AssertionError(statCode);
+    }
+  }
+
+  /** The farthest day before a row's day this kernel reads: the first day of the longest window. */
+  int lookbackDays() {
+    int longest = 0;
+    for (Window window : windows) {
+      longest = Math.max(longest, shiftDays + window.lengthDays - 1);
+    }
+    return longest;
+  }
+
+  /**
+   * Running state of one window length over a series' readable units (units, or −1 for a day that is not readable),
+   * by padded day index.
+   */
   private static final class Window {
     final int lengthDays;
     final boolean trackMin;
@@ -113,7 +301,93 @@ final class RollingKernel implements FeatureKernel {
       this.maxDeque = new int[trackMax ? capacity : 0];
     }
 
-    void moveTo(SeriesContext series, int newLastDayIndex) {
+    /**
+     * {@link #moveTo} for each row of a chunk when no deque is kept, recording each row's totals; the running totals
+     * stay in locals for the whole chunk. A day that is not readable (u = -1) adds 0 to every total, without a branch.
+     *
+     * @param zeroCountsOut null when zero days are not counted
+     */
+    void slideTotals(int[] readable, int[] dayIndexes, int dayOffset, int rowCount, int endOffset,
+        double[] countsOut, double[] sumsOut, double[] sumSquaresOut, int[] zeroCountsOut) {
+      int first = firstDayIndex;
+      int last = lastDayIndex;
+      int c = count;
+      long s = sum;
+      long q = sumSquares;
+      int z = zeroCount;
+      boolean moved = started;
+      for (int i = 0; i < rowCount; i++) {
+        int newLast = dayIndexes[dayOffset + i] + endOffset;
+        int newFirst = newLast - lengthDays + 1;
+        if (newLast == last + 1 && moved) {
+          // the common step, one day on: one day leaves, one enters, with no loop to set up
+          int out = readable[first];
+          int in = readable[newLast];
+          int validOut = ~out >>> 31;
+          int validIn = ~in >>> 31;
+          int vOut = out & ~(out >> 31);
+          int vIn = in & ~(in >> 31);
+          c += validIn - validOut;
+          s += vIn - vOut;
+          q += (long) vIn * vIn - (long) vOut * vOut;
+          z += (validIn & ((vIn - 1) >>> 31)) - (validOut & ((vOut - 1) >>> 31));
+          first = newFirst;
+          last = newLast;
+          countsOut[i] = c;
+          sumsOut[i] = s;
+          sumSquaresOut[i] = q;
+          if (zeroCountsOut != null) {
+            zeroCountsOut[i] = z;
+          }
+          continue;
+        }
+        int addFrom = last + 1;
+        if (!moved || newFirst > last || newLast < last) {
+          c = 0;
+          s = 0;
+          q = 0;
+          z = 0;
+          addFrom = newFirst;
+          moved = true;
+        } else {
+          for (int d = first; d < newFirst; d++) {
+            int u = readable[d];
+            int valid = ~u >>> 31;
+            int v = u & ~(u >> 31);
+            c -= valid;
+            s -= v;
+            q -= (long) v * v;
+            z -= valid & ((v - 1) >>> 31);
+          }
+        }
+        for (int d = addFrom; d <= newLast; d++) {
+          int u = readable[d];
+          int valid = ~u >>> 31;
+          int v = u & ~(u >> 31);
+          c += valid;
+          s += v;
+          q += (long) v * v;
+          z += valid & ((v - 1) >>> 31);
+        }
+        first = newFirst;
+        last = newLast;
+        countsOut[i] = c;
+        sumsOut[i] = s;
+        sumSquaresOut[i] = q;
+        if (zeroCountsOut != null) {
+          zeroCountsOut[i] = z;
+        }
+      }
+      firstDayIndex = first;
+      lastDayIndex = last;
+      count = c;
+      sum = s;
+      sumSquares = q;
+      zeroCount = z;
+      started = moved;
+    }
+
+    void moveTo(int[] readable, int newLastDayIndex) {
       int newFirstDayIndex = newLastDayIndex - lengthDays + 1;
       if (!started || newFirstDayIndex > lastDayIndex || newLastDayIndex < lastDayIndex) {
         count = 0;
@@ -122,14 +396,14 @@ final class RollingKernel implements FeatureKernel {
         zeroCount = 0;
         minHead = minTail = maxHead = maxTail = 0;
         for (int d = newFirstDayIndex; d <= newLastDayIndex; d++) {
-          add(series, d);
+          add(readable, d);
         }
       } else {
         for (int d = firstDayIndex; d < newFirstDayIndex; d++) {
-          remove(series, d);
+          remove(readable, d);
         }
         for (int d = lastDayIndex + 1; d <= newLastDayIndex; d++) {
-          add(series, d);
+          add(readable, d);
         }
       }
       firstDayIndex = newFirstDayIndex;
@@ -137,74 +411,42 @@ final class RollingKernel implements FeatureKernel {
       started = true;
     }
 
-    private void add(SeriesContext series, int dayIndex) {
-      if (!series.isReadable(dayIndex)) {
-        return;
-      }
-      int[] units = series.units;
-      int u = units[dayIndex];
-      count++;
-      sum += u;
-      sumSquares += (long) u * u;
-      if (u == 0) {
-        zeroCount++;
-      }
-      if (trackMin) {
-        while (minTail > minHead && units[minDeque[(minTail - 1) & mask]] >= u) {
+    private void add(int[] readable, int dayIndex) {
+      int u = readable[dayIndex];
+      // without branches: a day that is not readable (u = -1) adds 0 to every running total
+      int valid = ~u >>> 31;
+      int v = u & ~(u >> 31);
+      count += valid;
+      sum += v;
+      sumSquares += (long) v * v;
+      zeroCount += valid & ((v - 1) >>> 31);
+      if (trackMin && valid != 0) {
+        while (minTail > minHead && readable[minDeque[(minTail - 1) & mask]] >= u) {
           minTail--;
         }
         minDeque[minTail++ & mask] = dayIndex;
       }
-      if (trackMax) {
-        while (maxTail > maxHead && units[maxDeque[(maxTail - 1) & mask]] <= u) {
+      if (trackMax && valid != 0) {
+        while (maxTail > maxHead && readable[maxDeque[(maxTail - 1) & mask]] <= u) {
           maxTail--;
         }
         maxDeque[maxTail++ & mask] = dayIndex;
       }
     }
 
-    private void remove(SeriesContext series, int dayIndex) {
-      if (!series.isReadable(dayIndex)) {
-        return;
-      }
-      int u = series.units[dayIndex];
-      count--;
-      sum -= u;
-      sumSquares -= (long) u * u;
-      if (u == 0) {
-        zeroCount--;
-      }
+    private void remove(int[] readable, int dayIndex) {
+      int u = readable[dayIndex];
+      int valid = ~u >>> 31;
+      int v = u & ~(u >> 31);
+      count -= valid;
+      sum -= v;
+      sumSquares -= (long) v * v;
+      zeroCount -= valid & ((v - 1) >>> 31);
       if (trackMin && minTail > minHead && minDeque[minHead & mask] == dayIndex) {
         minHead++;
       }
       if (trackMax && maxTail > maxHead && maxDeque[maxHead & mask] == dayIndex) {
         maxHead++;
-      }
-    }
-
-    float value(SeriesContext series, int statCode) {
-      if (count == 0) {
-        return Float.NaN;
-      }
-      switch (statCode) {
-        case MEAN:
-          return (float) ((double) sum / count);
-        case STD: {
-          if (count < 2) {
-            return Float.NaN;
-          }
-          double s = sum;
-          double variance = (sumSquares - s * s / count) / (count - 1);
-          return (float) Math.sqrt(Math.max(0.0, variance));
-        }
-        case MIN:
-          return series.units[minDeque[minHead & mask]];
-        case MAX:
-          return series.units[maxDeque[maxHead & mask]];
-        case ZERO_SHARE:
-          return (float) zeroCount / count;
-        default:
-          throw new AssertionError(statCode);
       }
     }
   }

@@ -64,46 +64,63 @@ final class SeriesKernel implements FeatureKernel {
   }
 
   @Override
-  public void compute(SeriesContext series, FeatureBatch batch, int batchRow, int[] dayIndexes, int dayOffset,
+  public void compute(SeriesContext series, float[] rows, int rowStride, int[] dayIndexes, int dayOffset,
       int rowCount, int firstFeatureIndex) {
     int attributeCount = attributeIndexes.length;
+    int out = firstFeatureIndex;
+    for (int a = 0; a < attributeCount; a++) {
+      float code = series.attributeCodes[attributeIndexes[a]];
+      for (int i = 0, o = out + a; i < rowCount; i++, o += rowStride) {
+        rows[o] = code;
+      }
+    }
+    out += attributeCount;
     int firstSale = series.firstSaleDayIndex;
-    for (int i = 0; i < rowCount; i++) {
-      int day = dayIndexes[dayOffset + i];
-      int row = batchRow + i;
-      for (int a = 0; a < attributeCount; a++) {
-        batch.set(row, firstFeatureIndex + a, series.attributeCodes[attributeIndexes[a]]);
+    if (daysSinceFirstSale) {
+      for (int i = 0, o = out; i < rowCount; i++, o += rowStride) {
+        int day = dayIndexes[dayOffset + i];
+        boolean seen = firstSale != SalesHistory.NO_SALE && firstSale <= day - shiftDays;
+        rows[o] = seen ? day - firstSale : Float.NaN;
       }
-      int column = firstFeatureIndex + attributeCount;
-      int readDay = day - shiftDays;
-      if (daysSinceFirstSale) {
-        boolean seen = firstSale != SalesHistory.NO_SALE && firstSale <= readDay;
-        batch.set(row, column++, seen ? day - firstSale : Float.NaN);
-      }
-      if (zeroRun) {
-        advanceZeroRun(series, readDay);
-        batch.set(row, column, series.isReadable(readDay) ? zeroRunDays : Float.NaN);
+      out++;
+    }
+    if (zeroRun) {
+      int[] readable = series.readableUnits;
+      // zero runs are followed in the padded day coordinates of readableUnits
+      int endOffset = series.lookbackDays - shiftDays;
+      for (int i = 0, o = out; i < rowCount; i++, o += rowStride) {
+        int readDay = dayIndexes[dayOffset + i] + endOffset;
+        if (zeroRunStarted && readDay == zeroRunEndDayIndex + 1) {
+          // the common step, one day on
+          zeroRunDays = readable[readDay] == 0 ? zeroRunDays + 1 : 0;
+          zeroRunEndDayIndex = readDay;
+        } else {
+          advanceZeroRun(readable, readDay);
+        }
+        rows[o] = readable[readDay] >= 0 ? zeroRunDays : Float.NaN;
       }
     }
   }
 
-  private void advanceZeroRun(SeriesContext series, int endDayIndex) {
+  /** The farthest day before a row's day this kernel reads. */
+  int lookbackDays() {
+    return zeroRun ? shiftDays : 0;
+  }
+
+  private void advanceZeroRun(int[] readable, int endDayIndex) {
     if (!zeroRunStarted || endDayIndex < zeroRunEndDayIndex) {
-      // first row of the series: count backwards once, then extend day by day
+      // first row of the series: count backwards once, then extend day by day; day −1 is never readable, so the
+      // backward count stops inside the padding
       zeroRunDays = 0;
-      for (int d = endDayIndex; isZero(series, d); d--) {
+      for (int d = endDayIndex; readable[d] == 0; d--) {
         zeroRunDays++;
       }
       zeroRunStarted = true;
     } else {
       for (int d = zeroRunEndDayIndex + 1; d <= endDayIndex; d++) {
-        zeroRunDays = isZero(series, d) ? zeroRunDays + 1 : 0;
+        zeroRunDays = readable[d] == 0 ? zeroRunDays + 1 : 0;
       }
     }
     zeroRunEndDayIndex = endDayIndex;
-  }
-
-  private static boolean isZero(SeriesContext series, int dayIndex) {
-    return series.isReadable(dayIndex) && series.units[dayIndex] == 0;
   }
 }
