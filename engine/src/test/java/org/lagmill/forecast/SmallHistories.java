@@ -102,12 +102,12 @@ public final class SmallHistories {
   }
 
   /** Lags, rolling windows, calendar, price and series features, all with shifts >= the horizon. */
-  static FeatureSpec spec(int horizonDays) {
+  public static FeatureSpec spec(int horizonDays) {
     return FeatureSpec.builder().horizonDays(horizonDays).lagDays(horizonDays, horizonDays + 7, 2 * horizonDays + 7)
         .rollingWindowDays(7, 14).build();
   }
 
-  static TrainingPlan plan(FeatureSpec spec, int rounds, int cutDayIndex, int validationDays, String partition) {
+  public static TrainingPlan plan(FeatureSpec spec, int rounds, int cutDayIndex, int validationDays, String partition) {
     TrainParameters train = TrainParameters.defaults().withRounds(rounds, 0).withLeafCount(15).withMinDataInLeaf(20)
         .withLearningRate(0.2).withThreadCount(1).withDeterministic(true);
     DatasetParameters dataset = DatasetParameters.defaults().withDeterministic(true).withThreadCount(1)
