@@ -96,8 +96,9 @@ public final class Trainer {
           loss = lightgbmlib.doubleArray_getitem(evals, 0);
           curve[iteration - 1] = loss;
           rmseCurve[iteration - 1] = lightgbmlib.doubleArray_getitem(evals, 1);
-          if (loss < bestLoss) {
-            bestLoss = loss;
+          if (loss < bestLoss || patience == Integer.MAX_VALUE) {
+            // with early stopping disabled every trained iteration is kept: the validation rows only report
+            bestLoss = Math.min(loss, bestLoss);
             bestIteration = iteration;
           }
         } else {
