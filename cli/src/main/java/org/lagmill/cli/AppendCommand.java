@@ -44,8 +44,14 @@ final class AppendCommand implements Callable<Integer> {
   public Integer call() throws Exception {
     AppendOptions options = AppendOptions.of(store, sales).withColumns(columns.names())
         .withCalendarFile(calendar).withPricesFile(prices);
+    RunRecord run = new RunRecord("append").configure("store", store.toString()).configure("sales", sales.toString());
     try (MemoryBudget budget = CliBudgets.root(null)) {
       IngestResult result = StoreAppend.append(options, budget);
+      StoreManifest appended = result.manifest();
+      run.endStage("append", budget.peakBytes(), (long) appended.seriesCount() * appended.dayCount());
+      run.result("seriesCount", appended.seriesCount()).result("dayCount", appended.dayCount())
+          .result("warnings", result.warnings());
+      run.write(store);
       if (!quiet) {
         IngestCommand.printWarnings(spec.commandLine().getErr(), result.warnings());
         StoreManifest manifest = result.manifest();

@@ -2,6 +2,7 @@ package org.lagmill.cli;
 
 import java.io.PrintStream;
 import java.util.Locale;
+import org.lagmill.memory.ProcessMemory;
 import org.lagmill.progress.ProgressListener;
 
 /**
@@ -99,6 +100,10 @@ final class ConsoleProgress implements ProgressListener {
           Double.isNaN(etaSeconds) ? "?" : formatDuration(etaSeconds)));
     } else {
       b.append(String.format(Locale.ROOT, "%,d %s, %,.0f/s", doneUnits, unitName, rate));
+    }
+    long resident = ProcessMemory.residentBytes();
+    if (resident != ProcessMemory.UNAVAILABLE) {
+      b.append(String.format(Locale.ROOT, ", RSS %,d MB", resident >> 20));
     }
     return b.toString();
   }

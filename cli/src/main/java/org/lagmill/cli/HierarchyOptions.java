@@ -13,7 +13,22 @@ final class HierarchyOptions {
       "store has those attributes, else total and single series)"})
   List<String> hierarchies;
 
+  @Option(names = "--level", paramLabel = "A,B,…", description = {"an explicit aggregation level, repeatable, replacing",
+      "the hierarchies' levels: attribute names joined by commas, or 'total' (e.g. --level total --level store",
+      "--level store,item)"})
+  List<String> levels;
+
   Hierarchy hierarchy(SeriesAttributes attributes) {
+    if (levels != null && !levels.isEmpty()) {
+      if (hierarchies != null && !hierarchies.isEmpty()) {
+        throw new IllegalArgumentException("give either --hierarchy or --level, not both");
+      }
+      List<List<String>> explicit = new ArrayList<>();
+      for (String level : levels) {
+        explicit.add(level.equals("total") ? List.of() : List.of(level.split(",")));
+      }
+      return Hierarchy.ofLevels(explicit);
+    }
     if (hierarchies != null && !hierarchies.isEmpty()) {
       return Hierarchy.parse(hierarchies);
     }

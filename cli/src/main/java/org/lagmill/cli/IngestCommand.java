@@ -61,8 +61,16 @@ final class IngestCommand implements Callable<Integer> {
         .withColumns(columns.names().withUnitsColumn(unitsColumn))
         .withSalesFormat(SalesFormat.parse(salesFormat))
         .withCalendarFile(calendar).withPricesFile(prices);
+    RunRecord run = new RunRecord("ingest").configure("sales", sales.toString())
+        .configure("calendar", calendar == null ? null : calendar.toString())
+        .configure("prices", prices == null ? null : prices.toString()).configure("store", store.toString());
     try (MemoryBudget budget = CliBudgets.root(memoryLimitBytes)) {
       IngestResult result = StoreIngest.ingest(options, budget);
+      StoreManifest ingested = result.manifest();
+      run.endStage("ingest", budget.peakBytes(), (long) ingested.seriesCount() * ingested.dayCount());
+      run.result("seriesCount", ingested.seriesCount()).result("dayCount", ingested.dayCount())
+          .result("storeBytes", ingested.binaryBytes()).result("warnings", result.warnings());
+      run.write(store);
       if (!quiet) {
         printWarnings(spec.commandLine().getErr(), result.warnings());
         StoreManifest manifest = result.manifest();
