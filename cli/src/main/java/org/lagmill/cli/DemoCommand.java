@@ -9,6 +9,7 @@ import java.util.concurrent.Callable;
 import org.lagmill.eval.BacktestResult;
 import org.lagmill.eval.Hierarchy;
 import org.lagmill.features.FeatureSpec;
+import org.lagmill.features.FeatureSpecYaml;
 import org.lagmill.forecast.ForecastFileWriter;
 import org.lagmill.forecast.ForecastTable;
 import org.lagmill.forecast.ModelDirectory;
@@ -107,6 +108,7 @@ final class DemoCommand implements Callable<Integer> {
       FeatureSpec spec = demoSpec();
       TrainingPlan plan = new TrainingPlan(spec, demoTrainParameters(), DatasetParameters.defaults(),
           store.dayCount() - 1, HORIZON_DAYS, null, false);
+      FeatureSpecYaml.write(spec, outDir.resolve("features.yaml"));
       run.configure("size", chosen.name()).configure("seriesCount", chosen.seriesCount)
           .configure("dayCount", chosen.dayCount).configure("seed", seed).configure("plan", plan.toString());
       Hierarchy hierarchy = Hierarchy.parse(List.of("region>store", "category>department>item"));
@@ -144,7 +146,8 @@ final class DemoCommand implements Callable<Integer> {
 
   static FeatureSpec demoSpec() {
     // Recursive with short lags: the demo chain's demand level wanders, and lags of a few days follow it where lags
-    // of four weeks cannot (docs/benchmarks.md compares both on the same origins).
+    // of four weeks cannot (docs/benchmarks.md compares both on the same origins). The same spec is
+    // docs/examples/recursive-short-lags.yaml, and each demo run writes it to features.yaml.
     return FeatureSpec.defaults().toBuilder().strategy(FeatureSpec.Strategy.RECURSIVE)
         .lagDays(1, 2, 3, 4, 5, 6, 7, 14, 21, 28, 35).rollingWindowDays(7, 28, 56).rollingShiftDays(1)
         .horizonDays(HORIZON_DAYS).build();

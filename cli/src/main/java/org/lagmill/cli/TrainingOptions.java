@@ -50,6 +50,14 @@ final class TrainingOptions {
       + "(default: ${DEFAULT-VALUE})")
   int leafCount;
 
+  @Option(names = "--feature-fraction", paramLabel = "SHARE", defaultValue = "0.8",
+      description = "share of features each tree may use (default: ${DEFAULT-VALUE})")
+  double featureFraction;
+
+  @Option(names = "--bagging-fraction", paramLabel = "SHARE", defaultValue = "0.8",
+      description = "share of rows each tree is grown on; 1 disables bagging (default: ${DEFAULT-VALUE})")
+  double baggingFraction;
+
   @Option(names = "--threads", paramLabel = "N", description = "threads (default: all processors)")
   Integer threadCount;
 
@@ -92,6 +100,7 @@ final class TrainingOptions {
     int threads = threadCount == null ? Runtime.getRuntime().availableProcessors() : threadCount;
     TrainParameters train = TrainParameters.defaults().withObjective(objective(objective))
         .withTweedieVariancePower(tweediePower).withLearningRate(learningRate).withLeafCount(leafCount)
+        .withFractions(featureFraction, baggingFraction)
         .withRounds(rounds, earlyStoppingRounds).withThreadCount(threads).withSeed(seed)
         .withDeterministic(deterministic);
     boolean salesValue = switch (weights.toLowerCase(Locale.ROOT)) {
