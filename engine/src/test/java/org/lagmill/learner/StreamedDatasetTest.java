@@ -2,6 +2,7 @@ package org.lagmill.learner;
 
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.nio.file.Files;
@@ -10,6 +11,7 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.memory.MemoryBudget;
+import org.lagmill.memory.NativeFloatArray;
 
 /** A Dataset pushed in batches from a RowStream must train the same model as the whole matrix handed over at once. */
 class StreamedDatasetTest {
@@ -95,6 +97,23 @@ class StreamedDatasetTest {
         assertEquals(Math.exp(raw[row]), response[row], 1e-12 * response[row], "row " + row);
         assertTrue(response[row] > 0, "row " + row);
       }
+    }
+  }
+
+  @Test
+  void shouldRejectAMatrixWithFewerLabelsThanRows() {
+    MatrixRowStream rows = MatrixRowStream.random(MASTER_SEED + 4, 10, 3, 1);
+    try (MemoryBudget budget = MemoryBudget.unlimited("test");
+        NativeFloatArray matrix = new NativeFloatArray(budget, 30);
+        NativeFloatArray labels = new NativeFloatArray(budget, 9)) {
+      DatasetBuilder builder = new DatasetBuilder(budget, DatasetParameters.defaults());
+      IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+          () -> builder.buildFromMatrix(matrix.address(), 10, rows.schema(), labels));
+      assertEquals("labels hold 9 values for 10 rows; give one label per row", e.getMessage());
+      e = assertThrows(IllegalArgumentException.class,
+          () -> builder.buildFromMatrix(matrix.address(), 0, rows.schema(), labels));
+      assertEquals("a Dataset needs between 1 and 2147483646 rows, got 0 (LightGBM counts rows in int32)",
+          e.getMessage());
     }
   }
 
