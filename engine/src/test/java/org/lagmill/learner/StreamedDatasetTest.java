@@ -117,6 +117,28 @@ class StreamedDatasetTest {
     }
   }
 
+  @Test
+  void shouldKeepTheSameTreesWhenTheTrainingStateIsDropped() throws Exception {
+    MatrixRowStream training = MatrixRowStream.random(MASTER_SEED + 5, 4_000, 5, 1);
+    try (MemoryBudget budget = MemoryBudget.unlimited("test");
+        TrainingDataset dataset = new DatasetBuilder(budget, DatasetParameters.defaults().withThreadCount(1))
+            .build(training);
+        TrainedModel model = new Trainer(TrainParameters.defaults().withRounds(15, 0).withMinDataInLeaf(20)
+            .withThreadCount(1)).train(dataset, TrainingListener.NONE)) {
+      // train() already swapped in a trees-only Booster; a second swap must change nothing either
+      double[] before = LearnerTestSupport.predict(model, budget, training, true);
+      Path first = folder.resolve("first.txt");
+      model.saveTo(first);
+      model.dropTrainingState();
+      double[] after = LearnerTestSupport.predict(model, budget, training, true);
+      Path second = folder.resolve("second.txt");
+      model.saveTo(second);
+      assertArrayEquals(before, after, 0.0, "master seed " + MASTER_SEED);
+      assertEquals(treesOf(first), treesOf(second), "master seed " + MASTER_SEED);
+      assertEquals(15, model.iterationCount());
+    }
+  }
+
   /** The model text from the first tree on: the parameter echo at the end may legitimately differ. */
   private static String treesOf(Path modelFile) throws Exception {
     List<String> lines = Files.readAllLines(modelFile);
