@@ -120,7 +120,12 @@ public final class FootprintHarness {
         matrixNote = String.format(Locale.ROOT, "does not fit (%.1f GB matrix × %.1f > %.0f GB)", matrixBytes / 1e9,
             MATRIX_OVERHEAD_FACTOR, matrixLimitBytes / 1e9);
       } else {
-        matrix = probe("matrix", storeArgs, size + "-matrix");
+        try {
+          matrix = probe("matrix", storeArgs, size + "-matrix");
+        } catch (IllegalStateException e) {
+          matrixNote = "failed (see logs/" + size + "-matrix.log)";
+          System.out.println(e.getMessage());
+        }
       }
       FootprintTable.PartitionResult partitionResult = partition ? measurePartitions(size, store, folder) : null;
       return new FootprintTable.SizeResult(seriesCount, dayCount, stream, floor, matrix, matrixNote, partitionResult);

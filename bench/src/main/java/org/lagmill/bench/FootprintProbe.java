@@ -158,14 +158,13 @@ public final class FootprintProbe {
       FeatureSchema schema = rows.schema();
       int featureCount = schema.featureCount();
       long valueCount = rows.rowCount() * featureCount;
-      if (valueCount > Integer.MAX_VALUE || rows.rowCount() >= Integer.MAX_VALUE) {
-        throw new IllegalArgumentException(rows.rowCount() + " rows x " + featureCount + " features exceed the "
-            + Integer.MAX_VALUE + " values one NativeFloatArray indexes; use fewer rows for the matrix route");
+      if (rows.rowCount() >= Integer.MAX_VALUE) {
+        throw new IllegalArgumentException(rows.rowCount() + " rows exceed LightGBM's int32 row count");
       }
       int rowCount = (int) rows.rowCount();
       long peakBefore = ProcessMemory.peakResidentBytes();
       MemoryBudget learner = budget.child("learner");
-      try (NativeFloatArray matrix = new NativeFloatArray(learner, valueCount);
+      try (OffHeapMatrix matrix = new OffHeapMatrix(valueCount);
           NativeFloatArray labels = new NativeFloatArray(learner, rowCount)) {
         long fillStart = System.nanoTime();
         try (FeatureBatch batch = new FeatureBatch(learner, Math.min(dataset.batchRowCount(), rowCount),
@@ -173,7 +172,7 @@ public final class FootprintProbe {
           rows.stream(batch, full -> {
             int firstRow = (int) full.firstRowIndex();
             for (int row = 0; row < full.rowCount(); row++) {
-              int base = (firstRow + row) * featureCount;
+              long base = (long) (firstRow + row) * featureCount;
               for (int feature = 0; feature < featureCount; feature++) {
                 matrix.set(base + feature, full.get(row, feature));
               }

@@ -129,4 +129,16 @@ class RowDumpTest {
       assertThrows(IllegalStateException.class, () -> timed.stream(batch, full -> { }));
     }
   }
+
+  @Test
+  void shouldHoldAMatrixAndRefuseUseAfterClose() {
+    OffHeapMatrix matrix = new OffHeapMatrix(5);
+    matrix.set(4, 2.5f);
+    matrix.set(0, Float.NaN);
+    assertEquals(2.5f, matrix.get(4));
+    assertTrue(Float.isNaN(matrix.get(0)));
+    matrix.close();
+    matrix.close();
+    assertThrows(IllegalStateException.class, () -> matrix.get(4));
+  }
 }
