@@ -4,6 +4,7 @@ import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
+import java.util.Map;
 import java.util.concurrent.TimeUnit;
 
 /**
@@ -20,8 +21,15 @@ final class MeasuredProcess {
   private MeasuredProcess() {}
 
   static Result run(List<String> command, Path logFile, long timeoutSeconds) throws IOException, InterruptedException {
+    return run(command, Map.of(), logFile, timeoutSeconds);
+  }
+
+  /** Runs {@code command} with {@code environment} added to this process's environment. */
+  static Result run(List<String> command, Map<String, String> environment, Path logFile, long timeoutSeconds)
+      throws IOException, InterruptedException {
     ProcessBuilder builder = new ProcessBuilder(command).redirectErrorStream(true)
         .redirectOutput(logFile.toFile());
+    builder.environment().putAll(environment);
     long start = System.nanoTime();
     Process process = builder.start();
     Path status = Path.of("/proc", Long.toString(process.pid()), "status");

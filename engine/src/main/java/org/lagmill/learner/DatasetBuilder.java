@@ -101,6 +101,48 @@ public final class DatasetBuilder {
     return new TrainingDataset(handle, schema, stats, true);
   }
 
+  /**
+   * Builds a training Dataset from a whole row-major float32 matrix already in native memory, through LightGBM's
+   * {@code LGBM_DatasetCreateFromMat}: the route that holds every feature value at once, kept to compare footprints
+   * and models against {@link #build}. LightGBM samples its own rows for the bin boundaries (same count and seed as
+   * {@link #build}, not the same rows). LightGBM copies what it needs: the caller may free both arrays on return.
+   *
+   * @param matrixAddress native address of {@code rowCount × schema.featureCount()} floats, row r and feature f at
+   *     {@code matrixAddress + 4 * (r * featureCount + f)}
+   * @param labels one finite label per row (at least {@code rowCount} of them)
+   * @throws IllegalArgumentException when {@code rowCount} is outside [1, 2^31 - 1) or labels are too few
+   */
+  public TrainingDataset buildFromMatrix(long matrixAddress, int rowCount, FeatureSchema schema,
+      NativeFloatArray labels) {
+    if (rowCount < 1 || rowCount >= ROW_LIMIT) {
+      throw new IllegalArgumentException("a Dataset needs between 1 and " + (ROW_LIMIT - 1) + " rows, got " + rowCount
+          + " (LightGBM counts rows in int32)");
+    }
+    if (labels.length() < rowCount) {
+      throw new IllegalArgumentException("labels hold " + labels.length() + " values for " + rowCount
+          + " rows; give one label per row");
+    }
+    int featureCount = schema.featureCount();
+    long residentBefore = ProcessMemory.residentBytes();
+    SWIGTYPE_p_p_void out = lightgbmlib.new_voidpp();
+    int returnCode = lightgbmlib.LGBM_DatasetCreateFromMat(Native.voidPointer(matrixAddress),
+        lightgbmlibConstants.C_API_DTYPE_FLOAT32, rowCount, featureCount, 1, parameterString(schema, rowCount), null,
+        out);
+    SWIGTYPE_p_void handle = Native.takeHandle(out);
+    Native.check(returnCode, "LGBM_DatasetCreateFromMat");
+    try {
+      Native.check(lightgbmlib.LGBM_DatasetSetField(handle, "label", Native.voidPointer(labels.address()), rowCount,
+          lightgbmlibConstants.C_API_DTYPE_FLOAT32), "LGBM_DatasetSetField(label)");
+    } catch (RuntimeException | Error e) {
+      lightgbmlib.LGBM_DatasetFree(handle);
+      throw e;
+    }
+    int sampledRowCount = Math.min(parameters.sampleRowCount(), rowCount);
+    DatasetStats stats = new DatasetStats(rowCount, featureCount, sampledRowCount, 0, residentBefore,
+        ProcessMemory.residentBytes());
+    return new TrainingDataset(handle, schema, stats, false);
+  }
+
   /** The Dataset parameter string a stream of {@code schema} with {@code rowCount} rows is built with. */
   String parameterString(FeatureSchema schema, int rowCount) {
     return parameters.toLightGbmString(schema, Math.min(parameters.sampleRowCount(), rowCount));

@@ -1,9 +1,5 @@
 package org.lagmill.learner;
 
-import com.microsoft.ml.lightgbm.SWIGTYPE_p_p_void;
-import com.microsoft.ml.lightgbm.SWIGTYPE_p_void;
-import com.microsoft.ml.lightgbm.lightgbmlib;
-import com.microsoft.ml.lightgbm.lightgbmlibConstants;
 import org.lagmill.features.FeatureBatch;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.memory.NativeFloatArray;
@@ -31,8 +27,7 @@ final class LearnerTestSupport {
   }
 
   /**
-   * The obvious route: the whole matrix in native memory, handed to LGBM_DatasetCreateFromMat with the parameter
-   * string the builder would use.
+   * The obvious route: the whole matrix in native memory, handed to {@link DatasetBuilder#buildFromMatrix}.
    */
   static TrainingDataset fromWholeMatrix(MemoryBudget budget, DatasetBuilder builder, MatrixRowStream rows) {
     int rowCount = (int) rows.rowCount();
@@ -45,16 +40,7 @@ final class LearnerTestSupport {
         }
         labels.set(r, rows.labels()[r]);
       }
-      SWIGTYPE_p_p_void out = lightgbmlib.new_voidpp();
-      int returnCode = lightgbmlib.LGBM_DatasetCreateFromMat(Native.voidPointer(matrix.address()),
-          lightgbmlibConstants.C_API_DTYPE_FLOAT32, rowCount, featureCount, 1,
-          builder.parameterString(rows.schema(), rowCount), null, out);
-      SWIGTYPE_p_void handle = Native.takeHandle(out);
-      Native.check(returnCode, "LGBM_DatasetCreateFromMat");
-      Native.check(lightgbmlib.LGBM_DatasetSetField(handle, "label", Native.voidPointer(labels.address()), rowCount,
-          lightgbmlibConstants.C_API_DTYPE_FLOAT32), "LGBM_DatasetSetField");
-      return new TrainingDataset(handle, rows.schema(),
-          new DatasetStats(rowCount, featureCount, rowCount, 0, -1, -1), false);
+      return builder.buildFromMatrix(matrix.address(), rowCount, rows.schema(), labels);
     }
   }
 }

@@ -2,6 +2,7 @@ package org.lagmill.learner;
 
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.nio.file.Files;
@@ -10,6 +11,7 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.memory.MemoryBudget;
+import org.lagmill.memory.NativeFloatArray;
 
 /** A Dataset pushed in batches from a RowStream must train the same model as the whole matrix handed over at once. */
 class StreamedDatasetTest {
@@ -95,6 +97,45 @@ class StreamedDatasetTest {
         assertEquals(Math.exp(raw[row]), response[row], 1e-12 * response[row], "row " + row);
         assertTrue(response[row] > 0, "row " + row);
       }
+    }
+  }
+
+  @Test
+  void shouldRejectAMatrixWithFewerLabelsThanRows() {
+    MatrixRowStream rows = MatrixRowStream.random(MASTER_SEED + 4, 10, 3, 1);
+    try (MemoryBudget budget = MemoryBudget.unlimited("test");
+        NativeFloatArray matrix = new NativeFloatArray(budget, 30);
+        NativeFloatArray labels = new NativeFloatArray(budget, 9)) {
+      DatasetBuilder builder = new DatasetBuilder(budget, DatasetParameters.defaults());
+      IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+          () -> builder.buildFromMatrix(matrix.address(), 10, rows.schema(), labels));
+      assertEquals("labels hold 9 values for 10 rows; give one label per row", e.getMessage());
+      e = assertThrows(IllegalArgumentException.class,
+          () -> builder.buildFromMatrix(matrix.address(), 0, rows.schema(), labels));
+      assertEquals("a Dataset needs between 1 and 2147483646 rows, got 0 (LightGBM counts rows in int32)",
+          e.getMessage());
+    }
+  }
+
+  @Test
+  void shouldKeepTheSameTreesWhenTheTrainingStateIsDropped() throws Exception {
+    MatrixRowStream training = MatrixRowStream.random(MASTER_SEED + 5, 4_000, 5, 1);
+    try (MemoryBudget budget = MemoryBudget.unlimited("test");
+        TrainingDataset dataset = new DatasetBuilder(budget, DatasetParameters.defaults().withThreadCount(1))
+            .build(training);
+        TrainedModel model = new Trainer(TrainParameters.defaults().withRounds(15, 0).withMinDataInLeaf(20)
+            .withThreadCount(1)).train(dataset, TrainingListener.NONE)) {
+      // train() already swapped in a trees-only Booster; a second swap must change nothing either
+      double[] before = LearnerTestSupport.predict(model, budget, training, true);
+      Path first = folder.resolve("first.txt");
+      model.saveTo(first);
+      model.dropTrainingState();
+      double[] after = LearnerTestSupport.predict(model, budget, training, true);
+      Path second = folder.resolve("second.txt");
+      model.saveTo(second);
+      assertArrayEquals(before, after, 0.0, "master seed " + MASTER_SEED);
+      assertEquals(treesOf(first), treesOf(second), "master seed " + MASTER_SEED);
+      assertEquals(15, model.iterationCount());
     }
   }
 
