@@ -109,6 +109,11 @@ final class ForecastCommand implements Callable<Integer> {
           outText.println("report written to " + html);
         }
       }
+      if (reportDir == null) {
+        // Without a report folder the record goes beside the forecast file, so every run leaves one.
+        Path parent = out.toAbsolutePath().getParent();
+        run.write(parent, out.getFileName() + ".run.json");
+      }
       if (!quiet) {
         outText.printf("forecast %,d series x %d days (%s .. %s) written to %s%n", point.length, horizon,
             opened.dateOf(opened.dayCount()), opened.dateOf(opened.dayCount() + horizon - 1), out);

@@ -86,12 +86,17 @@ final class RunRecord {
 
   /** Writes {@code dir/run.json} through a temporary file. */
   void write(Path dir) throws IOException {
+    write(dir, FILE_NAME);
+  }
+
+  /** Writes {@code dir/fileName} through a temporary file. */
+  void write(Path dir, String fileName) throws IOException {
     Files.createDirectories(dir);
     // Not Files.createTempFile: its owner-only permissions would carry over to run.json.
-    Path temp = dir.resolve("." + FILE_NAME + ".tmp-" + System.nanoTime());
+    Path temp = dir.resolve("." + fileName + ".tmp-" + System.nanoTime());
     try {
       JSON.writeValue(temp.toFile(), toMap());
-      Files.move(temp, dir.resolve(FILE_NAME), StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
+      Files.move(temp, dir.resolve(fileName), StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
     } finally {
       Files.deleteIfExists(temp);
     }
