@@ -50,7 +50,7 @@ class CalendarPricesWiringTest {
         .withCalendarFile(write("calendar.csv", CALENDAR)).withPricesFile(write("prices.csv", PRICES)), budget);
   }
 
-  /** The docs/formats.md prices example: 2.10 on 03-01 .. 03-03 and 2.50 from 03-04; tea_tin no price until 03-03. */
+  /** The docs/formats/prices.md example: 2.10 on 03-01 .. 03-03 and 2.50 from 03-04; tea_tin no price until 03-03. */
   @Test
   void shouldIngestCalendarAndPricesAndReportTheirWarnings() throws Exception {
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
