@@ -62,6 +62,10 @@ final class ForecastCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
+    if (wide && intervals) {
+      throw new IllegalArgumentException("--wide holds one point forecast per date and no quantiles; drop --wide to "
+          + "get the quantile columns, or drop --intervals");
+    }
     RunRecord run = new RunRecord("forecast");
     PrintWriter outText = commandSpec.commandLine().getOut();
     try (MemoryBudget budget = CliBudgets.root(null);

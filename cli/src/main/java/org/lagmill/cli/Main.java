@@ -65,7 +65,7 @@ public final class Main {
 
   private static String message(Throwable t) {
     if (t instanceof NoSuchFileException n) {
-      return "no such file: " + n.getFile();
+      return "no such file: " + n.getFile() + (n.getReason() == null ? "" : " (" + n.getReason() + ")");
     }
     if (t instanceof InputFormatException || t instanceof CorruptStoreException
         || t instanceof MemoryBudgetExceededException || t instanceof IllegalArgumentException

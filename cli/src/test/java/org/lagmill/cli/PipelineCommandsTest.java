@@ -97,7 +97,8 @@ class PipelineCommandsTest {
     String[] noModel = run("forecast", "--store", storeA.toString(), "--model", missing.toString(), "--out",
         dir.resolve("g.csv").toString(), "--quiet");
     assertEquals("6", noModel[2], noModel[1]);
-    assertEquals("lagmill: no such file: " + missing.resolve("manifest.json"), noModel[1].strip());
+    assertEquals("lagmill: no such file: " + missing.resolve("manifest.json") + " (not a model directory: no "
+        + "manifest.json)", noModel[1].strip());
   }
 
   @Test

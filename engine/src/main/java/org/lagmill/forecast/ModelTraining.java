@@ -37,8 +37,8 @@ public final class ModelTraining {
     List<ModelSet.Partition> partitions = new ArrayList<>();
     try {
       for (Map.Entry<String, int[]> entry : partitionSeries.entrySet()) {
-        partitions.add(trainPartition(history, plan, entry.getKey(), entry.getValue(), weights, dispersion, budget,
-            progress));
+        partitions.add(trainPartition(history, plan, entry.getKey(), partitions.size(), entry.getValue(), weights,
+            dispersion, budget, progress));
       }
     } catch (RuntimeException | Error e) {
       partitions.forEach(p -> p.model().close());
@@ -61,7 +61,7 @@ public final class ModelTraining {
   }
 
   private static ModelSet.Partition trainPartition(SalesHistory history, TrainingPlan plan, String value,
-      int[] seriesIndexes, float[] weights, DispersionEstimator dispersion, MemoryBudget budget,
+      int partitionPosition, int[] seriesIndexes, float[] weights, DispersionEstimator dispersion, MemoryBudget budget,
       ProgressListener progress) {
     FeaturePass trainingRows = FeaturePass.training(history, plan.spec(), seriesIndexes, 0,
         plan.trainingLastDayIndex());
@@ -105,7 +105,8 @@ public final class ModelTraining {
       }
       try {
         double pooled = estimateDispersion(validationRows, model, dispersion, budget, plan);
-        PartitionReport report = new PartitionReport(value, modelFileName(value), seriesIndexes.length,
+        PartitionReport report = new PartitionReport(value, modelFileName(value, partitionPosition),
+            seriesIndexes.length,
             training.rowCount(), validationRowCount, training.featureCount(), model.bestIteration(),
             model.iterationCount(), model.validationCurve(), plan.trainParameters().objective().metricName(),
             importance(trainingRows.schema(), model), datasetSeconds, trainSeconds,
@@ -152,9 +153,13 @@ public final class ModelTraining {
     return rows;
   }
 
-  static String modelFileName(String partitionValue) {
+  /**
+   * File name of a partition's model. The partition's position keeps names unique when two values differ only in
+   * characters a file name cannot hold ("a b" and "a_b").
+   */
+  static String modelFileName(String partitionValue, int partitionPosition) {
     return "all".equals(partitionValue) ? "model.txt"
-        : "model-" + partitionValue.replaceAll("[^A-Za-z0-9._-]", "_") + ".txt";
+        : "model-" + partitionPosition + "-" + partitionValue.replaceAll("[^A-Za-z0-9._-]", "_") + ".txt";
   }
 
   /** Series indexes per partition value, in order of first appearance; one partition "all" without an attribute. */

@@ -151,9 +151,10 @@ public final class LongSalesReader {
       throw new InputFormatException(file, line, layout.unitsIndex + 1,
           unitsColumn + " '" + text + "': expected a non-negative integer or an empty cell");
     }
-    if (units > Integer.MAX_VALUE) {
+    // The store keeps the all-ones value of each width for unknown days, so the largest storable count is one less.
+    if (units > Integer.MAX_VALUE - 1) {
       throw new InputFormatException(file, line, layout.unitsIndex + 1,
-          unitsColumn + " '" + text + "': expected an integer at most " + Integer.MAX_VALUE);
+          unitsColumn + " '" + text + "': expected an integer at most " + (Integer.MAX_VALUE - 1));
     }
   }
 

@@ -76,7 +76,7 @@ public record AccuracySummary(
   /**
    * WRMSSE of one rolling-origin backtest split.
    *
-   * @param originDate the last day of history the forecast could see
+   * @param originDate the first forecast day; the forecast saw history up to the day before it
    * @param modelWrmsse the model's WRMSSE over the following horizon
    * @param baselineWrmsse each baseline's WRMSSE over the same days, by baseline name
    */

@@ -38,7 +38,7 @@ class ModelDirectoryTest {
     try (MemoryBudget budget = MemoryBudget.unlimited("test");
         ModelSet trained = ModelTraining.train(history, plan, budget, ProgressListener.SILENT)) {
       ModelManifest manifest = ModelDirectory.save(trained, modelDir, history, plan, "fp-1");
-      assertEquals(List.of("dispersion.csv", "manifest.json", "model-st0.txt", "model-st1.txt", "model-st2.txt"),
+      assertEquals(List.of("dispersion.csv", "manifest.json", "model-0-st0.txt", "model-1-st1.txt", "model-2-st2.txt"),
           fileNames(modelDir));
       assertEquals(List.of("st0", "st1", "st2"), manifest.partitions().stream().map(PartitionReport::partitionValue)
           .toList());
