@@ -293,10 +293,18 @@ public final class LineChart {
   private void drawLegend(SvgWriter svg) {
     double lx = frame.plotLeft();
     double ly = 16;
+    // Legend entries run left to right from the plot's left edge; an entry that would cross the chart's right edge
+    // starts a new row, so no label is cut off however many baselines are drawn.
+    double rightEdge = frame.widthPx() - 4;
     for (Line l : lines) {
+      double entryWidth = 28 + SvgWriter.textWidthPx(l.label, 12);
+      if (lx + entryWidth > rightEdge && lx > frame.plotLeft()) {
+        lx = frame.plotLeft();
+        ly += 16;
+      }
       svg.line(lx, ly - 4, lx + 22, ly - 4, "legend-swatch", l.colour, 2.5, l.dashArray);
       svg.text(lx + 28, ly, l.label, "start", "legend-label", SvgCharts.TEXT_COLOUR, 12, 0);
-      lx += 28 + SvgWriter.textWidthPx(l.label, 12) + 18;
+      lx += entryWidth + 18;
     }
     for (Band b : bands) {
       svg.polygon(new double[] {lx, lx + 22, lx + 22, lx}, new double[] {ly - 10, ly - 10, ly + 2, ly + 2}, 4,

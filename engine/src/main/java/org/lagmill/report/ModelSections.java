@@ -219,7 +219,10 @@ final class ModelSections {
           Html.absent("No error by horizon day was recorded for this report."));
     }
     int dayCount = h.model().length;
-    LineChart chart = SvgCharts.lineChart(ChartFrame.WIDE, dayCount)
+    // Seven legend entries (six baselines and the model) take two rows, so the plot starts lower than usual.
+    ChartFrame frame = new ChartFrame(ChartFrame.WIDE.widthPx(), ChartFrame.WIDE.heightPx() + 16,
+        ChartFrame.WIDE.leftPx(), ChartFrame.WIDE.rightPx(), ChartFrame.WIDE.topPx() + 16, ChartFrame.WIDE.bottomPx());
+    LineChart chart = SvgCharts.lineChart(frame, dayCount)
         .title(h.metricName() + " by horizon day, model and baselines").xLabels(i -> Integer.toString(i + 1))
         .yTitle(h.metricName()).includeZero(true);
     if (dayCount >= 14) {

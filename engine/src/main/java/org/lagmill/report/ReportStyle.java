@@ -32,6 +32,10 @@ final class ReportStyle {
       caption { caption-side: top; text-align: left; font-weight: bold; padding-bottom: 4px; white-space: nowrap; }
       th, td { padding: 4px 12px 4px 0; border-bottom: 1px solid #dddddd; text-align: left; vertical-align: top; }
       thead th { border-bottom: 2px solid #1a1a1a; }
+      table.levels, table.origins { font-size: 12.5px; }
+      table.levels th, table.levels td, table.origins th, table.origins td { padding-right: 8px; }
+      table.levels thead th.num, table.origins thead th.num { max-width: 6.5em; white-space: normal; }
+      table.levels tbody th { min-width: 11em; }
       tbody th { font-weight: normal; }
       tfoot th, tfoot td { border-top: 1px solid #1a1a1a; }
       tfoot tr:first-child th, tfoot tr:first-child td { border-top: 2px solid #1a1a1a; }
