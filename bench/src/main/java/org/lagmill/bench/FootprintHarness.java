@@ -19,7 +19,7 @@ import org.lagmill.store.StoreDirectories;
  *
  * <p>Usage: {@code FootprintHarness [--sizes 1000x1000,10000x1000,20000x2500] [--rounds 10] [--threads 2]
  * [--xmx 1g] [--partition-size 10000x1000] [--matrix-limit-bytes 18000000000] [--work DIR] [--cli-jar PATH]
- * [--bench-jar PATH] [--out FILE]}. Sales only are ingested (calendar and prices are not read by this build's ingest).
+ * [--bench-jar PATH] [--out FILE]}. Sales, calendar and prices are ingested, as {@code lagmill generate} writes them.
  * Generated data is deleted after each size.
  */
 public final class FootprintHarness {
@@ -105,8 +105,9 @@ public final class FootprintHarness {
       Path dump = folder.resolve("dump");
       lagmill(size + "-generate", "generate", "--out", generated.toString(), "--series",
           Integer.toString(seriesCount), "--days", Integer.toString(dayCount));
-      lagmill(size + "-ingest", "ingest", "--sales", generated.resolve("sales.csv").toString(), "--store",
-          store.toString());
+      lagmill(size + "-ingest", "ingest", "--sales", generated.resolve("sales.csv").toString(), "--calendar",
+          generated.resolve("calendar.csv").toString(), "--prices", generated.resolve("prices.csv").toString(),
+          "--store", store.toString());
       StoreDirectories.deleteRecursively(generated);
       List<String> storeArgs = List.of("--store", store.toString(), "--dump", dump.toString());
       ProbeResult dumped = probe("dump", storeArgs, size + "-dump");

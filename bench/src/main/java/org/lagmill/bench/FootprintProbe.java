@@ -31,8 +31,10 @@ import org.lagmill.store.SalesStore;
  * <ul>
  *   <li>{@code baseline}: loads LightGBM's native library and nothing else (the JVM baseline);
  *   <li>{@code dump}: writes the training rows to {@code --dump} (for {@code floor});
- *   <li>{@code stream}: store → feature pass → DatasetBuilder.build (sample pass, then pushed batches) → Trainer;
- *   <li>{@code floor}: the dumped rows read back in 64k-row chunks and pushed the same way; no store, no feature pass;
+ *   <li>{@code stream}: store → feature pass → DatasetBuilder.build (sampling pass over the feature pass's sample
+ *       source, then every row pushed in batches) → Trainer;
+ *   <li>{@code floor}: the dumped rows read back in 64k-row chunks and pushed the same way (the file cannot subset
+ *       itself by series, so its sample is drawn from every row); no store, no feature pass;
  *   <li>{@code matrix}: the whole float32 matrix in native memory → LGBM_DatasetCreateFromMat → Trainer, nothing
  *       freed until trained.
  * </ul>
@@ -95,7 +97,8 @@ public final class FootprintProbe {
   private static ProbeResult baseline() {
     NativeLibrary.load();
     long peak = ProcessMemory.peakResidentBytes();
-    return new ProbeResult("baseline", 0, 0, peak, peak, peak, ProcessMemory.residentBytes(), 0, 0, 0, 0, 0, 0);
+    return new ProbeResult("baseline", 0, 0, peak, peak, peak, ProcessMemory.residentBytes(), 0, 0, 0, 0, 0, 0, 0,
+        0);
   }
 
   private static ProbeResult dump(Path storeDir, Path dumpDir, MemoryBudget budget, DatasetParameters dataset)
@@ -107,7 +110,7 @@ public final class FootprintProbe {
       double seconds = (System.nanoTime() - start) / 1e9;
       long peak = ProcessMemory.peakResidentBytes();
       return new ProbeResult("dump", header.rowCount(), header.names().size(), peak, peak, peak,
-          ProcessMemory.residentBytes(), seconds, 0, 0, 0, 1, store.offHeapBytes());
+          ProcessMemory.residentBytes(), seconds, 0, 0, 0, 1, store.offHeapBytes(), 0, 0);
     }
   }
 
@@ -141,11 +144,13 @@ public final class FootprintProbe {
         double trainSeconds = (System.nanoTime() - trainStart) / 1e9;
         double sourceSeconds = rows.producerSeconds();
         double sampleSeconds = rows.consumerSeconds(0);
-        System.err.printf(Locale.ROOT, "%s: %d rounds trained, passes %.2f s and %.2f s%n", mode,
-            model.iterationCount(), rows.passSeconds(0), rows.passSeconds(1));
+        System.err.printf(Locale.ROOT, "%s: %d rounds trained, passes %.2f s (%d rows) and %.2f s (%d rows)%n", mode,
+            model.iterationCount(), rows.passSeconds(0), rows.passRowCount(0), rows.passSeconds(1),
+            rows.passRowCount(1));
         return new ProbeResult(mode, built.rowCount(), built.featureCount(), peakBefore, peakAfterDataset,
             ProcessMemory.peakResidentBytes(), residentAfterDataset, sourceSeconds, sampleSeconds,
-            buildSeconds - sourceSeconds - sampleSeconds, trainSeconds, rows.passCount(), storeOffHeapBytes);
+            buildSeconds - sourceSeconds - sampleSeconds, trainSeconds, rows.passCount(), storeOffHeapBytes,
+            rows.passRowCount(0), rows.producerSeconds(0));
       }
     }
   }
@@ -192,7 +197,7 @@ public final class FootprintProbe {
             double trainSeconds = (System.nanoTime() - trainStart) / 1e9;
             return new ProbeResult("matrix", rowCount, featureCount, peakBefore, peakAfterDataset,
                 ProcessMemory.peakResidentBytes(), residentAfterDataset, fillSeconds, 0, datasetSeconds,
-                trainSeconds, 1, store.offHeapBytes());
+                trainSeconds, 1, store.offHeapBytes(), 0, 0);
           }
         }
       }

@@ -48,18 +48,21 @@ final class FootprintTable {
           mib((long) dataframeBytes), dataframeBytes / peak(stream)));
     }
     out.append('\n');
-    out.append("| item-days | rows | feature pass s (per pass) | feature pass rows/s | our sample s "
-        + "| LightGBM Dataset s (stream) | push+binning rows/s | feature pass (one pass) / LightGBM Dataset "
-        + "| LightGBM Dataset s (floor) | train s (stream / floor / matrix) | matrix fill s | CreateFromMat s |\n");
-    out.append("|---|---|---|---|---|---|---|---|---|---|---|---|\n");
+    out.append("| item-days | rows | sampling pass rows | feature pass s (sampling pass / push pass) "
+        + "| feature pass rows/s (push pass) | our sample s | LightGBM Dataset s (stream) | push+binning rows/s "
+        + "| feature pass (both passes) / LightGBM Dataset | LightGBM Dataset s (floor) "
+        + "| train s (stream / floor / matrix) | matrix fill s | CreateFromMat s |\n");
+    out.append("|---|---|---|---|---|---|---|---|---|---|---|---|---|\n");
     for (SizeResult size : sizes) {
       ProbeResult stream = size.stream();
-      double perPass = stream.sourceSeconds() / Math.max(1, stream.sourcePassCount());
+      double samplePass = stream.samplePassSourceSeconds();
+      double pushPass = stream.sourceSeconds() - samplePass;
       ProbeResult matrix = size.matrix();
-      out.append(String.format(Locale.ROOT, "| %s | %,d | %.1f | %,.0f | %.1f | %.1f | %,.0f | %.2f | %.1f | %.1f / %.1f / %s "
-              + "| %s | %s |%n", millions(size.itemDays()), stream.rowCount(), perPass, stream.rowCount() / perPass,
-          stream.sampleSeconds(), stream.datasetSeconds(), stream.rowCount() / stream.datasetSeconds(),
-          perPass / stream.datasetSeconds(), size.floor().datasetSeconds(), stream.trainSeconds(),
+      out.append(String.format(Locale.ROOT, "| %s | %,d | %,d | %.1f / %.1f | %,.0f | %.1f | %.1f | %,.0f | %.2f "
+              + "| %.1f | %.1f / %.1f / %s | %s | %s |%n", millions(size.itemDays()), stream.rowCount(),
+          stream.samplePassRowCount(), samplePass, pushPass, stream.rowCount() / pushPass, stream.sampleSeconds(),
+          stream.datasetSeconds(), stream.rowCount() / stream.datasetSeconds(),
+          stream.sourceSeconds() / stream.datasetSeconds(), size.floor().datasetSeconds(), stream.trainSeconds(),
           size.floor().trainSeconds(), matrix == null ? "–" : String.format(Locale.ROOT, "%.1f", matrix.trainSeconds()),
           matrix == null ? "–" : String.format(Locale.ROOT, "%.1f", matrix.sourceSeconds()),
           matrix == null ? "–" : String.format(Locale.ROOT, "%.1f", matrix.datasetSeconds())));

@@ -23,10 +23,13 @@ import java.util.Optional;
  * @param trainSeconds boosting all rounds
  * @param sourcePassCount how many times the rows were produced (2 for the streamed route: sample, then push)
  * @param storeOffHeapBytes bytes the store maps (0 when the probe holds no store)
+ * @param samplePassRowCount rows produced by the sampling pass (the build's sample source; 0 without one)
+ * @param samplePassSourceSeconds producing those rows, part of {@code sourceSeconds}
  */
 record ProbeResult(String mode, long rowCount, int featureCount, long peakBeforeDatasetBytes,
     long peakAfterDatasetBytes, long peakAfterTrainingBytes, long residentAfterDatasetBytes, double sourceSeconds,
-    double sampleSeconds, double datasetSeconds, double trainSeconds, int sourcePassCount, long storeOffHeapBytes) {
+    double sampleSeconds, double datasetSeconds, double trainSeconds, int sourcePassCount, long storeOffHeapBytes,
+    long samplePassRowCount, double samplePassSourceSeconds) {
 
   static final String LINE_PREFIX = "FOOTPRINT ";
 

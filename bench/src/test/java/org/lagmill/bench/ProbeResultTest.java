@@ -9,7 +9,7 @@ import org.junit.jupiter.api.Test;
 
 class ProbeResultTest {
   private static final ProbeResult STREAM = new ProbeResult("stream", 8_812_345, 23, 150L << 20, 700L << 20,
-      1_200L << 20, 690L << 20, 7.25, 0.5, 30.125, 12.0, 2, 10_500_000);
+      1_200L << 20, 690L << 20, 7.25, 0.5, 30.125, 12.0, 2, 10_500_000, 400_000, 0.375);
 
   @Test
   void shouldReadBackTheLineItPrints() {
@@ -19,7 +19,7 @@ class ProbeResultTest {
 
   @Test
   void shouldTakeTheLastResultLine() {
-    ProbeResult later = new ProbeResult("floor", 1, 1, 1, 2, 3, 4, 0.1, 0.2, 0.3, 0.4, 2, 0);
+    ProbeResult later = new ProbeResult("floor", 1, 1, 1, 2, 3, 4, 0.1, 0.2, 0.3, 0.4, 2, 0, 1, 0.05);
     assertEquals(later, ProbeResult.findIn(List.of(STREAM.toLine(), later.toLine())).orElseThrow());
   }
 
@@ -40,10 +40,11 @@ class ProbeResultTest {
 
   @Test
   void shouldWriteFieldsByNameWithAPrefix() {
-    String line = new ProbeResult("baseline", 0, 0, 5, 6, 7, 8, 0, 0, 0, 0, 0, 0).toLine();
+    String line = new ProbeResult("baseline", 0, 0, 5, 6, 7, 8, 0, 0, 0, 0, 0, 0, 0, 0).toLine();
     assertEquals("FOOTPRINT {\"mode\":\"baseline\",\"rowCount\":0,\"featureCount\":0,\"peakBeforeDatasetBytes\":5,"
         + "\"peakAfterDatasetBytes\":6,\"peakAfterTrainingBytes\":7,\"residentAfterDatasetBytes\":8,"
         + "\"sourceSeconds\":0.0,\"sampleSeconds\":0.0,\"datasetSeconds\":0.0,\"trainSeconds\":0.0,"
-        + "\"sourcePassCount\":0,\"storeOffHeapBytes\":0}", line);
+        + "\"sourcePassCount\":0,\"storeOffHeapBytes\":0,\"samplePassRowCount\":0,\"samplePassSourceSeconds\":0.0}",
+        line);
   }
 }

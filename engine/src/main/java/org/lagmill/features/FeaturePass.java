@@ -3,7 +3,9 @@ package org.lagmill.features;
 import java.time.LocalDate;
 import java.time.temporal.ChronoUnit;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
+import java.util.SplittableRandom;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SeriesAttributes;
 
@@ -51,6 +53,8 @@ public final class FeaturePass implements RowStream {
   private final float[] rowLabels;
   /** Row-major heap staging of up to {@link #STRIP_ROWS} rows, copied into the batch in bulk. */
   private final float[] strip;
+  /** Rows of each listed series, by position in {@link #seriesIndexes}: what {@link #sampleSource} chooses by. */
+  private final int[] rowCountBySeries;
   private final long rowCount;
   private final long tableHeapBytes;
 
@@ -111,9 +115,41 @@ public final class FeaturePass implements RowStream {
     this.strip = new float[STRIP_ROWS * names.size()];
     tables += rolling.allocate(context.readableUnits.length);
     this.tableHeapBytes = tables;
+    this.rowCountBySeries = new int[seriesIndexes.length];
     long rows = 0;
-    for (int s : seriesIndexes) {
-      rows += selectRows(s);
+    for (int i = 0; i < seriesIndexes.length; i++) {
+      rowCountBySeries[i] = selectRows(seriesIndexes[i]);
+      rows += rowCountBySeries[i];
+    }
+    this.rowCount = rows;
+  }
+
+  /**
+   * The same pass over a subset of its series: shares the kernels, their tables (calendar, group mean prices) and
+   * the scratch buffers with {@code full}, so it costs no setup and its rows are exactly {@code full}'s rows of those
+   * series. Only one of the two may stream at a time.
+   */
+  private FeaturePass(FeaturePass full, int[] seriesIndexes, int[] rowCountBySeries) {
+    this.history = full.history;
+    this.spec = full.spec;
+    this.training = full.training;
+    this.seriesIndexes = seriesIndexes;
+    this.firstDayIndex = full.firstDayIndex;
+    this.lastDayIndex = full.lastDayIndex;
+    this.weightBySeries = full.weightBySeries;
+    this.kernels = full.kernels;
+    this.firstFeatureIndexes = full.firstFeatureIndexes;
+    this.schema = full.schema;
+    this.withPrices = full.withPrices;
+    this.context = full.context;
+    this.rowDays = full.rowDays;
+    this.rowLabels = full.rowLabels;
+    this.strip = full.strip;
+    this.tableHeapBytes = full.tableHeapBytes;
+    this.rowCountBySeries = rowCountBySeries;
+    long rows = 0;
+    for (int seriesRows : rowCountBySeries) {
+      rows += seriesRows;
     }
     this.rowCount = rows;
   }
@@ -289,6 +325,61 @@ public final class FeaturePass implements RowStream {
     return rows;
   }
 
+  /**
+   * A two-stage sample source: whole series drawn in a seeded random order until their rows reach
+   * {@code minimumRowCount}, then streamed in this pass's series order (so the store is read front to back). Series
+   * without rows are never drawn. Returns this pass when it holds at most {@code 2 × minimumRowCount} rows, where a
+   * subset would save little and the bin sample should stay uniform over all rows.
+   *
+   * <p>The subset shares this pass's kernels and buffers (no setup cost, rows identical to this pass's rows of those
+   * series); stream one of the two at a time.
+   *
+   * @param minimumRowCount at least 1
+   * @throws IllegalArgumentException when {@code minimumRowCount < 1}
+   */
+  @Override
+  public RowStream sampleSource(long minimumRowCount, long seed) {
+    if (minimumRowCount < 1) {
+      throw new IllegalArgumentException("minimumRowCount " + minimumRowCount + " is out of range: need at least 1"
+          + " (ask for a few times the sample size)");
+    }
+    if (rowCount <= 2 * minimumRowCount) {
+      return this;
+    }
+    int[] positions = new int[seriesIndexes.length];
+    int candidateCount = 0;
+    for (int i = 0; i < seriesIndexes.length; i++) {
+      if (rowCountBySeries[i] > 0) {
+        positions[candidateCount++] = i;
+      }
+    }
+    SplittableRandom random = new SplittableRandom(seed);
+    long chosenRows = 0;
+    int chosenCount = 0;
+    // a partial Fisher-Yates shuffle: positions[0 .. chosenCount) are the first series of a seeded random order
+    while (chosenRows < minimumRowCount) {
+      int pick = chosenCount + random.nextInt(candidateCount - chosenCount);
+      int position = positions[pick];
+      positions[pick] = positions[chosenCount];
+      positions[chosenCount++] = position;
+      chosenRows += rowCountBySeries[position];
+    }
+    int[] chosen = Arrays.copyOf(positions, chosenCount);
+    Arrays.sort(chosen);
+    int[] subsetSeries = new int[chosenCount];
+    int[] subsetRows = new int[chosenCount];
+    for (int i = 0; i < chosenCount; i++) {
+      subsetSeries[i] = seriesIndexes[chosen[i]];
+      subsetRows[i] = rowCountBySeries[chosen[i]];
+    }
+    return new FeaturePass(this, subsetSeries, subsetRows);
+  }
+
+  /** The series this pass streams, in stream order (a copy). */
+  public int[] seriesIndexes() {
+    return seriesIndexes.clone();
+  }
+
   @Override
   public FeatureSchema schema() {
     return schema;
@@ -304,7 +395,8 @@ public final class FeaturePass implements RowStream {
    * staging strip.
    */
   public long heapBytes() {
-    return tableHeapBytes + context.heapBytes() + 4L * (rowDays.length + rowLabels.length + strip.length);
+    return tableHeapBytes + context.heapBytes()
+        + 4L * (rowDays.length + rowLabels.length + strip.length + rowCountBySeries.length);
   }
 
   @Override

@@ -78,8 +78,8 @@ public final class ModelTraining {
     String stage = "all".equals(value) ? "" : " " + value;
     DatasetBuilder builder = new DatasetBuilder(budget, plan.datasetParameters());
     long datasetStart = System.nanoTime();
-    progress.startStage("dataset" + stage, "rows streamed", 2 * trainingRows.rowCount()
-        + 2 * validationRows.rowCount());
+    progress.startStage("dataset" + stage, "rows streamed", builder.sampleSource(trainingRows).rowCount()
+        + trainingRows.rowCount() + 2 * validationRows.rowCount());
     long residentBefore = ProcessMemory.residentBytes();
     TrainedModel model;
     long validationRowCount = validationRows.rowCount();

@@ -4,31 +4,46 @@ import org.lagmill.features.FeatureSchema;
 import org.lagmill.features.RowStream;
 import org.lagmill.progress.ProgressListener;
 
-/** A {@link RowStream} that reports the running row count of each stream to a {@link ProgressListener}. */
+/**
+ * A {@link RowStream} that reports the running row count of each stream to a {@link ProgressListener}; its
+ * {@link #sampleSource} reports into the same running count.
+ */
 final class ProgressRowStream implements RowStream {
   private final RowStream rows;
   private final ProgressListener progress;
-  private long streamedRowCount;
+  /** Shared with the sample source: rows streamed over every pass so far. */
+  private final long[] streamedRowCount;
 
   ProgressRowStream(RowStream rows, ProgressListener progress) {
+    this(rows, progress, new long[1]);
+  }
+
+  private ProgressRowStream(RowStream rows, ProgressListener progress, long[] streamedRowCount) {
     this.rows = rows;
     this.progress = progress;
+    this.streamedRowCount = streamedRowCount;
   }
 
   @Override public FeatureSchema schema() { return rows.schema(); }
   @Override public long rowCount() { return rows.rowCount(); }
 
-  /** Rows streamed over every pass so far (the learner streams twice: sample, then push). */
+  /** Rows streamed over every pass so far (the learner streams twice: its sample source, then every row). */
   long streamedRowCount() {
-    return streamedRowCount;
+    return streamedRowCount[0];
+  }
+
+  @Override
+  public RowStream sampleSource(long minimumRowCount, long seed) {
+    RowStream source = rows.sampleSource(minimumRowCount, seed);
+    return source == rows ? this : new ProgressRowStream(source, progress, streamedRowCount);
   }
 
   @Override
   public void stream(org.lagmill.features.FeatureBatch batch, BatchConsumer consumer) {
     rows.stream(batch, full -> {
       consumer.accept(full);
-      streamedRowCount += full.rowCount();
-      progress.advance(streamedRowCount);
+      streamedRowCount[0] += full.rowCount();
+      progress.advance(streamedRowCount[0]);
     });
   }
 }

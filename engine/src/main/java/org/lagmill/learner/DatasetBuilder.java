@@ -26,6 +26,16 @@ import org.lagmill.memory.ProcessMemory;
  */
 public final class DatasetBuilder {
   private static final int ROW_LIMIT = Integer.MAX_VALUE;
+  /**
+   * The sampling pass streams at least this many rows per sampled row (from {@link RowStream#sampleSource}): the row
+   * sample is then drawn uniformly from a sub-stream a few times its size, never from a handful of series.
+   */
+  static final int SAMPLE_SOURCE_ROWS_PER_SAMPLE_ROW = 2;
+  /**
+   * ... and at least this share of the stream (1 / 32 of its rows), so the number of series the bins see grows with
+   * the data; it costs the sampling pass about 3 % of a full pass.
+   */
+  static final int SAMPLE_SOURCE_STREAM_FRACTION_DIVISOR = 32;
 
   private final MemoryBudget budget;
   private final DatasetParameters parameters;
@@ -42,7 +52,10 @@ public final class DatasetBuilder {
 
   /**
    * Builds a training Dataset from every row of {@code rows}; its bins come from a seeded sample of
-   * {@link DatasetParameters#sampleRowCount()} rows (all rows when fewer).
+   * {@link DatasetParameters#sampleRowCount()} rows (all rows when fewer), drawn uniformly from the rows of
+   * {@code rows.sampleSource(...)}: for a large feature pass a seeded subset of whole series holding a few times the
+   * sample, so the sampling pass produces only those rows; for a small stream, or one that cannot subset itself, the
+   * whole stream. Every row of {@code rows} is pushed either way.
    *
    * @throws IllegalArgumentException when the stream is empty, holds 2^31 rows or more, or has a NaN/infinite label
    */
@@ -51,12 +64,14 @@ public final class DatasetBuilder {
     int rowCount = checkedRowCount(rows);
     int sampleRowCount = Math.min(parameters.sampleRowCount(), rowCount);
     long residentBefore = ProcessMemory.residentBytes();
-    RowSample sample = new RowSample(rowCount, sampleRowCount, schema.featureCount(), parameters.seed());
+    RowStream sampleSource = sampleSource(rows, sampleRowCount, parameters.seed());
+    long sourceRowCount = sampleSource.rowCount();
+    RowSample sample = new RowSample(sourceRowCount, sampleRowCount, schema.featureCount(), parameters.seed());
     try (FeatureBatch batch = newBatch(schema, rowCount)) {
-      rows.stream(batch, sample::accept);
-      if (sample.rowsSeen() != rowCount || sample.rowsSelected() != sampleRowCount) {
-        throw new IllegalStateException("row stream promised " + rowCount + " rows but produced " + sample.rowsSeen()
-            + "; a RowStream must report its exact rowCount()");
+      sampleSource.stream(batch, sample::accept);
+      if (sample.rowsSeen() != sourceRowCount || sample.rowsSelected() != sampleRowCount) {
+        throw new IllegalStateException("sample source promised " + sourceRowCount + " rows but produced "
+            + sample.rowsSeen() + "; a RowStream must report its exact rowCount()");
       }
       SWIGTYPE_p_void handle = createFromSample(sample, schema, sampleRowCount, rowCount);
       try {
@@ -69,6 +84,36 @@ public final class DatasetBuilder {
           sample.keptValueCount(), residentBefore, ProcessMemory.residentBytes());
       return new TrainingDataset(handle, schema, stats, false);
     }
+  }
+
+  /**
+   * The rows {@link #build} streams in its sampling pass for {@code rows} (to size progress reports): the whole stream
+   * when it is small or cannot subset itself, else a subset of whole series.
+   */
+  public RowStream sampleSource(RowStream rows) {
+    int sampleRowCount = (int) Math.min(parameters.sampleRowCount(), Math.max(1, rows.rowCount()));
+    return sampleSource(rows, sampleRowCount, parameters.seed());
+  }
+
+  /**
+   * The rows the bin sample is drawn from: {@code rows.sampleSource} asked for
+   * {@code max(2 × sampleRowCount, rowCount / 32)} rows under the Dataset's seed, checked to be a usable subset.
+   */
+  static RowStream sampleSource(RowStream rows, int sampleRowCount, long seed) {
+    long minimumRowCount = Math.max((long) SAMPLE_SOURCE_ROWS_PER_SAMPLE_ROW * sampleRowCount,
+        rows.rowCount() / SAMPLE_SOURCE_STREAM_FRACTION_DIVISOR);
+    RowStream source = rows.sampleSource(minimumRowCount, seed);
+    if (source == rows) {
+      return rows;
+    }
+    if (!source.schema().equals(rows.schema()) || source.rowCount() < sampleRowCount
+        || source.rowCount() > rows.rowCount()) {
+      throw new IllegalStateException("sample source of " + source.rowCount() + " rows with features "
+          + source.schema().names() + " cannot stand for a stream of " + rows.rowCount() + " rows with features "
+          + rows.schema().names() + " and a sample of " + sampleRowCount + " rows; a sample source keeps the schema"
+          + " and holds between the sample size and the stream's row count");
+    }
+    return source;
   }
 
   /**
