@@ -195,7 +195,9 @@ public final class FootprintHarness {
 
   private MeasuredProcess.Result measure(String name, List<String> command) throws IOException, InterruptedException {
     Path logFile = work.resolve("logs").resolve(name + ".log");
-    return MeasuredProcess.run(command, Map.of("OMP_WAIT_POLICY", "PASSIVE"), logFile, TIMEOUT_SECONDS);
+    // The same environment the lagmill launcher gives every run.
+    return MeasuredProcess.run(command, Map.of("OMP_WAIT_POLICY", "PASSIVE", "MALLOC_ARENA_MAX", "2"), logFile,
+        TIMEOUT_SECONDS);
   }
 
   /** java with the agrona flag, a modest heap and a private java.io.tmpdir (lightgbm4j's fixed extraction name). */
