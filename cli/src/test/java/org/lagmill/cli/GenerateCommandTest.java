@@ -4,20 +4,12 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
-import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
 class GenerateCommandTest {
-  @BeforeAll
-  static void createTempRoot() throws IOException {
-    // The build points java.io.tmpdir at a per-fork folder it does not create; @TempDir needs it to exist.
-    Files.createDirectories(Path.of(System.getProperty("java.io.tmpdir")));
-  }
-
   @Test
   void shouldWriteTheThreeFilesAndASummaryLine(@TempDir Path dir) {
     Path out = dir.resolve("scenario");

@@ -10,7 +10,6 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -23,11 +22,6 @@ class PipelineCommandsTest {
   private static final int SERIES = 40;
   private static final int DAYS = 420;
   private static final int HORIZON = 28;
-
-  @BeforeAll
-  static void createTempRoot() throws IOException {
-    Files.createDirectories(Path.of(System.getProperty("java.io.tmpdir")));
-  }
 
   @Test
   void shouldRunTheWholePipeline(@TempDir Path dir) throws IOException {
