@@ -5,9 +5,6 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
-import java.io.ByteArrayOutputStream;
-import java.io.PrintStream;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
@@ -25,62 +22,39 @@ class TinyFixtureCommandsTest {
   @Test
   void shouldIngestWithCalendarAndPricesPrintTheWarningAndInspect() throws Exception {
     Path store = temp.resolve("store");
-    Captured ingest = capture(() -> Main.run("ingest", "--sales", TINY.resolve("sales.csv").toString(), "--calendar",
+    MainRun ingest = MainRun.of("ingest", "--sales", TINY.resolve("sales.csv").toString(), "--calendar",
         TINY.resolve("calendar.csv").toString(), "--prices", TINY.resolve("prices.csv").toString(), "--store",
-        store.toString()));
-    assertEquals(0, ingest.exitCode, ingest.err);
+        store.toString());
+    assertEquals(0, ingest.exitCode(), ingest.err());
     assertEquals("warning: 1 price rows for unknown keys skipped (first: item=ZZZ-D9-0999, store=NV-01)\n",
-        ingest.err);
-    assertTrue(ingest.out.startsWith("ingested 4 series x 14 days (2026-01-05 .. 2026-01-18)"), ingest.out);
+        ingest.err());
+    assertTrue(ingest.out().startsWith("ingested 4 series x 14 days (2026-01-05 .. 2026-01-18)"), ingest.out());
 
-    Captured quiet = capture(() -> Main.run("ingest", "--sales", TINY.resolve("sales.csv").toString(), "--prices",
-        TINY.resolve("prices.csv").toString(), "--store", store.toString(), "--quiet"));
-    assertEquals(0, quiet.exitCode, quiet.err);
-    assertEquals("", quiet.err + quiet.out, "--quiet prints no warning either");
+    MainRun quiet = MainRun.of("ingest", "--sales", TINY.resolve("sales.csv").toString(), "--prices",
+        TINY.resolve("prices.csv").toString(), "--store", store.toString(), "--quiet");
+    assertEquals(0, quiet.exitCode(), quiet.err());
+    assertEquals("", quiet.err() + quiet.out(), "--quiet prints no warning either");
 
-    Captured inspect = capture(() -> Main.run("inspect", "--store", store.toString(), "--json"));
-    assertEquals(0, inspect.exitCode, inspect.err);
-    JsonNode json = new ObjectMapper().readTree(inspect.out);
+    MainRun inspect = MainRun.of("inspect", "--store", store.toString(), "--json");
+    assertEquals(0, inspect.exitCode(), inspect.err());
+    JsonNode json = new ObjectMapper().readTree(inspect.out());
     assertEquals(4, json.get("seriesCount").asInt());
     assertEquals("2026-01-18", json.get("lastDate").asText());
   }
 
   @Test
   void shouldRejectAnUnknownSalesFormatAndReportABadPricesFile() throws Exception {
-    Captured format = capture(() -> Main.run("ingest", "--sales", TINY.resolve("sales.csv").toString(),
-        "--sales-format", "tall", "--store", temp.resolve("s").toString()));
-    assertEquals(ExitCodes.USAGE_ERROR, format.exitCode);
-    assertTrue(format.err.contains("--sales-format must be one of wide, long, auto, got 'tall'"), format.err);
-    Captured column = capture(() -> Main.run("ingest", "--sales", TINY.resolve("sales.csv").toString(), "--prices",
-        TINY.resolve("prices.csv").toString(), "--price-column", "amount", "--store", temp.resolve("s").toString()));
-    assertEquals(ExitCodes.BAD_INPUT, column.exitCode);
+    MainRun format = MainRun.of("ingest", "--sales", TINY.resolve("sales.csv").toString(),
+        "--sales-format", "tall", "--store", temp.resolve("s").toString());
+    assertEquals(ExitCodes.USAGE_ERROR, format.exitCode());
+    assertTrue(format.err().contains("--sales-format must be one of wide, long, auto, got 'tall'"), format.err());
+    MainRun column = MainRun.of("ingest", "--sales", TINY.resolve("sales.csv").toString(), "--prices",
+        TINY.resolve("prices.csv").toString(), "--price-column", "amount", "--store", temp.resolve("s").toString());
+    assertEquals(ExitCodes.BAD_INPUT, column.exitCode());
     assertEquals("lagmill: " + TINY.resolve("prices.csv") + ", line 1: no column 'amount' in header "
-        + "item,store,from,price: expected one (or name it with --price-column)\n", column.err);
+        + "item,store,from,price: expected one (or name it with --price-column)\n", column.err());
     try (Stream<Path> left = Files.list(temp)) {
       assertEquals(List.of(), left.toList(), "no store and no temporary directory");
-    }
-  }
-
-  private record Captured(int exitCode, String out, String err) {}
-
-  private interface Run {
-    int run() throws Exception;
-  }
-
-  /** Main.run writes to System.out and System.err, as the installed command does. */
-  private static synchronized Captured capture(Run run) throws Exception {
-    PrintStream oldOut = System.out;
-    PrintStream oldErr = System.err;
-    ByteArrayOutputStream out = new ByteArrayOutputStream();
-    ByteArrayOutputStream err = new ByteArrayOutputStream();
-    try {
-      System.setOut(new PrintStream(out, true, StandardCharsets.UTF_8));
-      System.setErr(new PrintStream(err, true, StandardCharsets.UTF_8));
-      int exitCode = run.run();
-      return new Captured(exitCode, out.toString(StandardCharsets.UTF_8), err.toString(StandardCharsets.UTF_8));
-    } finally {
-      System.setOut(oldOut);
-      System.setErr(oldErr);
     }
   }
 }

@@ -71,11 +71,7 @@ public final class StoreAppend {
         try {
           result = rewrite(store, temp, newDays, options, stage);
         } catch (IOException | RuntimeException | Error e) {
-          try {
-            StoreDirectories.deleteRecursively(temp);
-          } catch (IOException suppressed) {
-            e.addSuppressed(suppressed);
-          }
+          StoreDirectories.deleteAfterFailure(temp, e);
           throw e;
         }
       }

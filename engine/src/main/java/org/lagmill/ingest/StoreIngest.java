@@ -52,11 +52,7 @@ public final class StoreIngest {
       StoreDirectories.publish(temp, options.storeDir());
       return new IngestResult(manifest, warnings);
     } catch (IOException | RuntimeException | Error e) {
-      try {
-        StoreDirectories.deleteRecursively(temp);
-      } catch (IOException suppressed) {
-        e.addSuppressed(suppressed);
-      }
+      StoreDirectories.deleteAfterFailure(temp, e);
       throw e;
     }
   }

@@ -1,9 +1,6 @@
 package org.lagmill.memory;
 
-import java.nio.ByteBuffer;
-import java.nio.ByteOrder;
 import java.nio.FloatBuffer;
-import org.agrona.BufferUtil;
 import org.agrona.concurrent.UnsafeBuffer;
 
 /**
@@ -13,11 +10,8 @@ import org.agrona.concurrent.UnsafeBuffer;
  * <p>Not thread-safe. Closing frees the memory and releases the reservation; use after close throws.
  */
 public final class NativeFloatArray implements AutoCloseable {
-  private final MemoryBudget budget;
   private final long length;
-  private final long byteCount;
-  private ByteBuffer memory;
-  private UnsafeBuffer view;
+  private final NativeMemory memory;
   private FloatBuffer floats;
 
   /** @param length number of floats; at most 2^29 - 1 so the byte size fits one buffer */
@@ -26,18 +20,9 @@ public final class NativeFloatArray implements AutoCloseable {
       throw new IllegalArgumentException("length must be in [0, " + (Integer.MAX_VALUE / Float.BYTES) + "], got "
           + length);
     }
-    this.budget = budget;
     this.length = length;
-    this.byteCount = length * Float.BYTES;
-    budget.reserve(byteCount);
-    try {
-      memory = ByteBuffer.allocateDirect((int) byteCount).order(ByteOrder.nativeOrder());
-    } catch (OutOfMemoryError e) {
-      budget.release(byteCount);
-      throw e;
-    }
-    view = new UnsafeBuffer(memory);
-    floats = memory.asFloatBuffer();
+    this.memory = new NativeMemory(budget, length * Float.BYTES, "native float array is closed");
+    floats = memory.byteBuffer().asFloatBuffer();
   }
 
   public long length() {
@@ -46,21 +31,22 @@ public final class NativeFloatArray implements AutoCloseable {
 
   /** Bytes of native memory held. */
   public long offHeapBytes() {
-    return memory == null ? 0 : byteCount;
+    return memory.offHeapBytes();
   }
 
   public void set(int index, float value) {
     assert index >= 0 && index < length : index;
-    view.putFloat(index * Float.BYTES, value);
+    memory.view().putFloat(index * Float.BYTES, value);
   }
 
   public float get(int index) {
     assert index >= 0 && index < length : index;
-    return view.getFloat(index * Float.BYTES);
+    return memory.view().getFloat(index * Float.BYTES);
   }
 
   /** Sets {@code count} elements from {@code from} to one value. */
   public void fill(int from, int count, float value) {
+    UnsafeBuffer view = memory.view();
     for (int i = 0; i < count; i++) {
       view.putFloat((from + i) * Float.BYTES, value);
     }
@@ -73,30 +59,19 @@ public final class NativeFloatArray implements AutoCloseable {
    * @throws IndexOutOfBoundsException when either range is outside its array
    */
   public void put(int index, float[] src, int srcOffset, int count) {
-    checkOpen();
+    memory.checkOpen();
     floats.put(index, src, srcOffset, count);
   }
 
   /** Native address of element 0; valid until {@link #close()}. */
   public long address() {
-    checkOpen();
-    return view.addressOffset();
-  }
-
-  private void checkOpen() {
-    if (memory == null) {
-      throw new IllegalStateException("native float array is closed");
-    }
+    memory.checkOpen();
+    return memory.view().addressOffset();
   }
 
   @Override
   public void close() {
-    if (memory != null) {
-      BufferUtil.free(memory);
-      memory = null;
-      view = null;
-      floats = null;
-      budget.release(byteCount);
-    }
+    memory.close();
+    floats = null;
   }
 }

@@ -1,8 +1,5 @@
 package org.lagmill.memory;
 
-import java.nio.ByteBuffer;
-import java.nio.ByteOrder;
-import org.agrona.BufferUtil;
 import org.agrona.concurrent.UnsafeBuffer;
 
 /**
@@ -15,11 +12,8 @@ public final class NativeIntArray implements AutoCloseable {
   /** Largest length: the byte size must fit one direct buffer. */
   public static final long MAX_LENGTH = Integer.MAX_VALUE / Integer.BYTES;
 
-  private final MemoryBudget budget;
   private final long length;
-  private final long byteCount;
-  private ByteBuffer memory;
-  private UnsafeBuffer view;
+  private final NativeMemory memory;
 
   /** @param length number of ints, in {@code [0, MAX_LENGTH]}; the contents start at 0 */
   public NativeIntArray(MemoryBudget budget, long length) {
@@ -27,17 +21,8 @@ public final class NativeIntArray implements AutoCloseable {
       throw new IllegalArgumentException("length must be in [0, " + MAX_LENGTH + "], got " + length
           + "; split the data into smaller arrays");
     }
-    this.budget = budget;
     this.length = length;
-    this.byteCount = length * Integer.BYTES;
-    budget.reserve(byteCount);
-    try {
-      memory = ByteBuffer.allocateDirect((int) byteCount).order(ByteOrder.nativeOrder());
-    } catch (OutOfMemoryError e) {
-      budget.release(byteCount);
-      throw e;
-    }
-    view = new UnsafeBuffer(memory);
+    this.memory = new NativeMemory(budget, length * Integer.BYTES, "native int array is closed");
   }
 
   public long length() {
@@ -46,25 +31,26 @@ public final class NativeIntArray implements AutoCloseable {
 
   /** Bytes of native memory held (0 after close). */
   public long offHeapBytes() {
-    return memory == null ? 0 : byteCount;
+    return memory.offHeapBytes();
   }
 
   public void set(int index, int value) {
     assert index >= 0 && index < length : index;
-    checkOpen();
-    view.putInt(index * Integer.BYTES, value);
+    memory.checkOpen();
+    memory.view().putInt(index * Integer.BYTES, value);
   }
 
   public int get(int index) {
     assert index >= 0 && index < length : index;
-    checkOpen();
-    return view.getInt(index * Integer.BYTES);
+    memory.checkOpen();
+    return memory.view().getInt(index * Integer.BYTES);
   }
 
   /** Sets {@code count} elements from {@code from} to one value. */
   public void fill(int from, int count, int value) {
-    checkOpen();
+    memory.checkOpen();
     assert from >= 0 && count >= 0 && from + (long) count <= length : from + "+" + count;
+    UnsafeBuffer view = memory.view();
     for (int i = 0; i < count; i++) {
       view.putInt((from + i) * Integer.BYTES, value);
     }
@@ -72,26 +58,16 @@ public final class NativeIntArray implements AutoCloseable {
 
   /** Copies {@code count} elements from {@code from} into {@code dst[dstOffset ..]}. */
   public void read(int from, int[] dst, int dstOffset, int count) {
-    checkOpen();
+    memory.checkOpen();
     assert from >= 0 && count >= 0 && from + (long) count <= length : from + "+" + count;
+    UnsafeBuffer view = memory.view();
     for (int i = 0; i < count; i++) {
       dst[dstOffset + i] = view.getInt((from + i) * Integer.BYTES);
     }
   }
 
-  private void checkOpen() {
-    if (memory == null) {
-      throw new IllegalStateException("native int array is closed");
-    }
-  }
-
   @Override
   public void close() {
-    if (memory != null) {
-      BufferUtil.free(memory);
-      memory = null;
-      view = null;
-      budget.release(byteCount);
-    }
+    memory.close();
   }
 }

@@ -2,13 +2,10 @@ package org.lagmill.store;
 
 import java.nio.ByteOrder;
 import java.nio.file.Path;
-import org.agrona.concurrent.UnsafeBuffer;
 import org.lagmill.memory.MemoryBudget;
 
 /** {@link DayCalendar} over a mapped {@code calendar.bin}: column descriptions on the heap, values read mapped. */
-final class MappedDayCalendar implements DayCalendar, AutoCloseable {
-  private final MappedRegion region;
-  private final UnsafeBuffer buffer;
+final class MappedDayCalendar extends MappedStoreFile implements DayCalendar {
   private final int dayCount;
   private final String[] names;
   private final ColumnKind[] kinds;
@@ -16,13 +13,10 @@ final class MappedDayCalendar implements DayCalendar, AutoCloseable {
   private final String[][] categories;
   private final int[] keyCounts;
   private final long[] valuesOffsets;
-  private volatile boolean closed;
 
   private MappedDayCalendar(Path file, MappedRegion region) {
-    this.region = region;
-    this.buffer = region.buffer();
-    MappedFileReads reads = new MappedFileReads(file, buffer, CalendarLayout.DAY_COUNT_OFFSET,
-        region.byteCount() - StoreFileFormat.FOOTER_BYTES);
+    super(region);
+    MappedFileReads reads = readsFrom(file, CalendarLayout.DAY_COUNT_OFFSET);
     dayCount = reads.getCount("calendar day count", StoreWriter.MAX_DAY_COUNT);
     int columnCount = reads.getCount("calendar column count", 1 << 16);
     names = new String[columnCount];
@@ -51,21 +45,11 @@ final class MappedDayCalendar implements DayCalendar, AutoCloseable {
       valuesOffsets[c] = offset + valueCount * Float.BYTES;
       valueCount += (long) keyCounts[c] * dayCount;
     }
-    CalendarLayout.checkFileSize(file, reads.position(), valueCount, region.byteCount());
+    CalendarLayout.checkFileSize(file, reads.position(), valueCount, fileBytes());
   }
 
   static MappedDayCalendar open(Path file, long fileBytes, MemoryBudget budget) {
-    MappedRegion region = MappedRegion.map(file, 0, fileBytes, budget);
-    try {
-      return new MappedDayCalendar(file, region);
-    } catch (RuntimeException e) {
-      region.close();
-      throw e;
-    }
-  }
-
-  long offHeapBytes() {
-    return closed ? 0 : region.byteCount();
+    return openMapped(file, fileBytes, budget, region -> new MappedDayCalendar(file, region));
   }
 
   @Override
@@ -119,17 +103,5 @@ final class MappedDayCalendar implements DayCalendar, AutoCloseable {
     }
     return buffer.getFloat((int) CalendarLayout.valueOffset(valuesOffsets[columnIndex], dayCount, row, dayIndex),
         ByteOrder.LITTLE_ENDIAN);
-  }
-
-  private void checkOpen() {
-    if (closed) {
-      throw new IllegalStateException("the store is closed");
-    }
-  }
-
-  @Override
-  public void close() {
-    closed = true;
-    region.close();
   }
 }

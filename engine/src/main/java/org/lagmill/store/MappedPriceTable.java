@@ -2,47 +2,28 @@ package org.lagmill.store;
 
 import java.nio.ByteOrder;
 import java.nio.file.Path;
-import org.agrona.concurrent.UnsafeBuffer;
 import org.lagmill.memory.MemoryBudget;
 
 /** {@link PriceTable} over a mapped {@code prices.bin}: offsets and two columns, read with no hashing. */
-final class MappedPriceTable implements PriceTable, AutoCloseable {
-  private final MappedRegion region;
-  private final UnsafeBuffer buffer;
+final class MappedPriceTable extends MappedStoreFile implements PriceTable {
   private final int seriesCount;
   private final int totalChangeCount;
   private final int dayIndexesOffset;
   private final int pricesOffset;
-  private volatile boolean closed;
 
   private MappedPriceTable(Path file, MappedRegion region, int expectedSeriesCount) {
-    this.region = region;
-    this.buffer = region.buffer();
-    MappedFileReads reads = new MappedFileReads(file, buffer, PricesLayout.SERIES_COUNT_OFFSET,
-        region.byteCount() - StoreFileFormat.FOOTER_BYTES);
+    super(region);
+    MappedFileReads reads = readsFrom(file, PricesLayout.SERIES_COUNT_OFFSET);
     seriesCount = reads.getInt();
-    if (seriesCount != expectedSeriesCount) {
-      throw new CorruptStoreException(file, "wrong series count: expected " + expectedSeriesCount + " (manifest), "
-          + "actual " + seriesCount);
-    }
+    checkSeriesCount(file, expectedSeriesCount, seriesCount);
     totalChangeCount = reads.getCount("price change count", Integer.MAX_VALUE / Integer.BYTES);
-    PricesLayout.checkFileSize(file, seriesCount, totalChangeCount, region.byteCount());
+    PricesLayout.checkFileSize(file, seriesCount, totalChangeCount, fileBytes());
     dayIndexesOffset = (int) PricesLayout.dayIndexesOffset(seriesCount);
     pricesOffset = (int) PricesLayout.pricesOffset(seriesCount, totalChangeCount);
   }
 
   static MappedPriceTable open(Path file, long fileBytes, int expectedSeriesCount, MemoryBudget budget) {
-    MappedRegion region = MappedRegion.map(file, 0, fileBytes, budget);
-    try {
-      return new MappedPriceTable(file, region, expectedSeriesCount);
-    } catch (RuntimeException e) {
-      region.close();
-      throw e;
-    }
-  }
-
-  long offHeapBytes() {
-    return closed ? 0 : region.byteCount();
+    return openMapped(file, fileBytes, budget, region -> new MappedPriceTable(file, region, expectedSeriesCount));
   }
 
   private int changeStart(int seriesIndex) {
@@ -98,17 +79,5 @@ final class MappedPriceTable implements PriceTable, AutoCloseable {
       }
       dst[dstOffset + i] = price;
     }
-  }
-
-  private void checkOpen() {
-    if (closed) {
-      throw new IllegalStateException("the store is closed");
-    }
-  }
-
-  @Override
-  public void close() {
-    closed = true;
-    region.close();
   }
 }

@@ -4,16 +4,13 @@ import it.unimi.dsi.fastutil.objects.Object2IntOpenHashMap;
 import java.nio.ByteOrder;
 import java.nio.file.Path;
 import java.util.Arrays;
-import org.agrona.concurrent.UnsafeBuffer;
 import org.lagmill.memory.MemoryBudget;
 
 /**
  * {@link SeriesAttributes} over a mapped {@code attributes.bin}: dictionaries are decoded to the heap once at open
  * (they are small: distinct values only), per-series codes are read from the mapping.
  */
-final class MappedSeriesAttributes implements SeriesAttributes, AutoCloseable {
-  private final MappedRegion region;
-  private final UnsafeBuffer buffer;
+final class MappedSeriesAttributes extends MappedStoreFile implements SeriesAttributes {
   private final int seriesCount;
   private final String[] names;
   private final String[][] values;
@@ -22,19 +19,13 @@ final class MappedSeriesAttributes implements SeriesAttributes, AutoCloseable {
   private final int seriesIdAttribute;
   private final long heapBytes;
   private Object2IntOpenHashMap<String> seriesIndexById;
-  private volatile boolean closed;
 
   @SuppressWarnings("unchecked")
   private MappedSeriesAttributes(Path file, MappedRegion region, int expectedSeriesCount) {
-    this.region = region;
-    this.buffer = region.buffer();
-    MappedFileReads reads = new MappedFileReads(file, buffer, AttributesLayout.SERIES_COUNT_OFFSET,
-        region.byteCount() - StoreFileFormat.FOOTER_BYTES);
+    super(region);
+    MappedFileReads reads = readsFrom(file, AttributesLayout.SERIES_COUNT_OFFSET);
     seriesCount = reads.getInt();
-    if (seriesCount != expectedSeriesCount) {
-      throw new CorruptStoreException(file, "wrong series count: expected " + expectedSeriesCount + " (manifest), "
-          + "actual " + seriesCount);
-    }
+    checkSeriesCount(file, expectedSeriesCount, seriesCount);
     int attributeCount = reads.getCount("attribute count", 1 << 16);
     names = new String[attributeCount];
     values = new String[attributeCount][];
@@ -59,22 +50,12 @@ final class MappedSeriesAttributes implements SeriesAttributes, AutoCloseable {
     seriesIdAttribute = idAttribute;
     reads.alignTo(Integer.BYTES);
     codesOffset = reads.position();
-    AttributesLayout.checkFileSize(file, codesOffset, seriesCount, attributeCount, region.byteCount());
+    AttributesLayout.checkFileSize(file, codesOffset, seriesCount, attributeCount, fileBytes());
     heapBytes = heap;
   }
 
   static MappedSeriesAttributes open(Path file, long fileBytes, int expectedSeriesCount, MemoryBudget budget) {
-    MappedRegion region = MappedRegion.map(file, 0, fileBytes, budget);
-    try {
-      return new MappedSeriesAttributes(file, region, expectedSeriesCount);
-    } catch (RuntimeException e) {
-      region.close();
-      throw e;
-    }
-  }
-
-  long offHeapBytes() {
-    return closed ? 0 : region.byteCount();
+    return openMapped(file, fileBytes, budget, region -> new MappedSeriesAttributes(file, region, expectedSeriesCount));
   }
 
   long heapBytes() {
@@ -152,17 +133,5 @@ final class MappedSeriesAttributes implements SeriesAttributes, AutoCloseable {
       seriesIndexById = index;
     }
     return seriesIndexById.getInt(seriesId);
-  }
-
-  private void checkOpen() {
-    if (closed) {
-      throw new IllegalStateException("the store is closed");
-    }
-  }
-
-  @Override
-  public void close() {
-    closed = true;
-    region.close();
   }
 }

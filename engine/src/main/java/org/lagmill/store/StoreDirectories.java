@@ -66,6 +66,18 @@ public final class StoreDirectories {
     }
   }
 
+  /**
+   * Deletes an unpublished temp directory after {@code failure}; a failure to delete it is added to {@code failure} as
+   * suppressed, so the first cause is the one that reaches the caller.
+   */
+  public static void deleteAfterFailure(Path tempDir, Throwable failure) {
+    try {
+      deleteRecursively(tempDir);
+    } catch (IOException suppressed) {
+      failure.addSuppressed(suppressed);
+    }
+  }
+
   /** Deletes a directory tree; a missing path is not an error. */
   public static void deleteRecursively(Path dir) throws IOException {
     if (!Files.exists(dir)) {

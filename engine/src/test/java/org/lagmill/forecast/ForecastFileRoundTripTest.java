@@ -12,7 +12,6 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.SplittableRandom;
 import java.util.zip.GZIPInputStream;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.ingest.InputFormatException;
@@ -21,11 +20,6 @@ import org.lagmill.store.ArraySalesHistory;
 class ForecastFileRoundTripTest {
   private static final long SEED = 88_123L;
   private static final double[] LEVELS = ForecastTable.PUBLISHED_QUANTILES;
-
-  @BeforeAll
-  static void createTempRoot() throws IOException {
-    Files.createDirectories(Path.of(System.getProperty("java.io.tmpdir")));
-  }
 
   @Test
   void shouldReadBackWhatItWroteToFourDecimals(@TempDir Path dir) throws IOException {

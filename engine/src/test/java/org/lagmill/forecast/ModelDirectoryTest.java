@@ -13,7 +13,6 @@ import java.util.List;
 import java.util.Map;
 import java.util.TreeMap;
 import java.util.stream.Stream;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.memory.MemoryBudget;
@@ -24,11 +23,6 @@ import org.lagmill.store.CorruptStoreException;
 class ModelDirectoryTest {
   private static final long SEED = 4_401L;
   private static final int HORIZON_DAYS = 7;
-
-  @BeforeAll
-  static void createTempRoot() throws IOException {
-    Files.createDirectories(Path.of(System.getProperty("java.io.tmpdir")));
-  }
 
   @Test
   void shouldForecastTheSameAfterSaveAndOpenWithOneModelPerStore(@TempDir Path dir) throws IOException {

@@ -11,7 +11,6 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Random;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.store.ArrayDayCalendar;
@@ -24,11 +23,6 @@ class CalendarFileReaderTest {
   private static final ArraySeriesAttributes CHAIN = IngestFiles.chain();
 
   @TempDir Path dir;
-
-  @BeforeAll
-  static void createTempRoot() {
-    IngestFiles.ensureTempRoot();
-  }
 
   private CalendarReadResult read(String name, String text) {
     return CalendarFileReader.read(IngestFiles.write(dir, name, text), STORE_START, CHAIN, "date");

@@ -14,17 +14,11 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
 class CsvSourceTest {
   @TempDir Path dir;
-
-  @BeforeAll
-  static void createTempRoot() {
-    IngestFiles.ensureTempRoot();
-  }
 
   private static List<String> readAll(Path file) {
     List<String> lines = new ArrayList<>();

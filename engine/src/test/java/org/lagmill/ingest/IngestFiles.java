@@ -13,18 +13,6 @@ import org.lagmill.store.ArraySeriesAttributes;
 final class IngestFiles {
   private IngestFiles() {}
 
-  /**
-   * Surefire points java.io.tmpdir at a per-fork folder that nothing creates; JUnit's {@code @TempDir} needs it to
-   * exist. Call from {@code @BeforeAll}.
-   */
-  static void ensureTempRoot() {
-    try {
-      Files.createDirectories(Path.of(System.getProperty("java.io.tmpdir")));
-    } catch (IOException e) {
-      throw new UncheckedIOException(e);
-    }
-  }
-
   static Path write(Path dir, String name, String text) {
     return write(dir, name, text.getBytes(StandardCharsets.UTF_8));
   }

@@ -13,7 +13,6 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Random;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.memory.MemoryBudget;
@@ -24,11 +23,6 @@ class LongSalesReaderTest {
   private static final int U = SalesHistory.UNKNOWN_UNITS;
 
   @TempDir Path dir;
-
-  @BeforeAll
-  static void createTempRoot() {
-    IngestFiles.ensureTempRoot();
-  }
 
   /** Collects what the reader hands out, copying the reused arrays. */
   private static final class Collected implements SeriesSink {

@@ -12,7 +12,6 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Random;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.store.ArrayPriceTable;
@@ -26,11 +25,6 @@ class PriceFileReaderTest {
   private static final float NAN = Float.NaN;
 
   @TempDir Path dir;
-
-  @BeforeAll
-  static void createTempRoot() {
-    IngestFiles.ensureTempRoot();
-  }
 
   private PriceReadResult read(String name, String text) {
     return PriceFileReader.read(IngestFiles.write(dir, name, text), STORE_START, CHAIN, SERIES_COUNT, "from",

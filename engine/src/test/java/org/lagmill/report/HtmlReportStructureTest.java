@@ -13,7 +13,6 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Stream;
 import org.apache.commons.math3.stat.descriptive.DescriptiveStatistics;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.w3c.dom.Element;
@@ -23,11 +22,6 @@ class HtmlReportStructureTest {
   private static final long SEED = 20240527L;
   private static final List<String> SECTION_IDS =
       List.of("summary", "memory", "training", "accuracy", "horizon", "series", "caution");
-
-  @BeforeAll
-  static void createTmpdir() {
-    TempDirs.ensureJavaTmpdir();
-  }
 
   private static String f3(double v) {
     return String.format(Locale.ROOT, "%.3f", v);

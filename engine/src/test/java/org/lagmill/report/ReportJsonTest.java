@@ -12,7 +12,6 @@ import java.nio.file.Path;
 import java.time.LocalDate;
 import java.util.List;
 import java.util.stream.Stream;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.store.CorruptStoreException;
@@ -20,11 +19,6 @@ import org.lagmill.store.CorruptStoreException;
 /** report.json: what is written reads back equal, is strict JSON, and a wrong file is refused by name. */
 class ReportJsonTest {
   private static final long SEED = 77L;
-
-  @BeforeAll
-  static void createTmpdir() {
-    TempDirs.ensureJavaTmpdir();
-  }
 
   @Test
   void shouldReadBackAnEqualReport(@TempDir Path dir) throws Exception {

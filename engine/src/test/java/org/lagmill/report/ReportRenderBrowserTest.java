@@ -33,7 +33,6 @@ class ReportRenderBrowserTest {
   @BeforeAll
   static void requireChromium() {
     Assumptions.assumeTrue(Files.isExecutable(CHROMIUM), "chromium is not installed at " + CHROMIUM);
-    TempDirs.ensureJavaTmpdir();
   }
 
   @Test

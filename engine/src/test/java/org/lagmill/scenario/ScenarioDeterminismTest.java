@@ -12,16 +12,10 @@ import java.time.LocalDate;
 import java.util.Arrays;
 import java.util.List;
 import java.util.zip.GZIPInputStream;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
 class ScenarioDeterminismTest {
-  @BeforeAll
-  static void createTempRoot() throws IOException {
-    ScenarioFiles.ensureTempRoot();
-  }
-
   private static final LocalDate START = LocalDate.of(2023, 1, 2);
   private static final String[] FILES = {"sales.csv", "calendar.csv", "prices.csv"};
 

@@ -13,16 +13,10 @@ import java.util.List;
 import java.util.Map;
 import java.util.Set;
 import java.util.stream.Stream;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
 class ScenarioFileShapeTest {
-  @BeforeAll
-  static void createTempRoot() throws IOException {
-    ScenarioFiles.ensureTempRoot();
-  }
-
   private static final LocalDate START = LocalDate.of(2024, 2, 26);
 
   @Test

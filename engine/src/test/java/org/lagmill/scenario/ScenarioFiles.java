@@ -49,14 +49,6 @@ final class ScenarioFiles {
     }
   }
 
-  /**
-   * Creates the per-fork java.io.tmpdir that the build points surefire at but does not create, so {@code @TempDir}
-   * can make its folders there. Call from a {@code @BeforeAll}.
-   */
-  static void ensureTempRoot() throws IOException {
-    Files.createDirectories(Path.of(System.getProperty("java.io.tmpdir")));
-  }
-
   int dayCount() {
     return salesDates.size();
   }

@@ -32,7 +32,6 @@ class ScenarioRealismTest {
 
   @BeforeAll
   static void generate() throws IOException {
-    ScenarioFiles.ensureTempRoot();
     ScenarioGenerator.write(new ScenarioSpec(SERIES_COUNT, DAY_COUNT, ScenarioSpec.DEFAULT_START_DATE, SEED, 28,
         false), dir);
     files = new ScenarioFiles(dir);
