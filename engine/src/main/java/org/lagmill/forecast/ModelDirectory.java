@@ -57,7 +57,8 @@ public final class ModelDirectory {
       StoreDirectories.publish(temp, dir);
       return manifest;
     } catch (IOException | RuntimeException | Error e) {
-      StoreDirectories.deleteRecursively(temp);
+      // The save's own failure is what the user needs to see; a failed clean-up rides along with it.
+      StoreDirectories.deleteAfterFailure(temp, e);
       throw e;
     }
   }
