@@ -8,19 +8,12 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.LocalDate;
 import java.util.List;
-import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.features.FeatureSpec.RollingStat;
 import org.lagmill.features.FeatureSpec.Strategy;
 
 class FeatureSpecYamlTest {
-  @BeforeAll
-  static void createTemporaryFolder() throws IOException {
-    // surefire points java.io.tmpdir at a per-fork folder that it does not create
-    Files.createDirectories(Path.of(System.getProperty("java.io.tmpdir")));
-  }
-
   @Test
   void shouldReadEveryKey(@TempDir Path dir) throws IOException {
     Path file = dir.resolve("features.yaml");

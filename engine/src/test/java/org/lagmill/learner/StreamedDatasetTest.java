@@ -18,7 +18,6 @@ class StreamedDatasetTest {
   private static final long MASTER_SEED = 20_240_611L;
 
   static {
-    // also creates this fork's java.io.tmpdir, which @TempDir needs
     NativeLibrary.load();
   }
 
