@@ -28,6 +28,11 @@ final class ProgressRowStream implements RowStream {
   @Override public long rowCount() { return rows.rowCount(); }
 
   /** Rows streamed over every pass so far (the learner streams twice: its sample source, then every row). */
+  /** A stream over other rows that reports into this stream's running count (validation rows after training rows). */
+  ProgressRowStream continuedBy(RowStream next) {
+    return new ProgressRowStream(next, progress, streamedRowCount);
+  }
+
   long streamedRowCount() {
     return streamedRowCount[0];
   }
