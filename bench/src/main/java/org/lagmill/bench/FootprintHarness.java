@@ -55,6 +55,14 @@ public final class FootprintHarness {
     Path cliJar = Path.of("cli/target/lagmill.jar");
     Path benchJar = Path.of("bench/target/lagmill-bench.jar");
     Path out = null;
+    if (args.length % 2 != 0 || java.util.Arrays.asList(args).contains("--help")) {
+      System.out.println("usage: FootprintHarness [--sizes 1000x1000,10000x1000,20000x2500] [--rounds 10] [--threads 2]"
+          + " [--xmx 1g] [--partition-size 10000x1000|none] [--matrix-limit-bytes 18000000000] [--work DIR]"
+          + " [--cli-jar PATH] [--bench-jar PATH] [--out FILE]");
+      System.out.println("Runs generate, ingest and the stream, floor and matrix training routes in fresh JVMs per size"
+          + " and prints their peak RSS as markdown tables (docs/benchmarks.md).");
+      System.exit(args.length % 2 != 0 && !java.util.Arrays.asList(args).contains("--help") ? 2 : 0);
+    }
     for (int i = 0; i + 1 < args.length; i += 2) {
       String value = args[i + 1];
       switch (args[i]) {
