@@ -14,7 +14,7 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 /** {@code lagmill append}: adds a store's next days from a wide sales file; may replace its calendar and prices. */
-@Command(name = "append", mixinStandardHelpOptions = true,
+@Command(name = "append", header = "Add new days (and a newer calendar and prices) to a store, atomically.", mixinStandardHelpOptions = true,
     description = {"Add new days to a store from a wide sales CSV whose first date is the store's next day.",
         "Series missing from the file get unknown units on the new days; new series get unknown units before them.",
         "A --calendar or --prices file replaces the stored calendar or prices; without it they are kept."},

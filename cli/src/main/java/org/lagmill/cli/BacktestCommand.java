@@ -19,7 +19,7 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 /** {@code lagmill backtest}: rolling-origin backtest of the model against baselines, with a report. */
-@Command(name = "backtest", mixinStandardHelpOptions = true,
+@Command(name = "backtest", header = "Score the model against baselines over rolling forecast origins.", mixinStandardHelpOptions = true,
     description = {"Rolling-origin backtest: for each origin, train only on the days before it, forecast the horizon",
         "as in production and score WRMSSE per level beside naive, seasonal naive, moving average, exponential",
         "smoothing and Croston baselines on the same days."},

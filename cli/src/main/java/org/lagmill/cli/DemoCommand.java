@@ -41,7 +41,7 @@ import picocli.CommandLine.Spec;
  * baselines (the last four weeks withheld as a final check), train on the full history, forecast four weeks with
  * intervals, write the report.
  */
-@Command(name = "demo", mixinStandardHelpOptions = true,
+@Command(name = "demo", header = "Run the whole job on built-in demo data, from invented history to forecast and report.", mixinStandardHelpOptions = true,
     description = {"Run the whole job on built-in demo data: generate an invented chain's history, ingest it, backtest",
         "against baselines, train on the full history, forecast 28 days with intervals and write the report."},
     footer = {"", "Example:", "  lagmill demo --out demo-run --size small"})

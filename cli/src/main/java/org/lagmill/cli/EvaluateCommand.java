@@ -26,7 +26,7 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 /** {@code lagmill evaluate}: scores a forecast file against the actuals the store holds for its days. */
-@Command(name = "evaluate", mixinStandardHelpOptions = true,
+@Command(name = "evaluate", header = "Score a forecast file against the actuals held in a store.", mixinStandardHelpOptions = true,
     description = {"Score a forecast file (long form: attributes or series_id, date, forecast, optional q… columns)",
         "against the store's actuals: WRMSSE and the per-level table, beside the baselines from the same origin."},
     footer = {"", "Example:", "  lagmill evaluate --store stores/chain --forecast week45.csv.gz --json"})

@@ -23,7 +23,7 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 /** {@code lagmill forecast}: forecasts every series for the days after the store's last day. */
-@Command(name = "forecast", mixinStandardHelpOptions = true,
+@Command(name = "forecast", header = "Forecast every series for the days after the store's last day.", mixinStandardHelpOptions = true,
     description = {"Forecast each series' daily units for the horizon after the store's last day, with optional",
         "quantile intervals. Forecasts are estimates for a planner to review, never automatic orders."},
     footer = {"", "Example:", "  lagmill forecast --store stores/chain --model models/week49 --out week49.csv.gz "

@@ -15,6 +15,7 @@ import picocli.CommandLine.Spec;
 /** {@code lagmill generate}: writes the invented demo scenario (sales, calendar, prices) as CSV files. */
 @Command(
     name = "generate",
+    header = "Write an invented chain's sales, calendar and prices as CSV files.",
     mixinStandardHelpOptions = true,
     versionProvider = VersionProvider.class,
     description = {"Writes an invented retail scenario: wide daily sales per item-store series, a calendar with events",

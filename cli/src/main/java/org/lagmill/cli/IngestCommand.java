@@ -17,7 +17,7 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 /** {@code lagmill ingest}: builds a store from a sales file (wide or long) and optional calendar and prices files. */
-@Command(name = "ingest", mixinStandardHelpOptions = true,
+@Command(name = "ingest", header = "Build a compact store from sales, calendar and prices CSV files.", mixinStandardHelpOptions = true,
     description = {"Build a compact store from a sales CSV: wide (one row per series, one column per day) or long",
         "(one row per series and day), with an optional calendar and prices (see docs/formats.md)."},
     footer = {"", "Example:", "  lagmill ingest --sales sales.csv.gz --store stores/chain",

@@ -9,7 +9,7 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 /** {@code lagmill report}: rebuilds a run's HTML report from its report.json. */
-@Command(name = "report", mixinStandardHelpOptions = true,
+@Command(name = "report", header = "Rebuild a run's HTML report from its report.json.", mixinStandardHelpOptions = true,
     description = "Rebuild the HTML report of a run (backtest, forecast or demo) from its report.json.",
     footer = {"", "Example:", "  lagmill report --run demo-run/report"})
 final class ReportCommand implements Callable<Integer> {

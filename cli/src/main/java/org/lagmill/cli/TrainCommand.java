@@ -21,7 +21,7 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 /** {@code lagmill train}: streams features from a store into LightGBM and saves the model directory. */
-@Command(name = "train", mixinStandardHelpOptions = true,
+@Command(name = "train", header = "Train a model on a store's history, streaming features into LightGBM.", mixinStandardHelpOptions = true,
     description = {"Train a model on a store's history: features stream from the store into LightGBM's Dataset,",
         "the last --horizon days before the cut are the validation window for early stopping."},
     footer = {"", "Example:", "  lagmill train --store stores/chain --model models/week49 --rounds 800",
