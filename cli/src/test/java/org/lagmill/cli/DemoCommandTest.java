@@ -1,0 +1,42 @@
+package org.lagmill.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/** The README's first command, at its small size: every artefact it promises, and a model that beats the baselines. */
+class DemoCommandTest {
+  private static final Pattern SKILL = Pattern.compile("skill vs seasonal naive ([0-9.]+)");
+
+  @Test
+  void shouldRunTheWholeJobOnTheSmallScenario(@TempDir Path dir) throws Exception {
+    Path out = dir.resolve("demo");
+    MainRun run = MainRun.of("demo", "--out", out.toString(), "--size", "small", "--quiet");
+    assertEquals(ExitCodes.OK, run.exitCode(), run.err());
+    for (String file : List.of("forecast.csv", "run.json", "features.yaml", "report/report.html",
+        "report/report.json", "model/manifest.json", "model/model.txt", "store/manifest.json")) {
+      assertTrue(Files.isRegularFile(out.resolve(file)), "missing " + file);
+    }
+    List<String> forecast = Files.readAllLines(out.resolve("forecast.csv"));
+    assertEquals(1 + DemoCommand.Size.SMALL.seriesCount * DemoCommand.HORIZON_DAYS, forecast.size());
+    assertTrue(forecast.get(0).endsWith(",date,forecast,q0.005,q0.025,q0.165,q0.25,q0.5,q0.75,q0.835,q0.975,q0.995"),
+        forecast.get(0));
+    Matcher skill = SKILL.matcher(run.out());
+    assertTrue(skill.find(), run.out());
+    // The invented chain has promotions, events and paydays the model can see and seasonal naive cannot.
+    assertTrue(Double.parseDouble(skill.group(1)) < 0.9, run.out());
+    assertTrue(run.out().contains("never automatic orders"), run.out());
+    JsonNode record = RunRecord.JSON.readTree(out.resolve("run.json").toFile());
+    assertEquals(DemoCommand.BACKTEST_ORIGINS + 1, record.path("results").path("backtest").path("origins").size());
+    String html = Files.readString(out.resolve("report/report.html"));
+    assertTrue(html.contains("id=\"accuracy\"") && html.contains("id=\"series\""), "report sections");
+  }
+}
