@@ -7,12 +7,11 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
 import org.lagmill.eval.AggregateTable;
-import org.lagmill.eval.BaselineForecaster;
-import org.lagmill.eval.BaselineKind;
 import org.lagmill.eval.EvaluationResult;
 import org.lagmill.eval.Evaluator;
 import org.lagmill.eval.OriginStatistics;
 import org.lagmill.eval.QuantileForecasts;
+import org.lagmill.eval.RollingOriginBacktest;
 import org.lagmill.forecast.ForecastFileReader;
 import org.lagmill.forecast.ForecastTable;
 import org.lagmill.memory.MemoryBudget;
@@ -63,12 +62,9 @@ final class EvaluateCommand implements Callable<Integer> {
       AggregateTable aggregated = evaluator.aggregator().aggregateForecasts(table.point());
       EvaluationResult result = evaluator.evaluate(statistics, aggregated, quantiles);
       Map<String, Double> baselines = new LinkedHashMap<>();
-      TruncatedHistory known = new TruncatedHistory(opened, origin);
-      for (BaselineKind kind : BacktestRun.DEFAULT_BASELINES) {
-        double[][] baseline = BaselineForecaster.forecastAll(known, origin, table.horizonDays(), kind);
-        baselines.put(ReportAssembler.label(kind.name()), evaluator.evaluate(statistics,
-            evaluator.aggregator().aggregateForecasts(baseline), null).wrmsse());
-      }
+      RollingOriginBacktest.scoreBaselines(new TruncatedHistory(opened, origin), BacktestRun.DEFAULT_BASELINES,
+          table.horizonDays(), evaluator, statistics).forEach((kind, score) ->
+          baselines.put(ReportAssembler.label(kind), score.wrmsse()));
       if (json) {
         Map<String, Object> document = new LinkedHashMap<>();
         document.put("forecast", result);

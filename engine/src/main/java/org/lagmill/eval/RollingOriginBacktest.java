@@ -77,13 +77,26 @@ public final class RollingOriginBacktest {
           settings.quantileLevels());
       poissonWspl = evaluator.evaluate(statistics, aggregator.aggregateForecasts(point), poisson).wspl();
     }
-    Map<String, EvaluationResult> baselines = new LinkedHashMap<>();
-    for (BaselineKind kind : settings.baselines()) {
-      double[][] baseline = BaselineForecaster.forecastAll(known, origin, settings.horizonDays(), kind);
-      baselines.put(kind.name(), evaluator.evaluate(statistics, aggregator.aggregateForecasts(baseline), null));
-    }
+    Map<String, EvaluationResult> baselines = scoreBaselines(known, settings.baselines(), settings.horizonDays(),
+        evaluator, statistics);
     return new BacktestResult.OriginResult(origin, history.dateOf(origin).toString(), model, baselines, poissonWspl,
         partitions, trainSeconds, forecastSeconds);
+  }
+
+  /**
+   * Forecasts the horizon after the end of {@code known} with each baseline and scores it, keyed by the kind's name.
+   *
+   * @param known the history up to the origin (exclusive), e.g. a {@link TruncatedHistory}
+   */
+  public static Map<String, EvaluationResult> scoreBaselines(SalesHistory known, List<BaselineKind> kinds,
+      int horizonDays, Evaluator evaluator, OriginStatistics statistics) {
+    Map<String, EvaluationResult> baselines = new LinkedHashMap<>();
+    for (BaselineKind kind : kinds) {
+      double[][] baseline = BaselineForecaster.forecastAll(known, known.dayCount(), horizonDays, kind);
+      baselines.put(kind.name(), evaluator.evaluate(statistics, evaluator.aggregator().aggregateForecasts(baseline),
+          null));
+    }
+    return baselines;
   }
 
   static BacktestResult summarise(List<BacktestResult.OriginResult> origins, BacktestSettings settings) {

@@ -6,8 +6,8 @@ import java.util.Arrays;
 import java.util.List;
 import org.lagmill.eval.AggregateTable;
 import org.lagmill.eval.Aggregator;
+import org.lagmill.eval.IntervalAggregation;
 import org.lagmill.eval.Level;
-import org.lagmill.forecast.CountQuantiles;
 import org.lagmill.store.SalesHistory;
 
 /**
@@ -37,14 +37,7 @@ public final class SeriesChartBuilder {
     int knownDays = Math.min(history.dayCount(), originDayIndex + horizon) - firstDay;
     Aggregator aggregator = new Aggregator(levels);
     AggregateTable actual = aggregator.aggregateActuals(history, firstDay, knownDays);
-    double[][] variances = new double[point.length][horizon];
-    for (int s = 0; s < point.length; s++) {
-      for (int d = 0; d < horizon; d++) {
-        variances[s][d] = point[s][d] + alphas[s] * point[s][d] * point[s][d];
-      }
-    }
-    AggregateTable mean = aggregator.aggregateForecasts(point);
-    AggregateTable variance = aggregator.aggregateForecasts(variances);
+    IntervalAggregation.Distribution forecast = IntervalAggregation.distribution(aggregator, point, alphas);
     List<LocalDate> dates = new ArrayList<>();
     for (int d = 0; d < shownDays; d++) {
       dates.add(history.dateOf(firstDay + d));
@@ -54,7 +47,7 @@ public final class SeriesChartBuilder {
       Level level = levels.get(l);
       int top = largestAggregate(actual, l, originDayIndex - firstDay);
       String title = level.attributeNames().isEmpty() ? "total" : level.name() + ": " + level.aggregateName(top);
-      charts.add(chart(title, dates, actual, l, top, knownDays, mean, variance, originDayIndex - firstDay, horizon));
+      charts.add(chart(title, dates, actual, l, top, knownDays, forecast, originDayIndex - firstDay, horizon));
     }
     Level bottom = levels.get(levels.size() - 1);
     for (String id : shownSeriesIds) {
@@ -64,7 +57,7 @@ public final class SeriesChartBuilder {
       }
       if (bottom.isBottom()) {
         int aggregate = bottom.aggregateIndexOf(series);
-        charts.add(chart("series " + id, dates, actual, levels.size() - 1, aggregate, knownDays, mean, variance,
+        charts.add(chart("series " + id, dates, actual, levels.size() - 1, aggregate, knownDays, forecast,
             originDayIndex - firstDay, horizon));
       }
     }
@@ -72,7 +65,8 @@ public final class SeriesChartBuilder {
   }
 
   private static SeriesChart chart(String title, List<LocalDate> dates, AggregateTable actual, int level,
-      int aggregate, int knownDays, AggregateTable mean, AggregateTable variance, int originIndex, int horizon) {
+      int aggregate, int knownDays, IntervalAggregation.Distribution forecastDistribution, int originIndex,
+      int horizon) {
     int shownDays = dates.size();
     double[] actualValues = new double[shownDays];
     double[] forecast = new double[shownDays];
@@ -86,12 +80,9 @@ public final class SeriesChartBuilder {
       actualValues[d] = actual.get(level, aggregate, d);
     }
     for (int d = 0; d < horizon; d++) {
-      double mu = mean.get(level, aggregate, d);
-      double var = variance.get(level, aggregate, d);
-      double alpha = mu > 0 ? Math.max(0, (var - mu) / (mu * mu)) : 0;
-      forecast[originIndex + d] = mu;
-      lower[originIndex + d] = CountQuantiles.quantile(mu, alpha, LOWER_QUANTILE);
-      upper[originIndex + d] = CountQuantiles.quantile(mu, alpha, UPPER_QUANTILE);
+      forecast[originIndex + d] = forecastDistribution.means().get(level, aggregate, d);
+      lower[originIndex + d] = forecastDistribution.quantile(level, aggregate, d, LOWER_QUANTILE);
+      upper[originIndex + d] = forecastDistribution.quantile(level, aggregate, d, UPPER_QUANTILE);
     }
     return new SeriesChart(title, dates, actualValues, forecast, lower, upper, LOWER_QUANTILE, UPPER_QUANTILE,
         originIndex);
