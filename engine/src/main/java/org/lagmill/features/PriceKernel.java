@@ -11,7 +11,8 @@ import org.lagmill.store.SeriesAttributes;
  * Price features of the row's day. NaN wherever the day's price is missing (before the series' first price).
  * <ul>
  *   <li>{@code price}: the shelf price;
- *   <li>{@code price_to_mean}: price / the series' mean price, the unweighted mean of all its change-point prices;
+ *   <li>{@code price_to_mean}: price / the series' mean price, the unweighted mean of all its change-point prices (the
+ *       store keeps only points where the price changes, so repeated rows of a weekly price file do not weigh in);
  *   <li>{@code price_to_max}: price / the series' regular price;
  *   <li>{@code price_change_7}: price / price 7 days earlier − 1;
  *   <li>{@code promo}: 1 when the price is below the regular price, else 0;

@@ -1,12 +1,22 @@
 package org.lagmill.store;
 
+import it.unimi.dsi.fastutil.ints.IntArrayList;
 import java.io.IOException;
 import java.nio.file.Path;
 import org.lagmill.memory.MemoryBudget;
 
 /**
- * Writes {@code prices.bin} ({@link PricesLayout}) from any {@link PriceTable}. Change points before day 0 are clamped:
- * only the last of them is kept, moved to day 0, because it is the price in force when the sales start.
+ * Writes {@code prices.bin} ({@link PricesLayout}) from any {@link PriceTable}, keeping only the change points that
+ * change something:
+ * <ul>
+ *   <li>change points before day 0: only the last of them is kept, moved to day 0, because it is the price in force
+ *       when the sales start;
+ *   <li>a change point whose price equals the price in force before it is dropped. A price file with one row per
+ *       item-store-week repeats the same price week after week; each repeat would cost 8 bytes and change no day's
+ *       price. The stored change points are therefore the days on which the price really changes.
+ * </ul>
+ * Dropping repeats changes no day's price. It changes the count of change points, which is why price features that
+ * aggregate over change points (the series' mean price) are defined over these collapsed points.
  */
 final class PricesFileWriter {
   private PricesFileWriter() {}
@@ -14,9 +24,10 @@ final class PricesFileWriter {
   static ChecksummedFileWriter write(Path file, PriceTable prices, int seriesCount, MemoryBudget budget)
       throws IOException {
     int tableSeriesCount = prices.isEmpty() ? 0 : seriesCount;
+    IntArrayList kept = new IntArrayList();
     long changeCount = 0;
     for (int s = 0; s < tableSeriesCount; s++) {
-      changeCount += keptChangeCount(prices, s);
+      changeCount += keptChanges(prices, s, kept).size();
     }
     if (changeCount > Integer.MAX_VALUE / Integer.BYTES) {
       throw new IllegalArgumentException("too many price changes: " + changeCount + ", at most "
@@ -29,18 +40,19 @@ final class PricesFileWriter {
       int start = 0;
       for (int s = 0; s < seriesCount; s++) {
         out.putInt(start);
-        start += s < tableSeriesCount ? keptChangeCount(prices, s) : 0;
+        start += s < tableSeriesCount ? keptChanges(prices, s, kept).size() : 0;
       }
       out.putInt(start);
       for (int s = 0; s < tableSeriesCount; s++) {
-        int first = firstKeptChange(prices, s);
-        for (int k = first; k < prices.changeCount(s); k++) {
-          out.putInt(k == first ? Math.max(0, prices.changeDayIndex(s, k)) : prices.changeDayIndex(s, k));
+        keptChanges(prices, s, kept);
+        for (int i = 0; i < kept.size(); i++) {
+          out.putInt(Math.max(0, prices.changeDayIndex(s, kept.getInt(i))));
         }
       }
       for (int s = 0; s < tableSeriesCount; s++) {
-        for (int k = firstKeptChange(prices, s); k < prices.changeCount(s); k++) {
-          out.putFloat(prices.changePrice(s, k));
+        keptChanges(prices, s, kept);
+        for (int i = 0; i < kept.size(); i++) {
+          out.putFloat(prices.changePrice(s, kept.getInt(i)));
         }
       }
       out.finish();
@@ -50,8 +62,14 @@ final class PricesFileWriter {
     }
   }
 
-  /** Index of the first change kept: the last one on or before day 0, or 0 when all lie after day 0. */
-  private static int firstKeptChange(PriceTable prices, int seriesIndex) {
+  /**
+   * Fills {@code kept} (cleared first) with the indexes of the series' change points to store: the last one on or
+   * before day 0 (or the first, when all lie after day 0), then each later one whose price differs from the last kept.
+   *
+   * @return {@code kept}
+   */
+  static IntArrayList keptChanges(PriceTable prices, int seriesIndex, IntArrayList kept) {
+    kept.clear();
     int changeCount = prices.changeCount(seriesIndex);
     int first = 0;
     for (int k = 0; k < changeCount; k++) {
@@ -64,11 +82,15 @@ final class PricesFileWriter {
         first = k;
       }
     }
-    return first;
-  }
-
-  private static int keptChangeCount(PriceTable prices, int seriesIndex) {
-    int changeCount = prices.changeCount(seriesIndex);
-    return changeCount == 0 ? 0 : changeCount - firstKeptChange(prices, seriesIndex);
+    int lastPriceBits = 0;
+    for (int k = first; k < changeCount; k++) {
+      // Bit equality, so a price that differs in the last float bit is a change and one read back is never merged.
+      int priceBits = Float.floatToIntBits(prices.changePrice(seriesIndex, k));
+      if (kept.isEmpty() || priceBits != lastPriceBits) {
+        kept.add(k);
+        lastPriceBits = priceBits;
+      }
+    }
+    return kept;
   }
 }
