@@ -146,7 +146,7 @@ public final class CalendarFileReader {
       int attributeIndex = attributes.attributeIndex(attribute);
       if (attributeIndex < 0) {
         throw new InputFormatException(file, 1, c + 1, "column '" + header[c] + "' is keyed by '" + attribute
-            + "', which is not a series attribute: expected one of " + PriceKeys.attributeNames(attributes));
+            + "', which is not a series attribute: expected one of " + SeriesKeys.attributeNames(attributes));
       }
       Group group = byName.get(name);
       if (group == null) {

@@ -49,7 +49,8 @@ public final class PriceFileReader {
       Cells.requireDistinct(file, header);
       int fromIndex = Cells.requireColumn(file, header, fromColumn, "--from-column");
       int priceIndex = Cells.requireColumn(file, header, priceColumn, "--price-column");
-      PriceKeys keys = PriceKeys.of(file, header, fromIndex, priceIndex, attributes, seriesCount);
+      SeriesKeys keys = SeriesKeys.allColumnsExcept(file, header, new int[] {fromIndex, priceIndex}, attributes,
+          seriesCount, "price", true);
 
       long firstEpochDay = storeFirstDate.toEpochDay();
       IntArrayList rowKeyIds = new IntArrayList();
@@ -89,7 +90,7 @@ public final class PriceFileReader {
     }
   }
 
-  private static ArrayPriceTable buildTable(Path file, PriceKeys keys, LocalDate storeFirstDate, int[] keyIds,
+  private static ArrayPriceTable buildTable(Path file, SeriesKeys keys, LocalDate storeFirstDate, int[] keyIds,
       int[] days, float[] prices, int[] lines, int rowCount) {
     int[] order = new int[rowCount];
     for (int r = 0; r < rowCount; r++) {

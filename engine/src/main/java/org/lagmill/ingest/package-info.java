@@ -18,6 +18,7 @@
  * </ul>
  * {@link org.lagmill.ingest.SalesFormat} decides wide or long from the header; {@link org.lagmill.ingest.ColumnNames}
  * holds the renamable column names; {@link org.lagmill.ingest.CsvSource} is the strict UTF-8, gzip-aware CSV input the
- * long, calendar and price readers share.
+ * long, calendar and price readers share. {@code SeriesKeys} is the one matcher of the key columns of dated per-key
+ * files (prices, plan, closures) to the series they cover.
  */
 package org.lagmill.ingest;
