@@ -46,7 +46,8 @@ final class BacktestCommand implements Callable<Integer> {
   @Option(names = "--json", description = "print the backtest result as JSON")
   boolean json;
 
-  @Option(names = "--memory-limit", paramLabel = "BYTES", description = "off-heap budget in bytes (default: none)")
+  @Option(names = "--memory-limit", paramLabel = "SIZE", converter = ByteSizeConverter.class,
+      description = "off-heap budget: bytes, or with k, m, g (1024-based), e.g. 512m or 2g (default: none)")
   Long memoryLimitBytes;
 
   @Option(names = "--quiet", description = "print nothing but errors (and the JSON with --json)")

@@ -12,7 +12,7 @@ final class CliBudgets {
     }
     if (memoryLimitBytes <= 0) {
       throw new IllegalArgumentException("--memory-limit must be a positive number of bytes, got " + memoryLimitBytes
-          + "; e.g. --memory-limit 2000000000");
+          + "; e.g. --memory-limit 2g");
     }
     return MemoryBudget.root("lagmill", memoryLimitBytes);
   }

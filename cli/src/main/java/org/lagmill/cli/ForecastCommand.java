@@ -15,6 +15,7 @@ import org.lagmill.report.ReportAssembler;
 import org.lagmill.report.ReportData;
 import org.lagmill.report.SeriesChartBuilder;
 import org.lagmill.store.SalesStore;
+import org.lagmill.store.SeriesSelection;
 import org.lagmill.store.StoreSummary;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -26,8 +27,8 @@ import picocli.CommandLine.Spec;
 @Command(name = "forecast", header = "Forecast every series for the days after the store's last day.", mixinStandardHelpOptions = true,
     description = {"Forecast each series' daily units for the horizon after the store's last day, with optional",
         "quantile intervals. Forecasts are estimates for a planner to review, never automatic orders."},
-    footer = {"", "Example:", "  lagmill forecast --store stores/chain --model models/week49 --out week49.csv.gz "
-        + "--intervals --report runs/week49"})
+    footer = {"", "Example:", "  lagmill forecast --store stores/chain --model models/week49 \\",
+        "      --out week49.csv.gz --intervals --report runs/week49"})
 final class ForecastCommand implements Callable<Integer> {
   @Spec CommandSpec commandSpec;
 
@@ -43,7 +44,8 @@ final class ForecastCommand implements Callable<Integer> {
   @Option(names = "--out", required = true, paramLabel = "FILE", description = "forecast CSV (.gz compresses)")
   Path out;
 
-  @Option(names = "--intervals", description = "add the nine published quantile columns q0.005 .. q0.995")
+  @Option(names = "--intervals",
+      description = "add nine quantile columns at the published levels, from q0.005 to q0.995")
   boolean intervals;
 
   @Option(names = "--wide", description = "one row per series, one column per date (point forecasts only)")
@@ -54,6 +56,15 @@ final class ForecastCommand implements Callable<Integer> {
 
   @Option(names = "--show", split = ",", paramLabel = "SERIES_ID", description = "series to chart in the report")
   List<String> shownSeries = List.of();
+
+  @Option(names = "--series", split = ",", paramLabel = "SERIES_ID",
+      description = "forecast only these series (ids as lagmill series lists them)")
+  List<String> chosenSeriesIds = List.of();
+
+  @Option(names = "--where", paramLabel = "ATTRIBUTE=VALUE", description = {"forecast only the series with this "
+      + "attribute value, repeatable: values of one attribute are alternatives, different attributes must all hold;",
+      "adds to --series (e.g. --where store=north-3 --where department=bakery)"})
+  List<String> conditions = List.of();
 
   @Option(names = "--quiet", description = "print nothing but errors")
   boolean quiet;
@@ -82,12 +93,23 @@ final class ForecastCommand implements Callable<Integer> {
               + manifest.storeFingerprint() + ", this store " + opened.fingerprint() + "); retrain after a refresh");
         }
       }
+      int[] chosen = SeriesSelection.select(opened, chosenSeriesIds, conditions);
+      if (chosen != null && reportDir != null) {
+        throw new IllegalArgumentException("--report charts the aggregates of every level, which need every series;"
+            + " drop --series/--where to get a report, or drop --report to forecast a subset");
+      }
+      if (chosen != null && chosen.length == 0) {
+        throw new IllegalArgumentException("no series meets every --where condition " + conditions
+            + "; list the store's series with lagmill series --store " + store);
+      }
       run.endStage("open", opened.offHeapBytes(), 0);
-      double[][] point = models.forecast(opened, horizon, forecastBudget);
+      double[][] point = models.forecast(opened, horizon, forecastBudget, chosen);
+      int forecastSeriesCount = chosen == null ? point.length : chosen.length;
       double[] levels = intervals ? ForecastTable.PUBLISHED_QUANTILES : new double[0];
       ForecastTable table = new ForecastTable(opened.dayCount(), point, levels,
           intervals ? models.quantiles(point, levels) : new double[0][][]);
-      run.endStage("forecast", opened.offHeapBytes() + forecastBudget.peakBytes(), (long) point.length * horizon);
+      run.endStage("forecast", opened.offHeapBytes() + forecastBudget.peakBytes(), (long) forecastSeriesCount
+          * horizon);
       if (wide) {
         ForecastFileWriter.writeWide(table, opened, out);
       } else {
@@ -95,7 +117,8 @@ final class ForecastCommand implements Callable<Integer> {
       }
       run.endStage("write", opened.offHeapBytes(), 0);
       run.configure("store", store.toString()).configure("model", model.toString()).configure("horizonDays", horizon)
-          .configure("intervals", intervals).result("forecastFile", out.toString())
+          .configure("intervals", intervals).configure("series", chosenSeriesIds).configure("where", conditions)
+          .result("seriesCount", forecastSeriesCount).result("forecastFile", out.toString())
           .result("firstDate", opened.dateOf(opened.dayCount()).toString())
           .result("lastDate", opened.dateOf(opened.dayCount() + horizon - 1).toString());
       if (reportDir != null) {
@@ -119,7 +142,7 @@ final class ForecastCommand implements Callable<Integer> {
         run.write(parent, out.getFileName() + ".run.json");
       }
       if (!quiet) {
-        outText.printf("forecast %,d series x %d days (%s .. %s) written to %s%n", point.length, horizon,
+        outText.printf("forecast %,d series x %d days (%s .. %s) written to %s%n", forecastSeriesCount, horizon,
             opened.dateOf(opened.dayCount()), opened.dateOf(opened.dayCount() + horizon - 1), out);
         outText.println("These are estimates for a planner to review, not orders.");
       }

@@ -9,8 +9,9 @@ import picocli.CommandLine.Option;
 /** The {@code --hierarchy} option of the scoring commands, with a default read from the store's attributes. */
 final class HierarchyOptions {
   @Option(names = "--hierarchy", paramLabel = "A>B>…", description = {"an attribute hierarchy, repeatable; the error",
-      "levels are the cross product of their prefixes (default: region>store and category>department>item when the",
-      "store has those attributes, else total and single series)"})
+      "levels are the cross product of their prefixes. Quote it for the shell, which reads > as a redirection:",
+      "--hierarchy 'region>store' --hierarchy 'category>department>item' (default: those two when the store has",
+      "those attributes, else total and single series)"})
   List<String> hierarchies;
 
   @Option(names = "--level", paramLabel = "A,B,…", description = {"an explicit aggregation level, repeatable, replacing",

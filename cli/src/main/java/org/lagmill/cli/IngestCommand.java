@@ -49,7 +49,8 @@ final class IngestCommand implements Callable<Integer> {
       description = "units column of long sales (default: ${DEFAULT-VALUE})")
   String unitsColumn;
 
-  @Option(names = "--memory-limit", paramLabel = "BYTES", description = "off-heap budget in bytes (default: none)")
+  @Option(names = "--memory-limit", paramLabel = "SIZE", converter = ByteSizeConverter.class,
+      description = "off-heap budget: bytes, or with k, m, g (1024-based), e.g. 512m or 2g (default: none)")
   Long memoryLimitBytes;
 
   @Option(names = "--quiet", description = "print nothing on success, not even warnings")

@@ -36,6 +36,7 @@ public final class Main {
     for (Object sub : Subcommands.all()) {
       cli.addSubcommand(sub);
     }
+    HelpLayout.apply(cli);
     cli.setExecutionExceptionHandler((e, commandLine, parseResult) -> {
       Throwable t = e instanceof UncheckedIOException u ? u.getCause() : e;
       commandLine.getErr().println("lagmill: " + message(t));

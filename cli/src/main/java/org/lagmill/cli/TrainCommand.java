@@ -25,7 +25,8 @@ import picocli.CommandLine.Spec;
     description = {"Train a model on a store's history: features stream from the store into LightGBM's Dataset,",
         "the last --horizon days before the cut are the validation window for early stopping."},
     footer = {"", "Example:", "  lagmill train --store stores/chain --model models/week49 --rounds 800",
-        "  lagmill train --store stores/chain --model models/by-store --partition-by store --until 2026-11-29"})
+        "  lagmill train --store stores/chain --model models/by-store \\",
+        "      --partition-by store --until 2026-11-29"})
 final class TrainCommand implements Callable<Integer> {
   @Spec CommandSpec commandSpec;
 
@@ -39,7 +40,8 @@ final class TrainCommand implements Callable<Integer> {
       + "store's last day)")
   LocalDate until;
 
-  @Option(names = "--memory-limit", paramLabel = "BYTES", description = "off-heap budget in bytes (default: none)")
+  @Option(names = "--memory-limit", paramLabel = "SIZE", converter = ByteSizeConverter.class,
+      description = "off-heap budget: bytes, or with k, m, g (1024-based), e.g. 512m or 2g (default: none)")
   Long memoryLimitBytes;
 
   @Option(names = "--quiet", description = "print nothing but errors")

@@ -76,6 +76,12 @@ public final class FeatureSpecYaml {
     }
   }
 
+  /** Every key set in {@code spec} with its value as plain JSON values (lists, numbers, text); unset keys absent. */
+  public static java.util.Map<String, Object> values(FeatureSpec spec) {
+    return MAPPER.convertValue(Document.of(spec), MAPPER.getTypeFactory().constructMapType(
+        java.util.LinkedHashMap.class, String.class, Object.class));
+  }
+
   private static String where(String source, JsonLocation location) {
     if (location == null || location.getLineNr() < 1) {
       return source + ": ";

@@ -45,10 +45,37 @@ public final class ModelSet implements AutoCloseable {
    * @return {@code [seriesIndex][dayOffset]} non-negative expected units
    */
   public double[][] forecast(SalesHistory history, int horizonDays, MemoryBudget budget) {
+    return forecast(history, horizonDays, budget, null);
+  }
+
+  /**
+   * As {@link #forecast(SalesHistory, int, MemoryBudget)}, for the chosen series only; the rows of the others hold
+   * NaN (which the forecast file writer leaves out).
+   *
+   * @param chosenSeries ascending series indexes, or null for every series
+   */
+  public double[][] forecast(SalesHistory history, int horizonDays, MemoryBudget budget, int[] chosenSeries) {
     double[][] out = new double[history.seriesCount()][horizonDays];
+    java.util.BitSet chosen = null;
+    if (chosenSeries != null) {
+      chosen = new java.util.BitSet(history.seriesCount());
+      for (int s : chosenSeries) {
+        chosen.set(s);
+      }
+      for (int s = 0; s < out.length; s++) {
+        if (!chosen.get(s)) {
+          java.util.Arrays.fill(out[s], Double.NaN);
+        }
+      }
+    }
     for (Partition partition : partitions) {
-      Forecaster.forecast(history, spec, partition.model()::predict, partition.seriesIndexes(), horizonDays, budget,
-          out);
+      int[] series = partition.seriesIndexes();
+      if (chosen != null) {
+        series = java.util.Arrays.stream(series).filter(chosen::get).toArray();
+      }
+      if (series.length > 0) {
+        Forecaster.forecast(history, spec, partition.model()::predict, series, horizonDays, budget, out);
+      }
     }
     return out;
   }
