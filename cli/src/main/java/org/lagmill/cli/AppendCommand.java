@@ -50,7 +50,7 @@ final class AppendCommand implements Callable<Integer> {
       StoreManifest appended = result.manifest();
       run.endStage("append", budget.peakBytes(), (long) appended.seriesCount() * appended.dayCount());
       run.result("seriesCount", appended.seriesCount()).result("dayCount", appended.dayCount())
-          .result("warnings", result.warnings());
+          .result("fill", appended.fill()).result("warnings", result.warnings());
       run.write(store);
       if (!quiet) {
         IngestCommand.printWarnings(spec.commandLine().getErr(), result.warnings());
@@ -58,6 +58,7 @@ final class AppendCommand implements Callable<Integer> {
         spec.commandLine().getOut().printf("store %s now holds %d series x %d days (%s .. %s)%n", store,
             manifest.seriesCount(), manifest.dayCount(), manifest.firstDate(),
             manifest.firstLocalDate().plusDays(manifest.dayCount() - 1L));
+        IngestCommand.printFill(spec.commandLine().getOut(), manifest);
       }
     }
     return ExitCodes.OK;

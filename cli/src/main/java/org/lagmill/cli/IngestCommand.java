@@ -6,6 +6,7 @@ import java.util.List;
 import java.util.concurrent.Callable;
 import org.lagmill.ingest.IngestOptions;
 import org.lagmill.ingest.IngestResult;
+import org.lagmill.ingest.MissingRows;
 import org.lagmill.ingest.SalesFormat;
 import org.lagmill.ingest.StoreIngest;
 import org.lagmill.memory.MemoryBudget;
@@ -45,6 +46,12 @@ final class IngestCommand implements Callable<Integer> {
 
   @Mixin ColumnOptions columns;
 
+  @Option(names = "--missing-rows", paramLabel = "POLICY", defaultValue = "zero",
+      description = {"what a day with no row means in long sales, from each series' first row to the file's last",
+          "date: zero (till exports leave out days with no sale) or unknown (default: ${DEFAULT-VALUE}); empty",
+          "cells are unknown either way"})
+  String missingRows;
+
   @Option(names = "--units-column", paramLabel = "NAME", defaultValue = "units",
       description = "units column of long sales (default: ${DEFAULT-VALUE})")
   String unitsColumn;
@@ -60,17 +67,19 @@ final class IngestCommand implements Callable<Integer> {
   public Integer call() throws Exception {
     IngestOptions options = IngestOptions.of(sales, store)
         .withColumns(columns.names().withUnitsColumn(unitsColumn))
-        .withSalesFormat(SalesFormat.parse(salesFormat))
+        .withSalesFormat(SalesFormat.parse(salesFormat)).withMissingRows(MissingRows.parse(missingRows))
         .withCalendarFile(calendar).withPricesFile(prices);
     RunRecord run = new RunRecord("ingest").configure("sales", sales.toString())
         .configure("calendar", calendar == null ? null : calendar.toString())
-        .configure("prices", prices == null ? null : prices.toString()).configure("store", store.toString());
+        .configure("prices", prices == null ? null : prices.toString()).configure("store", store.toString())
+        .configure("missingRows", MissingRows.parse(missingRows).optionValue());
     try (MemoryBudget budget = CliBudgets.root(memoryLimitBytes)) {
       IngestResult result = StoreIngest.ingest(options, budget);
       StoreManifest ingested = result.manifest();
       run.endStage("ingest", budget.peakBytes(), (long) ingested.seriesCount() * ingested.dayCount());
       run.result("seriesCount", ingested.seriesCount()).result("dayCount", ingested.dayCount())
-          .result("storeBytes", ingested.binaryBytes()).result("warnings", result.warnings());
+          .result("storeBytes", ingested.binaryBytes()).result("fill", ingested.fill())
+          .result("warnings", result.warnings());
       run.write(store);
       if (!quiet) {
         printWarnings(spec.commandLine().getErr(), result.warnings());
@@ -79,9 +88,19 @@ final class IngestCommand implements Callable<Integer> {
             + "%d bytes%n", manifest.seriesCount(), manifest.dayCount(), manifest.firstDate(),
             manifest.firstLocalDate().plusDays(manifest.dayCount() - 1L), store, manifest.binaryBytes(),
             budget.peakBytes());
+        printFill(spec.commandLine().getOut(), manifest);
       }
     }
     return ExitCodes.OK;
+  }
+
+  /** One line with the manifest's fill counts, as ingest and append print them. */
+  static void printFill(PrintWriter out, StoreManifest manifest) {
+    StoreManifest.Fill fill = manifest.fill();
+    if (fill != null) {
+      out.printf("item-days filled with zero %,d, unknown %,d, closed %,d%n", fill.zeroFilledItemDays(),
+          fill.unknownItemDays(), fill.closedItemDays());
+    }
   }
 
   static void printWarnings(PrintWriter err, List<String> warnings) {

@@ -8,6 +8,7 @@ import java.util.Map;
 import java.util.concurrent.Callable;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesStore;
+import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreSummary;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
@@ -56,6 +57,13 @@ final class InspectCommand implements Callable<Integer> {
     out.printf("mapped off-heap       %,d bytes%n", summary.offHeapBytes());
     out.printf("zero days             %.1f%% of known item-days; %,d item-days unknown%n",
         100 * summary.zeroDayShare(), summary.unknownDayCount());
+    StoreManifest.Fill fill = summary.fill();
+    if (fill == null) {
+      out.printf("filled                not recorded (store written before fill counts were kept)%n");
+    } else {
+      out.printf("filled                %,d item-days with zero (no row in long sales), %,d unknown, %,d closed%n",
+          fill.zeroFilledItemDays(), fill.unknownItemDays(), fill.closedItemDays());
+    }
     out.printf("fingerprint           %s%n", summary.fingerprint());
     return ExitCodes.OK;
   }

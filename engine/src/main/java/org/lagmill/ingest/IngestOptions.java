@@ -21,21 +21,25 @@ import org.lagmill.store.SeriesAttributes;
  *     {@code calendarFile} (which is then only recorded as a source)
  * @param pricesSource builds the price table (indexed by series) from the finished list of series, or null; takes
  *     precedence over {@code pricesFile}
+ * @param missingRows what a day with no row means in long sales (ignored for wide sales, whose empty cells are
+ *     unknown)
  */
 public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, Path storeDir, ColumnNames columns,
     SalesFormat salesFormat, Function<SeriesAttributes, DayCalendar> calendarSource,
-    Function<SeriesAttributes, PriceTable> pricesSource) {
+    Function<SeriesAttributes, PriceTable> pricesSource, MissingRows missingRows) {
 
   public IngestOptions {
     Objects.requireNonNull(salesFile, "salesFile");
     Objects.requireNonNull(storeDir, "storeDir");
     Objects.requireNonNull(columns, "columns");
     Objects.requireNonNull(salesFormat, "salesFormat");
+    Objects.requireNonNull(missingRows, "missingRows");
   }
 
   /** Sales only, default column names, format decided from the header. */
   public static IngestOptions of(Path salesFile, Path storeDir) {
-    return new IngestOptions(salesFile, null, null, storeDir, ColumnNames.DEFAULTS, SalesFormat.AUTO, null, null);
+    return new IngestOptions(salesFile, null, null, storeDir, ColumnNames.DEFAULTS, SalesFormat.AUTO, null, null,
+        MissingRows.DEFAULT);
   }
 
   /** The column naming each series ({@code --series-id-column}). */
@@ -49,22 +53,27 @@ public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, 
 
   public IngestOptions withColumns(ColumnNames names) {
     return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, names, salesFormat, calendarSource,
-        pricesSource);
+        pricesSource, missingRows);
   }
 
   public IngestOptions withSalesFormat(SalesFormat format) {
     return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, format, calendarSource,
-        pricesSource);
+        pricesSource, missingRows);
   }
 
   public IngestOptions withCalendarFile(Path file) {
     return new IngestOptions(salesFile, file, pricesFile, storeDir, columns, salesFormat, calendarSource,
-        pricesSource);
+        pricesSource, missingRows);
   }
 
   public IngestOptions withPricesFile(Path file) {
     return new IngestOptions(salesFile, calendarFile, file, storeDir, columns, salesFormat, calendarSource,
-        pricesSource);
+        pricesSource, missingRows);
+  }
+
+  public IngestOptions withMissingRows(MissingRows policy) {
+    return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, calendarSource,
+        pricesSource, policy);
   }
 
   /** A calendar already parsed, aligned to day 0 = the first sales date. */
@@ -75,7 +84,7 @@ public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, 
   /** A calendar built once the series are known (a keyed column needs the store's attribute codes). */
   public IngestOptions withCalendar(Function<SeriesAttributes, DayCalendar> source) {
     return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, source,
-        pricesSource);
+        pricesSource, missingRows);
   }
 
   /** A price table already built, indexed by series in the sales file's row order, days from the first sales date. */
@@ -86,6 +95,6 @@ public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, 
   /** A price table built once the series are known (the price reader maps its keys to series indexes). */
   public IngestOptions withPrices(Function<SeriesAttributes, PriceTable> source) {
     return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, calendarSource,
-        source);
+        source, missingRows);
   }
 }

@@ -15,7 +15,9 @@ import org.lagmill.store.SalesHistory;
 /**
  * Reads long-format sales: one row per series and day, in any order, with a date column, a units column and attribute
  * columns naming the series (by its {@code series_id} cell when that column is present, otherwise by all attribute
- * values together). Days between the file's first and last date that a series lacks are unknown.
+ * values together). A day with no row for a series, from the series' first row to the file's last date, is read as
+ * the {@link MissingRows} policy says (zero by default: till exports omit zero-sales days); days before a series'
+ * first row and rows with an empty units cell are unknown.
  *
  * <p>Two passes over the file: the first finds the series and the date range and validates every cell; the second
  * fills a series × day units matrix in native memory reserved from a {@link MemoryBudget} (4 bytes per cell), which
@@ -32,30 +34,36 @@ public final class LongSalesReader {
 
   private LongSalesReader() {}
 
-  /** As {@link #read(Path, String, String, String, MemoryBudget, SeriesSink)} with the series id column "series_id". */
-  public static LongSalesHeader read(Path file, String dateColumn, String unitsColumn, MemoryBudget budget,
-      SeriesSink sink) {
-    return read(file, dateColumn, unitsColumn, DEFAULT_SERIES_ID_COLUMN, budget, sink);
+  /**
+   * As {@link #read(Path, String, String, String, MissingRows, MemoryBudget, SeriesSink)} with the series id column
+   * "series_id".
+   */
+  public static LongSalesRead read(Path file, String dateColumn, String unitsColumn, MissingRows missingRows,
+      MemoryBudget budget, SeriesSink sink) {
+    return read(file, dateColumn, unitsColumn, DEFAULT_SERIES_ID_COLUMN, missingRows, budget, sink);
   }
 
   /**
    * Reads a long-format sales file and hands each series to {@code sink}.
    *
+   * @param missingRows what a day with no row means, from each series' first row to the file's last date
    * @param budget pays for the {@code seriesCount × dayCount × 4} bytes of the units matrix while it is filled
-   * @return the file's shape (also given to {@link SeriesSink#begin} before the first series)
+   * @return the file's shape (also given to {@link SeriesSink#begin} before the first series) and the fill count
    * @throws InputFormatException on any violation of the format, with file, line, column and an exact message
    */
-  public static LongSalesHeader read(Path file, String dateColumn, String unitsColumn, String seriesIdColumn,
-      MemoryBudget budget, SeriesSink sink) {
+  public static LongSalesRead read(Path file, String dateColumn, String unitsColumn, String seriesIdColumn,
+      MissingRows missingRows, MemoryBudget budget, SeriesSink sink) {
     Layout layout;
     List<String[]> valuesBySeries = new ArrayList<>();
     Object2IntOpenHashMap<String> seriesIndexByKey = new Object2IntOpenHashMap<>();
     seriesIndexByKey.defaultReturnValue(-1);
     long minEpochDay = Long.MAX_VALUE;
     long maxEpochDay = Long.MIN_VALUE;
+    int[] firstDayIndexBySeries;
     try (CsvSource source = CsvSource.open(file)) {
       layout = Layout.of(file, source.readHeader(), dateColumn, unitsColumn, seriesIdColumn);
       LongArrayList firstLineBySeries = new LongArrayList();
+      LongArrayList firstEpochDayBySeries = new LongArrayList();
       for (CsvRecord record = source.next(); record != null; record = source.next()) {
         long line = source.lineNumber();
         long epochDay = Cells.requireDate(file, line, layout.dateIndex + 1, dateColumn,
@@ -69,13 +77,25 @@ public final class LongSalesReader {
           seriesIndexByKey.put(key, valuesBySeries.size());
           valuesBySeries.add(layout.attributeValues(record));
           firstLineBySeries.add(line);
-        } else if (layout.seriesIdIndex >= 0) {
-          layout.checkSameAttributes(file, line, record, valuesBySeries.get(seriesIndex),
-              firstLineBySeries.getLong(seriesIndex));
+          firstEpochDayBySeries.add(epochDay);
+        } else {
+          if (epochDay < firstEpochDayBySeries.getLong(seriesIndex)) {
+            firstEpochDayBySeries.set(seriesIndex, epochDay);
+          }
+          if (layout.seriesIdIndex >= 0) {
+            layout.checkSameAttributes(file, line, record, valuesBySeries.get(seriesIndex),
+                firstLineBySeries.getLong(seriesIndex));
+          }
         }
       }
       if (valuesBySeries.isEmpty()) {
         throw new InputFormatException(file, 0, 0, "no sales rows: expected at least one row after the header");
+      }
+      firstDayIndexBySeries = new int[valuesBySeries.size()];
+      for (int s = 0; s < firstDayIndexBySeries.length; s++) {
+        // Bounded by the day count, which is checked to fit an int below.
+        firstDayIndexBySeries[s] = (int) Math.min(Integer.MAX_VALUE,
+            firstEpochDayBySeries.getLong(s) - minEpochDay);
       }
     }
     long dayCountLong = maxEpochDay - minEpochDay + 1;
@@ -92,8 +112,17 @@ public final class LongSalesReader {
       fill(file, layout, seriesIndexByKey, minEpochDay, dayCount, matrix);
       sink.begin(header);
       int[] units = new int[dayCount];
+      long zeroFilled = 0;
+      int missingValue = missingRows == MissingRows.ZERO ? 0 : SalesHistory.UNKNOWN_UNITS;
       for (int s = 0; s < seriesCount; s++) {
         matrix.read(s * dayCount, units, 0, dayCount);
+        // Before the series' first row nothing was recorded: unknown whatever the policy.
+        for (int d = firstDayIndexBySeries[s]; d < dayCount; d++) {
+          if (units[d] == SalesHistory.UNKNOWN_UNITS) {
+            units[d] = missingValue;
+            zeroFilled += missingValue == 0 ? 1 : 0;
+          }
+        }
         for (int d = 0; d < dayCount; d++) {
           if (units[d] == PRESENT_UNKNOWN) {
             units[d] = SalesHistory.UNKNOWN_UNITS;
@@ -101,8 +130,8 @@ public final class LongSalesReader {
         }
         sink.accept(valuesBySeries.get(s), units);
       }
+      return new LongSalesRead(header, zeroFilled);
     }
-    return header;
   }
 
   private static void fill(Path file, Layout layout, Object2IntOpenHashMap<String> seriesIndexByKey,

@@ -165,6 +165,8 @@ public final class StoreAppend {
         System.arraycopy(newDays.newSeriesUnits().get(n), 0, row, oldDayCount, newDays.dayCount());
         writer.addSeries(newDays.newSeriesAttributes().get(n), row);
       }
+      StoreManifest.Fill oldFill = store.manifest().fill();
+      writer.addZeroFilledItemDays(oldFill == null ? 0 : oldFill.zeroFilledItemDays());
       List<String> warnings = new ArrayList<>();
       if (options.pricesFile() != null) {
         CalendarAndPrices.writePrices(writer, options.pricesFile(), options.columns(), warnings);
@@ -178,7 +180,9 @@ public final class StoreAppend {
       }
       List<StoreManifest.SourceFile> sources = new ArrayList<>(store.manifest().sources());
       sources.addAll(StoreIngest.sourcesOf(options.salesFile(), options.calendarFile(), options.pricesFile()));
-      return new IngestResult(writer.finish(sources), warnings);
+      StoreManifest manifest = writer.finish(sources);
+      FillWarnings.add(manifest, 0, warnings);
+      return new IngestResult(manifest, warnings);
     }
   }
 

@@ -49,6 +49,8 @@ public final class StoreIngest {
         }
         manifest = writer.finish(sources(options));
       }
+      // A new store's zero fills are all this run's.
+      FillWarnings.add(manifest, manifest.fill().zeroFilledItemDays(), warnings);
       StoreDirectories.publish(temp, options.storeDir());
       return new IngestResult(manifest, warnings);
     } catch (IOException | RuntimeException | Error e) {
@@ -81,8 +83,9 @@ public final class StoreIngest {
     ColumnNames columns = options.columns();
     StoreWriterSink sink = new StoreWriterSink(options.salesFile(), dir, columns.seriesIdColumn(), budget);
     try {
-      LongSalesReader.read(options.salesFile(), columns.dateColumn(), columns.unitsColumn(), columns.seriesIdColumn(),
-          budget, sink);
+      LongSalesRead read = LongSalesReader.read(options.salesFile(), columns.dateColumn(), columns.unitsColumn(),
+          columns.seriesIdColumn(), options.missingRows(), budget, sink);
+      sink.writer().addZeroFilledItemDays(read.zeroFilledItemDays());
       return sink.writer();
     } catch (UncheckedIOException e) {
       IOException cause = e.getCause();

@@ -25,9 +25,10 @@ import java.util.List;
  * @param sources the input files the store was built from, with their byte sizes
  * @param files every binary file with its byte size and CRC32C (8 hex digits)
  * @param fingerprint 16 hex digits of SHA-256 over the files' names, sizes and checksums; model files record it
+ * @param fill how many item-days were filled or are unknown; null in stores written before it was recorded
  */
 public record StoreManifest(int formatVersion, String firstDate, int dayCount, int seriesCount,
-    List<String> attributeNames, List<SourceFile> sources, List<StoreFile> files, String fingerprint) {
+    List<String> attributeNames, List<SourceFile> sources, List<StoreFile> files, String fingerprint, Fill fill) {
 
   public static final String FILE_NAME = "manifest.json";
 
@@ -43,6 +44,18 @@ public record StoreManifest(int formatVersion, String firstDate, int dayCount, i
     int checksum() {
       return Integer.parseUnsignedInt(crc32c, 16);
     }
+  }
+
+  /**
+   * Item-days the store holds that were not read as a count from the input.
+   *
+   * @param zeroFilledItemDays item-days with no row in long sales, read as zero ({@code --missing-rows zero})
+   * @param unknownItemDays item-days whose units are unknown (an empty cell, no row under
+   *     {@code --missing-rows unknown}, days before a series' first row or after it left the file)
+   * @param closedItemDays item-days declared closed, counted apart from the unknown ones
+   */
+  public record Fill(long zeroFilledItemDays, long unknownItemDays, long closedItemDays) {
+    public static final Fill NONE = new Fill(0, 0, 0);
   }
 
   public StoreManifest {

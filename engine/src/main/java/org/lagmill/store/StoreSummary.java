@@ -18,11 +18,14 @@ import java.util.Map;
  * @param sourceCsvBytes bytes of the source files the store was built from
  * @param unknownDayCount item-days with unknown units
  * @param zeroDayShare share of known item-days with zero units, 0 when none are known
+ * @param fill the manifest's fill counts (zero-filled, unknown, closed item-days), null for a store written before
+ *     they were recorded
  */
 public record StoreSummary(int seriesCount, LocalDate firstDate, LocalDate lastDate, int dayCount,
     Map<String, Integer> attributeCardinalities, Map<String, Long> seriesCountByWidth, long diskBytes,
     long offHeapBytes, long unitsFileBytes, double unitsBytesPerItemDay, double storeBytesPerItemDay,
-    long int64ColumnBytes, long sourceCsvBytes, long unknownDayCount, double zeroDayShare, String fingerprint) {
+    long int64ColumnBytes, long sourceCsvBytes, long unknownDayCount, double zeroDayShare, String fingerprint,
+    StoreManifest.Fill fill) {
 
   /** Computes the summary; reads every units value once (for the zero share). */
   public static StoreSummary of(SalesStore store) {
@@ -54,7 +57,8 @@ public record StoreSummary(int seriesCount, LocalDate firstDate, LocalDate lastD
         cardinalities, byWidth, store.diskBytes(), store.offHeapBytes(), unitsFileBytes,
         itemDays == 0 ? 0 : (double) unitsFileBytes / itemDays, itemDays == 0 ? 0 : (double) store.diskBytes() / itemDays,
         itemDays * Long.BYTES, store.manifest().sourceBytes(), unknownDays,
-        knownDays == 0 ? 0 : (double) zeroDays / knownDays, store.fingerprint());
+        knownDays == 0 ? 0 : (double) zeroDays / knownDays, store.fingerprint(),
+        store.manifest().fill());
   }
 
   /** The summary as plain JSON-ready values (dates as ISO text), in field order. */
@@ -76,6 +80,7 @@ public record StoreSummary(int seriesCount, LocalDate firstDate, LocalDate lastD
     map.put("unknownDayCount", unknownDayCount);
     map.put("zeroDayShare", zeroDayShare);
     map.put("fingerprint", fingerprint);
+    map.put("fill", fill);
     return map;
   }
 }

@@ -34,6 +34,8 @@ public final class StoreWriter implements AutoCloseable {
   private final IntArrayList firstSaleDays = new IntArrayList();
   private final IntArrayList maxUnits = new IntArrayList();
   private final List<StoreManifest.StoreFile> files = new ArrayList<>();
+  private long unknownItemDays;
+  private long zeroFilledItemDays;
   private boolean seriesSealed;
   private boolean pricesWritten;
   private boolean calendarWritten;
@@ -104,6 +106,7 @@ public final class StoreWriter implements AutoCloseable {
       if (u > 0 && firstSale < 0) {
         firstSale = d;
       }
+      unknownItemDays += u == SalesHistory.UNKNOWN_UNITS ? 1 : 0;
       max = Math.max(max, u);
     }
     UnitsWidth width = UnitsWidth.forMaxValue(max);
@@ -152,6 +155,18 @@ public final class StoreWriter implements AutoCloseable {
       }
       d += n;
     }
+  }
+
+  /**
+   * Records item-days the reader filled with zero (days with no row in long sales); the manifest's {@code fill}
+   * reports the total.
+   */
+  public void addZeroFilledItemDays(long itemDays) {
+    checkWritable();
+    if (itemDays < 0) {
+      throw new IllegalArgumentException("itemDays must be >= 0, got " + itemDays);
+    }
+    zeroFilledItemDays += itemDays;
   }
 
   /** Writes the price change points of every series added (by series index); call after the last series. */
@@ -209,7 +224,8 @@ public final class StoreWriter implements AutoCloseable {
       attributeNames.add(attributes.attributeName(a));
     }
     StoreManifest manifest = new StoreManifest(StoreFileFormat.FORMAT_VERSION_CURRENT, firstDate.toString(), dayCount,
-        seriesCount(), attributeNames, sources, ordered, StoreManifest.fingerprintOf(ordered));
+        seriesCount(), attributeNames, sources, ordered, StoreManifest.fingerprintOf(ordered),
+        new StoreManifest.Fill(zeroFilledItemDays, unknownItemDays, 0));
     manifest.write(dir);
     finished = true;
     close();

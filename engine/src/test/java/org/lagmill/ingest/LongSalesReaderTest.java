@@ -28,6 +28,7 @@ class LongSalesReaderTest {
   private static final class Collected implements SeriesSink {
     final Map<String, int[]> unitsBySeries = new LinkedHashMap<>();
     LongSalesHeader begun;
+    long zeroFilledItemDays;
 
     @Override public void begin(LongSalesHeader header) { begun = header; }
 
@@ -38,10 +39,15 @@ class LongSalesReaderTest {
   }
 
   private Collected read(Path file) {
+    return read(file, MissingRows.UNKNOWN);
+  }
+
+  private Collected read(Path file, MissingRows missingRows) {
     Collected sink = new Collected();
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-      LongSalesHeader header = LongSalesReader.read(file, "date", "units", budget, sink);
-      assertEquals(header, sink.begun);
+      LongSalesRead read = LongSalesReader.read(file, "date", "units", missingRows, budget, sink);
+      assertEquals(read.header(), sink.begun);
+      sink.zeroFilledItemDays = read.zeroFilledItemDays();
     }
     return sink;
   }
@@ -59,6 +65,32 @@ class LongSalesReaderTest {
     assertArrayEquals(new int[] {0, U, U, U}, c.unitsBySeries.get("tea_tin/north_1"));
   }
 
+  /**
+   * Hand-worked: under the zero policy a day with no row from the series' first row on is zero; days before its first
+   * row and rows with an empty units cell stay unknown. oat_bar: rows on days 1 and 3 (0-based 0 and 2), no row on
+   * day 2 and 4; tea_tin: first row on day 2, an empty cell on day 4. Filled: oat_bar days 2 and 4, tea_tin day 3.
+   */
+  @Test
+  void shouldReadDaysWithNoRowAsZeroFromEachSeriesFirstRow() {
+    Collected c = read(IngestFiles.write(dir, "s.csv", "item,store,date,units\n"
+        + "oat_bar,north_1,2024-03-03,5\n"
+        + "tea_tin,north_1,2024-03-02,1\n"
+        + "oat_bar,north_1,2024-03-01,2\n"
+        + "tea_tin,north_1,2024-03-04,\n"), MissingRows.ZERO);
+    assertArrayEquals(new int[] {2, 0, 5, 0}, c.unitsBySeries.get("oat_bar/north_1"));
+    assertArrayEquals(new int[] {U, 1, 0, U}, c.unitsBySeries.get("tea_tin/north_1"));
+    assertEquals(3, c.zeroFilledItemDays);
+  }
+
+  @Test
+  void shouldNameTheMissingRowsPolicies() {
+    assertEquals(MissingRows.ZERO, MissingRows.parse("Zero"));
+    assertEquals(MissingRows.UNKNOWN, MissingRows.parse("unknown"));
+    assertEquals("--missing-rows must be one of zero, unknown, got 'none'; zero (the default) reads a day with no "
+        + "row as no sale", assertThrows(IllegalArgumentException.class, () -> MissingRows.parse("none"))
+        .getMessage());
+  }
+
   @Test
   void shouldNameSeriesBySeriesIdAndCheckItsAttributes() {
     Collected c = read(IngestFiles.write(dir, "s.csv", "series_id,item,date,units\na,oat_bar,2024-03-01,1\n"
@@ -72,7 +104,7 @@ class LongSalesReaderTest {
     Path file = IngestFiles.write(dir, "bad.csv", text);
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       return assertThrows(InputFormatException.class,
-          () -> LongSalesReader.read(file, "date", "units", budget, new Collected())).getMessage()
+          () -> LongSalesReader.read(file, "date", "units", MissingRows.ZERO, budget, new Collected())).getMessage()
           .replace(file.toString(), "F");
     }
   }

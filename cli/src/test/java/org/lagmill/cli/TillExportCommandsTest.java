@@ -1,0 +1,55 @@
+package org.lagmill.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/** A sparse till export with its own column names, through the command line as a user would run it. */
+class TillExportCommandsTest {
+  /** Two skus in one shop; no rows for days without a sale. sku A: days 1, 4; sku B: days 2, 4. */
+  private static final String SPARSE = "sku,shop,dept,date,units\n"
+      + "A,s1,D1,2025-01-01,2\nA,s1,D1,2025-01-04,1\nB,s1,D1,2025-01-02,3\nB,s1,D1,2025-01-04,5\n";
+
+  @TempDir Path temp;
+
+  @Test
+  void shouldSayHowManyDaysItFilledOnTheConsoleInRunJsonAndInInspect() throws Exception {
+    Path sales = Files.writeString(temp.resolve("till.csv"), SPARSE);
+    Path store = temp.resolve("store");
+    MainRun ingest = MainRun.of("ingest", "--sales", sales.toString(), "--store", store.toString());
+    assertEquals(0, ingest.exitCode(), ingest.err());
+    // A: days 2, 3 zero; B: day 3 zero, day 1 (before its first row) unknown.
+    assertEquals("warning: read 3 item-days with no row in the long sales as zero sales (--missing-rows zero, the "
+        + "default: till exports leave out days with no sale); give --missing-rows unknown if a missing row means "
+        + "not known\n", ingest.err());
+    assertTrue(ingest.out().contains("item-days filled with zero 3, unknown 1, closed 0\n"), ingest.out());
+    JsonNode run = new ObjectMapper().readTree(store.resolve("run.json").toFile());
+    assertEquals("zero", run.get("configuration").get("missingRows").asText());
+    assertEquals(3, run.get("results").get("fill").get("zeroFilledItemDays").asLong());
+    assertEquals(1, run.get("results").get("fill").get("unknownItemDays").asLong());
+
+    MainRun json = MainRun.of("inspect", "--store", store.toString(), "--json");
+    assertEquals(0, json.exitCode(), json.err());
+    assertEquals(3, new ObjectMapper().readTree(json.out()).get("fill").get("zeroFilledItemDays").asLong());
+    MainRun text = MainRun.of("inspect", "--store", store.toString());
+    assertTrue(text.out().contains("filled                3 item-days with zero (no row in long sales), 1 unknown, "
+        + "0 closed\n"), text.out());
+
+    MainRun unknown = MainRun.of("ingest", "--sales", sales.toString(), "--store", temp.resolve("u").toString(),
+        "--missing-rows", "unknown");
+    assertEquals(0, unknown.exitCode(), unknown.err());
+    assertEquals("warning: 4 of 8 item-days (50.0 %) are unknown and are left out of training and scores; if they "
+        + "are days with no sale, give long sales with --missing-rows zero (the default) or write 0 in wide sales\n",
+        unknown.err());
+    MainRun bad = MainRun.of("ingest", "--sales", sales.toString(), "--store", temp.resolve("b").toString(),
+        "--missing-rows", "none");
+    assertEquals(ExitCodes.USAGE_ERROR, bad.exitCode());
+    assertTrue(bad.err().contains("--missing-rows must be one of zero, unknown, got 'none'"), bad.err());
+  }
+}
