@@ -18,10 +18,16 @@ public enum BaselineKind {
   /** Croston's method, alpha {@link BaselineKernels#CROSTON_ALPHA} for sizes and intervals. */
   CROSTON,
   /** Croston with the Syntetos–Boylan bias correction (1 − alpha/2). */
-  SBA;
+  SBA,
+  /**
+   * Exponential smoothing with trend and season (ETS), the form (additive or multiplicative season, trend, damped
+   * trend) chosen per series by AICc and fitted by maximum likelihood; see {@link EtsFitter}.
+   */
+  ETS;
 
   /**
-   * Writes {@code horizon} forecasts for days {@code originDay ..} into {@code dst[dstOffset ..]}; allocates nothing.
+   * Writes {@code horizon} forecasts for days {@code originDay ..} into {@code dst[dstOffset ..]}; allocates nothing
+   * (except {@link #ETS}, which builds its fitter's scratch; {@link BaselineForecaster} reuses one per run).
    *
    * @param units daily units from day 0, at least {@code originDay} long; negative values are unknown days
    * @param firstUsableDay first day the kernel may read, {@code 0 .. originDay}
@@ -42,6 +48,8 @@ public enum BaselineKind {
       case SES -> BaselineKernels.ses(units, firstUsableDay, originDay, horizon, dst, dstOffset);
       case CROSTON -> BaselineKernels.croston(units, firstUsableDay, originDay, horizon, dst, dstOffset, false);
       case SBA -> BaselineKernels.croston(units, firstUsableDay, originDay, horizon, dst, dstOffset, true);
+      case ETS -> new EtsFitter(BaselineKernels.SEASON_DAYS).forecastUnits(units, firstUsableDay, originDay, horizon,
+          dst, dstOffset);
     }
   }
 
