@@ -22,7 +22,8 @@ import picocli.CommandLine.Spec;
 @Command(name = "backtest", header = "Score the model against baselines over rolling forecast origins.", mixinStandardHelpOptions = true,
     description = {"Rolling-origin backtest: for each origin, train only on the days before it, forecast the horizon",
         "as in production and score WRMSSE per level beside naive, seasonal naive, moving average, exponential",
-        "smoothing and Croston baselines on the same days."},
+        "smoothing, Croston and ETS (exponential smoothing with trend and season, chosen per series) baselines on",
+        "the same days."},
     footer = {"", "Example:", "  lagmill backtest --store stores/chain --origins 3 --step 28 --report runs/bt1"})
 final class BacktestCommand implements Callable<Integer> {
   @Spec CommandSpec commandSpec;

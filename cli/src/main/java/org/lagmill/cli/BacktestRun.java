@@ -23,7 +23,7 @@ import org.lagmill.store.SalesHistory;
 /** Runs a backtest and turns it into console lines and report sections; shared by {@code backtest} and {@code demo}. */
 final class BacktestRun {
   static final List<BaselineKind> DEFAULT_BASELINES = List.of(BaselineKind.NAIVE, BaselineKind.SEASONAL_NAIVE,
-      BaselineKind.MOVING_AVERAGE, BaselineKind.SES, BaselineKind.CROSTON, BaselineKind.SBA);
+      BaselineKind.MOVING_AVERAGE, BaselineKind.SES, BaselineKind.CROSTON, BaselineKind.SBA, BaselineKind.ETS);
 
   final BacktestResult result;
   final int lastOriginDayIndex;
@@ -91,9 +91,9 @@ final class BacktestRun {
       mean.append(String.format(Locale.ROOT, " %22.4f", baseline.getValue()));
     }
     out.println(mean);
-    out.printf(Locale.ROOT, "model WRMSSE %.4f ± %.4f over %d origins; skill against seasonal naive %.3f (model / "
-        + "seasonal naive, lower is better)%n", result.meanModelWrmsse(), result.stdModelWrmsse(),
-        result.origins().size(), result.skillRatioAgainstSeasonalNaive());
+    out.printf(Locale.ROOT, "model WRMSSE %.4f ± %.4f over %d origins; skill against seasonal naive %.3f, against "
+        + "ETS %.3f (model / baseline, lower is better)%n", result.meanModelWrmsse(), result.stdModelWrmsse(),
+        result.origins().size(), result.skillRatioAgainstSeasonalNaive(), result.skillRatioAgainst(BaselineKind.ETS));
     if (result.meanModelWspl() != null) {
       out.printf(Locale.ROOT, "interval WSPL %.4f (negative binomial, estimated dispersion) vs %.4f (Poisson)%n",
           result.meanModelWspl(), result.meanPoissonWspl());

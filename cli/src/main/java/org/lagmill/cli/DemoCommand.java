@@ -188,8 +188,8 @@ final class DemoCommand implements Callable<Integer> {
         backtestMean, withheld.originDate(), withheld.model().wrmsse());
     result.meanBaselineWrmsse().forEach((name, value) -> out.printf(Locale.ROOT, "  %-22s %.4f%n",
         ReportAssembler.label(name), value));
-    out.printf(Locale.ROOT, "  skill vs seasonal naive %.3f (model / seasonal naive)%n",
-        result.skillRatioAgainstSeasonalNaive());
+    out.printf(Locale.ROOT, "  skill vs seasonal naive %.3f (model / seasonal naive), vs ETS %.3f (model / ETS)%n",
+        result.skillRatioAgainstSeasonalNaive(), result.skillRatioAgainst(org.lagmill.eval.BaselineKind.ETS));
     if (result.meanModelWspl() != null) {
       out.printf(Locale.ROOT, "  interval WSPL %.4f (Poisson intervals would score %.4f)%n", result.meanModelWspl(),
           result.meanPoissonWspl());

@@ -82,7 +82,8 @@ final class EvaluateCommand implements Callable<Integer> {
       out.printf(Locale.ROOT, "WRMSSE %.4f%s%n", result.wrmsse(), result.wspl() == null ? ""
           : String.format(Locale.ROOT, ", WSPL %.4f (aggregate quantiles summed from the series' quantiles)",
               result.wspl()));
-      baselines.forEach((name, value) -> out.printf(Locale.ROOT, "  baseline %-24s WRMSSE %.4f%n", name, value));
+      baselines.forEach((name, value) -> out.printf(Locale.ROOT, "  baseline %-24s WRMSSE %.4f  (model / baseline %.3f)%n",
+          name, value, result.wrmsse() / value));
     }
     return ExitCodes.OK;
   }

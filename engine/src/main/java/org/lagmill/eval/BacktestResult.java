@@ -23,7 +23,15 @@ public record BacktestResult(List<OriginResult> origins, double meanModelWrmsse,
 
   /** The model's mean WRMSSE over origins divided by seasonal naive's: below 1 means the model beats it. */
   public double skillRatioAgainstSeasonalNaive() {
-    Double reference = meanBaselineWrmsse.get(BaselineKind.SEASONAL_NAIVE.name());
+    return skillRatioAgainst(BaselineKind.SEASONAL_NAIVE);
+  }
+
+  /**
+   * The model's mean WRMSSE over origins divided by a baseline's (below 1 the model beats it), or NaN when that
+   * baseline was not scored or scored 0.
+   */
+  public double skillRatioAgainst(BaselineKind baseline) {
+    Double reference = meanBaselineWrmsse.get(baseline.name());
     return reference == null || reference == 0 ? Double.NaN : meanModelWrmsse / reference;
   }
 }

@@ -72,6 +72,8 @@ final class ModelSections {
         + "trees leaned on, not cause and effect.");
   }
 
+  private static final String ETS_LABEL = ReportAssembler.label(org.lagmill.eval.BaselineKind.ETS.name());
+
   static String accuracy(AccuracySummary a) {
     if (a == null) {
       return Html.section("accuracy", "Accuracy", Html.absent("No accuracy evaluation was run for this report.")
@@ -79,12 +81,17 @@ final class ModelSections {
     }
     List<String> baselines = a.baselineNames();
     String ref = a.referenceBaseline();
+    // The strongest statistical benchmark gets its own ratio column beside the reference's.
+    String ets = baselines.contains(ETS_LABEL) && !ETS_LABEL.equals(ref) ? ETS_LABEL : null;
     StringBuilder b = new StringBuilder();
     b.append(headline(a));
     List<String> headers = new ArrayList<>(List.of("level", "series", "model"));
     baselines.forEach(headers::add);
     if (ref != null) {
       headers.add("model \u00f7 " + ref);
+    }
+    if (ets != null) {
+      headers.add("model \u00f7 " + ets);
     }
     boolean[] numeric = new boolean[headers.size()];
     java.util.Arrays.fill(numeric, 1, numeric.length, true);
@@ -96,6 +103,9 @@ final class ModelSections {
       if (ref != null) {
         row.add(ReportFormat.score(ratio(l.modelRmsse(), l.baselineRmsse().get(ref))));
       }
+      if (ets != null) {
+        row.add(ReportFormat.score(ratio(l.modelRmsse(), l.baselineRmsse().get(ets))));
+      }
       levels.row(row);
     }
     List<String> total = new ArrayList<>(List.of("WRMSSE (all levels)", ""));
@@ -103,12 +113,18 @@ final class ModelSections {
     if (ref != null) {
       total.add(ReportFormat.score(a.skillRatio()));
     }
+    if (ets != null) {
+      total.add(ReportFormat.score(ratio(a.modelWrmsse(), a.baselineWrmsse().get(ets))));
+    }
     levels.footerRow(total);
     if (a.modelWspl() != null) {
       List<String> wspl = new ArrayList<>(List.of("WSPL (quantiles)", ""));
       addScores(wspl, a.modelWspl(), a.baselineWspl(), baselines);
       if (ref != null) {
         wspl.add(ReportFormat.score(ratio(a.modelWspl(), a.baselineWspl().get(ref))));
+      }
+      if (ets != null) {
+        wspl.add(ReportFormat.score(ratio(a.modelWspl(), a.baselineWspl().get(ets))));
       }
       levels.footerRow(wspl);
     }
@@ -131,7 +147,14 @@ final class ModelSections {
         text.append(String.format(Locale.ROOT, "; the model's error is %.1f%% %s the %s's", change,
             ratio <= 1 ? "below" : "above", ref));
       }
-      text.append(").");
+      text.append(")");
+      Double etsScore = a.baselineWrmsse().get(ETS_LABEL);
+      if (etsScore != null && !ETS_LABEL.equals(ref)) {
+        text.append("; ETS (exponential smoothing with trend and season, chosen per series) ")
+            .append(ReportFormat.score(etsScore)).append(": ratio model \u00f7 ETS = ")
+            .append(ReportFormat.score(ratio(a.modelWrmsse(), etsScore)));
+      }
+      text.append('.');
     } else {
       text.append(". No seasonal naive baseline was scored, so there is no skill ratio.");
     }

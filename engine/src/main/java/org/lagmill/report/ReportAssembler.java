@@ -119,6 +119,7 @@ public final class ReportAssembler {
       case "SES" -> "exponential smoothing";
       case "SBA" -> "Croston (SBA)";
       case "CROSTON" -> "Croston";
+      case "ETS" -> "ETS";
       default -> baselineKind.toLowerCase(java.util.Locale.ROOT).replace('_', ' ');
     };
   }

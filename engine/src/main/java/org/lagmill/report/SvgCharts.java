@@ -25,10 +25,11 @@ public final class SvgCharts {
   static final String AXIS_COLOUR = "#888888";
   static final String TEXT_COLOUR = "#333333";
 
-  // Six distinct colours and dashes, one per default baseline, so no two baselines look alike on screen or in print.
+  // Seven distinct colours and dashes, one per default baseline, so no two baselines look alike on screen or in print.
   private static final List<String> BASELINE_COLOURS = List.of("#d55e00", "#009e73", "#cc79a7", "#e69f00",
-      "#56b4e9", "#7a7a7a");
-  private static final List<String> BASELINE_DASHES = List.of("7 4", "2 3", "9 3 2 3", "4 4", "1 4", "6 2 1 2");
+      "#56b4e9", "#7a7a7a", "#5b3a8c");
+  private static final List<String> BASELINE_DASHES = List.of("7 4", "2 3", "9 3 2 3", "4 4", "1 4", "6 2 1 2",
+      "12 3");
 
   private SvgCharts() {}
 
