@@ -15,7 +15,7 @@ import org.lagmill.store.StoreDirectories;
 /**
  * The training footprint harness: for each size, generates an invented scenario, ingests it, then measures in fresh
  * JVMs the streamed route, LightGBM's floor for the same rows and the whole-matrix route (see {@link FootprintProbe}),
- * plus {@code lagmill train} with and without {@code --partition-by store} at one size. Prints markdown tables.
+ * plus {@code lagmill train} with and without {@code --partition-by outlet} at one size. Prints markdown tables.
  *
  * <p>Usage: {@code FootprintHarness [--sizes 1000x1000,10000x1000,20000x2500] [--rounds 10] [--threads 2]
  * [--xmx 1g] [--partition-size 10000x1000] [--matrix-limit-bytes 18000000000] [--work DIR] [--cli-jar PATH]
@@ -151,10 +151,10 @@ public final class FootprintHarness {
         folder.resolve("model-all").toString()));
     whole.addAll(common);
     MeasuredProcess.Result unpartitioned = lagmill(size + "-train", whole.toArray(String[]::new));
-    List<String> byStore = new ArrayList<>(List.of("train", "--store", store.toString(), "--model",
-        folder.resolve("model-by-store").toString(), "--partition-by", "store"));
-    byStore.addAll(common);
-    MeasuredProcess.Result partitioned = lagmill(size + "-train-by-store", byStore.toArray(String[]::new));
+    List<String> byOutlet = new ArrayList<>(List.of("train", "--store", store.toString(), "--model",
+        folder.resolve("model-by-outlet").toString(), "--partition-by", "outlet"));
+    byOutlet.addAll(common);
+    MeasuredProcess.Result partitioned = lagmill(size + "-train-by-outlet", byOutlet.toArray(String[]::new));
     List<Long> allRows = datasetRows(unpartitioned.logFile());
     List<Long> partitionRows = datasetRows(partitioned.logFile());
     return new FootprintTable.PartitionResult(unpartitioned.peakResidentBytes(), partitioned.peakResidentBytes(),

@@ -19,7 +19,7 @@ final class FootprintTable {
     }
   }
 
-  /** {@code lagmill train} without and with {@code --partition-by store} on the same store. */
+  /** {@code lagmill train} without and with {@code --partition-by outlet} on the same store. */
   record PartitionResult(long unpartitionedPeakBytes, long partitionedPeakBytes, long allRowCount,
       long largestPartitionRowCount, int partitionCount) {}
 
@@ -70,7 +70,7 @@ final class FootprintTable {
     boolean anyPartition = sizes.stream().anyMatch(s -> s.partition() != null);
     if (anyPartition) {
       out.append('\n');
-      out.append("| item-days | `lagmill train` peak MB | `--partition-by store` peak MB | partitions "
+      out.append("| item-days | `lagmill train` peak MB | `--partition-by outlet` peak MB | partitions "
           + "| training rows (all) | training rows (largest partition) | partitioned / unpartitioned |\n");
       out.append("|---|---|---|---|---|---|---|\n");
       for (SizeResult size : sizes) {

@@ -1,117 +1,169 @@
 package org.lagmill.scenario;
 
 import java.io.IOException;
+import java.nio.charset.StandardCharsets;
 
 /**
- * The invented chain "Larkspur Provisions": three regions, a store count that grows with the series count, three
- * categories with seven departments, and items laid out item-major so series {@code s} is item
- * {@code s / storeCount()} in store {@code s % storeCount()}. Ids are written straight to a writer, so no per-item
- * string is ever held.
+ * The invented chain "Marrowgate &amp; Tillbox": outlets that each belong to one of two banners, have one of three
+ * formats and lie in one of three school districts (three attributes that cross, none nested in another), and
+ * articles with opaque codes grouped in families, each family in one section. Series are laid out article-major:
+ * series {@code s} is article {@code s / outletCount()} in outlet {@code s % outletCount()}. Ids are written straight
+ * to a writer, so no per-article string is ever held.
+ *
+ * <p>Outlet traits come from a fixed table whose first four rows already cross every pair of store attributes, so
+ * even the smallest scenario has no accidental nesting among banner, format and district.
  */
 final class ChainLayout {
-  static final String CHAIN_NAME = "Larkspur Provisions";
-  static final String[] REGION_NAMES = {"Northvale", "Saltmarsh", "Highmoor"};
-  static final String[] REGION_CODES = {"NV", "SM", "HM"};
-  static final String[] CATEGORY_NAMES = {"Pantry", "Household", "Leisure"};
-  static final String[] CATEGORY_CODES = {"PNT", "HSH", "LSR"};
-  /** Category of each department; a department's id is its category code and {@code -D} plus its number there. */
-  static final int[] DEPARTMENT_CATEGORY = {0, 0, 0, 1, 1, 2, 2};
-  static final int[] DEPARTMENT_NUMBER = {1, 2, 3, 1, 2, 1, 2};
-  static final int MIN_STORE_COUNT = 3;
-  static final int MAX_STORE_COUNT = 10;
-  /** Series per store before another store opens; 3000 series and more get every store. */
-  static final int SERIES_PER_STORE_STEP = 300;
-  private static final int MIN_ITEM_DIGITS = 4;
+  static final String CHAIN_NAME = "Marrowgate & Tillbox";
+  static final String[] BANNER_NAMES = {"Marrowgate", "Tillbox"};
+  static final String[] FORMAT_NAMES = {"superstore", "neighbourhood", "kiosk"};
+  static final String[] DISTRICT_NAMES = {"Ferncombe", "Lowbridge", "Quarrytown"};
+  static final int SUPERSTORE = 0;
+  static final int KIOSK = 2;
+  /** Outlet codes: a letter and a number that encodes nothing. */
+  static final int[] OUTLET_NUMBER = {104, 117, 121, 138, 142, 156, 163, 179, 185, 190, 207, 212};
+  static final int[] OUTLET_BANNER = {0, 1, 0, 1, 0, 1, 0, 1, 0, 1, 0, 1};
+  static final int[] OUTLET_FORMAT = {0, 0, 2, 1, 1, 2, 0, 1, 2, 0, 1, 2};
+  static final int[] OUTLET_DISTRICT = {0, 1, 1, 0, 2, 2, 1, 1, 0, 2, 0, 1};
+  static final String[] SECTION_NAMES = {"Chilled", "Grocery", "Drinks", "Homecare", "Garden"};
+  static final String[] FAMILY_NAMES = {"Dairy", "Cheese", "Meals", "Cereal", "Baking", "Snacks", "Tins", "Soda",
+      "Juice", "Laundry", "Cleaning", "Paper", "Seeds", "Tools"};
+  /** Section of each family: sections hold two to four families. */
+  static final int[] FAMILY_SECTION = {0, 0, 0, 1, 1, 1, 1, 2, 2, 3, 3, 3, 4, 4};
+  /** Relative share of articles per family. */
+  static final int[] FAMILY_WEIGHT = {8, 5, 6, 7, 6, 10, 7, 8, 5, 6, 8, 5, 4, 5};
+  static final int MIN_OUTLET_COUNT = 4;
+  static final int MAX_OUTLET_COUNT = OUTLET_NUMBER.length;
+  /** Series per outlet before another outlet opens; 3000 series and more get every outlet. */
+  static final int SERIES_PER_OUTLET_STEP = 250;
+  static final String SALES_HEADER_PREFIX = "series_id,article,family,section,outlet,banner,format,district";
+  /** Cells before the first unit count in a sales row. */
+  static final int SALES_KEY_CELLS = 8;
+  /** Crockford's base-32 digits: no I, L, O or U, so codes read unambiguously. */
+  private static final byte[] CODE_DIGITS = "0123456789ABCDEFGHJKMNPQRSTVWXYZ".getBytes(StandardCharsets.US_ASCII);
+  static final int CODE_LENGTH = 5;
+  static final long CODE_SPACE = 1L << (5 * CODE_LENGTH);
+  private static final long CODE_MASK = CODE_SPACE - 1;
 
   private final int seriesCount;
-  private final int storeCount;
-  private final int itemCount;
-  private final int itemDigitCount;
+  private final int outletCount;
+  private final int articleCount;
 
   ChainLayout(int seriesCount) {
     this.seriesCount = seriesCount;
-    int wanted = (int) ((seriesCount + (long) SERIES_PER_STORE_STEP - 1) / SERIES_PER_STORE_STEP);
-    this.storeCount = Math.max(MIN_STORE_COUNT, Math.min(MAX_STORE_COUNT, wanted));
-    this.itemCount = (int) ((seriesCount + (long) storeCount - 1) / storeCount);
-    int largestItemNumber = (itemCount - 1) / DEPARTMENT_CATEGORY.length + 1;
-    this.itemDigitCount = Math.max(MIN_ITEM_DIGITS, AsciiWriter.digitCount(largestItemNumber));
+    int wanted = (int) ((seriesCount + (long) SERIES_PER_OUTLET_STEP - 1) / SERIES_PER_OUTLET_STEP);
+    this.outletCount = Math.max(MIN_OUTLET_COUNT, Math.min(MAX_OUTLET_COUNT, wanted));
+    this.articleCount = (int) ((seriesCount + (long) outletCount - 1) / outletCount);
+    assert articleCount <= CODE_SPACE : articleCount;
   }
 
   int seriesCount() {
     return seriesCount;
   }
 
-  int storeCount() {
-    return storeCount;
+  int outletCount() {
+    return outletCount;
   }
 
-  int itemCount() {
-    return itemCount;
+  int articleCount() {
+    return articleCount;
   }
 
-  int regionCount() {
-    return REGION_NAMES.length;
+  int articleIndex(int seriesIndex) {
+    return seriesIndex / outletCount;
   }
 
-  int itemIndex(int seriesIndex) {
-    return seriesIndex / storeCount;
+  int outletIndex(int seriesIndex) {
+    return seriesIndex % outletCount;
   }
 
-  int storeIndex(int seriesIndex) {
-    return seriesIndex % storeCount;
+  /** Number of outlets that sell an article: all of them, except possibly for the last article. */
+  int outletCountOf(int articleIndex) {
+    return (int) Math.min(outletCount, seriesCount - (long) articleIndex * outletCount);
   }
 
-  int regionIndex(int storeIndex) {
-    return storeIndex % REGION_NAMES.length;
+  static int bannerIndex(int outletIndex) {
+    return OUTLET_BANNER[outletIndex];
   }
 
-  int departmentIndex(int itemIndex) {
-    return itemIndex % DEPARTMENT_CATEGORY.length;
+  static int formatIndex(int outletIndex) {
+    return OUTLET_FORMAT[outletIndex];
   }
 
-  int categoryIndex(int itemIndex) {
-    return DEPARTMENT_CATEGORY[departmentIndex(itemIndex)];
+  static int districtIndex(int outletIndex) {
+    return OUTLET_DISTRICT[outletIndex];
   }
 
-  /** Writes an item id such as {@code PNT-D2-0041}. */
-  void writeItemId(AsciiWriter out, int itemIndex) throws IOException {
-    writeDepartmentId(out, departmentIndex(itemIndex));
-    out.writeByte('-');
-    out.writeZeroPadded(itemIndex / DEPARTMENT_CATEGORY.length + 1, itemDigitCount);
+  /** Whether any of the first {@code outletCount} outlets lies in the district. */
+  boolean hasDistrict(int districtIndex) {
+    for (int outlet = 0; outlet < outletCount; outlet++) {
+      if (OUTLET_DISTRICT[outlet] == districtIndex) {
+        return true;
+      }
+    }
+    return false;
   }
 
-  /** Writes a department id such as {@code PNT-D2}. */
-  void writeDepartmentId(AsciiWriter out, int departmentIndex) throws IOException {
-    out.writeAscii(CATEGORY_CODES[DEPARTMENT_CATEGORY[departmentIndex]]);
-    out.writeByte('-');
-    out.writeByte('D');
-    out.writeInt(DEPARTMENT_NUMBER[departmentIndex]);
+  /** Whether an article is sold in at least one outlet of the banner. */
+  boolean sellsInBanner(int articleIndex, int bannerIndex) {
+    int count = outletCountOf(articleIndex);
+    for (int outlet = 0; outlet < count; outlet++) {
+      if (OUTLET_BANNER[outlet] == bannerIndex) {
+        return true;
+      }
+    }
+    return false;
   }
 
-  /** Writes a store id such as {@code NV-03}: region code and the store's number within its region. */
-  void writeStoreId(AsciiWriter out, int storeIndex) throws IOException {
-    out.writeAscii(REGION_CODES[regionIndex(storeIndex)]);
-    out.writeByte('-');
-    out.writeZeroPadded(storeIndex / REGION_NAMES.length + 1, 2);
+  /**
+   * The article code's number: a scramble of the index within 25 bits, so neighbouring articles get unrelated codes.
+   * Each step (multiplying by an odd number, adding, xor with a right shift, all modulo 2^25) is a bijection, so
+   * codes never collide.
+   */
+  static long articleCode(int articleIndex) {
+    long x = (articleIndex * 0x1C69B3F5L + 0x0A5B1D3L) & CODE_MASK;
+    x ^= x >>> 13;
+    x = (x * 0x2E5BF271L) & CODE_MASK;
+    x ^= x >>> 11;
+    x = (x * 0x19E3779BL + 0x1234567L) & CODE_MASK;
+    return x ^ (x >>> 12);
   }
 
-  /** Writes the six leading cells of a sales row (series_id .. region), each followed by a comma. */
-  void writeSeriesCells(AsciiWriter out, int seriesIndex) throws IOException {
-    int itemIndex = itemIndex(seriesIndex);
-    int storeIndex = storeIndex(seriesIndex);
-    writeItemId(out, itemIndex);
-    out.writeByte('@');
-    writeStoreId(out, storeIndex);
+  /** Writes an article code such as {@code 7QK2M}: five base-32 digits that carry no grouping. */
+  static void writeArticleCode(AsciiWriter out, int articleIndex) throws IOException {
+    long code = articleCode(articleIndex);
+    for (int shift = 5 * (CODE_LENGTH - 1); shift >= 0; shift -= 5) {
+      out.writeByte(CODE_DIGITS[(int) ((code >>> shift) & 31)]);
+    }
+  }
+
+  /** Writes an outlet code such as {@code L138}. */
+  static void writeOutletCode(AsciiWriter out, int outletIndex) throws IOException {
+    out.writeByte('L');
+    out.writeInt(OUTLET_NUMBER[outletIndex]);
+  }
+
+  /** Writes the leading cells of a sales row (series_id .. district), each followed by a comma. */
+  void writeSeriesCells(AsciiWriter out, int seriesIndex, int familyIndex) throws IOException {
+    int articleIndex = articleIndex(seriesIndex);
+    int outletIndex = outletIndex(seriesIndex);
+    writeArticleCode(out, articleIndex);
+    out.writeByte('/');
+    writeOutletCode(out, outletIndex);
     out.writeByte(',');
-    writeItemId(out, itemIndex);
+    writeArticleCode(out, articleIndex);
     out.writeByte(',');
-    writeDepartmentId(out, departmentIndex(itemIndex));
+    out.writeAscii(FAMILY_NAMES[familyIndex]);
     out.writeByte(',');
-    out.writeAscii(CATEGORY_NAMES[categoryIndex(itemIndex)]);
+    out.writeAscii(SECTION_NAMES[FAMILY_SECTION[familyIndex]]);
     out.writeByte(',');
-    writeStoreId(out, storeIndex);
+    writeOutletCode(out, outletIndex);
     out.writeByte(',');
-    out.writeAscii(REGION_NAMES[regionIndex(storeIndex)]);
+    out.writeAscii(BANNER_NAMES[OUTLET_BANNER[outletIndex]]);
+    out.writeByte(',');
+    out.writeAscii(FORMAT_NAMES[OUTLET_FORMAT[outletIndex]]);
+    out.writeByte(',');
+    out.writeAscii(DISTRICT_NAMES[OUTLET_DISTRICT[outletIndex]]);
     out.writeByte(',');
   }
 }

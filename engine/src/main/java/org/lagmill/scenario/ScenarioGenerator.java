@@ -14,9 +14,11 @@ import java.util.zip.Deflater;
 import java.util.zip.GZIPOutputStream;
 
 /**
- * Writes the invented scenario as three CSV files: {@code sales.csv} (wide: six attribute cells, then one unit count
- * per day), {@code calendar.csv} (events and per-region paydays through the future days) and {@code prices.csv} (price
- * change points). Series are generated and written one at a time, so memory stays flat whatever the series count.
+ * Writes the invented scenario as five CSV files: {@code sales.csv} (wide: eight attribute cells, then one unit count
+ * per period), {@code calendar.csv} (public holidays and per-district school breaks through the future days),
+ * {@code prices.csv} (price change points per article and banner; weekly output: one row per article-outlet-week),
+ * {@code plan.csv} (planned promotions per article and banner) and {@code closures.csv} (days outlets could not
+ * sell). Series are generated and written one at a time, so memory stays flat whatever the series count.
  *
  * <p>Each file is written under a temporary name in the output folder and renamed when complete, so a failed run
  * leaves no half-written file. Equal specs give byte-identical files: every series draws from its own stream seeded by
@@ -26,9 +28,9 @@ public final class ScenarioGenerator {
   public static final String SALES_FILE = "sales.csv";
   public static final String CALENDAR_FILE = "calendar.csv";
   public static final String PRICES_FILE = "prices.csv";
+  public static final String PLAN_FILE = "plan.csv";
+  public static final String CLOSURES_FILE = "closures.csv";
   public static final String GZIP_SUFFIX = ".gz";
-  static final String SALES_HEADER_PREFIX = "series_id,item,department,category,store,region";
-  static final String PRICES_HEADER = "item,store,from,price";
   private static final int GZIP_BUFFER_BYTES = 1 << 16;
 
   private ScenarioGenerator() {}
@@ -42,78 +44,122 @@ public final class ScenarioGenerator {
   public static ScenarioSummary write(ScenarioSpec spec, Path outDir) throws IOException {
     Files.createDirectories(outDir);
     String suffix = spec.gzip() ? GZIP_SUFFIX : "";
-    Path sales = outDir.resolve(SALES_FILE + suffix);
-    Path calendarFile = outDir.resolve(CALENDAR_FILE + suffix);
-    Path prices = outDir.resolve(PRICES_FILE + suffix);
+    List<String> names = List.of(SALES_FILE, CALENDAR_FILE, PRICES_FILE, PLAN_FILE, CLOSURES_FILE);
     ChainLayout layout = new ChainLayout(spec.seriesCount());
-    EventCalendar calendar = new EventCalendar(spec.startDate(), spec.calendarDayCount());
+    HolidayCalendar calendar = new HolidayCalendar(spec.startDate(), spec.calendarDayCount());
+    ClosureSchedule closures = new ClosureSchedule(layout, calendar, spec.dayCount());
+    boolean weekly = spec.periodDays() == ScenarioSpec.WEEKLY;
 
     List<Path> temporaries = new ArrayList<>();
+    List<Path> targets = new ArrayList<>();
     try {
-      Path calendarTemp = temporary(outDir, CALENDAR_FILE, temporaries);
-      try (AsciiWriter out = open(calendarTemp, spec.gzip())) {
-        calendar.write(out);
-      }
       Path salesTemp = temporary(outDir, SALES_FILE, temporaries);
+      Path calendarTemp = temporary(outDir, CALENDAR_FILE, temporaries);
       Path pricesTemp = temporary(outDir, PRICES_FILE, temporaries);
-      try (AsciiWriter salesOut = open(salesTemp, spec.gzip()); AsciiWriter pricesOut = open(pricesTemp, spec.gzip())) {
-        writeSeries(spec, layout, calendar, salesOut, pricesOut);
+      Path planTemp = temporary(outDir, PLAN_FILE, temporaries);
+      Path closuresTemp = temporary(outDir, CLOSURES_FILE, temporaries);
+      try (AsciiWriter out = open(calendarTemp, spec.gzip())) {
+        if (weekly) {
+          calendar.writeWeekly(out, layout);
+        } else {
+          calendar.writeDaily(out, layout);
+        }
       }
-      moveIntoPlace(salesTemp, sales);
-      moveIntoPlace(calendarTemp, calendarFile);
-      moveIntoPlace(pricesTemp, prices);
+      try (AsciiWriter out = open(closuresTemp, spec.gzip())) {
+        closures.write(out, calendar, weekly);
+      }
+      try (AsciiWriter salesOut = open(salesTemp, spec.gzip()); AsciiWriter pricesOut = open(pricesTemp, spec.gzip());
+          AsciiWriter planOut = open(planTemp, spec.gzip())) {
+        writeSeries(spec, layout, calendar, closures, salesOut, pricesOut, planOut);
+      }
+      for (int i = 0; i < names.size(); i++) {
+        Path target = outDir.resolve(names.get(i) + suffix);
+        moveIntoPlace(temporaries.get(i), target);
+        targets.add(target);
+      }
       temporaries.clear();
     } finally {
       for (Path temp : temporaries) {
         Files.deleteIfExists(temp);
       }
     }
-    long fileBytes = Files.size(sales) + Files.size(calendarFile) + Files.size(prices);
-    return new ScenarioSummary(List.of(sales, calendarFile, prices), spec.seriesCount(), spec.dayCount(),
-        spec.itemDayCount(), fileBytes);
+    long fileBytes = 0;
+    for (Path target : targets) {
+      fileBytes += Files.size(target);
+    }
+    return new ScenarioSummary(targets, spec.seriesCount(), spec.dayCount(), spec.periodDays(), spec.itemDayCount(),
+        fileBytes);
   }
 
-  private static void writeSeries(ScenarioSpec spec, ChainLayout layout, EventCalendar calendar, AsciiWriter salesOut,
-      AsciiWriter pricesOut) throws IOException {
+  private static void writeSeries(ScenarioSpec spec, ChainLayout layout, HolidayCalendar calendar,
+      ClosureSchedule closures, AsciiWriter salesOut, AsciiWriter pricesOut, AsciiWriter planOut) throws IOException {
     int dayCount = spec.dayCount();
-    salesOut.writeAscii(SALES_HEADER_PREFIX);
-    for (int day = 0; day < dayCount; day++) {
+    int periodDays = spec.periodDays();
+    boolean weekly = periodDays == ScenarioSpec.WEEKLY;
+    salesOut.writeAscii(ChainLayout.SALES_HEADER_PREFIX);
+    for (int day = 0; day < dayCount; day += periodDays) {
       salesOut.writeByte(',');
       salesOut.writeBytes(calendar.isoDate(day));
     }
     salesOut.writeByte('\n');
-    pricesOut.writeAscii(PRICES_HEADER);
+    pricesOut.writeAscii(weekly ? PromotionSchedule.WEEKLY_PRICES_HEADER : PromotionSchedule.PRICES_HEADER);
     pricesOut.writeByte('\n');
+    planOut.writeAscii(PromotionSchedule.PLAN_HEADER);
+    planOut.writeByte('\n');
 
-    DemandModel demand = new DemandModel(spec.seed(), dayCount, layout, calendar);
+    DemandModel demand = new DemandModel(spec.seed(), dayCount, layout, calendar, closures);
     ItemProfile item = new ItemProfile();
-    PriceSchedule priceSchedule = new PriceSchedule(calendar.dayCount());
+    PromotionSchedule[] promotionsByBanner = new PromotionSchedule[ChainLayout.BANNER_NAMES.length];
+    for (int banner = 0; banner < promotionsByBanner.length; banner++) {
+      promotionsByBanner[banner] = new PromotionSchedule(calendar.dayCount());
+    }
     int[] units = new int[dayCount];
-    int loadedItem = -1;
-    int loadedRegion = -1;
+    int loadedArticle = -1;
     for (int series = 0; series < spec.seriesCount(); series++) {
-      int itemIndex = layout.itemIndex(series);
-      int storeIndex = layout.storeIndex(series);
-      int regionIndex = layout.regionIndex(storeIndex);
-      if (itemIndex != loadedItem) {
-        item.load(spec.seed(), itemIndex, layout.categoryIndex(itemIndex), dayCount);
-        loadedItem = itemIndex;
-        loadedRegion = -1;
-      }
-      if (regionIndex != loadedRegion) {
-        priceSchedule.load(spec.seed(), item, regionIndex, layout.regionCount());
-        loadedRegion = regionIndex;
-      }
-      demand.generate(series, item, priceSchedule, units);
-      layout.writeSeriesCells(salesOut, series);
-      for (int day = 0; day < dayCount; day++) {
-        if (day > 0) {
-          salesOut.writeByte(',');
+      int articleIndex = layout.articleIndex(series);
+      int outletIndex = layout.outletIndex(series);
+      if (articleIndex != loadedArticle) {
+        item.load(spec.seed(), articleIndex, dayCount);
+        loadedArticle = articleIndex;
+        for (int banner = 0; banner < promotionsByBanner.length; banner++) {
+          if (!layout.sellsInBanner(articleIndex, banner)) {
+            continue;
+          }
+          promotionsByBanner[banner].load(spec.seed(), item, banner);
+          promotionsByBanner[banner].writePlan(planOut, calendar, articleIndex, banner);
+          if (!weekly) {
+            promotionsByBanner[banner].writeChangePoints(pricesOut, calendar, articleIndex, banner);
+          }
         }
-        salesOut.writeInt(units[day]);
+      }
+      PromotionSchedule promotions = promotionsByBanner[ChainLayout.bannerIndex(outletIndex)];
+      demand.generate(series, item, promotions, units);
+      layout.writeSeriesCells(salesOut, series, item.familyIndex());
+      if (weekly) {
+        writeWeekSums(salesOut, units, dayCount);
+        promotions.writeWeeklyRows(pricesOut, calendar, articleIndex, outletIndex);
+      } else {
+        for (int day = 0; day < dayCount; day++) {
+          if (day > 0) {
+            salesOut.writeByte(',');
+          }
+          salesOut.writeInt(units[day]);
+        }
       }
       salesOut.writeByte('\n');
-      priceSchedule.writeChangePoints(pricesOut, layout, calendar, itemIndex, storeIndex);
+    }
+  }
+
+  private static void writeWeekSums(AsciiWriter out, int[] units, int dayCount) throws IOException {
+    for (int first = 0; first < dayCount; first += ScenarioSpec.WEEKLY) {
+      int sum = 0;
+      for (int day = first; day < first + ScenarioSpec.WEEKLY; day++) {
+        sum += units[day];
+      }
+      if (first > 0) {
+        out.writeByte(',');
+      }
+      out.writeInt(sum);
     }
   }
 

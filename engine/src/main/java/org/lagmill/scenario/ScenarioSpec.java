@@ -3,8 +3,10 @@ package org.lagmill.scenario;
 import java.time.LocalDate;
 
 /**
- * What to generate: {@code seriesCount} item-store series of {@code dayCount} sales days from {@code startDate}, with
- * calendar and prices reaching {@code futureDayCount} days further so a forecast can read its horizon.
+ * What to generate: {@code seriesCount} article-outlet series of {@code dayCount} sales days from {@code startDate},
+ * with calendar, prices, plan and closures reaching {@code futureDayCount} days further so a forecast can read its
+ * horizon. With {@code periodDays} 7 the files hold one period per 7 days from the start date (weekly sales, a weekly
+ * calendar and one price row per article-outlet-week); the underlying daily simulation is the same.
  *
  * @param seriesCount number of item-store series, 1 .. {@value #MAX_SERIES_COUNT}
  * @param dayCount number of sales days, 1 .. {@value #MAX_DAY_COUNT}
@@ -12,9 +14,10 @@ import java.time.LocalDate;
  * @param seed master seed; equal specs give byte-identical files
  * @param futureDayCount days of calendar and prices past the last sales day, 0 .. {@value #MAX_FUTURE_DAY_COUNT}
  * @param gzip whether files are written gzip-compressed with a {@code .gz} suffix
+ * @param periodDays days per written period: 1 (daily) or 7 (weekly; day counts must then be multiples of 7)
  */
 public record ScenarioSpec(int seriesCount, int dayCount, LocalDate startDate, long seed, int futureDayCount,
-    boolean gzip) {
+    boolean gzip, int periodDays) {
   public static final int MAX_SERIES_COUNT = 50_000_000;
   public static final int MAX_DAY_COUNT = 36_600;
   public static final int MAX_FUTURE_DAY_COUNT = 3_660;
@@ -23,6 +26,8 @@ public record ScenarioSpec(int seriesCount, int dayCount, LocalDate startDate, l
   public static final LocalDate DEFAULT_START_DATE = LocalDate.of(2023, 1, 2);
   public static final long DEFAULT_SEED = 42L;
   public static final int DEFAULT_FUTURE_DAY_COUNT = 28;
+  public static final int DAILY = 1;
+  public static final int WEEKLY = 7;
 
   public ScenarioSpec {
     if (seriesCount < 1 || seriesCount > MAX_SERIES_COUNT) {
@@ -40,6 +45,15 @@ public record ScenarioSpec(int seriesCount, int dayCount, LocalDate startDate, l
     if (startDate == null) {
       throw new IllegalArgumentException("start date is missing; hint: e.g. --start " + DEFAULT_START_DATE);
     }
+    if (periodDays != DAILY && periodDays != WEEKLY) {
+      throw new IllegalArgumentException("period must be 1 (day) or 7 (week) days, got " + periodDays
+          + "; hint: --period day or --period week");
+    }
+    if (periodDays == WEEKLY && (dayCount % WEEKLY != 0 || futureDayCount % WEEKLY != 0)) {
+      throw new IllegalArgumentException("weekly output needs whole weeks: --days and --future-days must be "
+          + "multiples of 7, got " + dayCount + " and " + futureDayCount + "; hint: --days "
+          + Math.max(WEEKLY, dayCount / WEEKLY * WEEKLY) + " --future-days " + futureDayCount / WEEKLY * WEEKLY);
+    }
     LocalDate lastDate = startDate.plusDays((long) dayCount + futureDayCount - 1);
     if (startDate.getYear() < MIN_YEAR || lastDate.getYear() > MAX_YEAR) {
       throw new IllegalArgumentException("dates must lie in years [" + MIN_YEAR + ", " + MAX_YEAR + "], got "
@@ -47,9 +61,25 @@ public record ScenarioSpec(int seriesCount, int dayCount, LocalDate startDate, l
     }
   }
 
-  /** A spec with the default start date, seed and future days, plain (not gzipped) files. */
+  /** A daily spec. */
+  public ScenarioSpec(int seriesCount, int dayCount, LocalDate startDate, long seed, int futureDayCount,
+      boolean gzip) {
+    this(seriesCount, dayCount, startDate, seed, futureDayCount, gzip, DAILY);
+  }
+
+  /** A daily spec with the default start date, seed and future days, plain (not gzipped) files. */
   public static ScenarioSpec of(int seriesCount, int dayCount) {
     return new ScenarioSpec(seriesCount, dayCount, DEFAULT_START_DATE, DEFAULT_SEED, DEFAULT_FUTURE_DAY_COUNT, false);
+  }
+
+  /** The same spec writing periods of {@code days} days (1 or 7). */
+  public ScenarioSpec withPeriodDays(int days) {
+    return new ScenarioSpec(seriesCount, dayCount, startDate, seed, futureDayCount, gzip, days);
+  }
+
+  /** Number of written sales periods: sales days divided by the period. */
+  public int periodCount() {
+    return dayCount / periodDays;
   }
 
   /** Days covered by the calendar and prices: sales days plus future days. */
@@ -57,7 +87,7 @@ public record ScenarioSpec(int seriesCount, int dayCount, LocalDate startDate, l
     return dayCount + futureDayCount;
   }
 
-  /** Number of sales cells written: series times sales days. */
+  /** Item-days simulated: series times sales days (a weekly file holds them as 7-day sums). */
   public long itemDayCount() {
     return (long) seriesCount * dayCount;
   }

@@ -1,35 +1,69 @@
 package org.lagmill.scenario;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
-import java.util.Arrays;
+import java.util.BitSet;
+import java.util.HashMap;
+import java.util.HashSet;
+import java.util.Map;
+import java.util.Set;
 import org.junit.jupiter.api.Test;
 
 class ChainLayoutTest {
   @Test
-  void shouldGrowStoresWithSeriesCountBetweenThreeAndTen() {
-    int[][] seriesAndStores = {{1, 3}, {20, 3}, {600, 3}, {901, 4}, {1500, 5}, {2999, 10}, {3000, 10}, {20000, 10}};
-    for (int[] pair : seriesAndStores) {
+  void shouldGrowOutletsWithSeriesCountBetweenFourAndTwelve() {
+    int[][] seriesAndOutlets = {{1, 4}, {20, 4}, {1000, 4}, {1001, 5}, {1500, 6}, {2999, 12}, {3000, 12},
+        {20000, 12}};
+    for (int[] pair : seriesAndOutlets) {
       ChainLayout layout = new ChainLayout(pair[0]);
-      assertEquals(pair[1], layout.storeCount(), "series " + pair[0]);
-      assertEquals((pair[0] + pair[1] - 1) / pair[1], layout.itemCount(), "series " + pair[0]);
+      assertEquals(pair[1], layout.outletCount(), "series " + pair[0]);
+      assertEquals((pair[0] + pair[1] - 1) / pair[1], layout.articleCount(), "series " + pair[0]);
     }
   }
 
   @Test
-  void shouldSpreadStoresOverRegionsAndItemsOverDepartments() {
-    ChainLayout layout = new ChainLayout(3000);
-    int[] storesPerRegion = new int[3];
-    for (int store = 0; store < layout.storeCount(); store++) {
-      storesPerRegion[layout.regionIndex(store)]++;
+  void shouldNestNoStoreAttributeUnderAnotherAtAnyOutletCount() {
+    // The slow definition: A lies under B when every value of A occurs with exactly one value of B.
+    int[][] traits = {ChainLayout.OUTLET_BANNER, ChainLayout.OUTLET_FORMAT, ChainLayout.OUTLET_DISTRICT};
+    String[] names = {"banner", "format", "district"};
+    for (int outletCount = ChainLayout.MIN_OUTLET_COUNT; outletCount <= ChainLayout.MAX_OUTLET_COUNT; outletCount++) {
+      for (int a = 0; a < traits.length; a++) {
+        for (int b = 0; b < traits.length; b++) {
+          if (a == b) {
+            continue;
+          }
+          Map<Integer, Set<Integer>> parents = new HashMap<>();
+          for (int outlet = 0; outlet < outletCount; outlet++) {
+            parents.computeIfAbsent(traits[a][outlet], k -> new HashSet<>()).add(traits[b][outlet]);
+          }
+          boolean nested = parents.values().stream().allMatch(p -> p.size() == 1);
+          assertFalse(nested, names[a] + " lies under " + names[b] + " with " + outletCount + " outlets");
+        }
+      }
     }
-    assertEquals("[4, 3, 3]", Arrays.toString(storesPerRegion));
-    assertEquals(6, layout.departmentIndex(6));
-    assertEquals(2, layout.categoryIndex(6));
-    assertEquals(0, layout.departmentIndex(7));
+  }
+
+  @Test
+  void shouldGiveEveryArticleADistinctCodeThatKeepsNoOrder() {
+    BitSet seen = new BitSet((int) ChainLayout.CODE_SPACE);
+    int risingCount = 0;
+    int articleCount = 2_000_000;
+    long previous = -1;
+    for (int article = 0; article < articleCount; article++) {
+      long code = ChainLayout.articleCode(article);
+      assertTrue(code >= 0 && code < ChainLayout.CODE_SPACE, "article " + article);
+      assertFalse(seen.get((int) code), "article " + article + " repeats code " + code);
+      seen.set((int) code);
+      risingCount += code > previous ? 1 : 0;
+      previous = code;
+    }
+    // Codes in index order rise about half of the time: they tell nothing about an article's place.
+    assertEquals(0.5, (double) risingCount / articleCount, 0.01);
   }
 
   @Test
@@ -37,22 +71,25 @@ class ChainLayoutTest {
     ChainLayout layout = new ChainLayout(3000);
     ByteArrayOutputStream bytes = new ByteArrayOutputStream();
     try (AsciiWriter out = new AsciiWriter(bytes)) {
-      // Series 2 * 10 + 5: item 2 (third department, first of its number), store 5 (Highmoor's second store).
-      layout.writeSeriesCells(out, 25);
-      out.writeByte('|');
-      layout.writeItemId(out, 7 * 40 + 1);
+      // Series 2 * 12 + 5: article 2 in outlet 5 (Tillbox, kiosk, Quarrytown); family 7 is Soda in Drinks.
+      layout.writeSeriesCells(out, 29, 7);
     }
-    assertEquals("PNT-D3-0001@HM-02,PNT-D3-0001,PNT-D3,Pantry,HM-02,Highmoor,|PNT-D2-0041",
-        bytes.toString(StandardCharsets.US_ASCII));
+    String text = bytes.toString(StandardCharsets.US_ASCII);
+    String code = text.substring(0, ChainLayout.CODE_LENGTH);
+    assertEquals(code + "/L156," + code + ",Soda,Drinks,L156,Tillbox,kiosk,Quarrytown,", text);
+    assertTrue(code.matches("[0-9A-HJKMNP-TV-Z]{5}"), code);
   }
 
   @Test
-  void shouldWidenItemNumbersBeyondFourDigits() throws IOException {
-    ChainLayout layout = new ChainLayout(10 * 7 * 10_000 + 1);
-    ByteArrayOutputStream bytes = new ByteArrayOutputStream();
-    try (AsciiWriter out = new AsciiWriter(bytes)) {
-      layout.writeItemId(out, 0);
-    }
-    assertEquals("PNT-D1-00001", bytes.toString(StandardCharsets.US_ASCII));
+  void shouldSellTheLastArticleOnlyWhereItsSeriesExist() {
+    ChainLayout layout = new ChainLayout(41);
+    assertEquals(4, layout.outletCount());
+    assertEquals(11, layout.articleCount());
+    assertEquals(1, layout.outletCountOf(10));
+    assertTrue(layout.sellsInBanner(10, 0));
+    assertFalse(layout.sellsInBanner(10, 1));
+    assertTrue(layout.sellsInBanner(9, 1));
+    assertTrue(layout.hasDistrict(1));
+    assertFalse(layout.hasDistrict(2));
   }
 }

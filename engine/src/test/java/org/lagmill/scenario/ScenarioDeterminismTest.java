@@ -17,7 +17,7 @@ import org.junit.jupiter.api.io.TempDir;
 
 class ScenarioDeterminismTest {
   private static final LocalDate START = LocalDate.of(2023, 1, 2);
-  private static final String[] FILES = {"sales.csv", "calendar.csv", "prices.csv"};
+  private static final String[] FILES = {"sales.csv", "calendar.csv", "prices.csv", "plan.csv", "closures.csv"};
 
   @Test
   void shouldWriteByteIdenticalFilesForEqualSpecs(@TempDir Path dir) throws IOException {
@@ -38,14 +38,18 @@ class ScenarioDeterminismTest {
         Files.readAllBytes(dir.resolve("b/sales.csv"))));
     assertFalse(Arrays.equals(Files.readAllBytes(dir.resolve("a/prices.csv")),
         Files.readAllBytes(dir.resolve("b/prices.csv"))));
-    // The calendar depends on dates only, not on the seed.
+    assertFalse(Arrays.equals(Files.readAllBytes(dir.resolve("a/plan.csv")),
+        Files.readAllBytes(dir.resolve("b/plan.csv"))));
+    // The calendar and closures depend on dates and outlets only, not on the seed.
     assertArrayEquals(Files.readAllBytes(dir.resolve("a/calendar.csv")),
         Files.readAllBytes(dir.resolve("b/calendar.csv")));
+    assertArrayEquals(Files.readAllBytes(dir.resolve("a/closures.csv")),
+        Files.readAllBytes(dir.resolve("b/closures.csv")));
   }
 
   @Test
   void shouldKeepEachSeriesIndependentOfHowManyFollow(@TempDir Path dir) throws IOException {
-    // Both counts give three stores, so series i is the same item-store in both runs.
+    // Both counts give four outlets, so series i is the same article-outlet in both runs.
     ScenarioGenerator.write(new ScenarioSpec(50, 300, START, 7, 28, false), dir.resolve("small"));
     ScenarioGenerator.write(new ScenarioSpec(80, 300, START, 7, 28, false), dir.resolve("large"));
     List<String> small = Files.readAllLines(dir.resolve("small/sales.csv"));

@@ -42,6 +42,19 @@ class ScenarioSpecTest {
   }
 
   @Test
+  void shouldRejectWeeklyOutputOfPartWeeks() {
+    IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+        () -> new ScenarioSpec(5, 730, START, 1, 28, false, 7));
+    assertEquals("weekly output needs whole weeks: --days and --future-days must be multiples of 7, got 730 and 28; "
+        + "hint: --days 728 --future-days 28", e.getMessage());
+    IllegalArgumentException period = assertThrows(IllegalArgumentException.class,
+        () -> new ScenarioSpec(5, 730, START, 1, 28, false, 30));
+    assertEquals("period must be 1 (day) or 7 (week) days, got 30; hint: --period day or --period week",
+        period.getMessage());
+    assertEquals(104, new ScenarioSpec(5, 728, START, 1, 28, false, 7).periodCount());
+  }
+
+  @Test
   void shouldCountItemDaysAndCalendarDays() {
     ScenarioSpec spec = new ScenarioSpec(50_000_000, 36_600, LocalDate.of(1900, 1, 1), 1, 3_660, true);
     assertEquals(1_830_000_000_000L, spec.itemDayCount());
