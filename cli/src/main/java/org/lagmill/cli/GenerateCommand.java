@@ -25,9 +25,10 @@ import picocli.CommandLine.Spec;
         "holidays and per-district school breaks, prices, a promotion plan and outlet closures. Same arguments, same",
         "bytes."},
     footer = {"", "Examples:", "  lagmill generate --out demo-data --series 3000 --days 1095 --seed 7",
-        "  (three years of 250 articles in 12 outlets: sales.csv, calendar.csv, prices.csv, plan.csv, closures.csv)",
+        "  (three years of 250 articles in 12 outlets: sales.csv, calendar.csv,",
+        "  prices.csv, plan.csv, closures.csv)",
         "  lagmill generate --out weekly-data --series 3000 --days 1092 --period week",
-        "  (the same chain as 156 weekly periods, with one price row per article-outlet-week)"})
+        "  (the same chain in 156 weekly periods, one price row per article-outlet-week)"})
 public final class GenerateCommand implements Callable<Integer> {
   @Spec
   CommandSpec spec;
@@ -35,7 +36,7 @@ public final class GenerateCommand implements Callable<Integer> {
   @Option(names = "--out", required = true, paramLabel = "DIR", description = "Folder to write into (created if missing).")
   Path outDir;
 
-  @Option(names = "--series", required = true, paramLabel = "N", description = "Number of item-store series.")
+  @Option(names = "--series", required = true, paramLabel = "N", description = "Number of article-outlet series.")
   int seriesCount;
 
   @Option(names = "--days", required = true, paramLabel = "D", description = "Number of sales days.")
