@@ -111,7 +111,7 @@ final class DemoCommand implements Callable<Integer> {
       report.data(ReportAssembler.dataSummary(StoreSummary.of(store)));
       FeatureSpec spec = demoSpec();
       TrainingPlan plan = new TrainingPlan(spec, demoTrainParameters(), DatasetParameters.defaults(),
-          store.dayCount() - 1, HORIZON_DAYS, null, false);
+          store.dayCount() - 1, HORIZON_DAYS, null, false, true);
       FeatureSpecYaml.write(spec, outDir.resolve("features.yaml"));
       run.configure("size", chosen.name()).configure("seriesCount", chosen.seriesCount)
           .configure("dayCount", chosen.dayCount).configure("seed", seed).configure("plan", plan.toString());

@@ -68,6 +68,10 @@ final class TrainingOptions {
   @Option(names = "--deterministic", description = "bit-identical models for the same inputs and thread count")
   boolean deterministic;
 
+  @Option(names = "--no-refit", description = "ship the early-stopped model, trained without the last horizon of "
+      + "days (default: after early stopping picks the rounds, train again on every day; see docs/learner.md)")
+  boolean noRefit;
+
   @Option(names = "--partition-by", paramLabel = "ATTRIBUTE",
       description = "train one model per value of this attribute (e.g. store), one after another")
   String partitionAttribute;
@@ -110,7 +114,8 @@ final class TrainingOptions {
     };
     DatasetParameters dataset = DatasetParameters.defaults().withSampleRowCount(sampleRowCount).withSeed(seed)
         .withDeterministic(deterministic).withUseWeights(salesValue).withThreadCount(threads);
-    return new TrainingPlan(spec, train, dataset, cutDayIndex, spec.horizonDays(), partitionAttribute, salesValue);
+    return new TrainingPlan(spec, train, dataset, cutDayIndex, spec.horizonDays(), partitionAttribute, salesValue,
+        !noRefit);
   }
 
   static Objective objective(String name) {

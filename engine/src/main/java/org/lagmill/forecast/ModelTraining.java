@@ -9,6 +9,7 @@ import org.lagmill.features.FeaturePass;
 import org.lagmill.features.FeatureSchema;
 import org.lagmill.learner.DatasetBuilder;
 import org.lagmill.learner.FeatureImportance;
+import org.lagmill.learner.TrainParameters;
 import org.lagmill.learner.TrainedModel;
 import org.lagmill.learner.Trainer;
 import org.lagmill.learner.TrainingDataset;
@@ -92,9 +93,14 @@ public final class ModelTraining {
     long validationRowCount = validationRows.rowCount();
     double trainSeconds;
     double datasetSeconds;
+    long trainingRowCount;
+    int featureCount;
     ProgressRowStream reportedTrainingRows = new ProgressRowStream(trainingRows, progress);
+    long residentAfter;
     try (TrainingDataset training = builder.build(reportedTrainingRows)) {
-      long residentAfter = ProcessMemory.residentBytes();
+      residentAfter = ProcessMemory.residentBytes();
+      trainingRowCount = training.rowCount();
+      featureCount = training.featureCount();
       try (TrainingDataset validation = validationRowCount > 0
           ? builder.createValidation(training, reportedTrainingRows.continuedBy(validationRows)) : null) {
         progress.endStage();
@@ -111,20 +117,67 @@ public final class ModelTraining {
         progress.endStage();
         trainSeconds = (System.nanoTime() - trainStart) / 1e9;
       }
-      try {
-        double pooled = estimateDispersion(validationRows, model, dispersion, budget, plan);
-        PartitionReport report = new PartitionReport(value, modelFileName(value, partitionPosition),
-            seriesIndexes.length,
-            training.rowCount(), validationRowCount, training.featureCount(), model.bestIteration(),
-            model.iterationCount(), model.validationCurve(), plan.trainParameters().objective().metricName(),
-            importance(trainingRows.schema(), model), datasetSeconds, trainSeconds,
-            residentAfter == ProcessMemory.UNAVAILABLE ? 0 : residentAfter - residentBefore,
-            ProcessMemory.peakResidentBytes(), pooled);
-        return new ModelSet.Partition(value, seriesIndexes, model, report);
-      } catch (RuntimeException | Error e) {
+    }
+    try {
+      // The dispersion comes from the early-stopped model's held-out errors: the refit model has seen those days.
+      double pooled = estimateDispersion(validationRows, model, dispersion, budget, plan);
+      int bestIteration = model.bestIteration();
+      int iterationCount = model.iterationCount();
+      double[] validationCurve = model.validationCurve();
+      long refitRowCount = 0;
+      int refitRounds = 0;
+      if (plan.refit() && validationRowCount > 0) {
+        FeaturePass allRows = FeaturePass.training(history, plan.spec(), seriesIndexes, 0, plan.cutDayIndex());
+        if (weights != null) {
+          allRows = allRows.withSeriesWeights(weights);
+        }
+        refitRounds = refitRounds(bestIteration, trainingRowCount, allRows.rowCount());
+        long refitStart = System.nanoTime();
+        TrainedModel refit = trainOnAllDays(allRows, refitRounds, plan, stage, budget, progress);
         model.close();
-        throw e;
+        model = refit;
+        refitRowCount = allRows.rowCount();
+        trainSeconds += (System.nanoTime() - refitStart) / 1e9;
       }
+      PartitionReport report = new PartitionReport(value, modelFileName(value, partitionPosition),
+          seriesIndexes.length, trainingRowCount, validationRowCount, featureCount, bestIteration, iterationCount,
+          validationCurve, plan.trainParameters().objective().metricName(), importance(trainingRows.schema(), model),
+          datasetSeconds, trainSeconds, residentAfter == ProcessMemory.UNAVAILABLE ? 0 : residentAfter - residentBefore,
+          ProcessMemory.peakResidentBytes(), pooled, refitRowCount, refitRounds);
+      return new ModelSet.Partition(value, seriesIndexes, model, report);
+    } catch (RuntimeException | Error e) {
+      model.close();
+      throw e;
+    }
+  }
+
+  /**
+   * Rounds of the refit on every day: the early-stopped best count scaled by the ratio of rows (all days over the
+   * training days before the validation window), at least 1. More rows per round give each tree more evidence, and
+   * the usual practice keeps the rounds per row about constant (common practice, no source).
+   */
+  static int refitRounds(int bestIteration, long trainingRowCount, long allRowCount) {
+    if (trainingRowCount <= 0) {
+      return Math.max(1, bestIteration);
+    }
+    return (int) Math.max(1, Math.round(bestIteration * (double) allRowCount / trainingRowCount));
+  }
+
+  /** Trains a fixed number of rounds on {@code rows} with no validation; the Dataset is freed before returning. */
+  private static TrainedModel trainOnAllDays(FeaturePass rows, int rounds, TrainingPlan plan, String stage,
+      MemoryBudget budget, ProgressListener progress) {
+    DatasetBuilder builder = new DatasetBuilder(budget, plan.datasetParameters());
+    progress.startStage("refit dataset" + stage, "rows streamed", builder.sampleSource(rows).rowCount()
+        + rows.rowCount());
+    ProgressRowStream reported = new ProgressRowStream(rows, progress);
+    try (TrainingDataset training = builder.build(reported)) {
+      progress.endStage();
+      progress.startStage("refit" + stage, "iterations", rounds);
+      TrainParameters parameters = plan.trainParameters().withRounds(rounds, 0);
+      TrainedModel model = new Trainer(parameters).train(training, (iteration, seconds, loss) ->
+          progress.advance(iteration));
+      progress.endStage();
+      return model;
     }
   }
 

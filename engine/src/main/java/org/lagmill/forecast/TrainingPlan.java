@@ -14,9 +14,12 @@ import org.lagmill.learner.TrainParameters;
  * @param partitionAttribute attribute whose values split the series into separately trained models, or null for one
  * @param salesValueWeights weight each series' rows by its recent sales value (units × price), the weight the error
  *     metric gives it, instead of weighting every row alike
+ * @param refit after early stopping chose the best round count on the validation window, train again on every day up
+ *     to the cut with that count scaled by the ratio of rows (the shipped model then learns the newest days); false
+ *     ships the early-stopped model
  */
 public record TrainingPlan(FeatureSpec spec, TrainParameters trainParameters, DatasetParameters datasetParameters,
-    int cutDayIndex, int validationDays, String partitionAttribute, boolean salesValueWeights) {
+    int cutDayIndex, int validationDays, String partitionAttribute, boolean salesValueWeights, boolean refit) {
 
   public TrainingPlan {
     if (validationDays < 1) {
@@ -36,6 +39,11 @@ public record TrainingPlan(FeatureSpec spec, TrainParameters trainParameters, Da
 
   public TrainingPlan withCutDayIndex(int dayIndex) {
     return new TrainingPlan(spec, trainParameters, datasetParameters, dayIndex, validationDays, partitionAttribute,
-        salesValueWeights);
+        salesValueWeights, refit);
+  }
+
+  public TrainingPlan withRefit(boolean value) {
+    return new TrainingPlan(spec, trainParameters, datasetParameters, cutDayIndex, validationDays, partitionAttribute,
+        salesValueWeights, value);
   }
 }

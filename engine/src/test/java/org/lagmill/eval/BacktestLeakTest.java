@@ -27,7 +27,8 @@ class BacktestLeakTest {
   @Test
   void shouldProduceTheSameOriginWhateverFollowsIt() {
     ArraySalesHistory history = SmallHistories.history(SEED, 30, 190, 10);
-    TrainingPlan plan = SmallHistories.plan(SmallHistories.spec(HORIZON_DAYS), 6, 0, HORIZON_DAYS, null);
+    TrainingPlan plan = SmallHistories.plan(SmallHistories.spec(HORIZON_DAYS), 6, 0, HORIZON_DAYS, null)
+        .withRefit(true);
     BacktestSettings settings = new BacktestSettings(2, 10, HORIZON_DAYS, List.of(BaselineKind.values()), HIERARCHY,
         new double[] {0.25, 0.5, 0.75});
     int lastOrigin = settings.originDayIndex(history.dayCount(), 1);

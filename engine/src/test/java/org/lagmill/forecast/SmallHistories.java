@@ -112,7 +112,7 @@ public final class SmallHistories {
         .withLearningRate(0.2).withThreadCount(1).withDeterministic(true);
     DatasetParameters dataset = DatasetParameters.defaults().withDeterministic(true).withThreadCount(1)
         .withSampleRowCount(20_000);
-    return new TrainingPlan(spec, train, dataset, cutDayIndex, validationDays, partition, false);
+    return new TrainingPlan(spec, train, dataset, cutDayIndex, validationDays, partition, false, false);
   }
 
   /** Every row of a stream as {@code [seriesIndex, dayIndex, label, weight, features…]}, in stream order. */

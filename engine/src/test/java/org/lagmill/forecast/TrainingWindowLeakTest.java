@@ -49,7 +49,7 @@ class TrainingWindowLeakTest {
     // Early stopping reads the validation rows, so it is off here; sales-value weights read days before validation.
     TrainingPlan unweighted = SmallHistories.plan(SmallHistories.spec(HORIZON_DAYS), 10, 190, VALIDATION_DAYS, null);
     TrainingPlan plan = new TrainingPlan(unweighted.spec(), unweighted.trainParameters(),
-        unweighted.datasetParameters().withUseWeights(true), 190, VALIDATION_DAYS, null, true);
+        unweighted.datasetParameters().withUseWeights(true), 190, VALIDATION_DAYS, null, true, false);
     ArraySalesHistory scrambled = SmallHistories.scrambledFrom(history, plan.validationFirstDayIndex(), SEED + 3);
     try (MemoryBudget budget = MemoryBudget.unlimited("test");
         ModelSet first = ModelTraining.train(history, plan, budget, ProgressListener.SILENT);
