@@ -73,7 +73,7 @@ final class BacktestCommand implements Callable<Integer> {
           .configure("stepDays", stepDays == null ? spec.horizonDays() : stepDays).configure("plan", plan.toString());
       try (MemoryBudget learner = budget.child("backtest")) {
         backtest = BacktestRun.run(opened, plan, originCount, stepDays == null ? spec.horizonDays() : stepDays,
-            hierarchyOptions.hierarchy(opened.attributes()), learner, ConsoleProgress.forCommand(quiet));
+            hierarchyOptions.hierarchy(opened), learner, ConsoleProgress.forCommand(quiet));
         long rows = backtest.result.origins().stream().flatMap(o -> o.partitions().stream())
             .mapToLong(p -> p.trainingRowCount()).sum();
         run.endStage("backtest", opened.offHeapBytes() + learner.peakBytes(), rows);

@@ -55,7 +55,7 @@ final class EvaluateCommand implements Callable<Integer> {
             + opened.dateOf(lastDay) + " but the store holds actuals for " + opened.firstDate() + " .. "
             + opened.dateOf(opened.dayCount() - 1) + "; append the actuals first (lagmill append)");
       }
-      Evaluator evaluator = new Evaluator(opened, hierarchyOptions.hierarchy(opened.attributes()));
+      Evaluator evaluator = new Evaluator(opened, hierarchyOptions.hierarchy(opened));
       OriginStatistics statistics = evaluator.statistics(origin);
       QuantileForecasts quantiles = table.quantileLevels().length == 0 ? null
           : QuantileForecasts.bottomUp(evaluator.aggregator(), table.quantileLevels(), table.quantiles());

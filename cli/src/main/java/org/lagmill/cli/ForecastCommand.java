@@ -126,7 +126,7 @@ final class ForecastCommand implements Callable<Integer> {
             + " --model " + model, store.toString());
         report.data(ReportAssembler.dataSummary(StoreSummary.of(opened)))
             .training(ReportAssembler.training(manifest.partitions()));
-        SeriesChartBuilder.build(opened, hierarchyOptions.hierarchy(opened.attributes()).bind(opened),
+        SeriesChartBuilder.build(opened, hierarchyOptions.hierarchy(opened).bind(opened),
             opened.dayCount(), point, models.dispersionBySeries(), SeriesChartBuilder.DEFAULT_CONTEXT_DAYS,
             shownSeries).forEach(report::series);
         ReportOutput.addStages(report, run.stages(), null);

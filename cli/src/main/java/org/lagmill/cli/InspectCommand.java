@@ -4,6 +4,8 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 import java.io.PrintWriter;
 import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Map;
 import java.util.concurrent.Callable;
 import org.lagmill.memory.MemoryBudget;
@@ -45,6 +47,15 @@ final class InspectCommand implements Callable<Integer> {
     for (Map.Entry<String, Integer> e : summary.attributeCardinalities().entrySet()) {
       out.printf("attribute %-11s %,d distinct values%n", e.getKey(), e.getValue());
     }
+    for (Map.Entry<String, String> e : summary.nesting().entrySet()) {
+      out.printf("nesting %-13s %s%n", e.getKey(), e.getValue() == null ? "(root)" : "under " + e.getValue());
+    }
+    List<String> chains = new ArrayList<>();
+    for (List<String> chain : summary.chains()) {
+      chains.add(String.join(" > ", chain));
+    }
+    out.printf("default levels from   %s, with the total and single series%n",
+        chains.isEmpty() ? "no nesting" : String.join("; ", chains));
     out.printf("series by width       1 byte: %,d  2 bytes: %,d  4 bytes: %,d%n",
         summary.seriesCountByWidth().get("BYTE"), summary.seriesCountByWidth().get("SHORT"),
         summary.seriesCountByWidth().get("INT"));

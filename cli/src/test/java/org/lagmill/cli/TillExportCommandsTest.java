@@ -19,6 +19,20 @@ class TillExportCommandsTest {
   @TempDir Path temp;
 
   @Test
+  void shouldShowTheNestingFoundInTheData() throws Exception {
+    Path sales = Files.writeString(temp.resolve("till.csv"), "sku,shop,dept,date,units\n"
+        + "A,s1,D1,2025-01-01,2\nA,s2,D1,2025-01-01,1\nB,s1,D1,2025-01-02,3\nC,s2,D2,2025-01-02,5\n");
+    Path store = temp.resolve("store");
+    assertEquals(0, MainRun.of("ingest", "--sales", sales.toString(), "--store", store.toString()).exitCode());
+    MainRun text = MainRun.of("inspect", "--store", store.toString());
+    assertTrue(text.out().contains("nesting sku           under dept\nnesting shop          (root)\n"
+        + "nesting dept          (root)\ndefault levels from   dept > sku; shop, with the total and single series\n"),
+        text.out());
+    MainRun json = MainRun.of("inspect", "--store", store.toString(), "--json");
+    assertEquals("dept", new ObjectMapper().readTree(json.out()).get("nesting").get("sku").asText());
+  }
+
+  @Test
   void shouldSayHowManyDaysItFilledOnTheConsoleInRunJsonAndInInspect() throws Exception {
     Path sales = Files.writeString(temp.resolve("till.csv"), SPARSE);
     Path store = temp.resolve("store");

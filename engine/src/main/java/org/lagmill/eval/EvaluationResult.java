@@ -12,9 +12,12 @@ import java.util.List;
  * @param wspl mean over levels of the weighted scaled pinball loss; null when no quantile forecasts were given
  * @param unknownActualCount bottom series-days in the horizon whose actual units were unknown (scored as 0)
  * @param unknownTrainingCount bottom series-days before the origin whose units were unknown (counted as 0)
+ * @param levelSource where the levels came from: {@code detected} (the nesting found in the data) or
+ *     {@code declared} ({@code --hierarchy} or {@code --level})
  */
 public record EvaluationResult(int originDay, int horizon, String weightBasis, double wrmsse, Double wspl,
-    List<LevelResult> levels, List<HorizonDayError> horizonDays, long unknownActualCount, long unknownTrainingCount) {
+    List<LevelResult> levels, List<HorizonDayError> horizonDays, long unknownActualCount, long unknownTrainingCount,
+    String levelSource) {
 
   public EvaluationResult {
     levels = List.copyOf(levels);

@@ -19,13 +19,24 @@ public final class Evaluator {
   private final SalesHistory history;
   private final Aggregator aggregator;
   private final int weightDayCount;
+  private final Hierarchy.Source levelSource;
 
   public Evaluator(SalesHistory history, Hierarchy hierarchy) {
-    this(history, hierarchy.bind(history), DEFAULT_WEIGHT_DAYS);
+    this(history, hierarchy.bind(history), DEFAULT_WEIGHT_DAYS, hierarchy.source());
   }
 
-  /** @param levels levels bound to this history; @param weightDayCount days before the origin that set the weights */
+  /**
+   * Levels given directly count as declared.
+   *
+   * @param levels levels bound to this history
+   * @param weightDayCount days before the origin that set the weights
+   */
   public Evaluator(SalesHistory history, List<Level> levels, int weightDayCount) {
+    this(history, levels, weightDayCount, Hierarchy.Source.DECLARED);
+  }
+
+  private Evaluator(SalesHistory history, List<Level> levels, int weightDayCount, Hierarchy.Source levelSource) {
+    this.levelSource = levelSource;
     this.history = history;
     this.aggregator = new Aggregator(levels);
     this.weightDayCount = weightDayCount;
@@ -132,7 +143,7 @@ public final class Evaluator {
     }
     return new EvaluationResult(origin, horizon, statistics.weightBasis().name(), wrmsse / levelCount,
         quantiles == null ? null : wspl / levelCount, levelResults, days, actuals.unknownCount(),
-        statistics.unknownTrainingCount());
+        statistics.unknownTrainingCount(), levelSource.label());
   }
 
   /** SPL of one aggregate: mean over quantile levels of (1/h) Σ pinball / absolute scale. */

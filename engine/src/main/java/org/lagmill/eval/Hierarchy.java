@@ -6,6 +6,7 @@ import java.util.HashSet;
 import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Set;
+import org.lagmill.store.AttributeNesting;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SeriesAttributes;
 
@@ -16,14 +17,32 @@ import org.lagmill.store.SeriesAttributes;
  * <p>{@link #parse(List)} takes one or more hierarchies such as {@code region>store} and {@code category>department>item}
  * and builds the cross product of their prefixes, each including the empty "all" prefix: for those two,
  * 3 × 4 = 12 levels from {@code total} down to {@code region x store x category x department x item}. Levels are
- * ordered by attribute count (coarsest first); levels naming the same attribute set twice are kept once.
- * {@link #ofLevels(List)} takes an explicit list instead. Immutable.
+ * ordered by attribute count (coarsest first); levels naming the same attribute set twice are kept once. Binding a
+ * parsed hierarchy checks it against the data: each value of a child attribute must lie under one parent value.
+ * {@link #ofLevels(List)} takes an explicit list instead. {@link #detected(AttributeNesting)} derives the levels from
+ * how the data nest, with no regard to attribute names. Immutable.
  */
 public final class Hierarchy {
-  private final List<List<String>> levelAttributeNames;
+  /** Where the levels came from, as the report and {@code --json} say it. */
+  public enum Source {
+    /** From the attribute nesting found in the data. */
+    DETECTED,
+    /** From {@code --hierarchy} or {@code --level}. */
+    DECLARED;
 
-  private Hierarchy(List<List<String>> levelAttributeNames) {
+    public String label() {
+      return name().toLowerCase(java.util.Locale.ROOT);
+    }
+  }
+
+  private final List<List<String>> levelAttributeNames;
+  private final List<List<String>> declaredChains;
+  private final Source source;
+
+  private Hierarchy(List<List<String>> levelAttributeNames, List<List<String>> declaredChains, Source source) {
     this.levelAttributeNames = levelAttributeNames;
+    this.declaredChains = declaredChains;
+    this.source = source;
   }
 
   /**
@@ -31,7 +50,7 @@ public final class Hierarchy {
    *     empty list gives the total level only
    */
   public static Hierarchy parse(List<String> hierarchies) {
-    List<List<List<String>>> prefixesByHierarchy = new ArrayList<>();
+    List<List<String>> chains = new ArrayList<>();
     for (String text : hierarchies) {
       String[] parts = text.split(">", -1);
       List<String> chain = new ArrayList<>();
@@ -46,6 +65,18 @@ public final class Hierarchy {
         }
         chain.add(name);
       }
+      chains.add(List.copyOf(chain));
+    }
+    return new Hierarchy(crossProduct(chains), List.copyOf(chains), Source.DECLARED);
+  }
+
+  /**
+   * The cross product of the chains' prefixes, each including the empty prefix, ordered by attribute count; a set of
+   * attributes named twice is kept once, in its first order.
+   */
+  private static List<List<String>> crossProduct(List<List<String>> chains) {
+    List<List<List<String>>> prefixesByHierarchy = new ArrayList<>();
+    for (List<String> chain : chains) {
       List<List<String>> prefixes = new ArrayList<>();
       for (int length = 0; length <= chain.size(); length++) {
         prefixes.add(List.copyOf(chain.subList(0, length)));
@@ -75,7 +106,7 @@ public final class Hierarchy {
         unique.add(List.copyOf(new LinkedHashSet<>(level)));
       }
     }
-    return new Hierarchy(List.copyOf(unique));
+    return List.copyOf(unique);
   }
 
   /** @param levels each a list of attribute names ({@code []} is the total), kept in the given order */
@@ -90,7 +121,37 @@ public final class Hierarchy {
       }
       copy.add(List.copyOf(level));
     }
-    return new Hierarchy(List.copyOf(copy));
+    return new Hierarchy(List.copyOf(copy), List.of(), Source.DECLARED);
+  }
+
+  /**
+   * The default levels, from how the data nest: the cross product of the prefixes of the nesting's chains
+   * ({@link AttributeNesting#chains()}), always with the total and the bottom level of single series.
+   *
+   * <p>Each level keeps only the attributes that tell its aggregates apart
+   * ({@link AttributeNesting#distinguishing}), so no grouping is scored twice under two names. The bottom level is
+   * {@link AttributeNesting#bottomAttributes()}.
+   */
+  public static Hierarchy detected(AttributeNesting nesting) {
+    List<List<String>> levels = new ArrayList<>();
+    Set<Set<String>> seen = new HashSet<>();
+    for (List<String> level : crossProduct(nesting.chains())) {
+      List<String> reduced = nesting.distinguishing(level);
+      if (seen.add(new HashSet<>(reduced))) {
+        levels.add(reduced);
+      }
+    }
+    List<String> bottom = nesting.bottomAttributes();
+    if (seen.add(new HashSet<>(bottom))) {
+      levels.add(bottom);
+    }
+    levels.sort(Comparator.comparingInt(List::size));
+    return new Hierarchy(List.copyOf(levels), List.of(), Source.DETECTED);
+  }
+
+  /** Where the levels came from. */
+  public Source source() {
+    return source;
   }
 
   public int levelCount() {
@@ -118,6 +179,11 @@ public final class Hierarchy {
    * @throws IllegalArgumentException when a level names an attribute the history does not have
    */
   public List<Level> bind(SeriesAttributes attributes, int seriesCount) {
+    for (List<String> chain : declaredChains) {
+      for (int k = 1; k < chain.size(); k++) {
+        checkNested(chain, chain.get(k - 1), chain.get(k), attributes, seriesCount);
+      }
+    }
     List<Level> levels = new ArrayList<>();
     for (List<String> names : levelAttributeNames) {
       int[] indexes = new int[names.size()];
@@ -135,5 +201,30 @@ public final class Hierarchy {
       levels.add(Level.build(names, indexes, attributes, seriesCount));
     }
     return List.copyOf(levels);
+  }
+
+  /** A declared chain's child must lie under one value of its parent in every series. */
+  private static void checkNested(List<String> chain, String parent, String child, SeriesAttributes attributes,
+      int seriesCount) {
+    int p = attributes.attributeIndex(parent);
+    int c = attributes.attributeIndex(child);
+    if (p < 0 || c < 0) {
+      return;
+    }
+    int[] parentCodeByChildCode = new int[attributes.cardinality(c)];
+    java.util.Arrays.fill(parentCodeByChildCode, -1);
+    for (int s = 0; s < seriesCount; s++) {
+      int childCode = attributes.code(s, c);
+      int parentCode = attributes.code(s, p);
+      int seen = parentCodeByChildCode[childCode];
+      if (seen < 0) {
+        parentCodeByChildCode[childCode] = parentCode;
+      } else if (seen != parentCode) {
+        throw new IllegalArgumentException("hierarchy '" + String.join(">", chain) + "': " + child + " '"
+            + attributes.value(c, childCode) + "' lies under two " + parent + " values, '"
+            + attributes.value(p, seen) + "' and '" + attributes.value(p, parentCode) + "'; expected each " + child
+            + " under exactly one " + parent + " (drop the hierarchy to use the nesting found in the data)");
+      }
+    }
   }
 }

@@ -6,6 +6,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.SplittableRandom;
+import org.lagmill.store.AttributeNesting;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SeriesAttributes;
 
@@ -86,8 +87,8 @@ public final class FeaturePass implements RowStream {
     addKernel(calendar);
     long tables = calendar.heapBytes();
     if (withPrices) {
-      PriceKernel price = new PriceKernel(history, spec.priceFeatures(), priceGroupAttributes(spec, attributes),
-          firstDayIndex, endDayIndex);
+      PriceKernel price = new PriceKernel(history, spec.priceFeatures(), priceGroupAttributes(spec, attributes,
+          history.nesting()), firstDayIndex, endDayIndex);
       addKernel(price);
       tables += price.heapBytes();
     }
@@ -243,15 +244,11 @@ public final class FeaturePass implements RowStream {
     return all;
   }
 
-  private static int[] priceGroupAttributes(FeatureSpec spec, SeriesAttributes attributes) {
+  private static int[] priceGroupAttributes(FeatureSpec spec, SeriesAttributes attributes, AttributeNesting nesting) {
     List<String> names = spec.priceGroupAttributes();
     if (names == null) {
-      for (String name : FeatureSpec.DEFAULT_PRICE_GROUP_ATTRIBUTES) {
-        if (attributes.attributeIndex(name) < 0) {
-          return new int[0];
-        }
-      }
-      names = FeatureSpec.DEFAULT_PRICE_GROUP_ATTRIBUTES;
+      // Never by attribute name: the group comes from how the data nest.
+      names = nesting.siblingGroupAttributes();
     }
     return attributeIndexes("price group", names, attributes);
   }

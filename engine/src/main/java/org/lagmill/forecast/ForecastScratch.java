@@ -1,6 +1,7 @@
 package org.lagmill.forecast;
 
 import java.time.LocalDate;
+import org.lagmill.store.AttributeNesting;
 import org.lagmill.store.DayCalendar;
 import org.lagmill.store.PriceTable;
 import org.lagmill.store.SalesHistory;
@@ -75,4 +76,5 @@ final class ForecastScratch implements SalesHistory {
   @Override public SeriesAttributes attributes() { return base.attributes(); }
   @Override public PriceTable prices() { return base.prices(); }
   @Override public DayCalendar calendar() { return base.calendar(); }
+  @Override public AttributeNesting nesting() { return base.nesting(); }
 }

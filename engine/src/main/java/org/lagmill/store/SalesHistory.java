@@ -49,6 +49,14 @@ public interface SalesHistory {
   /** Day-level calendar columns; may cover days after the last sales day. */
   DayCalendar calendar();
 
+  /**
+   * How the attributes nest in the data (item under department, store under region); the source of every default
+   * hierarchy and price group. Computed from {@link #attributes()} on each call unless an implementation keeps it.
+   */
+  default AttributeNesting nesting() {
+    return AttributeNesting.detect(attributes(), seriesCount());
+  }
+
   /** Date of a day index, which may lie past the last sales day. */
   default LocalDate dateOf(int dayIndex) {
     return firstDate().plusDays(dayIndex);

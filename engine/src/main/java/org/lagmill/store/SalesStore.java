@@ -37,6 +37,7 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
   private final MappedPriceTable prices;
   private final MappedDayCalendar calendar;
   private final long diskBytes;
+  private AttributeNesting nesting;
   private volatile boolean closed;
 
   private SalesStore(Path dir, StoreManifest manifest, MemoryBudget budget, long maxWindowBytes, List<AutoCloseable>
@@ -303,6 +304,16 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
   public SeriesAttributes attributes() {
     checkOpen();
     return attributes;
+  }
+
+  /** Detected from the attributes once, on first use (the manifest's {@code nesting} records the same forest). */
+  @Override
+  public synchronized AttributeNesting nesting() {
+    checkOpen();
+    if (nesting == null) {
+      nesting = AttributeNesting.detect(attributes, seriesCount);
+    }
+    return nesting;
   }
 
   @Override

@@ -11,8 +11,11 @@ import java.nio.file.Path;
 import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
 import java.time.LocalDate;
+import java.util.Collections;
 import java.util.HexFormat;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
 
 /**
  * The {@code manifest.json} of a store directory: what the binary files hold and how to check them.
@@ -26,9 +29,13 @@ import java.util.List;
  * @param files every binary file with its byte size and CRC32C (8 hex digits)
  * @param fingerprint 16 hex digits of SHA-256 over the files' names, sizes and checksums; model files record it
  * @param fill how many item-days were filled or are unknown; null in stores written before it was recorded
+ * @param nesting each attribute name to the attribute it lies directly under, or null for a root, as
+ *     {@link AttributeNesting#parents()} found it when the store was written; null in stores written before it was
+ *     recorded (readers compute it from the attributes, see {@link SalesHistory#nesting()})
  */
 public record StoreManifest(int formatVersion, String firstDate, int dayCount, int seriesCount,
-    List<String> attributeNames, List<SourceFile> sources, List<StoreFile> files, String fingerprint, Fill fill) {
+    List<String> attributeNames, List<SourceFile> sources, List<StoreFile> files, String fingerprint, Fill fill,
+    Map<String, String> nesting) {
 
   public static final String FILE_NAME = "manifest.json";
 
@@ -62,6 +69,8 @@ public record StoreManifest(int formatVersion, String firstDate, int dayCount, i
     attributeNames = List.copyOf(attributeNames);
     sources = List.copyOf(sources);
     files = List.copyOf(files);
+    // Map.copyOf refuses the null that marks a root.
+    nesting = nesting == null ? null : Collections.unmodifiableMap(new LinkedHashMap<>(nesting));
   }
 
   public LocalDate firstLocalDate() {

@@ -2,6 +2,7 @@ package org.lagmill.store;
 
 import java.time.LocalDate;
 import java.util.LinkedHashMap;
+import java.util.List;
 import java.util.Map;
 
 /**
@@ -20,12 +21,14 @@ import java.util.Map;
  * @param zeroDayShare share of known item-days with zero units, 0 when none are known
  * @param fill the manifest's fill counts (zero-filled, unknown, closed item-days), null for a store written before
  *     they were recorded
+ * @param nesting each attribute to the attribute it lies directly under, or null for a root ({@link AttributeNesting})
+ * @param chains the nesting's chains from a root to a leaf, attributes naming each series left out
  */
 public record StoreSummary(int seriesCount, LocalDate firstDate, LocalDate lastDate, int dayCount,
     Map<String, Integer> attributeCardinalities, Map<String, Long> seriesCountByWidth, long diskBytes,
     long offHeapBytes, long unitsFileBytes, double unitsBytesPerItemDay, double storeBytesPerItemDay,
     long int64ColumnBytes, long sourceCsvBytes, long unknownDayCount, double zeroDayShare, String fingerprint,
-    StoreManifest.Fill fill) {
+    StoreManifest.Fill fill, Map<String, String> nesting, List<List<String>> chains) {
 
   /** Computes the summary; reads every units value once (for the zero share). */
   public static StoreSummary of(SalesStore store) {
@@ -58,7 +61,7 @@ public record StoreSummary(int seriesCount, LocalDate firstDate, LocalDate lastD
         itemDays == 0 ? 0 : (double) unitsFileBytes / itemDays, itemDays == 0 ? 0 : (double) store.diskBytes() / itemDays,
         itemDays * Long.BYTES, store.manifest().sourceBytes(), unknownDays,
         knownDays == 0 ? 0 : (double) zeroDays / knownDays, store.fingerprint(),
-        store.manifest().fill());
+        store.manifest().fill(), store.nesting().parents(), store.nesting().chains());
   }
 
   /** The summary as plain JSON-ready values (dates as ISO text), in field order. */
@@ -81,6 +84,8 @@ public record StoreSummary(int seriesCount, LocalDate firstDate, LocalDate lastD
     map.put("zeroDayShare", zeroDayShare);
     map.put("fingerprint", fingerprint);
     map.put("fill", fill);
+    map.put("nesting", nesting);
+    map.put("chains", chains);
     return map;
   }
 }

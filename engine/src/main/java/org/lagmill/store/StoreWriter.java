@@ -225,7 +225,8 @@ public final class StoreWriter implements AutoCloseable {
     }
     StoreManifest manifest = new StoreManifest(StoreFileFormat.FORMAT_VERSION_CURRENT, firstDate.toString(), dayCount,
         seriesCount(), attributeNames, sources, ordered, StoreManifest.fingerprintOf(ordered),
-        new StoreManifest.Fill(zeroFilledItemDays, unknownItemDays, 0));
+        new StoreManifest.Fill(zeroFilledItemDays, unknownItemDays, 0),
+        AttributeNesting.detect(attributes, seriesCount()).parents());
     manifest.write(dir);
     finished = true;
     close();

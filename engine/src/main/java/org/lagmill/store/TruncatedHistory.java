@@ -65,4 +65,5 @@ public final class TruncatedHistory implements SalesHistory {
   @Override public SeriesAttributes attributes() { return source.attributes(); }
   @Override public PriceTable prices() { return source.prices(); }
   @Override public DayCalendar calendar() { return source.calendar(); }
+  @Override public AttributeNesting nesting() { return source.nesting(); }
 }

@@ -167,7 +167,7 @@ class EvaluatorTest {
       }
     }
     return new EvaluationResult(origin, horizon, byValue ? "SALES_VALUE" : "UNIT_VOLUME", wrmsse,
-        quantiles == null ? null : wspl, rows, days, unknownActual, unknownTraining);
+        quantiles == null ? null : wspl, rows, days, unknownActual, unknownTraining, "declared");
   }
 
   private static void assertClose(EvaluationResult expected, EvaluationResult actual, String message) {
