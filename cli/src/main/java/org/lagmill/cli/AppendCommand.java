@@ -35,6 +35,10 @@ final class AppendCommand implements Callable<Integer> {
   @Option(names = "--prices", paramLabel = "FILE", description = "newer prices CSV replacing the stored prices")
   Path prices;
 
+  @Option(names = "--closures", paramLabel = "FILE", description = {"closures CSV: key columns, from, until (and",
+      "an optional reason); a closed day reads as unknown and is forecast as 0; replaces the stored closures"})
+  Path closures;
+
   @Mixin ColumnOptions columns;
 
   @Option(names = "--quiet", description = "print nothing on success, not even warnings")
@@ -43,7 +47,7 @@ final class AppendCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     AppendOptions options = AppendOptions.of(store, sales).withColumns(columns.names())
-        .withCalendarFile(calendar).withPricesFile(prices);
+        .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures);
     RunRecord run = new RunRecord("append").configure("store", store.toString()).configure("sales", sales.toString());
     try (MemoryBudget budget = CliBudgets.root(null)) {
       IngestResult result = StoreAppend.append(options, budget);

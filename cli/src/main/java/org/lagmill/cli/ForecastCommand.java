@@ -108,6 +108,14 @@ final class ForecastCommand implements Callable<Integer> {
       double[] levels = intervals ? ForecastTable.PUBLISHED_QUANTILES : new double[0];
       ForecastTable table = new ForecastTable(opened.dayCount(), point, levels,
           intervals ? models.quantiles(point, levels) : new double[0][][]);
+      long closedSeriesDays = table.zeroClosedDays(opened);
+      if (closedSeriesDays > 0 && !quiet) {
+        PrintWriter err = commandSpec.commandLine().getErr();
+        err.println("warning: forecast 0 for " + closedSeriesDays + " series-days declared closed (marked in the "
+            + "forecast file's closed column)");
+        err.flush();
+      }
+      run.result("closedSeriesDays", closedSeriesDays);
       run.endStage("forecast", opened.offHeapBytes() + forecastBudget.peakBytes(), (long) forecastSeriesCount
           * horizon);
       if (wide) {

@@ -44,6 +44,10 @@ final class IngestCommand implements Callable<Integer> {
           + "columns (default: ${DEFAULT-VALUE})")
   String salesFormat;
 
+  @Option(names = "--closures", paramLabel = "FILE", description = {"closures CSV: key columns, from, until (and",
+      "an optional reason); a closed day reads as unknown and is forecast as 0"})
+  Path closures;
+
   @Mixin ColumnOptions columns;
 
   @Option(names = "--missing-rows", paramLabel = "POLICY", defaultValue = "zero",
@@ -68,7 +72,7 @@ final class IngestCommand implements Callable<Integer> {
     IngestOptions options = IngestOptions.of(sales, store)
         .withColumns(columns.names().withUnitsColumn(unitsColumn))
         .withSalesFormat(SalesFormat.parse(salesFormat)).withMissingRows(MissingRows.parse(missingRows))
-        .withCalendarFile(calendar).withPricesFile(prices);
+        .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures);
     RunRecord run = new RunRecord("ingest").configure("sales", sales.toString())
         .configure("calendar", calendar == null ? null : calendar.toString())
         .configure("prices", prices == null ? null : prices.toString()).configure("store", store.toString())

@@ -15,7 +15,8 @@ import org.lagmill.store.SeriesAttributes;
 /**
  * Writes a {@link ForecastTable} as CSV (gzip when the name ends in {@code .gz}), through a temporary file renamed into
  * place. Long form: the series attributes, {@code date}, {@code forecast} and one {@code q…} column per quantile, one
- * row per series-day. Wide form: the attributes and one column per date holding the point forecast.
+ * row per series-day, and a {@code closed} column (1 on a day the series is declared closed, whose forecast is 0) when
+ * the store holds closures. Wide form: the attributes and one column per date holding the point forecast.
  */
 public final class ForecastFileWriter {
   private ForecastFileWriter() {}
@@ -31,6 +32,10 @@ public final class ForecastFileWriter {
       for (double level : table.quantileLevels()) {
         header.append(',').append(ForecastTable.quantileColumn(level));
       }
+      boolean markClosed = !history.closures().isEmpty();
+      if (markClosed) {
+        header.append(",closed");
+      }
       out.write(header.append('\n').toString());
       String[] dates = dates(history, table);
       StringBuilder row = new StringBuilder();
@@ -44,6 +49,9 @@ public final class ForecastFileWriter {
           row.append(prefix).append(dates[d]).append(',').append(format(table.point()[s][d]));
           for (int q = 0; q < table.quantileLevels().length; q++) {
             row.append(',').append(format(table.quantiles()[q][s][d]));
+          }
+          if (markClosed) {
+            row.append(history.isClosed(s, table.firstDayIndex() + d) ? ",1" : ",0");
           }
           out.write(row.append('\n').toString());
         }

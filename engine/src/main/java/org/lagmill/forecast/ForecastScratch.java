@@ -2,6 +2,7 @@ package org.lagmill.forecast;
 
 import java.time.LocalDate;
 import org.lagmill.store.AttributeNesting;
+import org.lagmill.store.ClosureTable;
 import org.lagmill.store.DayCalendar;
 import org.lagmill.store.PriceTable;
 import org.lagmill.store.SalesHistory;
@@ -77,4 +78,5 @@ final class ForecastScratch implements SalesHistory {
   @Override public PriceTable prices() { return base.prices(); }
   @Override public DayCalendar calendar() { return base.calendar(); }
   @Override public AttributeNesting nesting() { return base.nesting(); }
+  @Override public ClosureTable closures() { return base.closures(); }
 }

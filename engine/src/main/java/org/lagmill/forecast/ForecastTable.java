@@ -1,6 +1,7 @@
 package org.lagmill.forecast;
 
 import java.util.Locale;
+import org.lagmill.store.SalesHistory;
 
 /**
  * Forecasts of every series of a store for consecutive days: point forecasts and, optionally, quantiles.
@@ -16,6 +17,34 @@ public record ForecastTable(int firstDayIndex, double[][] point, double[] quanti
 
   public int horizonDays() {
     return point.length == 0 ? 0 : point[0].length;
+  }
+
+  /**
+   * Sets the point forecast and every quantile to 0 on each horizon day a series is declared closed (a series
+   * cannot sell while closed); the forecast file marks those days.
+   *
+   * @return the series-days set to 0
+   */
+  public long zeroClosedDays(SalesHistory history) {
+    if (history.closures().isEmpty()) {
+      return 0;
+    }
+    long count = 0;
+    for (int s = 0; s < point.length; s++) {
+      if (Double.isNaN(point[s][0])) {
+        continue;
+      }
+      for (int d = 0; d < point[s].length; d++) {
+        if (history.isClosed(s, firstDayIndex + d)) {
+          point[s][d] = 0;
+          for (double[][] quantile : quantiles) {
+            quantile[s][d] = 0;
+          }
+          count++;
+        }
+      }
+    }
+    return count;
   }
 
   /** Column name of a quantile, e.g. {@code q0.025}. */

@@ -10,9 +10,11 @@ import java.util.Objects;
  * @param salesFile a wide sales CSV whose first date is the store's next day
  * @param calendarFile a newer calendar replacing the stored one, or null to keep it
  * @param pricesFile a newer prices file replacing the stored prices, or null to keep them
+ * @param closuresFile a closures file replacing the stored closures, or null to keep them
  * @param columns column names (series id, calendar date, prices from and price; the units column does not apply)
  */
-public record AppendOptions(Path storeDir, Path salesFile, Path calendarFile, Path pricesFile, ColumnNames columns) {
+public record AppendOptions(Path storeDir, Path salesFile, Path calendarFile, Path pricesFile, ColumnNames columns,
+    Path closuresFile) {
   public AppendOptions {
     Objects.requireNonNull(storeDir, "storeDir");
     Objects.requireNonNull(salesFile, "salesFile");
@@ -21,18 +23,22 @@ public record AppendOptions(Path storeDir, Path salesFile, Path calendarFile, Pa
 
   /** Sales only, default column names: calendar and prices are carried over. */
   public static AppendOptions of(Path storeDir, Path salesFile) {
-    return new AppendOptions(storeDir, salesFile, null, null, ColumnNames.DEFAULTS);
+    return new AppendOptions(storeDir, salesFile, null, null, ColumnNames.DEFAULTS, null);
   }
 
   public AppendOptions withCalendarFile(Path file) {
-    return new AppendOptions(storeDir, salesFile, file, pricesFile, columns);
+    return new AppendOptions(storeDir, salesFile, file, pricesFile, columns, closuresFile);
   }
 
   public AppendOptions withPricesFile(Path file) {
-    return new AppendOptions(storeDir, salesFile, calendarFile, file, columns);
+    return new AppendOptions(storeDir, salesFile, calendarFile, file, columns, closuresFile);
+  }
+
+  public AppendOptions withClosuresFile(Path file) {
+    return new AppendOptions(storeDir, salesFile, calendarFile, pricesFile, columns, file);
   }
 
   public AppendOptions withColumns(ColumnNames names) {
-    return new AppendOptions(storeDir, salesFile, calendarFile, pricesFile, names);
+    return new AppendOptions(storeDir, salesFile, calendarFile, pricesFile, names, closuresFile);
   }
 }

@@ -21,6 +21,15 @@ final class CalendarAndPrices {
     writer.writePrices(read.prices());
   }
 
+  /** Reads and writes the closures file; call after the last series was added. */
+  static void writeClosures(StoreWriter writer, Path closuresFile, List<String> warnings) throws IOException {
+    ClosuresFileReader.ClosuresReadResult read = ClosuresFileReader.read(closuresFile, writer.firstDate(),
+        writer.attributes(), writer.seriesCount(), ClosuresFileReader.DEFAULT_FROM_COLUMN,
+        ClosuresFileReader.DEFAULT_UNTIL_COLUMN);
+    warnings.addAll(read.warnings());
+    writer.writeClosures(read.closures());
+  }
+
   /** Reads and writes the calendar file; call after the last series was added. */
   static void writeCalendar(StoreWriter writer, Path calendarFile, ColumnNames columns, List<String> warnings)
       throws IOException {

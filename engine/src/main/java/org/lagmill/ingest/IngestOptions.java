@@ -23,10 +23,11 @@ import org.lagmill.store.SeriesAttributes;
  *     precedence over {@code pricesFile}
  * @param missingRows what a day with no row means in long sales (ignored for wide sales, whose empty cells are
  *     unknown)
+ * @param closuresFile optional closures CSV (days on which series could not sell), or null
  */
 public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, Path storeDir, ColumnNames columns,
     SalesFormat salesFormat, Function<SeriesAttributes, DayCalendar> calendarSource,
-    Function<SeriesAttributes, PriceTable> pricesSource, MissingRows missingRows) {
+    Function<SeriesAttributes, PriceTable> pricesSource, MissingRows missingRows, Path closuresFile) {
 
   public IngestOptions {
     Objects.requireNonNull(salesFile, "salesFile");
@@ -39,7 +40,7 @@ public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, 
   /** Sales only, default column names, format decided from the header. */
   public static IngestOptions of(Path salesFile, Path storeDir) {
     return new IngestOptions(salesFile, null, null, storeDir, ColumnNames.DEFAULTS, SalesFormat.AUTO, null, null,
-        MissingRows.DEFAULT);
+        MissingRows.DEFAULT, null);
   }
 
   /** The column naming each series ({@code --series-id-column}). */
@@ -53,27 +54,32 @@ public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, 
 
   public IngestOptions withColumns(ColumnNames names) {
     return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, names, salesFormat, calendarSource,
-        pricesSource, missingRows);
+        pricesSource, missingRows, closuresFile);
   }
 
   public IngestOptions withSalesFormat(SalesFormat format) {
     return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, format, calendarSource,
-        pricesSource, missingRows);
+        pricesSource, missingRows, closuresFile);
   }
 
   public IngestOptions withCalendarFile(Path file) {
     return new IngestOptions(salesFile, file, pricesFile, storeDir, columns, salesFormat, calendarSource,
-        pricesSource, missingRows);
+        pricesSource, missingRows, closuresFile);
   }
 
   public IngestOptions withPricesFile(Path file) {
     return new IngestOptions(salesFile, calendarFile, file, storeDir, columns, salesFormat, calendarSource,
-        pricesSource, missingRows);
+        pricesSource, missingRows, closuresFile);
+  }
+
+  public IngestOptions withClosuresFile(Path file) {
+    return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, calendarSource,
+        pricesSource, missingRows, file);
   }
 
   public IngestOptions withMissingRows(MissingRows policy) {
     return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, calendarSource,
-        pricesSource, policy);
+        pricesSource, policy, closuresFile);
   }
 
   /** A calendar already parsed, aligned to day 0 = the first sales date. */
@@ -84,7 +90,7 @@ public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, 
   /** A calendar built once the series are known (a keyed column needs the store's attribute codes). */
   public IngestOptions withCalendar(Function<SeriesAttributes, DayCalendar> source) {
     return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, source,
-        pricesSource, missingRows);
+        pricesSource, missingRows, closuresFile);
   }
 
   /** A price table already built, indexed by series in the sales file's row order, days from the first sales date. */
@@ -95,6 +101,6 @@ public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, 
   /** A price table built once the series are known (the price reader maps its keys to series indexes). */
   public IngestOptions withPrices(Function<SeriesAttributes, PriceTable> source) {
     return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, calendarSource,
-        source, missingRows);
+        source, missingRows, closuresFile);
   }
 }

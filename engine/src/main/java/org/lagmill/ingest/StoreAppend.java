@@ -9,6 +9,7 @@ import java.util.Arrays;
 import java.util.HashSet;
 import java.util.List;
 import org.lagmill.memory.MemoryBudget;
+import org.lagmill.store.ClosureTable;
 import org.lagmill.store.PriceTable;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SalesStore;
@@ -178,12 +179,28 @@ public final class StoreAppend {
       } else {
         writer.writeCalendar(store.calendar());
       }
+      if (options.closuresFile() != null) {
+        CalendarAndPrices.writeClosures(writer, options.closuresFile(), warnings);
+      } else {
+        writer.writeClosures(extended(store.closures(), store.seriesCount()));
+      }
       List<StoreManifest.SourceFile> sources = new ArrayList<>(store.manifest().sources());
-      sources.addAll(StoreIngest.sourcesOf(options.salesFile(), options.calendarFile(), options.pricesFile()));
+      sources.addAll(StoreIngest.sourcesOf(options.salesFile(), options.calendarFile(), options.pricesFile(),
+          options.closuresFile()));
       StoreManifest manifest = writer.finish(sources);
       FillWarnings.add(manifest, 0, warnings);
       return new IngestResult(manifest, warnings);
     }
+  }
+
+  /** The old closures, with none for series added by the append. */
+  private static ClosureTable extended(ClosureTable closures, int oldSeriesCount) {
+    return new ClosureTable() {
+      @Override public boolean isEmpty() { return closures.isEmpty(); }
+      @Override public int rangeCount(int s) { return s < oldSeriesCount ? closures.rangeCount(s) : 0; }
+      @Override public int firstDayIndex(int s, int k) { return closures.firstDayIndex(s, k); }
+      @Override public int lastDayIndex(int s, int k) { return closures.lastDayIndex(s, k); }
+    };
   }
 
   /** The old price table, with no prices for series added by the append. */

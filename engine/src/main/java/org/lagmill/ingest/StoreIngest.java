@@ -47,6 +47,9 @@ public final class StoreIngest {
         } else if (options.calendarFile() != null) {
           CalendarAndPrices.writeCalendar(writer, options.calendarFile(), columns, warnings);
         }
+        if (options.closuresFile() != null) {
+          CalendarAndPrices.writeClosures(writer, options.closuresFile(), warnings);
+        }
         manifest = writer.finish(sources(options));
       }
       // A new store's zero fills are all this run's.
@@ -122,7 +125,7 @@ public final class StoreIngest {
   }
 
   static List<StoreManifest.SourceFile> sources(IngestOptions options) throws IOException {
-    return sourcesOf(options.salesFile(), options.calendarFile(), options.pricesFile());
+    return sourcesOf(options.salesFile(), options.calendarFile(), options.pricesFile(), options.closuresFile());
   }
 
   /** The given files (nulls skipped) with their sizes, as the manifest records them. */

@@ -6,7 +6,8 @@ enum FileKind {
   SERIES(2, "series.bin"),
   ATTRIBUTES(3, "attributes.bin"),
   PRICES(4, "prices.bin"),
-  CALENDAR(5, "calendar.bin");
+  CALENDAR(5, "calendar.bin"),
+  CLOSURES(6, "closures.bin");
 
   private final int kindNumber;
   private final String fileName;

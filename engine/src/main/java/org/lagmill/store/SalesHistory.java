@@ -49,6 +49,19 @@ public interface SalesHistory {
   /** Day-level calendar columns; may cover days after the last sales day. */
   DayCalendar calendar();
 
+  /** Declared closures; a closed day reads as {@link #UNKNOWN_UNITS}. Empty unless closures were ingested. */
+  default ClosureTable closures() {
+    return ClosureTable.EMPTY;
+  }
+
+  /**
+   * Whether the series was (or will be) closed on a day index, which may lie past the last sales day: tells a closed
+   * day from an unknown one.
+   */
+  default boolean isClosed(int seriesIndex, int dayIndex) {
+    return closures().isClosed(seriesIndex, dayIndex);
+  }
+
   /**
    * How the attributes nest in the data (item under department, store under region); the source of every default
    * hierarchy and price group. Computed from {@link #attributes()} on each call unless an implementation keeps it.

@@ -36,6 +36,8 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
   private final MappedSeriesAttributes attributes;
   private final MappedPriceTable prices;
   private final MappedDayCalendar calendar;
+  private final ClosureTable closures;
+  private final boolean anyClosures;
   private final long diskBytes;
   private AttributeNesting nesting;
   private volatile boolean closed;
@@ -48,6 +50,9 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
     this.dayCount = manifest.dayCount();
     this.firstDate = manifest.firstLocalDate();
     for (FileKind kind : FileKind.values()) {
+      if (kind == FileKind.CLOSURES && manifest.file(kind.fileName()) == null) {
+        continue;  // stores written before closures were kept have none
+      }
       StoreManifest.StoreFile entry = entry(dir, manifest, kind);
       StoreFileFormat.verify(dir.resolve(kind.fileName()), kind, entry.bytes(), entry.checksum());
     }
@@ -78,6 +83,15 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
     calendar = MappedDayCalendar.open(dir.resolve(FileKind.CALENDAR.fileName()),
         entry(dir, manifest, FileKind.CALENDAR).bytes(), budget);
     opened.add(calendar);
+    if (manifest.file(FileKind.CLOSURES.fileName()) == null) {
+      closures = ClosureTable.EMPTY;
+    } else {
+      MappedClosureTable mapped = MappedClosureTable.open(dir.resolve(FileKind.CLOSURES.fileName()),
+          entry(dir, manifest, FileKind.CLOSURES).bytes(), seriesCount, budget);
+      opened.add(mapped);
+      closures = mapped;
+    }
+    anyClosures = !closures.isEmpty();
     diskBytes = manifest.binaryBytes() + Files.size(dir.resolve(StoreManifest.FILE_NAME));
   }
 
@@ -191,7 +205,7 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
   public long offHeapBytes() {
     checkOpen();
     long total = seriesTable.byteCount() + attributes.offHeapBytes() + prices.offHeapBytes()
-        + calendar.offHeapBytes();
+        + calendar.offHeapBytes() + (closures instanceof MappedClosureTable mapped ? mapped.offHeapBytes() : 0);
     for (MappedRegion window : unitsWindows) {
       total += window.byteCount();
     }
@@ -247,6 +261,9 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
   public int units(int seriesIndex, int dayIndex) {
     checkOpen();
     checkDays(seriesIndex, dayIndex, 1);
+    if (anyClosures && closures.isClosed(seriesIndex, dayIndex)) {
+      return UNKNOWN_UNITS;
+    }
     UnsafeBuffer buffer = seriesBuffer[seriesIndex];
     int offset = seriesColumnOffset[seriesIndex];
     switch (seriesWidthOrdinal[seriesIndex]) {
@@ -271,6 +288,10 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
       case 0 -> ByteUnitsReader.read(buffer, offset, fromDayIndex, dst, dstOffset, count);
       case 1 -> ShortUnitsReader.read(buffer, offset, fromDayIndex, dst, dstOffset, count);
       default -> IntUnitsReader.read(buffer, offset, fromDayIndex, dst, dstOffset, count);
+    }
+    if (anyClosures) {
+      // A closed day reads as unknown for every consumer: no training row, no score, a gap in charts.
+      closures.maskClosed(seriesIndex, fromDayIndex, dst, dstOffset, count);
     }
   }
 
@@ -328,6 +349,12 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
     return calendar;
   }
 
+  @Override
+  public ClosureTable closures() {
+    checkOpen();
+    return closures;
+  }
+
   private void checkOpen() {
     if (closed) {
       throw new IllegalStateException("store " + dir + " is closed");
@@ -341,6 +368,9 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
       return;
     }
     closed = true;
+    if (closures instanceof MappedClosureTable mapped) {
+      mapped.close();
+    }
     calendar.close();
     prices.close();
     attributes.close();

@@ -39,6 +39,8 @@ public final class StoreWriter implements AutoCloseable {
   private boolean seriesSealed;
   private boolean pricesWritten;
   private boolean calendarWritten;
+  private boolean closuresWritten;
+  private long closedItemDays;
   private boolean finished;
   private boolean closed;
 
@@ -192,6 +194,21 @@ public final class StoreWriter implements AutoCloseable {
   }
 
   /**
+   * Writes the closed day ranges of every series added (by series index); call after the last series. The manifest's
+   * {@code fill} counts the closed item-days within the sales days.
+   */
+  public void writeClosures(ClosureTable closures) throws IOException {
+    checkWritable();
+    if (closuresWritten) {
+      throw new IllegalStateException("closures were already written");
+    }
+    seriesSealed = true;
+    addFile(ClosuresFileWriter.write(dir.resolve(FileKind.CLOSURES.fileName()), closures, seriesCount(), budget));
+    closedItemDays = closures.closedItemDays(seriesCount(), dayCount);
+    closuresWritten = true;
+  }
+
+  /**
    * Writes the remaining files, their footers and {@code manifest.json}; empty prices and calendar when none were
    * written.
    *
@@ -206,6 +223,9 @@ public final class StoreWriter implements AutoCloseable {
     }
     if (!calendarWritten) {
       writeCalendar(DayCalendar.EMPTY);
+    }
+    if (!closuresWritten) {
+      writeClosures(ClosureTable.EMPTY);
     }
     units.finish();
     addFile(units);
@@ -225,7 +245,7 @@ public final class StoreWriter implements AutoCloseable {
     }
     StoreManifest manifest = new StoreManifest(StoreFileFormat.FORMAT_VERSION_CURRENT, firstDate.toString(), dayCount,
         seriesCount(), attributeNames, sources, ordered, StoreManifest.fingerprintOf(ordered),
-        new StoreManifest.Fill(zeroFilledItemDays, unknownItemDays, 0),
+        new StoreManifest.Fill(zeroFilledItemDays, unknownItemDays, closedItemDays),
         AttributeNesting.detect(attributes, seriesCount()).parents());
     manifest.write(dir);
     finished = true;

@@ -66,4 +66,5 @@ public final class TruncatedHistory implements SalesHistory {
   @Override public PriceTable prices() { return source.prices(); }
   @Override public DayCalendar calendar() { return source.calendar(); }
   @Override public AttributeNesting nesting() { return source.nesting(); }
+  @Override public ClosureTable closures() { return source.closures(); }
 }

@@ -1,0 +1,108 @@
+package org.lagmill.ingest;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.memory.MemoryBudget;
+import org.lagmill.store.SalesHistory;
+import org.lagmill.store.SalesStore;
+import org.lagmill.store.StoreManifest;
+
+/** Closures declared in a file read as unknown for every consumer and are told apart by isClosed. */
+class ClosuresIngestTest {
+  private static final int U = SalesHistory.UNKNOWN_UNITS;
+  /** Two skus in two shops over six days, every day written (zeros included). */
+  private static final String SALES = "sku,shop,date,units\n"
+      + "A,s1,2025-03-01,1\nA,s1,2025-03-02,0\nA,s1,2025-03-03,2\nA,s1,2025-03-04,0\nA,s1,2025-03-05,3\nA,s1,2025-03-06,1\n"
+      + "A,s2,2025-03-01,2\nA,s2,2025-03-02,2\nA,s2,2025-03-03,0\nA,s2,2025-03-04,0\nA,s2,2025-03-05,1\nA,s2,2025-03-06,4\n"
+      + "B,s1,2025-03-01,0\nB,s1,2025-03-02,5\nB,s1,2025-03-03,1\nB,s1,2025-03-04,0\nB,s1,2025-03-05,0\nB,s1,2025-03-06,2\n";
+
+  @TempDir Path temp;
+
+  /**
+   * Hand-worked: shop s1 closed 03-04 (a holiday, both skus), the whole chain closed 03-02 .. 03-02, sku A in s2 from
+   * 03-05 to a day past the sales (delisted). Overlapping rows merge; rows for an unknown shop are counted.
+   */
+  @Test
+  void shouldReadClosedDaysAsUnknownAndCountThem() throws Exception {
+    Path sales = Files.writeString(temp.resolve("sales.csv"), SALES);
+    Path closures = Files.writeString(temp.resolve("closures.csv"), "shop,sku,from,until,reason\n"
+        + "s1,,2025-03-04,2025-03-04,holiday\n".replace("s1,,", "s1,A,")
+        + "s1,B,2025-03-04,2025-03-04,holiday\n"
+        + "s2,A,2025-03-05,2025-03-09,delisted\n"
+        + "s9,A,2025-03-01,2025-03-02,unknown shop\n");
+    Path chain = Files.writeString(temp.resolve("chain.csv"), "from,until\n2025-03-02,2025-03-02\n"
+        + "2025-02-20,2025-02-21\n");
+    try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
+      IngestResult result = StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store"))
+          .withClosuresFile(closures), budget);
+      // s1: 2 item-days on 03-04; A/s2: 03-05, 03-06 within the sales days (03-07 .. 03-09 lie after them).
+      assertEquals(new StoreManifest.Fill(0, 0, 4), result.manifest().fill());
+      assertEquals(List.of("1 closure rows for unknown keys skipped (first: shop=s9, sku=A)"), result.warnings());
+      try (SalesStore store = SalesStore.open(temp.resolve("store"), budget)) {
+        int a1 = store.attributes().seriesIndexOf("A/s1");
+        int a2 = store.attributes().seriesIndexOf("A/s2");
+        int b1 = store.attributes().seriesIndexOf("B/s1");
+        int[] row = new int[6];
+        store.readUnits(a1, 0, row, 0, 6);
+        assertArrayEquals(new int[] {1, 0, 2, U, 3, 1}, row);
+        store.readUnits(a2, 0, row, 0, 6);
+        assertArrayEquals(new int[] {2, 2, 0, 0, U, U}, row);
+        store.readUnits(b1, 2, row, 0, 3);
+        assertArrayEquals(new int[] {1, U, 0}, java.util.Arrays.copyOf(row, 3));
+        assertEquals(U, store.units(b1, 3));
+        assertTrue(store.isClosed(a2, 8), "a closure may reach past the last sales day");
+        double[][] point = new double[3][4];
+        for (double[] row4 : point) {
+          java.util.Arrays.fill(row4, 1.5);
+        }
+        org.lagmill.forecast.ForecastTable table = new org.lagmill.forecast.ForecastTable(6, point, new double[0],
+            new double[0][][]);
+        // A/s2 is closed 03-07 .. 03-09, horizon days 0 .. 2.
+        assertEquals(3, table.zeroClosedDays(store));
+        assertArrayEquals(new double[] {0, 0, 0, 1.5}, point[a2]);
+        assertArrayEquals(new double[] {1.5, 1.5, 1.5, 1.5}, point[a1]);
+        assertFalse(store.isClosed(a2, 9));
+        assertFalse(store.isClosed(a1, 2));
+      }
+      StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("chain")).withClosuresFile(chain), budget);
+      try (SalesStore store = SalesStore.open(temp.resolve("chain"), budget)) {
+        assertEquals(3, store.manifest().fill().closedItemDays(), "no key column closes every series");
+        for (int s = 0; s < 3; s++) {
+          assertEquals(U, store.units(s, 1));
+          assertTrue(store.isClosed(s, 1));
+        }
+        // A later append keeps the closures.
+        Path next = Files.writeString(temp.resolve("next.csv"), "sku,shop,2025-03-07\nA,s1,1\nA,s2,1\nB,s1,1\n");
+        store.close();
+        StoreAppend.append(AppendOptions.of(temp.resolve("chain"), next), budget);
+      }
+      try (SalesStore store = SalesStore.open(temp.resolve("chain"), budget)) {
+        assertEquals(U, store.units(0, 1));
+        assertEquals(3, store.manifest().fill().closedItemDays());
+      }
+      assertEquals(0, budget.heldBytes());
+    }
+  }
+
+  @Test
+  void shouldRefuseARangeEndingBeforeItStarts() throws Exception {
+    Path sales = Files.writeString(temp.resolve("sales.csv"), SALES);
+    Path closures = Files.writeString(temp.resolve("closures.csv"), "shop,from,until\ns1,2025-03-04,2025-03-02\n");
+    try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
+      InputFormatException e = assertThrows(InputFormatException.class, () -> StoreIngest.ingest(
+          IngestOptions.of(sales, temp.resolve("store")).withClosuresFile(closures), budget));
+      assertEquals(closures + ", line 2, column 3: until '2025-03-02' is before from '2025-03-04': expected a date "
+          + "on or after it", e.getMessage());
+    }
+    assertFalse(Files.exists(temp.resolve("store")));
+  }
+}
