@@ -57,9 +57,15 @@ final class EvaluateCommand implements Callable<Integer> {
       }
       Evaluator evaluator = new Evaluator(opened, hierarchyOptions.hierarchy(opened));
       OriginStatistics statistics = evaluator.statistics(origin);
+      // Closed or unknown actuals leave both sides of every aggregate.
+      double[][][] knownQuantiles = new double[table.quantiles().length][][];
+      for (int q = 0; q < knownQuantiles.length; q++) {
+        knownQuantiles[q] = evaluator.withoutUnknownActuals(table.quantiles()[q], origin);
+      }
       QuantileForecasts quantiles = table.quantileLevels().length == 0 ? null
-          : QuantileForecasts.bottomUp(evaluator.aggregator(), table.quantileLevels(), table.quantiles());
-      AggregateTable aggregated = evaluator.aggregator().aggregateForecasts(table.point());
+          : QuantileForecasts.bottomUp(evaluator.aggregator(), table.quantileLevels(), knownQuantiles);
+      AggregateTable aggregated = evaluator.aggregator()
+          .aggregateForecasts(evaluator.withoutUnknownActuals(table.point(), origin));
       EvaluationResult result = evaluator.evaluate(statistics, aggregated, quantiles);
       Map<String, Double> baselines = new LinkedHashMap<>();
       RollingOriginBacktest.scoreBaselines(new TruncatedHistory(opened, origin), BacktestRun.DEFAULT_BASELINES,

@@ -10,7 +10,8 @@ import java.util.List;
  * @param weightBasis how weights were measured: sales value or, lacking prices, unit volume
  * @param wrmsse mean over levels of the weighted RMSSE
  * @param wspl mean over levels of the weighted scaled pinball loss; null when no quantile forecasts were given
- * @param unknownActualCount bottom series-days in the horizon whose actual units were unknown (scored as 0)
+ * @param unknownActualCount bottom series-days in the horizon whose actual units were unknown or closed (removed from
+ *     both the actual and the forecast side of every aggregate)
  * @param unknownTrainingCount bottom series-days before the origin whose units were unknown (counted as 0)
  * @param levelSource where the levels came from: {@code detected} (the nesting found in the data) or
  *     {@code declared} ({@code --hierarchy} or {@code --level})

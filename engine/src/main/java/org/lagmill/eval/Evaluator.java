@@ -57,7 +57,30 @@ public final class Evaluator {
 
   /** @param bottomForecasts {@code [seriesIndex][dayOffset]} from the origin day on */
   public EvaluationResult evaluate(int originDay, double[][] bottomForecasts) {
-    return evaluate(statistics(originDay), aggregator.aggregateForecasts(bottomForecasts), null);
+    return evaluate(statistics(originDay),
+        aggregator.aggregateForecasts(withoutUnknownActuals(bottomForecasts, originDay)), null);
+  }
+
+  /**
+   * A copy of bottom forecasts (or quantiles, or variances) from {@code originDay} on, with 0 on every series-day whose
+   * actual is unknown or closed. An unknown actual adds nothing to an aggregate's actual, so its forecast must add
+   * nothing to the aggregate's forecast either: the day is removed from both sides of every aggregate, and a closed
+   * day or a missing cell is never scored as an error. Rows of NaN (series not forecast) are kept as they are.
+   *
+   * @param bottomForecasts {@code [seriesIndex][dayOffset]}
+   */
+  public double[][] withoutUnknownActuals(double[][] bottomForecasts, int originDay) {
+    double[][] known = new double[bottomForecasts.length][];
+    for (int s = 0; s < bottomForecasts.length; s++) {
+      known[s] = bottomForecasts[s].clone();
+      int dayCount = Math.min(known[s].length, history.dayCount() - originDay);
+      for (int d = 0; d < dayCount; d++) {
+        if (history.units(s, originDay + d) == SalesHistory.UNKNOWN_UNITS) {
+          known[s][d] = 0;
+        }
+      }
+    }
+    return known;
   }
 
   /**

@@ -68,14 +68,16 @@ public final class RollingOriginBacktest {
     }
     OriginStatistics statistics = evaluator.statistics(origin);
     Aggregator aggregator = evaluator.aggregator();
+    // Scored on known actuals only: a closed or unknown day leaves both sides of every aggregate (mean and variance).
+    double[][] scored = evaluator.withoutUnknownActuals(point, origin);
     QuantileForecasts quantiles = settings.quantileLevels().length == 0 ? null
-        : IntervalAggregation.quantiles(aggregator, point, alphas, settings.quantileLevels());
-    EvaluationResult model = evaluator.evaluate(statistics, aggregator.aggregateForecasts(point), quantiles);
+        : IntervalAggregation.quantiles(aggregator, scored, alphas, settings.quantileLevels());
+    EvaluationResult model = evaluator.evaluate(statistics, aggregator.aggregateForecasts(scored), quantiles);
     Double poissonWspl = null;
     if (quantiles != null) {
-      QuantileForecasts poisson = IntervalAggregation.quantiles(aggregator, point, new float[point.length],
+      QuantileForecasts poisson = IntervalAggregation.quantiles(aggregator, scored, new float[point.length],
           settings.quantileLevels());
-      poissonWspl = evaluator.evaluate(statistics, aggregator.aggregateForecasts(point), poisson).wspl();
+      poissonWspl = evaluator.evaluate(statistics, aggregator.aggregateForecasts(scored), poisson).wspl();
     }
     Map<String, EvaluationResult> baselines = scoreBaselines(known, settings.baselines(), settings.horizonDays(),
         evaluator, statistics);
@@ -93,7 +95,8 @@ public final class RollingOriginBacktest {
     Map<String, EvaluationResult> baselines = new LinkedHashMap<>();
     for (BaselineKind kind : kinds) {
       double[][] baseline = BaselineForecaster.forecastAll(known, known.dayCount(), horizonDays, kind);
-      baselines.put(kind.name(), evaluator.evaluate(statistics, evaluator.aggregator().aggregateForecasts(baseline),
+      double[][] scored = evaluator.withoutUnknownActuals(baseline, statistics.originDay());
+      baselines.put(kind.name(), evaluator.evaluate(statistics, evaluator.aggregator().aggregateForecasts(scored),
           null));
     }
     return baselines;
