@@ -26,7 +26,8 @@ final class AppendCommand implements Callable<Integer> {
   @Option(names = "--store", required = true, paramLabel = "DIR", description = "existing store directory")
   Path store;
 
-  @Option(names = "--sales", required = true, paramLabel = "FILE", description = "wide sales CSV, optionally .gz")
+  @Option(names = "--sales", paramLabel = "FILE", description = {"wide sales CSV, optionally .gz; without it the",
+      "calendar, prices or closures given replace the stored ones and the days stay as they are"})
   Path sales;
 
   @Option(names = "--calendar", paramLabel = "FILE", description = "newer calendar CSV replacing the stored one")
@@ -48,7 +49,7 @@ final class AppendCommand implements Callable<Integer> {
   public Integer call() throws Exception {
     AppendOptions options = AppendOptions.of(store, sales).withColumns(columns.names())
         .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures);
-    RunRecord run = new RunRecord("append").configure("store", store.toString()).configure("sales", sales.toString());
+    RunRecord run = new RunRecord("append").configure("store", store.toString()).configure("sales", sales == null ? null : sales.toString());
     try (MemoryBudget budget = CliBudgets.root(null)) {
       IngestResult result = StoreAppend.append(options, budget);
       StoreManifest appended = result.manifest();

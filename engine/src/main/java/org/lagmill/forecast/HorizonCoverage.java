@@ -17,7 +17,7 @@ public record HorizonCoverage(int seriesWithoutPriceCount, int seriesWithStalePr
     if (spec.calendarColumns() && history.calendar().columnCount() > 0 && history.calendar().dayCount() <= lastDay) {
       throw new IllegalArgumentException("the calendar ends on " + history.dateOf(history.calendar().dayCount() - 1)
           + " but the forecast needs it through " + history.dateOf(lastDay) + "; append a calendar that covers the"
-          + " horizon (lagmill append --calendar FILE)");
+          + " horizon (lagmill append --store DIR --calendar FILE)");
     }
     int withoutPrice = 0;
     int stale = 0;

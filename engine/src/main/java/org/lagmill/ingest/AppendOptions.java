@@ -7,7 +7,8 @@ import java.util.Objects;
  * What {@link StoreAppend} adds to a store.
  *
  * @param storeDir the existing store, replaced atomically by the appended one
- * @param salesFile a wide sales CSV whose first date is the store's next day
+ * @param salesFile a wide sales CSV whose first date is the store's next day, or null to replace only the calendar,
+ *     prices or closures
  * @param calendarFile a newer calendar replacing the stored one, or null to keep it
  * @param pricesFile a newer prices file replacing the stored prices, or null to keep them
  * @param closuresFile a closures file replacing the stored closures, or null to keep them
@@ -17,7 +18,6 @@ public record AppendOptions(Path storeDir, Path salesFile, Path calendarFile, Pa
     Path closuresFile) {
   public AppendOptions {
     Objects.requireNonNull(storeDir, "storeDir");
-    Objects.requireNonNull(salesFile, "salesFile");
     Objects.requireNonNull(columns, "columns");
   }
 

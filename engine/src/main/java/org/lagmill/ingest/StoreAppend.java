@@ -57,17 +57,27 @@ public final class StoreAppend {
     try (MemoryBudget stage = budget.child("append")) {
       Path temp;
       IngestResult result;
+      if (salesFile == null && options.calendarFile() == null && options.pricesFile() == null
+          && options.closuresFile() == null) {
+        throw new IllegalArgumentException("nothing to append: give --sales, --calendar, --prices or --closures");
+      }
+      // No sales file: the calendar, prices or closures alone replace the stored ones; the days stay as they are.
       try (SalesStore store = SalesStore.open(storeDir, stage);
-          WideSalesReader reader = WideSalesReader.open(salesFile, options.columns().seriesIdColumn())) {
-        LocalDate expectedFirst = store.firstDate().plusDays(store.dayCount());
-        if (!reader.firstDate().equals(expectedFirst)) {
-          throw new InputFormatException(salesFile, 1, 0, "expected the first date column to be " + expectedFirst
-              + " (the day after the store's last day " + store.dateOf(store.dayCount() - 1) + "), found "
-              + reader.firstDate());
+          WideSalesReader reader = salesFile == null ? null
+              : WideSalesReader.open(salesFile, options.columns().seriesIdColumn())) {
+        NewDays newDays;
+        if (reader == null) {
+          newDays = new NewDays(0, new int[store.seriesCount()][], List.of(), List.of());
+        } else {
+          LocalDate expectedFirst = store.firstDate().plusDays(store.dayCount());
+          if (!reader.firstDate().equals(expectedFirst)) {
+            throw new InputFormatException(salesFile, 1, 0, "expected the first date column to be " + expectedFirst
+                + " (the day after the store's last day " + store.dateOf(store.dayCount() - 1) + "), found "
+                + reader.firstDate());
+          }
+          int[] fileColumnOfAttribute = matchAttributes(store.attributes(), reader);
+          newDays = readNewDays(store, reader, fileColumnOfAttribute);
         }
-        SeriesAttributes attributes = store.attributes();
-        int[] fileColumnOfAttribute = matchAttributes(attributes, reader);
-        NewDays newDays = readNewDays(store, reader, fileColumnOfAttribute);
         temp = StoreDirectories.createTempSibling(storeDir);
         try {
           result = rewrite(store, temp, newDays, options, stage);

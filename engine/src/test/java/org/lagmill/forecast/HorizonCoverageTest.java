@@ -24,7 +24,7 @@ class HorizonCoverageTest {
     IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> HorizonCoverage.check(history,
         SPEC, 7));
     assertEquals("the calendar ends on 2024-02-05 but the forecast needs it through 2024-02-06; append a calendar"
-        + " that covers the horizon (lagmill append --calendar FILE)", e.getMessage());
+        + " that covers the horizon (lagmill append --store DIR --calendar FILE)", e.getMessage());
     assertEquals(List.of(), HorizonCoverage.check(history, SPEC, 6).warnings());
     assertEquals(List.of(), HorizonCoverage.check(history, SPEC.toBuilder().calendarColumns(false).build(), 7)
         .warnings(), "a spec without calendar columns does not need the calendar");

@@ -93,6 +93,30 @@ class ClosuresIngestTest {
     }
   }
 
+  /** A refresh of closures alone: no sales file, the days stay as they are. */
+  @Test
+  void shouldAppendClosuresAloneAndRefuseAnEmptyAppend() throws Exception {
+    Path sales = Files.writeString(temp.resolve("sales.csv"), SALES);
+    Path closures = Files.writeString(temp.resolve("closures.csv"), "shop,from,until\ns2,2025-03-06,2025-03-08\n");
+    try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
+      StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store")), budget);
+      IngestResult result = StoreAppend.append(new AppendOptions(temp.resolve("store"), null, null, null,
+          ColumnNames.DEFAULTS, closures), budget);
+      assertEquals(6, result.manifest().dayCount());
+      assertEquals(1, result.manifest().fill().closedItemDays());
+      try (SalesStore store = SalesStore.open(temp.resolve("store"), budget)) {
+        int a2 = store.attributes().seriesIndexOf("A/s2");
+        assertEquals(U, store.units(a2, 5));
+        assertEquals(1, store.units(a2, 4));
+        assertTrue(store.isClosed(a2, 7));
+      }
+      IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> StoreAppend.append(
+          new AppendOptions(temp.resolve("store"), null, null, null, ColumnNames.DEFAULTS, null), budget));
+      assertEquals("nothing to append: give --sales, --calendar, --prices or --closures", e.getMessage());
+      assertEquals(0, budget.heldBytes());
+    }
+  }
+
   @Test
   void shouldRefuseARangeEndingBeforeItStarts() throws Exception {
     Path sales = Files.writeString(temp.resolve("sales.csv"), SALES);
