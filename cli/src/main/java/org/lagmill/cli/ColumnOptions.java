@@ -14,6 +14,14 @@ final class ColumnOptions {
       description = "date column of the calendar and of long sales (default: ${DEFAULT-VALUE})")
   String dateColumn;
 
+  @Option(names = "--sales-date-column", paramLabel = "NAME",
+      description = "date column of long sales only (default: --date-column)")
+  String salesDateColumn;
+
+  @Option(names = "--calendar-date-column", paramLabel = "NAME",
+      description = "date column of the calendar only (default: --date-column)")
+  String calendarDateColumn;
+
   @Option(names = "--from-column", paramLabel = "NAME", defaultValue = "from",
       description = "date column of prices (default: ${DEFAULT-VALUE})")
   String fromColumn;
@@ -23,7 +31,14 @@ final class ColumnOptions {
   String priceColumn;
 
   ColumnNames names() {
-    return ColumnNames.DEFAULTS.withSeriesIdColumn(seriesIdColumn).withDateColumn(dateColumn)
+    ColumnNames names = ColumnNames.DEFAULTS.withSeriesIdColumn(seriesIdColumn).withDateColumn(dateColumn)
         .withFromColumn(fromColumn).withPriceColumn(priceColumn);
+    if (salesDateColumn != null) {
+      names = names.withSalesDateColumn(salesDateColumn);
+    }
+    if (calendarDateColumn != null) {
+      names = names.withCalendarDateColumn(calendarDateColumn);
+    }
+    return names;
   }
 }

@@ -34,7 +34,7 @@ final class CalendarAndPrices {
   static void writeCalendar(StoreWriter writer, Path calendarFile, ColumnNames columns, List<String> warnings)
       throws IOException {
     CalendarReadResult read = CalendarFileReader.read(calendarFile, writer.firstDate(), writer.attributes(),
-        columns.dateColumn());
+        columns.calendarDateColumn());
     warnings.addAll(read.warnings());
     writer.writeCalendar(read.calendar());
   }

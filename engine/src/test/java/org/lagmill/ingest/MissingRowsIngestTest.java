@@ -91,6 +91,25 @@ class MissingRowsIngestTest {
     }
   }
 
+  /** A till export's 'day' beside a calendar's 'date': one date column option per file. */
+  @Test
+  void shouldTakeOneDateColumnNamePerFile() throws Exception {
+    Path sales = temp.resolve("till.csv");
+    Files.writeString(sales, "sku,shop,day,units\nA,s1,2025-01-01,1\nA,s1,2025-01-03,2\n");
+    Path calendar = temp.resolve("calendar.csv");
+    Files.writeString(calendar, "date,holiday\n2025-01-01,1\n2025-01-02,0\n2025-01-03,0\n");
+    try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
+      IngestResult result = StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("s"))
+          .withColumns(ColumnNames.DEFAULTS.withSalesDateColumn("day")).withCalendarFile(calendar), budget);
+      assertEquals(new StoreManifest.Fill(1, 0, 0), result.manifest().fill());
+      try (SalesStore store = SalesStore.open(temp.resolve("s"), budget)) {
+        assertEquals(3, store.calendar().dayCount());
+      }
+      assertEquals("day", ColumnNames.DEFAULTS.withDateColumn("day").calendarDateColumn(),
+          "--date-column still names both");
+    }
+  }
+
   /** Series sku × shop; each has a launch day before which it has no row, and a units value per day after. */
   private static final class Table {
     final String[] skus;
