@@ -7,6 +7,7 @@ import org.lagmill.ingest.IngestResult;
 import org.lagmill.ingest.StoreAppend;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.StoreManifest;
+import org.lagmill.store.StoreUpdate;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -42,6 +43,10 @@ final class AppendCommand implements Callable<Integer> {
 
   @Mixin ColumnOptions columns;
 
+  @Option(names = "--no-wait", description = "fail at once (exit 7) when another command is writing the store, "
+      + "instead of waiting for it")
+  boolean noWait;
+
   @Option(names = "--quiet", description = "print nothing on success, not even warnings")
   boolean quiet;
 
@@ -51,7 +56,8 @@ final class AppendCommand implements Callable<Integer> {
         .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures);
     RunRecord run = new RunRecord("append").configure("store", store.toString()).configure("sales", sales == null ? null : sales.toString());
     try (MemoryBudget budget = CliBudgets.root(null)) {
-      IngestResult result = StoreAppend.append(options, budget);
+      IngestResult result = StoreAppend.append(options, new StoreUpdate.Policy(StoreUpdate.Mode.CHANGE, !noWait),
+          budget);
       StoreManifest appended = result.manifest();
       run.endStage("append", budget.peakBytes(), (long) appended.seriesCount() * appended.dayCount());
       run.result("seriesCount", appended.seriesCount()).result("dayCount", appended.dayCount())

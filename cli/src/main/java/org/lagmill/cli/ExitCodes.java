@@ -15,6 +15,8 @@ public final class ExitCodes {
   public static final int OUT_OF_MEMORY_BUDGET = 5;
   /** A file or directory could not be read or written. */
   public static final int IO_ERROR = 6;
+  /** Another command is writing the store and {@code --no-wait} was given. */
+  public static final int STORE_BUSY = 7;
 
   private ExitCodes() {}
 }

@@ -11,6 +11,7 @@ import org.lagmill.ingest.SalesFormat;
 import org.lagmill.ingest.StoreIngest;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.StoreManifest;
+import org.lagmill.store.StoreUpdate;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -23,7 +24,8 @@ import picocli.CommandLine.Spec;
         "(one row per series and day), with an optional calendar and prices (see docs/formats.md)."},
     footer = {"", "Example:", "  lagmill ingest --sales sales.csv.gz --store stores/chain",
         "  lagmill ingest --sales sales.csv --calendar calendar.csv --prices prices.csv \\",
-        "      --store stores/chain"})
+        "      --store stores/chain",
+        "  lagmill ingest --sales sales.csv --store stores/chain --replace"})
 final class IngestCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
 
@@ -36,8 +38,17 @@ final class IngestCommand implements Callable<Integer> {
   @Option(names = "--prices", paramLabel = "FILE", description = "prices CSV")
   Path prices;
 
-  @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory to create or replace")
+  @Option(names = "--store", required = true, paramLabel = "DIR",
+      description = "store directory to create: a new path or an empty folder")
   Path store;
+
+  @Option(names = "--replace", description = "replace the store at --store (only a lagmill store that verifies is "
+      + "replaced; any other file or folder is refused)")
+  boolean replace;
+
+  @Option(names = "--no-wait", description = "fail at once (exit 7) when another command is writing the store, "
+      + "instead of waiting for it")
+  boolean noWait;
 
   @Option(names = "--sales-format", paramLabel = "FORMAT", defaultValue = "auto",
       description = "wide, long or auto: wide when a header is an ISO date, long when it has the date and units "
@@ -78,7 +89,8 @@ final class IngestCommand implements Callable<Integer> {
         .configure("prices", prices == null ? null : prices.toString()).configure("store", store.toString())
         .configure("missingRows", MissingRows.parse(missingRows).optionValue());
     try (MemoryBudget budget = CliBudgets.root(memoryLimitBytes)) {
-      IngestResult result = StoreIngest.ingest(options, budget);
+      IngestResult result = StoreIngest.ingest(options, new StoreUpdate.Policy(replace ? StoreUpdate.Mode.REPLACE
+          : StoreUpdate.Mode.CREATE, !noWait), budget);
       StoreManifest ingested = result.manifest();
       run.endStage("ingest", budget.peakBytes(), (long) ingested.seriesCount() * ingested.dayCount());
       run.result("seriesCount", ingested.seriesCount()).result("dayCount", ingested.dayCount())

@@ -5,7 +5,10 @@ import java.io.UncheckedIOException;
 import java.nio.file.NoSuchFileException;
 import org.lagmill.ingest.InputFormatException;
 import org.lagmill.memory.MemoryBudgetExceededException;
+import org.lagmill.io.OutputRefusedException;
 import org.lagmill.store.CorruptStoreException;
+import org.lagmill.store.StoreBusyException;
+import org.lagmill.store.StoreNotices;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 
@@ -18,7 +21,8 @@ import picocli.CommandLine.Command;
     subcommands = {CommandLine.HelpCommand.class},
     footer = {"", "Example:", "  lagmill demo --out demo-run", "",
         "Exit codes: 0 ok, 1 internal error, 2 usage error, 3 bad input, 4 corrupt store,",
-        "            5 out of memory budget, 6 file not readable or writable"})
+        "            5 out of memory budget, 6 file not readable or writable (or not ours to replace),",
+        "            7 store busy (another command is writing it and --no-wait was given)"})
 public final class Main {
 
   public static void main(String[] args) {
@@ -33,6 +37,10 @@ public final class Main {
 
   static CommandLine commandLine() {
     CommandLine cli = new CommandLine(new Main());
+    StoreNotices.setSink(text -> {
+      cli.getErr().println("note: " + text);
+      cli.getErr().flush();
+    });
     for (Object sub : Subcommands.all()) {
       cli.addSubcommand(sub);
     }
@@ -58,6 +66,9 @@ public final class Main {
     if (t instanceof IllegalArgumentException) {
       return ExitCodes.USAGE_ERROR;
     }
+    if (t instanceof StoreBusyException) {
+      return ExitCodes.STORE_BUSY;
+    }
     if (t instanceof IOException) {
       return ExitCodes.IO_ERROR;
     }
@@ -65,6 +76,9 @@ public final class Main {
   }
 
   private static String message(Throwable t) {
+    if (t instanceof OutputRefusedException r && r.reason() == OutputRefusedException.Reason.EXISTS) {
+      return r.getMessage() + "; pass --replace to replace it";
+    }
     if (t instanceof NoSuchFileException n) {
       return "no such file: " + n.getFile() + (n.getReason() == null ? "" : " (" + n.getReason() + ")");
     }

@@ -22,7 +22,7 @@ class DemoCommandTest {
     MainRun run = MainRun.of("demo", "--out", out.toString(), "--size", "small", "--quiet");
     assertEquals(ExitCodes.OK, run.exitCode(), run.err());
     for (String file : List.of("forecast.csv", "run.json", "features.yaml", "report/report.html",
-        "report/report.json", "model/manifest.json", "model/model.txt", "store/manifest.json")) {
+        "report/report.json", "model/manifest.json", "model/model.txt", "store/current", "store/lock")) {
       assertTrue(Files.isRegularFile(out.resolve(file)), "missing " + file);
     }
     List<String> forecast = Files.readAllLines(out.resolve("forecast.csv"));

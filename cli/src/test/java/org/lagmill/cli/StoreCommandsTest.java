@@ -11,6 +11,8 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.store.StoreGenerations;
+import org.lagmill.store.StoreLock;
 import picocli.CommandLine;
 
 class StoreCommandsTest {
@@ -62,13 +64,55 @@ class StoreCommandsTest {
     Files.writeString(good, "item,2024-01-01\na,1\n");
     Path store = temp.resolve("store");
     assertEquals(0, run("ingest", "--sales", good.toString(), "--store", store.toString(), "--quiet"));
-    byte[] units = Files.readAllBytes(store.resolve("units.bin"));
+    Path unitsFile = StoreGenerations.readableDir(store).resolve("units.bin");
+    byte[] units = Files.readAllBytes(unitsFile);
     units[0] ^= 1;
-    Files.write(store.resolve("units.bin"), units);
+    Files.write(unitsFile, units);
     assertEquals(ExitCodes.CORRUPT_STORE, run("inspect", "--store", store.toString()));
-    assertEquals(ExitCodes.USAGE_ERROR, run("ingest", "--sales", good.toString(), "--store", store.toString(),
+    assertEquals(ExitCodes.USAGE_ERROR, run("ingest", "--sales", good.toString(), "--store", temp.resolve("s2").toString(),
         "--memory-limit", "0"));
     assertEquals(0, run("ingest", "--help"));
     assertTrue(out.toString().contains("lagmill ingest --sales sales.csv.gz --store stores/chain"), out.toString());
+  }
+
+  @Test
+  void shouldRefuseToIngestOverAnythingButAStoreItWasAskedToReplace() throws Exception {
+    Path good = temp.resolve("good.csv");
+    Files.writeString(good, "sku,2024-01-01\na,1\n");
+    Path file = temp.resolve("notes.txt");
+    Files.writeString(file, "mine");
+    assertEquals(ExitCodes.IO_ERROR, run("ingest", "--sales", good.toString(), "--store", file.toString()));
+    assertEquals("lagmill: refusing to write " + file.toAbsolutePath() + ": it is a file, not a store; nothing was "
+        + "changed", err.toString().trim());
+    assertEquals("mine", Files.readString(file));
+    err.getBuffer().setLength(0);
+    assertEquals(ExitCodes.IO_ERROR, run("ingest", "--sales", good.toString(), "--store", temp.toString(),
+        "--replace"));
+    assertTrue(err.toString().startsWith("lagmill: refusing to write " + temp.toAbsolutePath() + ": the folder "
+        + "holds files that are not a lagmill store"), err.toString());
+    Path store = temp.resolve("store");
+    assertEquals(0, run("ingest", "--sales", good.toString(), "--store", store.toString(), "--quiet"));
+    err.getBuffer().setLength(0);
+    assertEquals(ExitCodes.IO_ERROR, run("ingest", "--sales", good.toString(), "--store", store.toString()));
+    assertEquals("lagmill: refusing to write " + store.toAbsolutePath() + ": it already holds a store; nothing was "
+        + "changed (replacing it must be asked for); pass --replace to replace it", err.toString().trim());
+    assertEquals(0, run("ingest", "--sales", good.toString(), "--store", store.toString(), "--replace", "--quiet"));
+  }
+
+  @Test
+  void shouldFailFastWithNoWaitWhileAnotherWriterHoldsTheStore() throws Exception {
+    Path good = temp.resolve("good.csv");
+    Files.writeString(good, "sku,2024-01-01\na,1\n");
+    Path next = temp.resolve("next.csv");
+    Files.writeString(next, "sku,2024-01-02\na,2\n");
+    Path store = temp.resolve("store");
+    assertEquals(0, run("ingest", "--sales", good.toString(), "--store", store.toString(), "--quiet"));
+    try (StoreLock held = StoreLock.acquire(store, false, text -> { })) {
+      assertEquals(ExitCodes.STORE_BUSY, run("append", "--store", store.toString(), "--sales", next.toString(),
+          "--no-wait"));
+      assertEquals("lagmill: store " + store.toAbsolutePath() + " is being changed by process "
+          + ProcessHandle.current().pid() + "; try again when it has finished", err.toString().trim());
+    }
+    assertEquals(0, run("append", "--store", store.toString(), "--sales", next.toString(), "--no-wait"));
   }
 }

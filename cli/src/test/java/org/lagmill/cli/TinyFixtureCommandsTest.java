@@ -31,7 +31,7 @@ class TinyFixtureCommandsTest {
     assertTrue(ingest.out().startsWith("ingested 4 series x 14 days (2026-01-05 .. 2026-01-18)"), ingest.out());
 
     MainRun quiet = MainRun.of("ingest", "--sales", TINY.resolve("sales.csv").toString(), "--prices",
-        TINY.resolve("prices.csv").toString(), "--store", store.toString(), "--quiet");
+        TINY.resolve("prices.csv").toString(), "--store", store.toString(), "--replace", "--quiet");
     assertEquals(0, quiet.exitCode(), quiet.err());
     assertEquals("", quiet.err() + quiet.out(), "--quiet prints no warning either");
 

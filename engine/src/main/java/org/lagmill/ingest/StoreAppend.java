@@ -14,8 +14,8 @@ import org.lagmill.store.PriceTable;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.SeriesAttributes;
-import org.lagmill.store.StoreDirectories;
 import org.lagmill.store.StoreManifest;
+import org.lagmill.store.StoreUpdate;
 import org.lagmill.store.StoreWriter;
 
 /**
@@ -52,15 +52,28 @@ public final class StoreAppend {
    *     malformed
    */
   public static IngestResult append(AppendOptions options, MemoryBudget budget) throws IOException {
+    return append(options, StoreUpdate.Policy.CHANGE_WAITING, budget);
+  }
+
+  /**
+   * As {@link #append(AppendOptions, MemoryBudget)}; the store's lock is held from before it is read until the new
+   * generation is committed, so two appends never both read the same days (the second waits, or fails at once when
+   * the policy does not wait).
+   *
+   * @throws org.lagmill.store.StoreBusyException when another writer holds the store and the policy does not wait
+   */
+  public static IngestResult append(AppendOptions options, StoreUpdate.Policy policy, MemoryBudget budget)
+      throws IOException {
     Path storeDir = options.storeDir();
     Path salesFile = options.salesFile();
-    try (MemoryBudget stage = budget.child("append")) {
-      Path temp;
+    if (salesFile == null && options.calendarFile() == null && options.pricesFile() == null
+        && options.closuresFile() == null) {
+      throw new IllegalArgumentException("nothing to append: give --sales, --calendar, --prices or --closures");
+    }
+    try (StoreUpdate update = StoreUpdate.begin(storeDir, policy);
+        MemoryBudget stage = budget.child("append")) {
+      Path temp = update.buildingDir();
       IngestResult result;
-      if (salesFile == null && options.calendarFile() == null && options.pricesFile() == null
-          && options.closuresFile() == null) {
-        throw new IllegalArgumentException("nothing to append: give --sales, --calendar, --prices or --closures");
-      }
       // No sales file: the calendar, prices or closures alone replace the stored ones; the days stay as they are.
       try (SalesStore store = SalesStore.open(storeDir, stage);
           WideSalesReader reader = salesFile == null ? null
@@ -78,15 +91,9 @@ public final class StoreAppend {
           int[] fileColumnOfAttribute = matchAttributes(store.attributes(), reader);
           newDays = readNewDays(store, reader, fileColumnOfAttribute);
         }
-        temp = StoreDirectories.createTempSibling(storeDir);
-        try {
-          result = rewrite(store, temp, newDays, options, stage);
-        } catch (IOException | RuntimeException | Error e) {
-          StoreDirectories.deleteAfterFailure(temp, e);
-          throw e;
-        }
+        result = rewrite(store, temp, newDays, options, stage);
       }
-      StoreDirectories.publish(temp, storeDir);
+      update.commit();
       return result;
     }
   }

@@ -7,12 +7,12 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import org.lagmill.memory.MemoryBudget;
-import org.lagmill.store.StoreDirectories;
 import org.lagmill.store.StoreManifest;
+import org.lagmill.store.StoreUpdate;
 import org.lagmill.store.StoreWriter;
 
 /**
- * Builds a store from input files into a temporary sibling of the target, then publishes it atomically. Wide sales
+ * Builds a store from input files into a new generation under the store's writer lock, then commits it. Wide sales
  * stream row by row ({@link WideSalesReader}: the heap holds one row plus the attribute dictionaries); long sales take
  * two passes ({@link LongSalesReader}, with a series × day matrix of 4 bytes per item-day charged to the budget). Once
  * every series is written, the calendar ({@link CalendarFileReader}) and prices ({@link PriceFileReader}) are read
@@ -28,11 +28,24 @@ public final class StoreIngest {
    * @throws InputFormatException for a malformed input file (file, line, column, found, expected)
    */
   public static IngestResult ingest(IngestOptions options, MemoryBudget budget) throws IOException {
+    return ingest(options, StoreUpdate.Policy.REPLACE_WAITING, budget);
+  }
+
+  /**
+   * As {@link #ingest(IngestOptions, MemoryBudget)}, treating an existing path and another writer as {@code policy}
+   * says: a path holding anything but a lagmill store is always refused, before anything is read or changed.
+   *
+   * @throws org.lagmill.io.OutputRefusedException when the store path may not be written
+   * @throws org.lagmill.store.StoreBusyException when another writer holds the store and the policy does not wait
+   */
+  public static IngestResult ingest(IngestOptions options, StoreUpdate.Policy policy, MemoryBudget budget)
+      throws IOException {
     ColumnNames columns = options.columns();
     SalesFormat format = options.salesFormat().resolve(options.salesFile(), columns.dateColumn(),
         columns.unitsColumn());
-    Path temp = StoreDirectories.createTempSibling(options.storeDir());
-    try (MemoryBudget stage = budget.child("ingest")) {
+    try (StoreUpdate update = StoreUpdate.begin(options.storeDir(), policy);
+        MemoryBudget stage = budget.child("ingest")) {
+      Path temp = update.buildingDir();
       List<String> warnings = new ArrayList<>();
       StoreManifest manifest;
       try (StoreWriter writer = format == SalesFormat.LONG ? writeLong(options, temp, stage)
@@ -54,11 +67,8 @@ public final class StoreIngest {
       }
       // A new store's zero fills are all this run's.
       FillWarnings.add(manifest, manifest.fill().zeroFilledItemDays(), warnings);
-      StoreDirectories.publish(temp, options.storeDir());
+      update.commit();
       return new IngestResult(manifest, warnings);
-    } catch (IOException | RuntimeException | Error e) {
-      StoreDirectories.deleteAfterFailure(temp, e);
-      throw e;
     }
   }
 

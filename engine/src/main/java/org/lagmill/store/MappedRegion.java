@@ -1,8 +1,11 @@
 package org.lagmill.store;
 
+import java.io.IOException;
+import java.io.UncheckedIOException;
 import java.nio.MappedByteBuffer;
 import java.nio.channels.FileChannel;
 import java.nio.file.Path;
+import java.nio.file.StandardOpenOption;
 import org.agrona.IoUtil;
 import org.agrona.concurrent.UnsafeBuffer;
 import org.lagmill.memory.MemoryBudget;
@@ -37,8 +40,13 @@ final class MappedRegion implements AutoCloseable {
     }
     budget.reserve(byteCount);
     try {
-      MappedByteBuffer mapped = IoUtil.mapExistingFile(file.toFile(), FileChannel.MapMode.READ_ONLY,
-          file.getFileName().toString(), fileOffset, byteCount);
+      MappedByteBuffer mapped;
+      try (FileChannel channel = FileChannel.open(file, StandardOpenOption.READ)) {
+        mapped = channel.map(FileChannel.MapMode.READ_ONLY, fileOffset, byteCount);
+      } catch (IOException e) {
+        // Unchecked so callers keep their signatures; SalesStore.open looks for a missing file in it to retry.
+        throw new UncheckedIOException(e);
+      }
       return new MappedRegion(budget, fileOffset, byteCount, mapped);
     } catch (RuntimeException | Error e) {
       budget.release(byteCount);

@@ -1,8 +1,10 @@
 package org.lagmill.store;
 
 import java.io.IOException;
+import java.io.UncheckedIOException;
 import java.nio.ByteOrder;
 import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.time.LocalDate;
 import java.util.ArrayList;
@@ -21,6 +23,8 @@ import org.lagmill.memory.MemoryBudget;
 public final class SalesStore implements SalesHistory, AutoCloseable {
   /** Largest span of units.bin one mapping window covers. */
   public static final long DEFAULT_WINDOW_BYTES = 1L << 30;
+  /** Pointer re-reads when generations are replaced faster than a reader opens one (each open takes a commit). */
+  private static final int MAX_OPEN_ATTEMPTS = 8;
 
   private final Path dir;
   private final StoreManifest manifest;
@@ -107,7 +111,57 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
   }
 
   /** As {@link #open(Path, MemoryBudget)} with a smaller window, so tests can cross window boundaries. */
-  static SalesStore open(Path dir, MemoryBudget budget, long maxWindowBytes) throws IOException {
+  static SalesStore open(Path storeDir, MemoryBudget budget, long maxWindowBytes) throws IOException {
+    tidyUp(storeDir);
+    for (int attempt = 1; ; attempt++) {
+      Path dir = StoreGenerations.readableDir(storeDir);
+      try {
+        return openGeneration(dir, budget, maxWindowBytes);
+      } catch (NoSuchFileException | UncheckedIOException e) {
+        // A writer deleted the generation after committing a newer one; read the pointer again.
+        boolean missing = e instanceof NoSuchFileException || e.getCause() instanceof NoSuchFileException;
+        if (!missing || attempt >= MAX_OPEN_ATTEMPTS || dir.equals(StoreGenerations.readableDir(storeDir))) {
+          throw e;
+        }
+      }
+    }
+  }
+
+  /**
+   * Removes what a writer that died left behind when no writer is running now, and says so. A reader never waits
+   * for the lock and goes on without it when it is held or cannot be taken (a read-only store).
+   */
+  private static void tidyUp(Path storeDir) throws IOException {
+    // Only writers of the generation layout leave anything to tidy, and each takes the lock file first.
+    if (!Files.isRegularFile(storeDir.resolve(StoreLock.FILE_NAME))) {
+      return;
+    }
+    try (StoreLock lock = StoreLock.tryAcquire(storeDir)) {
+      if (lock != null) {
+        for (String note : StoreGenerations.recover(lock)) {
+          StoreNotices.tell("store " + storeDir + ": " + note);
+        }
+      }
+    }
+  }
+
+  /**
+   * Checks that {@code storeDir} holds a store whose manifest parses and whose every file passes its size, header
+   * and checksum checks, without mapping anything.
+   *
+   * @throws CorruptStoreException naming the first file that fails
+   */
+  public static StoreManifest verifyFiles(Path storeDir) throws IOException {
+    Path dir = StoreGenerations.readableDir(storeDir);
+    StoreManifest manifest = StoreManifest.read(dir);
+    for (FileKind kind : FileKind.values()) {
+      StoreManifest.StoreFile entry = entry(dir, manifest, kind);
+      StoreFileFormat.verify(dir.resolve(kind.fileName()), kind, entry.bytes(), entry.checksum());
+    }
+    return manifest;
+  }
+
+  private static SalesStore openGeneration(Path dir, MemoryBudget budget, long maxWindowBytes) throws IOException {
     StoreManifest manifest = StoreManifest.read(dir);
     List<AutoCloseable> opened = new ArrayList<>();
     try {

@@ -198,10 +198,13 @@ class CalendarPricesWiringTest {
     }
   }
 
+  /** Every file under the store folder (pointer, lock, generations) by relative path. */
   private static Map<String, byte[]> contents(Path dir) throws IOException {
     Map<String, byte[]> map = new TreeMap<>();
-    for (String name : StoreIngestTest.listing(dir)) {
-      map.put(name, Files.readAllBytes(dir.resolve(name)));
+    try (var paths = Files.walk(dir)) {
+      for (Path file : paths.filter(Files::isRegularFile).toList()) {
+        map.put(dir.relativize(file).toString(), Files.readAllBytes(file));
+      }
     }
     return map;
   }

@@ -21,6 +21,7 @@ import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.RandomStoreData;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.StoreAssertions;
+import org.lagmill.store.StoreGenerations;
 import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreSummary;
 
@@ -73,8 +74,8 @@ class StoreIngestTest {
       StoreIngest.ingest(IngestOptions.of(gzip, temp.resolve("b")), budget);
     }
     for (String file : List.of("units.bin", "series.bin", "attributes.bin", "prices.bin", "calendar.bin")) {
-      assertArrayEquals(Files.readAllBytes(temp.resolve("a").resolve(file)),
-          Files.readAllBytes(temp.resolve("b").resolve(file)), file);
+      assertArrayEquals(Files.readAllBytes(StoreGenerations.readableDir(temp.resolve("a")).resolve(file)),
+          Files.readAllBytes(StoreGenerations.readableDir(temp.resolve("b")).resolve(file)), file);
     }
   }
 
@@ -84,7 +85,8 @@ class StoreIngestTest {
     Path storeDir = temp.resolve("store");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       StoreIngest.ingest(IngestOptions.of(writeCsv("good.csv", data), storeDir), budget);
-      Map<String, byte[]> before = contents(storeDir);
+      Map<String, byte[]> before = contents(StoreGenerations.readableDir(storeDir));
+      List<String> topLevel = listing(storeDir);
       String csv = Files.readString(temp.resolve("good.csv"));
       Path bad = temp.resolve("bad.csv");
       Files.writeString(bad, csv + csv.substring(csv.indexOf('\n') + 1, csv.indexOf('\n', csv.indexOf('\n') + 1) + 1));
@@ -95,7 +97,8 @@ class StoreIngestTest {
       Path broken = temp.resolve("broken.csv");
       Files.writeString(broken, csv.replaceFirst(",(\\d+)\n", ",-$1\n"));
       assertThrows(InputFormatException.class, () -> StoreIngest.ingest(IngestOptions.of(broken, storeDir), budget));
-      Map<String, byte[]> after = contents(storeDir);
+      assertEquals(topLevel, listing(storeDir), "the failed ingests leave no building directory");
+      Map<String, byte[]> after = contents(StoreGenerations.readableDir(storeDir));
       assertEquals(before.keySet(), after.keySet());
       for (String name : before.keySet()) {
         assertArrayEquals(before.get(name), after.get(name), name);
@@ -133,7 +136,7 @@ class StoreIngestTest {
         assertEquals(3.0 / 5.0, summary.zeroDayShare(), 1e-12);
         assertEquals(3 * 3 * 8, summary.int64ColumnBytes());
         assertEquals(Files.size(csv), summary.sourceCsvBytes());
-        assertEquals(Files.size(temp.resolve("store/units.bin")), summary.unitsFileBytes());
+        assertEquals(Files.size(StoreGenerations.readableDir(temp.resolve("store")).resolve("units.bin")), summary.unitsFileBytes());
         assertEquals((16 + 3 + 6 + 3 + 8) / 9.0, summary.unitsBytesPerItemDay(), 1e-12);
         assertEquals(store.offHeapBytes(), summary.offHeapBytes());
       }
