@@ -21,8 +21,8 @@ import picocli.CommandLine.Command;
     subcommands = {CommandLine.HelpCommand.class},
     footer = {"", "Example:", "  lagmill demo --out demo-run", "",
         "Exit codes: 0 ok, 1 internal error, 2 usage error, 3 bad input, 4 corrupt store,",
-        "            5 out of memory budget, 6 file not readable or writable (or not ours to replace),",
-        "            7 store busy (another command is writing it and --no-wait was given)"})
+        "            5 out of memory budget, 6 file not readable or writable, or not ours",
+        "            to replace, 7 store busy (being written, and --no-wait was given)"})
 public final class Main {
 
   public static void main(String[] args) {

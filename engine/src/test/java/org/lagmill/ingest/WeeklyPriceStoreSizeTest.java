@@ -10,6 +10,7 @@ import org.lagmill.memory.MemoryBudget;
 import org.lagmill.scenario.ScenarioGenerator;
 import org.lagmill.scenario.ScenarioSpec;
 import org.lagmill.store.SalesStore;
+import org.lagmill.store.StoreGenerations;
 import org.lagmill.store.StoreSummary;
 
 /**
@@ -39,7 +40,7 @@ class WeeklyPriceStoreSizeTest {
           .withCalendarFile(data.resolve(ScenarioGenerator.CALENDAR_FILE)).withPricesFile(weeklyPrices), budget);
       try (SalesStore store = SalesStore.open(temp.resolve("store"), budget)) {
         double itemDays = (double) store.seriesCount() * store.dayCount();
-        double pricesBytesPerItemDay = Files.size(temp.resolve("store").resolve("prices.bin")) / itemDays;
+        double pricesBytesPerItemDay = Files.size(StoreGenerations.readableDir(temp.resolve("store")).resolve("prices.bin")) / itemDays;
         double storeBytesPerItemDay = StoreSummary.of(store).storeBytesPerItemDay();
         String figures = String.format("%d weekly price rows; prices.bin %.4f B/item-day, store %.4f B/item-day",
             weeklyRowCount, pricesBytesPerItemDay, storeBytesPerItemDay);
