@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.concurrent.Callable;
 import org.lagmill.features.FeatureSpec;
 import org.lagmill.forecast.TrainingPlan;
+import org.lagmill.io.AtomicFiles;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.report.ReportAssembler;
 import org.lagmill.report.ReportData;
@@ -81,8 +82,8 @@ final class BacktestCommand implements Callable<Integer> {
       backtest.addTo(report, opened, shownSeries);
     }
     ReportOutput.addStages(report, run.stages(), backtest.lastPartitions().get(0).datasetBytesPerRow());
-    Files.createDirectories(reportDir);
-    RunRecord.JSON.writeValue(reportDir.resolve("backtest.json").toFile(), backtest.result);
+    ReportOutput.checkTarget(reportDir);
+    AtomicFiles.write(reportDir.resolve("backtest.json"), RunRecord.JSON.writeValueAsBytes(backtest.result));
     Path html = ReportOutput.write(report.build(), reportDir);
     run.result("backtest", backtest.result);
     run.write(reportDir);

@@ -4,9 +4,9 @@ import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.nio.file.NoSuchFileException;
 import org.lagmill.ingest.InputFormatException;
+import org.lagmill.io.CorruptFileException;
 import org.lagmill.memory.MemoryBudgetExceededException;
 import org.lagmill.io.OutputRefusedException;
-import org.lagmill.store.CorruptStoreException;
 import org.lagmill.store.StoreBusyException;
 import org.lagmill.store.StoreNotices;
 import picocli.CommandLine;
@@ -57,7 +57,7 @@ public final class Main {
     if (t instanceof InputFormatException) {
       return ExitCodes.BAD_INPUT;
     }
-    if (t instanceof CorruptStoreException) {
+    if (t instanceof CorruptFileException) {
       return ExitCodes.CORRUPT_STORE;
     }
     if (t instanceof MemoryBudgetExceededException || t instanceof OutOfMemoryError) {
@@ -82,7 +82,7 @@ public final class Main {
     if (t instanceof NoSuchFileException n) {
       return "no such file: " + n.getFile() + (n.getReason() == null ? "" : " (" + n.getReason() + ")");
     }
-    if (t instanceof InputFormatException || t instanceof CorruptStoreException
+    if (t instanceof InputFormatException || t instanceof CorruptFileException
         || t instanceof MemoryBudgetExceededException || t instanceof IllegalArgumentException
         || t instanceof IOException) {
       return t.getMessage();

@@ -1,9 +1,12 @@
 package org.lagmill.cli;
 
 import java.io.IOException;
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Instant;
 import java.util.List;
+import java.util.Set;
+import org.lagmill.io.OutputTargets;
 import org.lagmill.report.HtmlReportWriter;
 import org.lagmill.report.ReportData;
 import org.lagmill.report.ReportJson;
@@ -31,8 +34,19 @@ final class ReportOutput {
     }
   }
 
+  /**
+   * Refuses a report folder that holds anything but a report lagmill wrote; call it before writing anything there.
+   *
+   * @throws org.lagmill.io.OutputRefusedException naming the folder and one of its files
+   */
+  static void checkTarget(Path dir) throws IOException {
+    OutputTargets.checkFolder(dir.toAbsolutePath().normalize(), "report folder",
+        d -> Files.isRegularFile(d.resolve(JSON_FILE)) || Files.isRegularFile(d.resolve(HTML_FILE)), Set.of());
+  }
+
   /** Writes both files into {@code dir} and returns the HTML path. */
   static Path write(ReportData report, Path dir) throws IOException {
+    checkTarget(dir);
     ReportJson.write(report, dir.resolve(JSON_FILE));
     Path html = dir.resolve(HTML_FILE);
     HtmlReportWriter.write(report, html);

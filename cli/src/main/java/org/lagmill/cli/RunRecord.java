@@ -5,12 +5,12 @@ import com.fasterxml.jackson.databind.SerializationFeature;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import org.lagmill.io.AtomicFiles;
 import org.lagmill.memory.ProcessMemory;
 
 /**
@@ -91,14 +91,7 @@ final class RunRecord {
 
   /** Writes {@code dir/fileName} through a temporary file. */
   void write(Path dir, String fileName) throws IOException {
-    Files.createDirectories(dir);
-    // Not Files.createTempFile: its owner-only permissions would carry over to run.json.
-    Path temp = dir.resolve("." + fileName + ".tmp-" + System.nanoTime());
-    try {
-      JSON.writeValue(temp.toFile(), toMap());
-      Files.move(temp, dir.resolve(fileName), StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
-    } finally {
-      Files.deleteIfExists(temp);
-    }
+    AtomicFiles.write(dir.resolve(fileName), JSON.writeValueAsBytes(toMap()));
   }
+
 }

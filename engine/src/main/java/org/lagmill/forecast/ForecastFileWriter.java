@@ -1,14 +1,22 @@
 package org.lagmill.forecast;
 
+import java.io.BufferedReader;
 import java.io.BufferedWriter;
 import java.io.IOException;
+import java.io.InputStream;
+import java.io.InputStreamReader;
 import java.io.OutputStream;
 import java.io.OutputStreamWriter;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
+import java.time.LocalDate;
+import java.util.List;
+import java.util.zip.GZIPInputStream;
 import java.util.zip.GZIPOutputStream;
+import org.lagmill.io.AtomicFiles;
+import org.lagmill.io.CsvCells;
+import org.lagmill.io.OutputTargets;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SeriesAttributes;
 
@@ -26,7 +34,7 @@ public final class ForecastFileWriter {
       SeriesAttributes attributes = history.attributes();
       StringBuilder header = new StringBuilder();
       for (int a = 0; a < attributes.attributeCount(); a++) {
-        header.append(ModelDirectory.csvCell(attributes.attributeName(a))).append(',');
+        header.append(CsvCells.cell(attributes.attributeName(a))).append(',');
       }
       header.append("date,forecast");
       for (double level : table.quantileLevels()) {
@@ -64,7 +72,7 @@ public final class ForecastFileWriter {
       SeriesAttributes attributes = history.attributes();
       StringBuilder header = new StringBuilder();
       for (int a = 0; a < attributes.attributeCount(); a++) {
-        header.append(ModelDirectory.csvCell(attributes.attributeName(a))).append(',');
+        header.append(CsvCells.cell(attributes.attributeName(a))).append(',');
       }
       header.append(String.join(",", dates(history, table)));
       out.write(header.append('\n').toString());
@@ -88,20 +96,39 @@ public final class ForecastFileWriter {
   }
 
   private static void write(Path file, Body body) throws IOException {
-    Path absolute = file.toAbsolutePath();
-    Files.createDirectories(absolute.getParent());
-    // Not Files.createTempFile: its owner-only permissions would carry over to the published file.
-    Path temp = absolute.resolveSibling("." + absolute.getFileName() + ".tmp-" + System.nanoTime());
-    try {
-      try (OutputStream raw = Files.newOutputStream(temp);
-          OutputStream maybeZipped = file.toString().endsWith(".gz") ? new GZIPOutputStream(raw, 1 << 16) : raw;
-          BufferedWriter out = new BufferedWriter(new OutputStreamWriter(maybeZipped, StandardCharsets.UTF_8),
-              1 << 16)) {
-        body.write(out);
+    OutputTargets.checkFile(file.toAbsolutePath().normalize(), "forecast file", ForecastFileWriter::looksLikeForecast);
+    boolean gzip = file.toString().endsWith(".gz");
+    AtomicFiles.write(file, raw -> {
+      OutputStream maybeZipped = gzip ? new GZIPOutputStream(raw, 1 << 16) : raw;
+      BufferedWriter out = new BufferedWriter(new OutputStreamWriter(maybeZipped, StandardCharsets.UTF_8), 1 << 16);
+      body.write(out);
+      out.flush();
+      if (maybeZipped instanceof GZIPOutputStream zipped) {
+        zipped.finish();
       }
-      Files.move(temp, absolute, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
-    } finally {
-      Files.deleteIfExists(temp);
+    });
+  }
+
+  /**
+   * A forecast file lagmill wrote, by its header: a {@code date} and a {@code forecast} column (long form), or a last
+   * column named by an ISO date (wide form). Anything else at the output path is never overwritten.
+   */
+  static boolean looksLikeForecast(Path file) {
+    try (InputStream raw = Files.newInputStream(file);
+        InputStream in = file.toString().endsWith(".gz") ? new GZIPInputStream(raw) : raw;
+        BufferedReader reader = new BufferedReader(new InputStreamReader(in, StandardCharsets.UTF_8))) {
+      String header = reader.readLine();
+      if (header == null) {
+        return false;
+      }
+      List<String> cells = List.of(header.split(",", -1));
+      if (cells.contains("date") && cells.contains("forecast")) {
+        return true;
+      }
+      LocalDate.parse(cells.get(cells.size() - 1));
+      return true;
+    } catch (IOException | RuntimeException e) {
+      return false;
     }
   }
 
@@ -116,7 +143,7 @@ public final class ForecastFileWriter {
   private static String attributePrefix(SeriesAttributes attributes, int seriesIndex) {
     StringBuilder prefix = new StringBuilder();
     for (int a = 0; a < attributes.attributeCount(); a++) {
-      prefix.append(ModelDirectory.csvCell(attributes.value(a, attributes.code(seriesIndex, a)))).append(',');
+      prefix.append(CsvCells.cell(attributes.value(a, attributes.code(seriesIndex, a)))).append(',');
     }
     return prefix.toString();
   }

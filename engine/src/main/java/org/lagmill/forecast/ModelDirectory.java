@@ -1,11 +1,11 @@
 package org.lagmill.forecast;
 
+import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 import java.io.BufferedReader;
 import java.io.BufferedWriter;
 import java.io.IOException;
-import java.io.InputStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
@@ -15,9 +15,13 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import java.util.zip.CRC32C;
+import java.util.Set;
 import org.lagmill.features.FeatureSpec;
 import org.lagmill.features.FeatureSpecYaml;
+import org.lagmill.io.Crc32c;
+import org.lagmill.io.CsvCells;
+import org.lagmill.io.OutputTargets;
+import org.lagmill.io.SealedJson;
 import org.lagmill.learner.TrainedModel;
 import org.lagmill.store.CorruptStoreException;
 import org.lagmill.store.SalesHistory;
@@ -36,6 +40,9 @@ public final class ModelDirectory {
   /** Writes the model set; {@code trainingFirstDate} etc. describe the windows the models learned from. */
   public static ModelManifest save(ModelSet models, Path dir, SalesHistory history, TrainingPlan plan,
       String storeFingerprint) throws IOException {
+    StoreDirectories.recoverSiblings(dir);
+    OutputTargets.checkFolder(dir.toAbsolutePath().normalize(), "model directory", ModelDirectory::looksLikeModel,
+        Set.of());
     Path temp = StoreDirectories.createTempSibling(dir);
     try {
       Map<String, String> checksums = new LinkedHashMap<>();
@@ -46,14 +53,15 @@ public final class ModelDirectory {
         checksums.put(partition.report().modelFile(), crc32c(file));
         reports.add(partition.report());
       }
-      writeDispersion(temp.resolve(ModelManifest.DISPERSION_FILE_NAME), history, models.dispersionBySeries());
+      Path dispersionFile = temp.resolve(ModelManifest.DISPERSION_FILE_NAME);
+      writeDispersion(dispersionFile, history, models.dispersionBySeries());
       ModelManifest manifest = new ModelManifest(ModelManifest.FORMAT_VERSION_CURRENT, Instant.now().toString(),
           storeFingerprint, FeatureSpecYaml.format(models.spec()), parameters(plan.trainParameters()),
           parameters(plan.datasetParameters()), history.dateOf(0).toString(),
           history.dateOf(plan.trainingLastDayIndex()).toString(), history.dateOf(plan.validationFirstDayIndex())
           .toString(), history.dateOf(plan.cutDayIndex()).toString(), plan.partitionAttribute(), reports, checksums,
-          ModelManifest.DISPERSION_FILE_NAME);
-      JSON.writeValue(temp.resolve(ModelManifest.FILE_NAME).toFile(), manifest);
+          ModelManifest.DISPERSION_FILE_NAME, crc32c(dispersionFile));
+      Files.write(temp.resolve(ModelManifest.FILE_NAME), SealedJson.seal(JSON.writeValueAsBytes(manifest)));
       StoreDirectories.publish(temp, dir);
       return manifest;
     } catch (IOException | RuntimeException | Error e) {
@@ -63,18 +71,45 @@ public final class ModelDirectory {
     }
   }
 
-  /** Reads only the manifest. */
+  /** Reads only the manifest, checking its checksum (format version 2) and version. */
   public static ModelManifest readManifest(Path dir) throws IOException {
+    StoreDirectories.recoverSiblings(dir);
     Path file = dir.resolve(ModelManifest.FILE_NAME);
     if (!Files.exists(file)) {
       throw new NoSuchFileException(file.toString(), null, "not a model directory: no " + ModelManifest.FILE_NAME);
     }
-    ModelManifest manifest = JSON.readValue(file.toFile(), ModelManifest.class);
-    if (manifest.formatVersion() != ModelManifest.FORMAT_VERSION_CURRENT) {
+    SealedJson.Unsealed unsealed = SealedJson.unseal(file, Files.readAllBytes(file));
+    ModelManifest manifest;
+    try {
+      manifest = JSON.readValue(unsealed.bytes(), ModelManifest.class);
+    } catch (JsonProcessingException e) {
+      throw new CorruptStoreException(file, "not a valid model manifest: " + e.getOriginalMessage(), e);
+    }
+    int version = manifest.formatVersion();
+    if (version < ModelManifest.FORMAT_VERSION_OLDEST || version > ModelManifest.FORMAT_VERSION_CURRENT) {
       throw new CorruptStoreException(file, "unsupported model format version: expected "
-          + ModelManifest.FORMAT_VERSION_CURRENT + ", actual " + manifest.formatVersion());
+          + ModelManifest.FORMAT_VERSION_OLDEST + " to " + ModelManifest.FORMAT_VERSION_CURRENT + ", actual "
+          + version);
+    }
+    if (version >= 2 && (!unsealed.sealed() || manifest.dispersionFileChecksum() == null)) {
+      throw new CorruptStoreException(file, "expected the " + SealedJson.MEMBER + " member and the dispersion "
+          + "table's checksum in format version " + version + ", actual " + (unsealed.sealed() ? "no dispersion "
+          + "checksum" : "no " + SealedJson.MEMBER + " member"));
     }
     return manifest;
+  }
+
+  /** A folder holding a model manifest that parses (checksums aside): one lagmill may replace. */
+  static boolean looksLikeModel(Path dir) {
+    Path file = dir.resolve(ModelManifest.FILE_NAME);
+    if (!Files.isRegularFile(file)) {
+      return false;
+    }
+    try {
+      return JSON.readTree(file.toFile()).has("modelFileChecksums");
+    } catch (IOException e) {
+      return false;
+    }
   }
 
   /**
@@ -92,7 +127,11 @@ public final class ModelDirectory {
     }
     float[] dispersion = new float[history.seriesCount()];
     java.util.Arrays.fill(dispersion, Float.NaN);
-    readDispersion(dir.resolve(manifest.dispersionFile()), history, dispersion);
+    Path dispersionFile = dir.resolve(manifest.dispersionFile());
+    if (manifest.dispersionFileChecksum() != null) {
+      verifyChecksum(dispersionFile, manifest.dispersionFileChecksum(), "dispersion table");
+    }
+    readDispersion(dispersionFile, history, dispersion);
     List<ModelSet.Partition> partitions = new ArrayList<>();
     try {
       for (Map.Entry<String, int[]> entry : seriesByPartition.entrySet()) {
@@ -102,12 +141,7 @@ public final class ModelDirectory {
               + entry.getKey() + " but the model directory " + dir + " has no model for it; train again");
         }
         Path file = dir.resolve(report.modelFile());
-        String expected = manifest.modelFileChecksums().get(report.modelFile());
-        String actual = crc32c(file);
-        if (!actual.equals(expected)) {
-          throw new CorruptStoreException(file, "model file checksum mismatch: expected " + expected + ", actual "
-              + actual);
-        }
+        verifyChecksum(file, manifest.modelFileChecksums().get(report.modelFile()), "model file");
         for (int s : entry.getValue()) {
           if (Float.isNaN(dispersion[s])) {
             dispersion[s] = (float) report.pooledDispersion();
@@ -126,7 +160,7 @@ public final class ModelDirectory {
     try (BufferedWriter out = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
       out.write("series_id,dispersion\n");
       for (int s = 0; s < dispersion.length; s++) {
-        out.write(csvCell(history.attributes().seriesId(s)) + "," + dispersion[s] + "\n");
+        out.write(CsvCells.cell(history.attributes().seriesId(s)) + "," + dispersion[s] + "\n");
       }
     }
   }
@@ -154,8 +188,11 @@ public final class ModelDirectory {
     }
   }
 
-  static String csvCell(String text) {
-    return text.contains(",") || text.contains("\"") ? "\"" + text.replace("\"", "\"\"") + "\"" : text;
+  private static void verifyChecksum(Path file, String expected, String what) throws IOException {
+    String actual = crc32c(file);
+    if (!actual.equals(expected)) {
+      throw new CorruptStoreException(file, what + " checksum mismatch: expected " + expected + ", actual " + actual);
+    }
   }
 
   private static Map<String, Object> parameters(Record parameters) {
@@ -164,14 +201,6 @@ public final class ModelDirectory {
   }
 
   static String crc32c(Path file) throws IOException {
-    CRC32C crc = new CRC32C();
-    byte[] buffer = new byte[1 << 16];
-    try (InputStream in = Files.newInputStream(file)) {
-      int read;
-      while ((read = in.read(buffer)) > 0) {
-        crc.update(buffer, 0, read);
-      }
-    }
-    return String.format("%08x", crc.getValue());
+    return Crc32c.hex(Crc32c.ofFile(file));
   }
 }

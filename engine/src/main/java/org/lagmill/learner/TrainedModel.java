@@ -12,8 +12,8 @@ import java.io.UncheckedIOException;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
 import org.lagmill.features.FeatureBatch;
+import org.lagmill.io.AtomicFiles;
 
 /**
  * A trained LightGBM Booster owned by this object, cut back to its best iteration.
@@ -160,20 +160,12 @@ public final class TrainedModel implements AutoCloseable {
    */
   public void saveTo(Path modelFile) {
     SWIGTYPE_p_void handle = handle();
-    Path absolute = modelFile.toAbsolutePath();
-    Path temporary = absolute.resolveSibling(absolute.getFileName() + ".tmp");
-    try {
+    try (AtomicFiles.Pending pending = AtomicFiles.begin(modelFile)) {
       Native.check(lightgbmlib.LGBM_BoosterSaveModel(handle, 0, 0, lightgbmlibConstants.C_API_FEATURE_IMPORTANCE_SPLIT,
-          temporary.toString()), "LGBM_BoosterSaveModel(" + temporary + ")");
-      Files.move(temporary, absolute, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
+          pending.tempFile().toString()), "LGBM_BoosterSaveModel(" + pending.tempFile() + ")");
+      pending.commit();
     } catch (IOException e) {
-      throw new UncheckedIOException("cannot move the saved model into place at " + absolute, e);
-    } finally {
-      try {
-        Files.deleteIfExists(temporary);
-      } catch (IOException ignored) {
-        // the temporary file is only litter; the real failure (if any) is already on its way up
-      }
+      throw new UncheckedIOException("cannot move the saved model into place at " + modelFile.toAbsolutePath(), e);
     }
   }
 

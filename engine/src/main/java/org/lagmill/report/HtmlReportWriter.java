@@ -2,6 +2,7 @@ package org.lagmill.report;
 
 import java.io.IOException;
 import java.nio.file.Path;
+import org.lagmill.io.AtomicFiles;
 
 /**
  * Renders a {@link ReportData} as one self-contained HTML file: inline CSS and inline SVG charts, no scripts, no

@@ -14,6 +14,7 @@ import com.fasterxml.jackson.databind.module.SimpleModule;
 import com.fasterxml.jackson.databind.ser.std.StdSerializer;
 import com.fasterxml.jackson.databind.ser.std.ToStringSerializer;
 import java.io.IOException;
+import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Instant;
@@ -21,6 +22,8 @@ import java.time.LocalDate;
 import java.time.format.DateTimeParseException;
 import java.util.Arrays;
 import java.util.function.Function;
+import org.lagmill.io.AtomicFiles;
+import org.lagmill.io.SealedJson;
 import org.lagmill.store.CorruptStoreException;
 
 /**
@@ -44,7 +47,7 @@ public final class ReportJson {
   /** Writes {@code report} to {@code file} through a temporary file and a rename. */
   public static void write(ReportData report, Path file) throws IOException {
     String json = MAPPER.writeValueAsString(new ReportFile(FORMAT_VERSION_CURRENT, report));
-    AtomicFiles.writeString(file, json + "\n");
+    AtomicFiles.write(file, SealedJson.seal((json + "\n").getBytes(StandardCharsets.UTF_8)));
   }
 
   /** The JSON text of {@code report}, as {@link #write} stores it. */
@@ -59,7 +62,7 @@ public final class ReportJson {
    * @throws IOException when the file cannot be read
    */
   public static ReportData read(Path file) throws IOException {
-    byte[] bytes = Files.readAllBytes(file);
+    byte[] bytes = SealedJson.unseal(file, Files.readAllBytes(file)).bytes();
     ReportFile parsed;
     try {
       parsed = MAPPER.readValue(bytes, ReportFile.class);

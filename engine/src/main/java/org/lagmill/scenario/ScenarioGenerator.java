@@ -2,16 +2,13 @@ package org.lagmill.scenario;
 
 import java.io.IOException;
 import java.io.OutputStream;
-import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.nio.file.StandardCopyOption;
-import java.nio.file.attribute.PosixFileAttributeView;
-import java.nio.file.attribute.PosixFilePermissions;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.zip.Deflater;
 import java.util.zip.GZIPOutputStream;
+import org.lagmill.io.AtomicFiles;
 
 /**
  * Writes the invented scenario as five CSV files: {@code sales.csv} (wide: eight attribute cells, then one unit count
@@ -164,7 +161,7 @@ public final class ScenarioGenerator {
   }
 
   private static Path temporary(Path outDir, String name, List<Path> temporaries) throws IOException {
-    Path temp = Files.createTempFile(outDir, "." + name + ".", ".partial");
+    Path temp = Files.createFile(AtomicFiles.tempSibling(outDir.resolve(name)));
     temporaries.add(temp);
     return temp;
   }
@@ -184,14 +181,7 @@ public final class ScenarioGenerator {
   }
 
   private static void moveIntoPlace(Path temp, Path target) throws IOException {
-    // Temporary files are created owner-only; the finished files get the usual permissions.
-    if (Files.getFileStore(temp).supportsFileAttributeView(PosixFileAttributeView.class)) {
-      Files.setPosixFilePermissions(temp, PosixFilePermissions.fromString("rw-r--r--"));
-    }
-    try {
-      Files.move(temp, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
-    } catch (AtomicMoveNotSupportedException e) {
-      Files.move(temp, target, StandardCopyOption.REPLACE_EXISTING);
-    }
+    AtomicFiles.moveIntoPlace(temp, target);
   }
+
 }

@@ -7,8 +7,9 @@ import java.nio.channels.FileChannel;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import java.nio.file.StandardOpenOption;
-import java.util.zip.CRC32C;
+import java.util.zip.Checksum;
 import org.agrona.BufferUtil;
+import org.lagmill.io.Crc32c;
 import org.lagmill.memory.MemoryBudget;
 
 /**
@@ -22,7 +23,7 @@ final class ChecksummedFileWriter implements AutoCloseable {
   private final Path file;
   private final FileChannel channel;
   private final MemoryBudget budget;
-  private final CRC32C crc = new CRC32C();
+  private final Checksum crc = Crc32c.running();
   private ByteBuffer buffer;
   private long flushedBytes;
   private int checksum;
@@ -41,7 +42,7 @@ final class ChecksummedFileWriter implements AutoCloseable {
     }
     putInt(StoreFileFormat.MAGIC);
     putInt(kind.kindNumber());
-    putInt(StoreFileFormat.FORMAT_VERSION_CURRENT);
+    putInt(StoreFileFormat.FILE_VERSION_CURRENT);
     putInt(0);
   }
 

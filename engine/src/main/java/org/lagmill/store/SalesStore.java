@@ -112,6 +112,10 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
 
   /** As {@link #open(Path, MemoryBudget)} with a smaller window, so tests can cross window boundaries. */
   static SalesStore open(Path storeDir, MemoryBudget budget, long maxWindowBytes) throws IOException {
+    if (!Files.exists(storeDir)) {
+      // A store of the previous protocol, swapped by two renames, may survive only as its backup.
+      StoreDirectories.recoverSiblings(storeDir);
+    }
     tidyUp(storeDir);
     for (int attempt = 1; ; attempt++) {
       Path dir = StoreGenerations.readableDir(storeDir);
@@ -120,7 +124,14 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
       } catch (NoSuchFileException | UncheckedIOException e) {
         // A writer deleted the generation after committing a newer one; read the pointer again.
         boolean missing = e instanceof NoSuchFileException || e.getCause() instanceof NoSuchFileException;
-        if (!missing || attempt >= MAX_OPEN_ATTEMPTS || dir.equals(StoreGenerations.readableDir(storeDir))) {
+        if (!missing || attempt >= MAX_OPEN_ATTEMPTS) {
+          throw e;
+        }
+        if (dir.equals(StoreGenerations.readableDir(storeDir))) {
+          if (!dir.equals(storeDir) && !Files.isDirectory(dir)) {
+            throw new CorruptStoreException(storeDir.resolve(StoreGenerations.POINTER_FILE_NAME), "names generation "
+                + dir.getFileName() + ", which does not exist");
+          }
           throw e;
         }
       }
@@ -218,6 +229,7 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
         throw new CorruptStoreException(seriesFile, "series " + s + " does not follow the previous one: expected "
             + "units offset " + expectedOffset + ", actual " + offset);
       }
+      checkSeriesRecord(seriesFile, s, table, record, width);
       seriesWidthOrdinal[s] = (byte) width.ordinal();
       seriesCountByWidth[width.ordinal()]++;
       long columnBytes = width.bytesRequired(dayCount);
@@ -233,6 +245,20 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
     UnitsLayout.checkFileSize(unitsFile, expectedOffset - UnitsLayout.FIRST_SERIES_OFFSET, unitsFileBytes);
     if (seriesCount > windowFirstSeries) {
       mapWindow(unitsFile, windowFirstSeries, seriesCount, windowStart, expectedOffset, budget, opened);
+    }
+  }
+
+  /** A record whose checksum passes can still hold values a broken writer or a forger put there. */
+  private void checkSeriesRecord(Path seriesFile, int s, UnsafeBuffer table, int record, UnitsWidth width) {
+    int firstSale = table.getInt(record + SeriesTableLayout.FIRST_SALE_FIELD, ByteOrder.LITTLE_ENDIAN);
+    if (firstSale < NO_SALE || firstSale >= dayCount) {
+      throw new CorruptStoreException(seriesFile, "series " + s + " has a first sale day outside the store: "
+          + "expected -1 or a day index in [0, " + dayCount + "), actual " + firstSale);
+    }
+    int max = table.getInt(record + SeriesTableLayout.MAX_UNITS_FIELD, ByteOrder.LITTLE_ENDIAN);
+    if (max < 0 || max > UnitsWidth.INT_MAX_UNITS || UnitsWidth.forMaxValue(max) != width) {
+      throw new CorruptStoreException(seriesFile, "series " + s + " has a largest value that does not fit its "
+          + "width: expected a value that needs " + width.bytesPerValue() + " bytes per value, actual " + max);
     }
   }
 

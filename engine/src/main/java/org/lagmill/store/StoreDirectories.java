@@ -2,6 +2,7 @@ package org.lagmill.store;
 
 import java.io.IOException;
 import java.nio.file.AtomicMoveNotSupportedException;
+import java.nio.file.DirectoryStream;
 import java.nio.file.FileVisitResult;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -9,7 +10,9 @@ import java.nio.file.SimpleFileVisitor;
 import java.nio.file.StandardCopyOption;
 import java.nio.file.attribute.BasicFileAttributes;
 import java.security.SecureRandom;
+import java.util.ArrayList;
 import java.util.HexFormat;
+import java.util.List;
 
 /**
  * Builds stores beside their target and swaps them in by rename, so a reader never sees a half-written store and a
@@ -17,6 +20,8 @@ import java.util.HexFormat;
  */
 public final class StoreDirectories {
   private static final SecureRandom RANDOM = new SecureRandom();
+  private static final String TEMP_MARK = ".tmp-";
+  private static final String BACKUP_MARK = ".old-";
 
   private StoreDirectories() {}
 
@@ -25,7 +30,7 @@ public final class StoreDirectories {
     Path absolute = targetDir.toAbsolutePath().normalize();
     Path parent = absolute.getParent();
     Files.createDirectories(parent);
-    return Files.createDirectory(parent.resolve("." + absolute.getFileName() + ".tmp-" + randomSuffix()));
+    return Files.createDirectory(parent.resolve("." + absolute.getFileName() + TEMP_MARK + ownerSuffix()));
   }
 
   /**
@@ -38,7 +43,7 @@ public final class StoreDirectories {
     Path backup = null;
     try {
       if (Files.exists(target)) {
-        backup = target.resolveSibling("." + target.getFileName() + ".old-" + randomSuffix());
+        backup = target.resolveSibling("." + target.getFileName() + BACKUP_MARK + ownerSuffix());
         move(target, backup);
       }
       move(tempDir, target);
@@ -99,6 +104,66 @@ public final class StoreDirectories {
         return FileVisitResult.CONTINUE;
       }
     });
+  }
+
+  /**
+   * Repairs what a process that died during {@link #publish} left beside {@code targetDir}: when the target is
+   * missing, its backup is renamed back; temporary folders and backups of dead processes are deleted. Each is told to
+   * {@link StoreNotices}. Only names this class makes ({@code .<name>.tmp-<pid>-<hex>}, {@code .<name>.old-…}) are
+   * touched, and only when their process is gone (names without a process id come from older versions: gone too).
+   */
+  public static void recoverSiblings(Path targetDir) throws IOException {
+    Path target = targetDir.toAbsolutePath().normalize();
+    Path parent = target.getParent();
+    if (parent == null || !Files.isDirectory(parent)) {
+      return;
+    }
+    String prefix = "." + target.getFileName();
+    List<Path> temps = new ArrayList<>();
+    List<Path> backups = new ArrayList<>();
+    try (DirectoryStream<Path> entries = Files.newDirectoryStream(parent, prefix + ".*")) {
+      for (Path entry : entries) {
+        String name = entry.getFileName().toString();
+        if (name.startsWith(prefix + TEMP_MARK) && ownerGone(name.substring((prefix + TEMP_MARK).length()))) {
+          temps.add(entry);
+        } else if (name.startsWith(prefix + BACKUP_MARK)
+            && ownerGone(name.substring((prefix + BACKUP_MARK).length()))) {
+          backups.add(entry);
+        }
+      }
+    }
+    backups.sort(null);
+    if (!Files.exists(target) && !backups.isEmpty()) {
+      Path restored = backups.remove(backups.size() - 1);
+      move(restored, target);
+      StoreNotices.tell(target + ": restored from " + restored.getFileName() + ", left by a run that stopped "
+          + "between its two renames");
+    }
+    for (Path leftover : temps) {
+      deleteRecursively(leftover);
+      StoreNotices.tell(target + ": removed " + leftover.getFileName() + ", left unfinished by a run that stopped");
+    }
+    for (Path leftover : backups) {
+      deleteRecursively(leftover);
+      StoreNotices.tell(target + ": removed " + leftover.getFileName() + ", an old copy left by a run that stopped");
+    }
+  }
+
+  private static boolean ownerGone(String suffix) {
+    int dash = suffix.indexOf('-');
+    if (dash <= 0) {
+      return true;
+    }
+    try {
+      long pid = Long.parseLong(suffix.substring(0, dash));
+      return ProcessHandle.of(pid).map(p -> !p.isAlive()).orElse(true);
+    } catch (NumberFormatException e) {
+      return true;
+    }
+  }
+
+  private static String ownerSuffix() {
+    return ProcessHandle.current().pid() + "-" + randomSuffix();
   }
 
   private static String randomSuffix() {

@@ -6,7 +6,7 @@ import java.nio.ByteOrder;
 import java.nio.channels.FileChannel;
 import java.nio.file.Path;
 import java.nio.file.StandardOpenOption;
-import java.util.zip.CRC32C;
+import org.lagmill.io.Crc32c;
 
 /**
  * The header and footer every binary store file carries, and their verification.
@@ -19,7 +19,14 @@ final class StoreFileFormat {
   /** "LGMS" read as a little-endian int. */
   static final int MAGIC = 0x534D474C;
   static final int FOOTER_MAGIC = ~MAGIC;
-  static final int FORMAT_VERSION_CURRENT = 1;
+  /**
+   * Layout version written into every binary file's header. The five binary layouts have not changed since the
+   * first store format, so it is still 1; the store as a whole is versioned by its manifest
+   * ({@link StoreManifest#FORMAT_VERSION_CURRENT}).
+   */
+  static final int FILE_VERSION_CURRENT = 1;
+  /** Oldest binary layout version a reader accepts. */
+  static final int FILE_VERSION_OLDEST = 1;
   static final int HEADER_BYTES = 16;
   static final int FOOTER_BYTES = 8;
   private static final int CHECKSUM_READ_BYTES = 1 << 16;
@@ -83,24 +90,15 @@ final class StoreFileFormat {
           + "), actual " + kindNumber);
     }
     int version = header.getInt(8);
-    if (version != FORMAT_VERSION_CURRENT) {
-      throw new CorruptStoreException(file, "unsupported format version: expected " + FORMAT_VERSION_CURRENT
-          + ", actual " + version);
+    if (version < FILE_VERSION_OLDEST || version > FILE_VERSION_CURRENT) {
+      throw new CorruptStoreException(file, "unsupported format version: expected " + (FILE_VERSION_OLDEST
+          == FILE_VERSION_CURRENT ? String.valueOf(FILE_VERSION_CURRENT) : FILE_VERSION_OLDEST + " to "
+          + FILE_VERSION_CURRENT) + ", actual " + version);
     }
   }
 
   private static int checksum(FileChannel channel, long byteCount) throws IOException {
-    CRC32C crc = new CRC32C();
-    ByteBuffer chunk = ByteBuffer.allocate(CHECKSUM_READ_BYTES);
-    long position = 0;
-    while (position < byteCount) {
-      chunk.clear().limit((int) Math.min(CHECKSUM_READ_BYTES, byteCount - position));
-      readFully(channel, chunk, position);
-      chunk.flip();
-      position += chunk.remaining();
-      crc.update(chunk);
-    }
-    return (int) crc.getValue();
+    return Crc32c.ofChannel(channel, byteCount);
   }
 
   private static void readFully(FileChannel channel, ByteBuffer dst, long position) throws IOException {

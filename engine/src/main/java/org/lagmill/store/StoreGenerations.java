@@ -101,7 +101,8 @@ public final class StoreGenerations {
     Path pointer = storeDir.resolve(POINTER_FILE_NAME);
     String name;
     try {
-      name = Files.readString(pointer, StandardCharsets.UTF_8);
+      // Latin-1 decodes any byte, so a damaged pointer fails the name check below rather than the decoder.
+      name = new String(Files.readAllBytes(pointer), StandardCharsets.ISO_8859_1);
     } catch (NoSuchFileException e) {
       if (Files.isRegularFile(storeDir.resolve(StoreManifest.FILE_NAME))) {
         return storeDir;

@@ -16,11 +16,12 @@ import java.util.HexFormat;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import org.lagmill.io.SealedJson;
 
 /**
  * The {@code manifest.json} of a store directory: what the binary files hold and how to check them.
  *
- * @param formatVersion store format version; must equal the reader's
+ * @param formatVersion store format version, {@link #FORMAT_VERSION_OLDEST} to {@link #FORMAT_VERSION_CURRENT}
  * @param firstDate ISO date of day index 0
  * @param dayCount days of sales held per series
  * @param seriesCount number of series
@@ -38,6 +39,15 @@ public record StoreManifest(int formatVersion, String firstDate, int dayCount, i
     Map<String, String> nesting) {
 
   public static final String FILE_NAME = "manifest.json";
+  /**
+   * Store format version written now: 2 = the manifest carries its own CRC32C and the store lives in generations
+   * behind a pointer. Version 1 (no manifest checksum, files at the top of the store folder) is still read.
+   */
+  public static final int FORMAT_VERSION_CURRENT = 2;
+  /** Oldest store format version a reader accepts. */
+  public static final int FORMAT_VERSION_OLDEST = 1;
+  /** First version whose manifest must carry its checksum. */
+  static final int FORMAT_VERSION_SEALED = 2;
 
   private static final ObjectMapper JSON = new ObjectMapper()
       .enable(SerializationFeature.INDENT_OUTPUT)
@@ -105,6 +115,22 @@ public record StoreManifest(int formatVersion, String firstDate, int dayCount, i
     return total;
   }
 
+  /** Decoded values the checksum cannot vouch for (a version-1 manifest has none, a writer may have erred). */
+  private static void checkValues(Path file, StoreManifest manifest) {
+    try {
+      LocalDate.parse(manifest.firstDate());
+    } catch (RuntimeException e) {
+      throw new CorruptStoreException(file, "firstDate: expected an ISO date, actual \"" + manifest.firstDate()
+          + "\"");
+    }
+    if (manifest.dayCount() < 1) {
+      throw new CorruptStoreException(file, "dayCount: expected at least 1, actual " + manifest.dayCount());
+    }
+    if (manifest.seriesCount() < 0) {
+      throw new CorruptStoreException(file, "seriesCount: expected at least 0, actual " + manifest.seriesCount());
+    }
+  }
+
   static String fingerprintOf(List<StoreFile> files) {
     try {
       MessageDigest sha = MessageDigest.getInstance("SHA-256");
@@ -118,23 +144,28 @@ public record StoreManifest(int formatVersion, String firstDate, int dayCount, i
   }
 
   void write(Path dir) throws IOException {
-    Files.write(dir.resolve(FILE_NAME), JSON.writeValueAsBytes(this));
+    Files.write(dir.resolve(FILE_NAME), SealedJson.seal(JSON.writeValueAsBytes(this)));
   }
 
   /** Reads and sanity-checks a store's manifest. */
   public static StoreManifest read(Path dir) throws IOException {
     Path file = dir.resolve(FILE_NAME);
-    byte[] bytes = Files.readAllBytes(file);
+    SealedJson.Unsealed unsealed = SealedJson.unseal(file, Files.readAllBytes(file));
     StoreManifest manifest;
     try {
-      manifest = JSON.readValue(bytes, StoreManifest.class);
+      manifest = JSON.readValue(unsealed.bytes(), StoreManifest.class);
     } catch (JsonProcessingException e) {
       throw new CorruptStoreException(file, "not a valid manifest: " + e.getOriginalMessage(), e);
     }
-    if (manifest.formatVersion() != StoreFileFormat.FORMAT_VERSION_CURRENT) {
-      throw new CorruptStoreException(file, "unsupported format version: expected "
-          + StoreFileFormat.FORMAT_VERSION_CURRENT + ", actual " + manifest.formatVersion());
+    if (manifest.formatVersion() < FORMAT_VERSION_OLDEST || manifest.formatVersion() > FORMAT_VERSION_CURRENT) {
+      throw new CorruptStoreException(file, "unsupported format version: expected " + FORMAT_VERSION_OLDEST
+          + " to " + FORMAT_VERSION_CURRENT + ", actual " + manifest.formatVersion());
     }
+    if (manifest.formatVersion() >= FORMAT_VERSION_SEALED && !unsealed.sealed()) {
+      throw new CorruptStoreException(file, "no " + SealedJson.MEMBER + " member: expected one in format version "
+          + manifest.formatVersion() + ", actual none (the line was removed)");
+    }
+    checkValues(file, manifest);
     String fingerprint = fingerprintOf(manifest.files());
     if (!fingerprint.equals(manifest.fingerprint())) {
       throw new CorruptStoreException(file, "fingerprint mismatch: expected " + fingerprint + " (from the files "

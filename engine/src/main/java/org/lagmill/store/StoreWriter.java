@@ -243,7 +243,7 @@ public final class StoreWriter implements AutoCloseable {
     for (int a = 0; a < attributes.attributeCount(); a++) {
       attributeNames.add(attributes.attributeName(a));
     }
-    StoreManifest manifest = new StoreManifest(StoreFileFormat.FORMAT_VERSION_CURRENT, firstDate.toString(), dayCount,
+    StoreManifest manifest = new StoreManifest(StoreManifest.FORMAT_VERSION_CURRENT, firstDate.toString(), dayCount,
         seriesCount(), attributeNames, sources, ordered, StoreManifest.fingerprintOf(ordered),
         new StoreManifest.Fill(zeroFilledItemDays, unknownItemDays, closedItemDays),
         AttributeNesting.detect(attributes, seriesCount()).parents());

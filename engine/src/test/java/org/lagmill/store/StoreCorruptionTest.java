@@ -7,12 +7,14 @@ import java.io.IOException;
 import java.nio.ByteBuffer;
 import java.nio.ByteOrder;
 import java.nio.channels.FileChannel;
+import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardOpenOption;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.io.SealedJson;
 import org.lagmill.memory.MemoryBudget;
 
 /** Injected faults on the store files: each must raise CorruptStoreException naming the file, expected and actual. */
@@ -87,7 +89,11 @@ class StoreCorruptionTest {
     Path manifest = dir.resolve("manifest.json");
     String json = Files.readString(manifest);
     StoreManifest read = StoreManifest.read(dir);
-    Files.writeString(manifest, json.replace(read.fingerprint(), "0000000000000000"));
+    // Re-sealed after the edit, so the manifest's own checksum passes and the fingerprint check is what fails.
+    String unsealed = new String(SealedJson.unseal(manifest, json.getBytes(StandardCharsets.UTF_8)).bytes(),
+        StandardCharsets.UTF_8);
+    Files.write(manifest, SealedJson.seal(unsealed.replace(read.fingerprint(), "0000000000000000")
+        .getBytes(StandardCharsets.UTF_8)));
     assertEquals(manifest + ": fingerprint mismatch: expected " + read.fingerprint()
         + " (from the files listed), actual 0000000000000000", openFailure());
   }
