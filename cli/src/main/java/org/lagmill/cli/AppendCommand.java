@@ -43,6 +43,10 @@ final class AppendCommand implements Callable<Integer> {
 
   @Mixin ColumnOptions columns;
 
+  @Option(names = "--date-window", paramLabel = "FROM..TO", description = "plausible dates: any date read outside "
+      + "stops the run (default: 1900-01-01..2200-12-31)")
+  String dateWindow;
+
   @Option(names = "--no-wait", description = "fail at once (exit 7) when another command is writing the store, "
       + "instead of waiting for it")
   boolean noWait;
@@ -52,6 +56,7 @@ final class AppendCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
+    DateWindows.apply(dateWindow);
     AppendOptions options = AppendOptions.of(store, sales).withColumns(columns.names())
         .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures);
     RunRecord run = new RunRecord("append").configure("store", store.toString()).configure("sales", sales == null ? null : sales.toString());

@@ -83,7 +83,7 @@ final class BacktestCommand implements Callable<Integer> {
     }
     ReportOutput.addStages(report, run.stages(), backtest.lastPartitions().get(0).datasetBytesPerRow());
     ReportOutput.checkTarget(reportDir);
-    AtomicFiles.write(reportDir.resolve("backtest.json"), RunRecord.JSON.writeValueAsBytes(backtest.result));
+    AtomicFiles.write(reportDir.resolve(ReportOutput.BACKTEST_FILE), RunRecord.JSON.writeValueAsBytes(backtest.result));
     Path html = ReportOutput.write(report.build(), reportDir);
     run.result("backtest", backtest.result);
     run.write(reportDir);

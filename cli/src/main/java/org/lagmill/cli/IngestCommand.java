@@ -61,6 +61,10 @@ final class IngestCommand implements Callable<Integer> {
 
   @Mixin ColumnOptions columns;
 
+  @Option(names = "--date-window", paramLabel = "FROM..TO", description = "plausible dates: any date read outside "
+      + "stops the run (default: 1900-01-01..2200-12-31)")
+  String dateWindow;
+
   @Option(names = "--missing-rows", paramLabel = "POLICY", defaultValue = "zero",
       description = {"what a day with no row means in long sales, from each series' first row to the file's last",
           "date: zero (till exports leave out days with no sale) or unknown (default: ${DEFAULT-VALUE}); empty",
@@ -80,6 +84,7 @@ final class IngestCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
+    DateWindows.apply(dateWindow);
     IngestOptions options = IngestOptions.of(sales, store)
         .withColumns(columns.names().withUnitsColumn(unitsColumn))
         .withSalesFormat(SalesFormat.parse(salesFormat)).withMissingRows(MissingRows.parse(missingRows))

@@ -17,6 +17,8 @@ import org.lagmill.report.StageStats;
 final class ReportOutput {
   static final String JSON_FILE = "report.json";
   static final String HTML_FILE = "report.html";
+  /** Written by {@code backtest} into its report folder just before the report. */
+  static final String BACKTEST_FILE = "backtest.json";
 
   private ReportOutput() {}
 
@@ -41,7 +43,8 @@ final class ReportOutput {
    */
   static void checkTarget(Path dir) throws IOException {
     OutputTargets.checkFolder(dir.toAbsolutePath().normalize(), "report folder",
-        d -> Files.isRegularFile(d.resolve(JSON_FILE)) || Files.isRegularFile(d.resolve(HTML_FILE)), Set.of());
+        d -> Files.isRegularFile(d.resolve(JSON_FILE)) || Files.isRegularFile(d.resolve(HTML_FILE))
+            || Files.isRegularFile(d.resolve(BACKTEST_FILE)), Set.of());
   }
 
   /** Writes both files into {@code dir} and returns the HTML path. */

@@ -115,4 +115,18 @@ class StoreCommandsTest {
     }
     assertEquals(0, run("append", "--store", store.toString(), "--sales", next.toString(), "--no-wait"));
   }
+
+  @Test
+  void shouldTakeAWiderDateWindowAndRefuseAMalformedOne() throws Exception {
+    Path old = temp.resolve("old.csv");
+    Files.writeString(old, "sku,1890-06-01\na,1\n");
+    assertEquals(ExitCodes.BAD_INPUT, run("ingest", "--sales", old.toString(), "--store",
+        temp.resolve("a").toString()));
+    assertEquals(ExitCodes.USAGE_ERROR, run("ingest", "--sales", old.toString(), "--store", temp.resolve("a")
+        .toString(), "--date-window", "1800-01-01"));
+    assertTrue(err.toString().contains("--date-window must be FROM..TO with ISO dates, e.g. 1800-01-01..2300-12-31, "
+        + "got '1800-01-01'"), err.toString());
+    assertEquals(0, run("ingest", "--sales", old.toString(), "--store", temp.resolve("a").toString(), "--date-window",
+        "1800-01-01..2200-12-31", "--quiet"), err.toString());
+  }
 }

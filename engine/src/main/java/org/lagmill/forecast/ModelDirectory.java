@@ -1,6 +1,7 @@
 package org.lagmill.forecast;
 
 import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 import java.io.BufferedReader;
@@ -26,6 +27,7 @@ import org.lagmill.learner.TrainedModel;
 import org.lagmill.store.CorruptStoreException;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.StoreDirectories;
+import org.lagmill.store.StoreGenerations;
 
 /**
  * Saves a {@link ModelSet} as a directory (LightGBM model files, {@code manifest.json}, {@code dispersion.csv}) and
@@ -75,6 +77,10 @@ public final class ModelDirectory {
   public static ModelManifest readManifest(Path dir) throws IOException {
     StoreDirectories.recoverSiblings(dir);
     Path file = dir.resolve(ModelManifest.FILE_NAME);
+    if (holdsAStore(dir)) {
+      throw new NoSuchFileException(dir.toString(), null, "not a model directory: it holds a sales store; give the "
+          + "folder a model was trained into");
+    }
     if (!Files.exists(file)) {
       throw new NoSuchFileException(file.toString(), null, "not a model directory: no " + ModelManifest.FILE_NAME);
     }
@@ -97,6 +103,20 @@ public final class ModelDirectory {
           + "checksum" : "no " + SealedJson.MEMBER + " member"));
     }
     return manifest;
+  }
+
+  /** A store folder: the pointer of the generation layout, or a version-1 store manifest (files and fingerprint). */
+  private static boolean holdsAStore(Path dir) {
+    if (Files.isRegularFile(dir.resolve(StoreGenerations.POINTER_FILE_NAME))) {
+      return true;
+    }
+    Path file = dir.resolve(ModelManifest.FILE_NAME);
+    try {
+      JsonNode tree = JSON.readTree(file.toFile());
+      return tree != null && tree.has("fingerprint") && tree.has("files") && !tree.has("modelFileChecksums");
+    } catch (IOException e) {
+      return false;
+    }
   }
 
   /** A folder holding a model manifest that parses (checksums aside): one lagmill may replace. */

@@ -39,6 +39,7 @@ final class Cells {
       throw new InputFormatException(file, line, column,
           columnName + " '" + text + "': expected an ISO date like 2024-03-05");
     }
+    DateWindow.check(file, line, column, columnName, epochDay);
     return epochDay;
   }
 

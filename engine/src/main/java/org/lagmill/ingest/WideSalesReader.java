@@ -172,11 +172,14 @@ public final class WideSalesReader implements AutoCloseable {
         return null;
       }
     }
+    LocalDate date;
     try {
-      return LocalDate.parse(name);
+      date = LocalDate.parse(name);
     } catch (DateTimeException e) {
       throw error(column, "expected a valid date (yyyy-MM-dd), found \"" + name + "\"");
     }
+    DateWindow.check(file, lineNumber, column + 1, "date column", date.toEpochDay());
+    return date;
   }
 
   /**

@@ -1,0 +1,29 @@
+package org.lagmill.forecast;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+
+import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.ingest.IngestOptions;
+import org.lagmill.ingest.StoreIngest;
+import org.lagmill.memory.MemoryBudget;
+
+/** A store given where a model is expected is named as such, not reported as a broken model. */
+class ModelPathTest {
+  @Test
+  void shouldSayInPlainWordsThatAStoreIsNotAModel(@TempDir Path temp) throws Exception {
+    Path sales = Files.writeString(temp.resolve("s.csv"), "sku,2025-02-01,2025-02-02\nk1,1,2\n");
+    Path store = temp.resolve("store");
+    try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
+      StoreIngest.ingest(IngestOptions.of(sales, store), budget);
+    }
+    NoSuchFileException e = assertThrows(NoSuchFileException.class, () -> ModelDirectory.readManifest(store));
+    assertEquals(store.toString(), e.getFile());
+    assertEquals("not a model directory: it holds a sales store; give the folder a model was trained into",
+        e.getReason());
+  }
+}
