@@ -11,6 +11,8 @@ import org.lagmill.forecast.ModelDirectory;
 import org.lagmill.forecast.ModelManifest;
 import org.lagmill.forecast.ModelSet;
 import org.lagmill.memory.MemoryBudget;
+import org.lagmill.eval.Level;
+import org.lagmill.report.DriverChartBuilder;
 import org.lagmill.report.ReportAssembler;
 import org.lagmill.report.ReportData;
 import org.lagmill.report.SeriesChartBuilder;
@@ -134,9 +136,12 @@ final class ForecastCommand implements Callable<Integer> {
             + " --model " + model, store.toString());
         report.data(ReportAssembler.dataSummary(StoreSummary.of(opened)))
             .training(ReportAssembler.training(manifest.partitions()));
-        SeriesChartBuilder.build(opened, hierarchyOptions.hierarchy(opened).bind(opened),
-            opened.dayCount(), point, models.dispersionBySeries(), SeriesChartBuilder.DEFAULT_CONTEXT_DAYS,
-            shownSeries).forEach(report::series);
+        List<Level> scoredLevels = hierarchyOptions.hierarchy(opened).bind(opened);
+        SeriesChartBuilder.build(opened, scoredLevels, opened.dayCount(), point, models.dispersionBySeries(),
+            SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, shownSeries).forEach(report::series);
+        DriverChartBuilder.build(opened, scoredLevels, models, horizon, shownSeries,
+            SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, forecastBudget).forEach(report::driver);
+        run.endStage("explain", opened.offHeapBytes() + forecastBudget.peakBytes(), 0);
         ReportOutput.addStages(report, run.stages(), null);
         Path html = ReportOutput.write(report.build(), reportDir);
         run.write(reportDir);

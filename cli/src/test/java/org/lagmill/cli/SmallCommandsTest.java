@@ -162,6 +162,50 @@ class SmallCommandsTest {
   }
 
   @Test
+  void shouldExplainAForecastInPartsThatAddUpToIt() throws IOException {
+    Path full = dir.resolve("explained.csv");
+    expectOk(MainRun.of("forecast", "--store", store.toString(), "--model", model.toString(), "--out",
+        full.toString(), "--series", "k4/south/dry", "--quiet"));
+    List<String> rows = Files.readAllLines(full);
+    MainRun json = MainRun.of("explain", "--store", store.toString(), "--model", model.toString(), "--series",
+        "k4/south/dry", "--level", "total", "--level", "shop", "--json");
+    expectOk(json);
+    JsonNode charts = JSON.readTree(json.out());
+    assertEquals(List.of("total", "shop: south", "series k4/south/dry"), List.of(charts.get(0).get("title").asText(),
+        charts.get(1).get("title").asText(), charts.get(2).get("title").asText()));
+    assertEquals(SERIES.length, charts.get(0).get("seriesCount").asInt());
+    for (JsonNode chart : charts) {
+      for (int d = 0; d < 7; d++) {
+        double parts = 0;
+        for (JsonNode part : chart.get("parts")) {
+          parts += part.get(d).asDouble();
+        }
+        assertEquals(chart.get("forecast").get(d).asDouble(), parts, 1e-9, chart.get("title").asText());
+      }
+    }
+    JsonNode series = charts.get(2);
+    for (int d = 0; d < 7; d++) {
+      String[] cells = rows.get(1 + d).split(",");
+      assertEquals(series.get("dates").get(d).asText(), cells[3]);
+      // the forecast file keeps 4 decimals
+      assertEquals(Double.parseDouble(cells[4]), series.get("forecast").get(d).asDouble(), 5e-5);
+    }
+    MainRun text = MainRun.of("explain", "--store", store.toString(), "--model", model.toString(), "--level",
+        "total");
+    expectOk(text);
+    assertTrue(text.out().startsWith("total (6 series), "), text.out());
+    assertTrue(text.out().contains("  base level "), text.out());
+    Path report = dir.resolve("report");
+    expectOk(MainRun.of("forecast", "--store", store.toString(), "--model", model.toString(), "--out",
+        dir.resolve("r.csv").toString(), "--report", report.toString(), "--level", "total", "--level", "shop",
+        "--show", "k1/north/fresh", "--quiet"));
+    JsonNode drivers = JSON.readTree(report.resolve("report.json").toFile()).get("report").get("drivers");
+    assertEquals(3, drivers.size());
+    assertEquals("series k1/north/fresh", drivers.get(2).get("title").asText());
+    assertTrue(Files.readString(report.resolve("report.html")).contains("id=\"drivers\""));
+  }
+
+  @Test
   void shouldReadMemoryLimitsWithUnits() {
     assertEquals(2L << 30, ByteSizeConverter.parse("2g"));
     assertEquals(512L << 20, ByteSizeConverter.parse("512M"));

@@ -26,6 +26,28 @@ public enum Objective {
     return metricName;
   }
 
+  /**
+   * The objective named on a LightGBM model text's {@code objective=} line (e.g. {@code objective=tweedie
+   * tweedie_variance_power:1.1}).
+   *
+   * @throws LearnerException when there is no such line or it names an objective lagmill does not train
+   */
+  static Objective ofModelText(String modelText) {
+    for (String line : modelText.split("\n", 64)) {
+      if (line.startsWith("objective=")) {
+        String name = line.substring("objective=".length()).split(" ")[0].strip();
+        for (Objective o : values()) {
+          if (o.lightGbmName.equals(name)) {
+            return o;
+          }
+        }
+        throw new LearnerException("the model's objective '" + name + "' is not one lagmill trains (tweedie, "
+            + "poisson, regression)");
+      }
+    }
+    throw new LearnerException("the model text has no objective= line");
+  }
+
   /** True when predictions are exp(raw score): the model learns log(mean). */
   public boolean hasLogLink() {
     return this != REGRESSION;

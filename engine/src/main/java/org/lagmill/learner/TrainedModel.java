@@ -32,6 +32,7 @@ public final class TrainedModel implements AutoCloseable {
   private static final long MODEL_TEXT_INITIAL_BYTES = 1L << 20;
 
   private SWIGTYPE_p_void booster;
+  private Objective objective;
 
   TrainedModel(SWIGTYPE_p_void booster, int bestIteration, double[] validationCurve, double[] validationRmseCurve) {
     this.booster = booster;
@@ -184,6 +185,42 @@ public final class TrainedModel implements AutoCloseable {
     predict(batch, out, lightgbmlibConstants.C_API_PREDICT_RAW_SCORE);
   }
 
+  /**
+   * Each feature's contribution to each row's raw score (LightGBM's SHAP values, predict type contrib), plus the
+   * expected raw score over the training data (the bias) last: row {@code r} occupies
+   * {@code out[r × (featureCount + 1) .. (r + 1) × (featureCount + 1))}, the bias at the end. LightGBM guarantees
+   * that a row's contributions and bias sum to its raw score ({@link #predictRaw}).
+   *
+   * @param out length at least {@code batch.rowCount() × (featureCount() + 1)}
+   */
+  public void predictContributions(FeatureBatch batch, double[] out) {
+    predict(batch, out, lightgbmlibConstants.C_API_PREDICT_CONTRIB);
+  }
+
+  /**
+   * The objective the model was trained for, read from the model's own text ({@code objective=…}), so a model loaded
+   * from a file knows it too; tells how a raw score becomes a prediction ({@link Objective#hasLogLink()}).
+   *
+   * @throws LearnerException when the model names an objective lagmill does not train
+   */
+  public Objective objective() {
+    if (objective == null) {
+      SWIGTYPE_p_long_long textLength = lightgbmlib.new_int64_tp();
+      try {
+        String text = lightgbmlib.LGBM_BoosterSaveModelToStringSWIG(handle(), 0, 0,
+            lightgbmlibConstants.C_API_FEATURE_IMPORTANCE_SPLIT, MODEL_TEXT_INITIAL_BYTES, textLength);
+        if (text == null) {
+          throw new LearnerException("LightGBM LGBM_BoosterSaveModelToString failed: "
+              + lightgbmlib.LGBM_GetLastError());
+        }
+        objective = Objective.ofModelText(text);
+      } finally {
+        lightgbmlib.delete_int64_tp(textLength);
+      }
+    }
+    return objective;
+  }
+
   private void predict(FeatureBatch batch, double[] out, int predictType) {
     SWIGTYPE_p_void handle = handle();
     int rowCount = batch.rowCount();
@@ -191,14 +228,17 @@ public final class TrainedModel implements AutoCloseable {
       throw new IllegalArgumentException("batch has " + batch.featureCount() + " features but the model was trained on "
           + featureCount + "; predict with the feature definition the model was trained with");
     }
-    if (out.length < rowCount) {
-      throw new IllegalArgumentException("out holds " + out.length + " values but the batch has " + rowCount
-          + " rows; size it to at least batch.capacityRows()");
+    int valuesPerRow = predictType == lightgbmlibConstants.C_API_PREDICT_CONTRIB ? featureCount + 1 : 1;
+    long valueCount = (long) rowCount * valuesPerRow;
+    if (out.length < valueCount) {
+      throw new IllegalArgumentException("out holds " + out.length + " values but the batch needs " + valueCount
+          + " (" + rowCount + " rows x " + valuesPerRow + "); size it to at least batch.capacityRows() x "
+          + valuesPerRow);
     }
     if (rowCount == 0) {
       return;
     }
-    SWIGTYPE_p_double result = lightgbmlib.new_doubleArray(rowCount);
+    SWIGTYPE_p_double result = lightgbmlib.new_doubleArray(valueCount);
     SWIGTYPE_p_long_long resultCount = lightgbmlib.new_int64_tp();
     try {
       // num_iteration 0 = every iteration held, which is the best one: training rolled the rest back
@@ -206,11 +246,12 @@ public final class TrainedModel implements AutoCloseable {
           lightgbmlibConstants.C_API_DTYPE_FLOAT32, rowCount, featureCount, 1, predictType, 0, 0, "", resultCount,
           result), "LGBM_BoosterPredictForMat");
       long written = lightgbmlib.int64_tp_value(resultCount);
-      if (written != rowCount) {
-        throw new LearnerException("LightGBM wrote " + written + " predictions for " + rowCount + " rows");
+      if (written != valueCount) {
+        throw new LearnerException("LightGBM wrote " + written + " values for " + rowCount + " rows, expected "
+            + valueCount);
       }
-      for (int row = 0; row < rowCount; row++) {
-        out[row] = lightgbmlib.doubleArray_getitem(result, row);
+      for (int i = 0; i < (int) valueCount; i++) {
+        out[i] = lightgbmlib.doubleArray_getitem(result, i);
       }
     } finally {
       lightgbmlib.delete_doubleArray(result);

@@ -18,6 +18,7 @@ import java.util.Map;
  * @param int64BytesPerItemDay bytes per item-day of the same history as one 64-bit integer per item-day (8 plus any
  *     overhead the caller counts)
  * @param csvBytesPerItemDay bytes per item-day of the input as CSV text
+ * @param periodDays days per period of the store (1 daily, 7 weekly), or null when not recorded (read as daily)
  */
 public record DataSummary(
     Long seriesCount,
@@ -28,11 +29,26 @@ public record DataSummary(
     Double zeroDayShare,
     Double storeBytesPerItemDay,
     Double int64BytesPerItemDay,
-    Double csvBytesPerItemDay) {
+    Double csvBytesPerItemDay,
+    Integer periodDays) {
+
+  /** As the canonical constructor, for a store whose period is not recorded (daily). */
+  public DataSummary(Long seriesCount, Integer dayCount, LocalDate firstDate, LocalDate lastDate,
+      Map<String, Long> attributeCardinalities, Double zeroDayShare, Double storeBytesPerItemDay,
+      Double int64BytesPerItemDay, Double csvBytesPerItemDay) {
+    this(seriesCount, dayCount, firstDate, lastDate, attributeCardinalities, zeroDayShare, storeBytesPerItemDay,
+        int64BytesPerItemDay, csvBytesPerItemDay, null);
+  }
 
   public DataSummary {
     attributeCardinalities = attributeCardinalities == null
         ? Map.of() : Collections.unmodifiableMap(new LinkedHashMap<>(attributeCardinalities));
+  }
+
+  /** The store's period in words, "day" or "week" (or "period" for another step), for the report's text. */
+  public String periodUnit() {
+    // TODO(issue 9): use the store package's one rule for period words once it lands
+    return periodDays == null || periodDays == 1 ? "day" : periodDays == 7 ? "week" : "period";
   }
 
   /** Item-days in the history, or null when series or day count is unknown. */

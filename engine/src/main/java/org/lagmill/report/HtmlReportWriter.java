@@ -9,7 +9,7 @@ import org.lagmill.io.AtomicFiles;
  * external resources, black on white and paged sensibly when printed.
  *
  * <p>Sections carry stable ids that links and tests rely on: {@code #summary}, {@code #memory}, {@code #training},
- * {@code #accuracy}, {@code #horizon}, {@code #series}, {@code #caution}. A section whose data is absent stays, with
+ * {@code #accuracy}, {@code #horizon}, {@code #series}, {@code #drivers}, {@code #caution}. A section whose data is absent stays, with
  * one line saying so. The caution is shown twice: in a banner at the top and in the closing section. The markup is
  * written XHTML-style (every element closed, only numeric character references) so an XML parser can read it.
  * Stateless and thread-safe.
@@ -40,6 +40,7 @@ public final class HtmlReportWriter {
     b.append(ModelSections.accuracy(report.accuracy()));
     b.append(ModelSections.horizon(report.horizon()));
     b.append(SeriesSection.render(report.series()));
+    b.append(DriversSection.render(report.drivers(), report.data() == null ? "day" : report.data().periodUnit()));
     b.append(Html.section("caution", "Caution", "<p class=\"caution-text\">" + ReportFormat.escape(report.caution())
         + "</p>"));
     b.append("</main>\n</body>\n</html>\n");
@@ -68,6 +69,7 @@ public final class HtmlReportWriter {
   private static String contents() {
     String[][] entries = {{"summary", "Data"}, {"memory", "Memory and time"}, {"training", "Training"},
         {"accuracy", "Accuracy"}, {"horizon", "Error by horizon day"}, {"series", "Actual and forecast"},
+        {"drivers", "Why this forecast"},
         {"caution", "Caution"}};
     StringBuilder b = new StringBuilder("<nav class=\"contents\"><ol>");
     for (String[] e : entries) {

@@ -21,6 +21,7 @@ import java.util.Objects;
  * @param accuracy the backtest scores against the baselines, or null when no evaluation ran
  * @param horizon error by horizon day, or null
  * @param series actual-versus-forecast charts, in display order; empty when none were requested
+ * @param drivers why-this-forecast charts (the forecast split by driver family), in display order; empty when none
  */
 public record ReportData(
     String title,
@@ -31,7 +32,8 @@ public record ReportData(
     TrainingSummary training,
     AccuracySummary accuracy,
     HorizonErrors horizon,
-    List<SeriesChart> series) {
+    List<SeriesChart> series,
+    List<DriverChart> drivers) {
 
   /** The caution every report carries unless the caller words it differently. */
   public static final String DEFAULT_CAUTION = "These forecasts are statistical estimates for a planner to review. "
@@ -43,6 +45,7 @@ public record ReportData(
     caution = requireText(caution, "caution");
     stages = stages == null ? List.of() : List.copyOf(stages);
     series = series == null ? List.of() : List.copyOf(series);
+    drivers = drivers == null ? List.of() : List.copyOf(drivers);
   }
 
   /** Starts a report with the given title and the {@link #DEFAULT_CAUTION}; all other parts absent. */
@@ -56,6 +59,7 @@ public record ReportData(
         .horizon(horizon);
     b.stages.addAll(stages);
     b.series.addAll(series);
+    b.drivers.addAll(drivers);
     return b;
   }
 
@@ -78,6 +82,7 @@ public record ReportData(
     private AccuracySummary accuracy;
     private HorizonErrors horizon;
     private final List<SeriesChart> series = new ArrayList<>();
+    private final List<DriverChart> drivers = new ArrayList<>();
 
     private Builder(String title) {
       this.title = title;
@@ -135,8 +140,14 @@ public record ReportData(
       return this;
     }
 
+    /** Appends one why-this-forecast chart; charts keep the order in which they are added. */
+    public Builder driver(DriverChart value) {
+      drivers.add(Objects.requireNonNull(value, "driver chart"));
+      return this;
+    }
+
     public ReportData build() {
-      return new ReportData(title, caution, run, data, stages, training, accuracy, horizon, series);
+      return new ReportData(title, caution, run, data, stages, training, accuracy, horizon, series, drivers);
     }
   }
 }

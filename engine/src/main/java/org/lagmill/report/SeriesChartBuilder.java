@@ -88,7 +88,7 @@ public final class SeriesChartBuilder {
         originIndex);
   }
 
-  private static int largestAggregate(AggregateTable actual, int level, int dayCount) {
+  static int largestAggregate(AggregateTable actual, int level, int dayCount) {
     int best = 0;
     double bestTotal = -1;
     for (int a = 0; a < actual.aggregateCount(level); a++) {

@@ -21,7 +21,7 @@ import org.w3c.dom.Element;
 class HtmlReportStructureTest {
   private static final long SEED = 20240527L;
   private static final List<String> SECTION_IDS =
-      List.of("summary", "memory", "training", "accuracy", "horizon", "series", "caution");
+      List.of("summary", "memory", "training", "accuracy", "horizon", "series", "drivers", "caution");
 
   private static String f3(double v) {
     return String.format(Locale.ROOT, "%.3f", v);
@@ -231,6 +231,49 @@ class HtmlReportStructureTest {
     assertEquals(HtmlReportWriter.render(report), Files.readString(file));
     try (Stream<Path> files = Files.list(file.getParent())) {
       assertEquals(List.of(file), files.toList(), "no temporary file is left behind");
+    }
+  }
+
+  /**
+   * Each why-this-forecast chart draws one segment per non-zero part and period and one dot per period, and its
+   * table lists each part's units over the horizon, which add up to the forecast's (the numbers of report.json).
+   */
+  @Test
+  void shouldDrawEveryDriverPartAndListItsUnits() throws Exception {
+    ReportData report = SampleReports.full(SEED);
+    XmlPage page = XmlPage.parse(HtmlReportWriter.render(report));
+    List<Element> charts = page.all("//section[@id='drivers']//svg");
+    List<Element> tables = page.all("//section[@id='drivers']//table");
+    assertEquals(report.drivers().size(), charts.size());
+    assertEquals(report.drivers().size(), tables.size());
+    for (int c = 0; c < charts.size(); c++) {
+      DriverChart driver = report.drivers().get(c);
+      int nonZero = 0;
+      for (DriverChart.Part part : driver.parts()) {
+        for (double v : part.units()) {
+          nonZero += v != 0 ? 1 : 0;
+        }
+      }
+      assertEquals(nonZero, count(charts.get(c), "rect", "segment"), "chart " + driver.title() + ", seed " + SEED);
+      assertEquals(driver.dates().size(), count(charts.get(c), "circle", "total-dot"), driver.title());
+      List<Element> rows = new ArrayList<>();
+      var tr = tables.get(c).getElementsByTagName("tr");
+      for (int i = 0; i < tr.getLength(); i++) {
+        rows.add((Element) tr.item(i));
+      }
+      double forecast = 0;
+      for (double v : driver.forecast()) {
+        forecast += v;
+      }
+      for (int p = 0; p < driver.parts().size(); p++) {
+        List<String> cells = XmlPage.cells(rows.get(p + 1));
+        assertEquals(driver.parts().get(p).name(), cells.get(0));
+        assertEquals(String.format(Locale.ROOT, "%.1f", driver.parts().get(p).totalUnits()), cells.get(1));
+        assertEquals(String.format(Locale.ROOT, "%.1f%%", 100 * driver.parts().get(p).totalUnits() / forecast),
+            cells.get(2));
+      }
+      assertEquals(List.of("forecast", String.format(Locale.ROOT, "%.1f", forecast), "100%"),
+          XmlPage.cells(rows.get(rows.size() - 1)));
     }
   }
 

@@ -36,7 +36,29 @@ final class SampleReports {
     b.series(series("total", rnd, 84, 28, 4_200, false));
     b.series(series("region Northvale", rnd, 84, 28, 1_500, false));
     b.series(series("item-store PNT-D2-0041@NV-03", rnd, 84, 28, 1.2, true));
+    b.driver(driver("total", 2_400, rnd, 28, 4_200));
+    b.driver(driver("series PNT-D2-0041@NV-03", 1, rnd, 28, 1.2));
     return b.build();
+  }
+
+  /** Why-this-forecast parts: a base, five families of either sign (one all zero is left out), parts add up. */
+  static DriverChart driver(String title, int seriesCount, Random rnd, int horizonDays, double level) {
+    List<LocalDate> dates = new ArrayList<>();
+    for (int d = 0; d < horizonDays; d++) {
+      dates.add(ORIGIN.plusDays(d));
+    }
+    String[] names = {"base level", "recent level", "weekly pattern", "season", "events and holidays", "price"};
+    List<DriverChart.Part> parts = new ArrayList<>();
+    double[] forecast = new double[horizonDays];
+    for (String name : names) {
+      double[] units = new double[horizonDays];
+      for (int d = 0; d < horizonDays; d++) {
+        units[d] = name.equals("base level") ? level : level * 0.3 * rnd.nextGaussian();
+        forecast[d] += units[d];
+      }
+      parts.add(new DriverChart.Part(name, units));
+    }
+    return new DriverChart(title, seriesCount, dates, forecast, parts);
   }
 
   static TrainingSummary training(Random rnd) {

@@ -1,0 +1,103 @@
+package org.lagmill.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import org.lagmill.forecast.HorizonCoverage;
+import org.lagmill.forecast.ModelDirectory;
+import org.lagmill.forecast.ModelSet;
+import org.lagmill.memory.MemoryBudget;
+import org.lagmill.report.DriverChart;
+import org.lagmill.report.DriverChartBuilder;
+import org.lagmill.report.SeriesChartBuilder;
+import org.lagmill.store.SalesStore;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code lagmill explain}: splits the forecast of named series and top aggregates into its drivers. */
+@Command(name = "explain", header = "Show why a forecast is what it is: its parts by driver family.",
+    mixinStandardHelpOptions = true,
+    description = {"Forecast as lagmill forecast does, and split each forecast period of the named series and of",
+        "the largest aggregate of each level into a base level and the share of each family of inputs (recent",
+        "sales, weekly pattern, season, events and holidays, price, plan, launch), in units; the parts add up to",
+        "the forecast. From the model's own per-input contributions: what the model leaned on, not cause and effect."},
+    footer = {"", "Example:", "  lagmill explain --store stores/chain --model models/week49 \\",
+        "      --series k2/north/dry --json"})
+final class ExplainCommand implements Callable<Integer> {
+  @Spec CommandSpec commandSpec;
+
+  @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory")
+  Path store;
+
+  @Option(names = "--model", required = true, paramLabel = "DIR", description = "model directory from train")
+  Path model;
+
+  @Option(names = "--series", split = ",", paramLabel = "SERIES_ID", description = "series to explain besides the "
+      + "largest aggregate of each level")
+  List<String> seriesIds = List.of();
+
+  @Option(names = "--horizon", paramLabel = "PERIODS", description = "periods to forecast (default: the model's "
+      + "horizon)")
+  Integer horizonDays;
+
+  @Option(names = "--json", description = "print every period's parts as JSON")
+  boolean json;
+
+  @Mixin HierarchyOptions hierarchyOptions;
+
+  @Override
+  public Integer call() throws Exception {
+    PrintWriter out = commandSpec.commandLine().getOut();
+    List<DriverChart> charts;
+    try (MemoryBudget budget = CliBudgets.root(null);
+        SalesStore opened = SalesStore.open(store, budget.child("store"));
+        ModelSet models = ModelDirectory.open(model, opened);
+        MemoryBudget explainBudget = budget.child("explain")) {
+      int horizon = horizonDays == null ? models.spec().horizonDays() : horizonDays;
+      HorizonCoverage.check(opened, models.spec(), horizon).warnings()
+          .forEach(w -> System.err.println("warning: " + w));
+      charts = DriverChartBuilder.build(opened, hierarchyOptions.hierarchy(opened).bind(opened), models,
+          horizon, seriesIds, SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, explainBudget);
+    }
+    if (json) {
+      List<Map<String, Object>> document = new ArrayList<>();
+      for (DriverChart c : charts) {
+        Map<String, Object> row = new LinkedHashMap<>();
+        row.put("title", c.title());
+        row.put("seriesCount", c.seriesCount());
+        row.put("dates", c.dates().stream().map(Object::toString).toList());
+        row.put("forecast", c.forecast());
+        Map<String, double[]> parts = new LinkedHashMap<>();
+        c.parts().forEach(p -> parts.put(p.name(), p.units()));
+        row.put("parts", parts);
+        document.add(row);
+      }
+      out.println(RunRecord.JSON.writeValueAsString(document));
+      return ExitCodes.OK;
+    }
+    for (DriverChart c : charts) {
+      double total = 0;
+      for (double v : c.forecast()) {
+        total += v;
+      }
+      out.printf(Locale.ROOT, "%s (%d series), %s .. %s: forecast %.1f units%n", c.title(), c.seriesCount(),
+          c.dates().get(0), c.dates().get(c.dates().size() - 1), total);
+      for (DriverChart.Part part : c.parts()) {
+        double units = part.totalUnits();
+        out.printf(Locale.ROOT, "  %-22s %+12.1f units  %6.1f%%%n", part.name(), units,
+            total > 0 ? 100 * units / total : Double.NaN);
+      }
+    }
+    out.println("The parts show what the model leaned on, not cause and effect; forecasts are estimates for a planner"
+        + " to review.");
+    return ExitCodes.OK;
+  }
+}
