@@ -16,6 +16,8 @@ import org.lagmill.forecast.ForecastFileReader;
 import org.lagmill.forecast.ForecastTable;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.report.ReportAssembler;
+import org.lagmill.report.ReportData;
+import org.lagmill.store.StoreSummary;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.TruncatedHistory;
 import picocli.CommandLine.Command;
@@ -40,6 +42,9 @@ final class EvaluateCommand implements Callable<Integer> {
 
   @Option(names = "--json", description = "print the result as JSON")
   boolean json;
+
+  @Option(names = "--report", paramLabel = "DIR", description = "also write report.html and report.json here")
+  Path reportDir;
 
   @Mixin HierarchyOptions hierarchyOptions;
 
@@ -68,9 +73,21 @@ final class EvaluateCommand implements Callable<Integer> {
           .aggregateForecasts(evaluator.withoutUnknownActuals(table.point(), origin));
       EvaluationResult result = evaluator.evaluate(statistics, aggregated, quantiles);
       Map<String, Double> baselines = new LinkedHashMap<>();
-      RollingOriginBacktest.scoreBaselines(new TruncatedHistory(opened, origin), BacktestRun.DEFAULT_BASELINES,
-          table.horizonDays(), evaluator, statistics).forEach((kind, score) ->
-          baselines.put(ReportAssembler.label(kind), score.wrmsse()));
+      Map<String, EvaluationResult> baselineResults = RollingOriginBacktest.scoreBaselines(
+          new TruncatedHistory(opened, origin), BacktestRun.DEFAULT_BASELINES, table.horizonDays(), evaluator,
+          statistics);
+      baselineResults.forEach((kind, score) -> baselines.put(ReportAssembler.label(kind), score.wrmsse()));
+      if (reportDir != null) {
+        ReportData.Builder report = ReportOutput.start("lagmill evaluate", "lagmill evaluate --store " + store
+            + " --forecast " + forecast, store.toString());
+        report.data(ReportAssembler.dataSummary(StoreSummary.of(opened)))
+            .accuracy(ReportAssembler.accuracy(result, baselineResults, opened.dateOf(origin)))
+            .horizon(ReportAssembler.horizon(result, baselineResults));
+        Path html = ReportOutput.write(report.build(), reportDir);
+        if (!json) {
+          out.println("report written to " + html);
+        }
+      }
       if (json) {
         Map<String, Object> document = new LinkedHashMap<>();
         document.put("forecast", result);

@@ -15,6 +15,7 @@ import org.lagmill.eval.Level;
 import org.lagmill.report.DriverChartBuilder;
 import org.lagmill.report.ReportAssembler;
 import org.lagmill.report.ReportData;
+import org.lagmill.report.ReportJson;
 import org.lagmill.report.SeriesChartBuilder;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.SeriesSelection;
@@ -56,6 +57,10 @@ final class ForecastCommand implements Callable<Integer> {
   @Option(names = "--report", paramLabel = "DIR", description = "also write report.html and report.json here")
   Path reportDir;
 
+  @Option(names = "--backtest", paramLabel = "DIR", description = "with --report: include the accuracy of this "
+      + "backtest of the same store (the folder backtest --report wrote)")
+  Path backtestDir;
+
   @Option(names = "--show", split = ",", paramLabel = "SERIES_ID", description = "series to chart in the report")
   List<String> shownSeries = List.of();
 
@@ -78,6 +83,10 @@ final class ForecastCommand implements Callable<Integer> {
     if (wide && intervals) {
       throw new IllegalArgumentException("--wide holds one point forecast per date and no quantiles; drop --wide to "
           + "get the quantile columns, or drop --intervals");
+    }
+    if (backtestDir != null && reportDir == null) {
+      throw new IllegalArgumentException("--backtest adds a backtest's accuracy to the report; give --report DIR "
+          + "as well");
     }
     RunRecord run = new RunRecord("forecast");
     PrintWriter outText = commandSpec.commandLine().getOut();
@@ -136,6 +145,20 @@ final class ForecastCommand implements Callable<Integer> {
             + " --model " + model, store.toString());
         report.data(ReportAssembler.dataSummary(StoreSummary.of(opened)))
             .training(ReportAssembler.training(manifest.partitions()));
+        if (backtestDir != null) {
+          ReportData backtest = ReportJson.read(backtestDir.resolve(ReportOutput.JSON_FILE));
+          if (backtest.accuracy() == null) {
+            throw new IllegalArgumentException("--backtest " + backtestDir + ": its report.json holds no accuracy; "
+                + "give the folder lagmill backtest --report wrote");
+          }
+          report.accuracy(backtest.accuracy()).horizon(backtest.horizon());
+          BacktestMatch.warnings(backtest, opened, models.spec().horizonDays()).forEach(w -> {
+            if (!quiet) {
+              System.err.println("warning: " + w);
+            }
+          });
+          run.configure("backtest", backtestDir.toString());
+        }
         List<Level> scoredLevels = hierarchyOptions.hierarchy(opened).bind(opened);
         SeriesChartBuilder.build(opened, scoredLevels, opened.dayCount(), point, models.dispersionBySeries(),
             SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, shownSeries).forEach(report::series);

@@ -75,6 +75,35 @@ class PipelineCommandsTest {
     expectOk(MainRun.of("report", "--run", backtest.toString()));
     assertTrue(Files.size(html) > 1000);
 
+    // the forecast's report carries the backtest's accuracy, and says the backtest's store runs further
+    Path withAccuracy = dir.resolve("RA");
+    MainRun forecastWithBacktest = MainRun.of("forecast", "--store", storeA.toString(), "--model", model.toString(),
+        "--out", dir.resolve("fa.csv").toString(), "--report", withAccuracy.toString(), "--backtest",
+        backtest.toString());
+    expectOk(forecastWithBacktest);
+    assertTrue(forecastWithBacktest.err().contains("warning: the backtest's store ends "), forecastWithBacktest.err());
+    JsonNode copied = JSON.readTree(withAccuracy.resolve("report.json").toFile()).get("report").get("accuracy");
+    JsonNode original = JSON.readTree(backtest.resolve("report.json").toFile()).get("report").get("accuracy");
+    assertEquals(original, copied);
+    assertTrue(Files.readString(withAccuracy.resolve("report.html")).contains("the best simple method"));
+
+    // evaluate writes a report of one scored forecast, whose numbers are the JSON evaluation's
+    Path evaluation = dir.resolve("EV");
+    MainRun evaluatedWithReport = MainRun.of("evaluate", "--store", storeB.toString(), "--forecast",
+        forecast.toString(), "--json", "--report", evaluation.toString());
+    expectOk(evaluatedWithReport);
+    JsonNode scored = JSON.readTree(evaluatedWithReport.out()).get("forecast");
+    JsonNode reported = JSON.readTree(evaluation.resolve("report.json").toFile()).get("report").get("accuracy");
+    assertEquals(scored.get("wrmsse").asDouble(), reported.get("modelWrmsse").asDouble(), 0);
+    for (int l = 0; l < scored.get("levels").size(); l++) {
+      assertEquals(scored.get("levels").get(l).get("mae").asDouble(),
+          reported.get("levels").get(l).get("modelMae").asDouble(), 0);
+      assertEquals(scored.get("levels").get(l).get("bias").asDouble(),
+          reported.get("levels").get(l).get("modelBias").asDouble(), 0);
+    }
+    assertEquals(1, reported.get("origins").size());
+    assertTrue(Files.isRegularFile(evaluation.resolve("report.html")));
+
     // evaluate of a forecast naming a series the store does not have: bad input, file and line named
     Path bad = dir.resolve("bad.csv");
     List<String> badLines = new ArrayList<>(lines);

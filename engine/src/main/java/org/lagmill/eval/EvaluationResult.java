@@ -34,9 +34,29 @@ public record EvaluationResult(int originDay, int horizon, String weightBasis, d
    * @param bias mean of (forecast − actual) in units over aggregates and horizon days
    * @param excludedCount aggregates given weight 0 because their scale is 0 or undefined
    * @param weightedSpl Σ weight × SPL, null without quantile forecasts
+   * @param worstAggregates the level's aggregates with the largest share of the WRMSSE, largest first, at most
+   *     {@link #WORST_AGGREGATE_COUNT} (all of them in a smaller level): where the forecast fails
    */
   public record LevelResult(String name, int aggregateCount, double wrmsseContribution, double weightedRmsse,
-      double mae, double bias, int excludedCount, Double weightedSpl) {}
+      double mae, double bias, int excludedCount, Double weightedSpl, List<AggregateError> worstAggregates) {
+    public LevelResult {
+      worstAggregates = worstAggregates == null ? List.of() : List.copyOf(worstAggregates);
+    }
+  }
+
+  /** Aggregates kept per level in {@link LevelResult#worstAggregates}. */
+  public static final int WORST_AGGREGATE_COUNT = 25;
+
+  /**
+   * One aggregate's errors over the horizon.
+   *
+   * @param name the aggregate's attribute values joined by " / " (the series id's values at the bottom level)
+   * @param wrmsseContribution weight × RMSSE / level count: the aggregate's share of the WRMSSE
+   * @param mae mean absolute error in units per period
+   * @param bias mean of (forecast − actual) in units per period: above 0 the forecast was too high
+   * @param actualMean mean actual units per period over the horizon
+   */
+  public record AggregateError(String name, double wrmsseContribution, double mae, double bias, double actualMean) {}
 
   /**
    * Errors on one horizon day.

@@ -126,24 +126,34 @@ public final class Evaluator {
       double weightedSpl = 0;
       double absSum = 0;
       double biasSum = 0;
+      List<EvaluationResult.AggregateError> aggregateErrors = new ArrayList<>(aggregateCount);
       for (int g = 0; g < aggregateCount; g++) {
         int base = g * horizon;
         double squaredSum = 0;
+        double aggregateAbs = 0;
+        double aggregateBias = 0;
+        double aggregateActual = 0;
         for (int k = 0; k < horizon; k++) {
           double e = f[base + k] - y[base + k];
           squaredSum += e * e;
-          absSum += Math.abs(e);
-          biasSum += e;
+          aggregateAbs += Math.abs(e);
+          aggregateBias += e;
+          aggregateActual += y[base + k];
           if (l == finest) {
             finestDayAbsError[k] += Math.abs(e);
           }
         }
+        absSum += aggregateAbs;
+        biasSum += aggregateBias;
         double w = statistics.weight(l, g);
+        double rmsse = w == 0 ? 0 : Math.sqrt(squaredSum / horizon / statistics.squaredScale(l, g));
+        aggregateErrors.add(new EvaluationResult.AggregateError(levels.get(l).aggregateName(g), w * rmsse / levelCount,
+            aggregateAbs / horizon, aggregateBias / horizon, aggregateActual / horizon));
         if (w == 0) {
           continue;
         }
         double scale = statistics.squaredScale(l, g);
-        weightedRmsse += w * Math.sqrt(squaredSum / horizon / scale);
+        weightedRmsse += w * rmsse;
         double rootScale = Math.sqrt(scale);
         for (int k = 0; k < horizon; k++) {
           dayScaledError[k] += w * Math.abs(f[base + k] - y[base + k]) / rootScale;
@@ -155,7 +165,7 @@ public final class Evaluator {
       double cells = (double) aggregateCount * horizon;
       levelResults.add(new EvaluationResult.LevelResult(levels.get(l).name(), aggregateCount,
           weightedRmsse / levelCount, weightedRmsse, absSum / cells, biasSum / cells, statistics.excludedCount(l),
-          quantiles == null ? null : weightedSpl));
+          quantiles == null ? null : weightedSpl, worst(aggregateErrors)));
       wrmsse += weightedRmsse;
       wspl += weightedSpl;
     }
@@ -167,6 +177,13 @@ public final class Evaluator {
     return new EvaluationResult(origin, horizon, statistics.weightBasis().name(), wrmsse / levelCount,
         quantiles == null ? null : wspl / levelCount, levelResults, days, actuals.unknownCount(),
         statistics.unknownTrainingCount(), levelSource.label());
+  }
+
+  /** The aggregates with the largest share of the WRMSSE, largest first, ties by name; at most the kept count. */
+  static List<EvaluationResult.AggregateError> worst(List<EvaluationResult.AggregateError> errors) {
+    errors.sort(java.util.Comparator.comparingDouble(EvaluationResult.AggregateError::wrmsseContribution).reversed()
+        .thenComparing(EvaluationResult.AggregateError::name));
+    return errors.subList(0, Math.min(EvaluationResult.WORST_AGGREGATE_COUNT, errors.size()));
   }
 
   /** SPL of one aggregate: mean over quantile levels of (1/h) Σ pinball / absolute scale. */

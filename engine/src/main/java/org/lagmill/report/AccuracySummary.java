@@ -18,6 +18,8 @@ import java.util.Map;
  * @param modelWspl the model's weighted scaled pinball loss over its quantiles, or null when not computed
  * @param baselineWspl WSPL per baseline, possibly empty
  * @param origins one row per backtest origin, in date order; empty when a single split was scored
+ * @param worstAggregates where the forecast fails: per level, the aggregates with the largest share of the WRMSSE,
+ *     averaged over origins, largest first; empty when not recorded
  */
 public record AccuracySummary(
     String referenceBaseline,
@@ -26,17 +28,42 @@ public record AccuracySummary(
     Map<String, Double> baselineWrmsse,
     Double modelWspl,
     Map<String, Double> baselineWspl,
-    List<OriginScore> origins) {
+    List<OriginScore> origins,
+    List<WorstAggregate> worstAggregates) {
+
+  /** As the canonical constructor, without the worst aggregates. */
+  public AccuracySummary(String referenceBaseline, List<LevelScore> levels, double modelWrmsse,
+      Map<String, Double> baselineWrmsse, Double modelWspl, Map<String, Double> baselineWspl,
+      List<OriginScore> origins) {
+    this(referenceBaseline, levels, modelWrmsse, baselineWrmsse, modelWspl, baselineWspl, origins, null);
+  }
 
   public AccuracySummary {
     levels = levels == null ? List.of() : List.copyOf(levels);
     baselineWrmsse = orderedCopy(baselineWrmsse);
     baselineWspl = orderedCopy(baselineWspl);
     origins = origins == null ? List.of() : List.copyOf(origins);
+    worstAggregates = worstAggregates == null ? List.of() : List.copyOf(worstAggregates);
     if (referenceBaseline != null && !baselineWrmsse.containsKey(referenceBaseline)) {
       throw new IllegalArgumentException("referenceBaseline \"" + referenceBaseline + "\" is not among the baselines "
           + baselineWrmsse.keySet() + "; name one of them or pass null");
     }
+  }
+
+  /**
+   * The baseline with the lowest WRMSSE: the strongest simple method the model is measured against.
+   *
+   * @return its name, or null when no baseline was scored
+   */
+  public String bestBaseline() {
+    String best = null;
+    for (Map.Entry<String, Double> e : baselineWrmsse.entrySet()) {
+      if (e.getValue() != null && Double.isFinite(e.getValue())
+          && (best == null || e.getValue() < baselineWrmsse.get(best))) {
+        best = e.getKey();
+      }
+    }
+    return best;
   }
 
   /** Baseline names in display order. */
@@ -64,9 +91,16 @@ public record AccuracySummary(
    * @param aggregateCount series at this level (1 for the total)
    * @param modelRmsse the model's RMSSE averaged over the level's series
    * @param baselineRmsse each baseline's RMSSE at this level, by baseline name
+   * @param modelMae the model's mean absolute error in units per period over the level's aggregates, or null
+   * @param modelBias the model's mean of (forecast − actual) in units per period (above 0: too high), or null
    */
   public record LevelScore(String levelName, long aggregateCount, double modelRmsse,
-      Map<String, Double> baselineRmsse) {
+      Map<String, Double> baselineRmsse, Double modelMae, Double modelBias) {
+    /** A level without errors in units. */
+    public LevelScore(String levelName, long aggregateCount, double modelRmsse, Map<String, Double> baselineRmsse) {
+      this(levelName, aggregateCount, modelRmsse, baselineRmsse, null, null);
+    }
+
     public LevelScore {
       levelName = ReportData.requireText(levelName, "levelName");
       baselineRmsse = orderedCopy(baselineRmsse);
@@ -88,4 +122,17 @@ public record AccuracySummary(
       baselineWrmsse = orderedCopy(baselineWrmsse);
     }
   }
+
+  /**
+   * One aggregate with a large share of the error.
+   *
+   * @param levelName the aggregate's level, e.g. "store"
+   * @param aggregateName its attribute values joined by " / "
+   * @param wrmsseContribution its share of the WRMSSE (weight × RMSSE / level count), mean over origins
+   * @param mae mean absolute error in units per period
+   * @param bias mean of (forecast − actual) in units per period; above 0 the forecast ran high
+   * @param actualMean mean actual units per period
+   */
+  public record WorstAggregate(String levelName, String aggregateName, double wrmsseContribution, double mae,
+      double bias, double actualMean) {}
 }

@@ -8,8 +8,9 @@ import org.lagmill.io.AtomicFiles;
  * Renders a {@link ReportData} as one self-contained HTML file: inline CSS and inline SVG charts, no scripts, no
  * external resources, black on white and paged sensibly when printed.
  *
- * <p>Sections carry stable ids that links and tests rely on: {@code #summary}, {@code #memory}, {@code #training},
- * {@code #accuracy}, {@code #horizon}, {@code #series}, {@code #drivers}, {@code #caution}. A section whose data is absent stays, with
+ * <p>Sections carry stable ids that links and tests rely on, in page order: {@code #headline}, {@code #failures},
+ * {@code #series}, {@code #drivers}, {@code #accuracy}, {@code #horizon}, {@code #training}, {@code #summary},
+ * {@code #memory}, {@code #caution}. A section whose data is absent stays, with
  * one line saying so. The caution is shown twice: in a banner at the top and in the closing section. The markup is
  * written XHTML-style (every element closed, only numeric character references) so an XML parser can read it.
  * Stateless and thread-safe.
@@ -33,14 +34,18 @@ public final class HtmlReportWriter {
     b.append(header(report));
     b.append("<div class=\"caution-banner\" role=\"note\"><strong>Caution. </strong>")
         .append(ReportFormat.escape(report.caution())).append("</div>\n");
+    String periodUnit = report.data() == null ? "day" : report.data().periodUnit();
     b.append(contents());
-    b.append(OverviewSections.summary(report.data()));
-    b.append(OverviewSections.memory(report.stages()));
-    b.append(ModelSections.training(report.training()));
+    // a planner reads from the top: how good, where it fails, the charts; engineering details and storage last
+    b.append(PlannerSections.headline(report.accuracy(), periodUnit));
+    b.append(PlannerSections.failures(report.accuracy(), periodUnit));
+    b.append(SeriesSection.render(report.series()));
+    b.append(DriversSection.render(report.drivers(), periodUnit));
     b.append(ModelSections.accuracy(report.accuracy()));
     b.append(ModelSections.horizon(report.horizon()));
-    b.append(SeriesSection.render(report.series()));
-    b.append(DriversSection.render(report.drivers(), report.data() == null ? "day" : report.data().periodUnit()));
+    b.append(ModelSections.training(report.training(), periodUnit));
+    b.append(OverviewSections.summary(report.data()));
+    b.append(OverviewSections.memory(report.stages()));
     b.append(Html.section("caution", "Caution", "<p class=\"caution-text\">" + ReportFormat.escape(report.caution())
         + "</p>"));
     b.append("</main>\n</body>\n</html>\n");
@@ -67,10 +72,10 @@ public final class HtmlReportWriter {
   }
 
   private static String contents() {
-    String[][] entries = {{"summary", "Data"}, {"memory", "Memory and time"}, {"training", "Training"},
-        {"accuracy", "Accuracy"}, {"horizon", "Error by horizon day"}, {"series", "Actual and forecast"},
-        {"drivers", "Why this forecast"},
-        {"caution", "Caution"}};
+    String[][] entries = {{"headline", "How good is the forecast"}, {"failures", "Where it fails"},
+        {"series", "Actual and forecast"}, {"drivers", "Why this forecast"}, {"accuracy", "Accuracy against every "
+        + "baseline"}, {"horizon", "Error by horizon"}, {"training", "Model details"}, {"summary", "Data and storage"},
+        {"memory", "Memory and time"}, {"caution", "Caution"}};
     StringBuilder b = new StringBuilder("<nav class=\"contents\"><ol>");
     for (String[] e : entries) {
       b.append("<li><a href=\"#").append(e[0]).append("\">").append(e[1]).append("</a></li>");

@@ -5,6 +5,7 @@ import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import org.lagmill.features.FeatureFamily;
 
 /** Training ({@code #training}), accuracy ({@code #accuracy}) and error by horizon day ({@code #horizon}). */
 final class ModelSections {
@@ -13,9 +14,9 @@ final class ModelSections {
 
   private ModelSections() {}
 
-  static String training(TrainingSummary training) {
+  static String training(TrainingSummary training, String periodUnit) {
     if (training == null) {
-      return Html.section("training", "Training", Html.absent("No model was trained for this report."));
+      return Html.section("training", "Model details", Html.absent("No model was trained for this report."));
     }
     StringBuilder b = new StringBuilder(Html.h3("Validation curve"));
     TrainingSummary.ValidationCurve curve = training.validation();
@@ -47,12 +48,12 @@ final class ModelSections {
     if (training.importance().isEmpty()) {
       b.append(Html.absent("No feature importance was recorded."));
     } else {
-      b.append(importance(training.importance()));
+      b.append(importance(training.importance(), periodUnit));
     }
-    return Html.section("training", "Training", b.toString());
+    return Html.section("training", "Model details", b.toString());
   }
 
-  private static String importance(List<TrainingSummary.FeatureImportance> all) {
+  private static String importance(List<TrainingSummary.FeatureImportance> all, String periodUnit) {
     double totalGain = 0;
     for (TrainingSummary.FeatureImportance f : all) {
       totalGain += f.gain();
@@ -67,9 +68,15 @@ final class ModelSections {
       chart.bar(f.featureName(), share * 100, ReportFormat.percent(share) + " \u00b7 "
           + ReportFormat.count(f.splitCount()) + " splits");
     }
+    HtmlTable labels = new HtmlTable("feature-labels", "What each feature is", List.of("feature", "meaning",
+        "family", "share of gain"), new boolean[] {false, false, false, true});
+    for (TrainingSummary.FeatureImportance f : top) {
+      labels.row(List.of(f.featureName(), FeatureFamily.label(f.featureName(), periodUnit + "s"),
+          FeatureFamily.of(f.featureName()).label(), ReportFormat.percent(totalGain > 0 ? f.gain() / totalGain : 0)));
+    }
     return Html.figure(null, chart.render()) + Html.note("The " + top.size() + " features with the highest total gain"
         + " of " + all.size() + ", as a share of all gain, with the number of splits on each. Gain shows what the "
-        + "trees leaned on, not cause and effect.");
+        + "trees leaned on, not cause and effect.") + labels.finish();
   }
 
   private static final String ETS_LABEL = ReportAssembler.label(org.lagmill.eval.BaselineKind.ETS.name());

@@ -11,7 +11,7 @@ final class OverviewSections {
 
   static String summary(DataSummary data) {
     if (data == null) {
-      return Html.section("summary", "Data", Html.absent("No data summary was recorded for this report."));
+      return Html.section("summary", "Data and storage", Html.absent("No data summary was recorded for this report."));
     }
     StringBuilder b = new StringBuilder();
     String period = data.firstDate() == null || data.lastDate() == null ? null
@@ -31,7 +31,7 @@ final class OverviewSections {
       b.append(t.finish());
     }
     b.append(storage(data));
-    return Html.section("summary", "Data", b.toString());
+    return Html.section("summary", "Data and storage", b.toString());
   }
 
   private static String storage(DataSummary data) {

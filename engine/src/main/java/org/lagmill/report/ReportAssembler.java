@@ -61,16 +61,20 @@ public final class ReportAssembler {
     List<AccuracySummary.LevelScore> levels = new ArrayList<>();
     for (int level = 0; level < first.levels().size(); level++) {
       double model = 0;
+      double mae = 0;
+      double bias = 0;
       Map<String, Double> baselines = new LinkedHashMap<>();
       for (BacktestResult.OriginResult origin : origins) {
         model += origin.model().levels().get(level).weightedRmsse() / origins.size();
+        mae += origin.model().levels().get(level).mae() / origins.size();
+        bias += origin.model().levels().get(level).bias() / origins.size();
         for (Map.Entry<String, EvaluationResult> baseline : origin.baselines().entrySet()) {
           baselines.merge(label(baseline.getKey()), baseline.getValue().levels().get(level).weightedRmsse()
               / origins.size(), Double::sum);
         }
       }
       EvaluationResult.LevelResult row = first.levels().get(level);
-      levels.add(new AccuracySummary.LevelScore(row.name(), row.aggregateCount(), model, baselines));
+      levels.add(new AccuracySummary.LevelScore(row.name(), row.aggregateCount(), model, baselines, mae, bias));
     }
     Map<String, Double> baselineMeans = new LinkedHashMap<>();
     backtest.meanBaselineWrmsse().forEach((name, value) -> baselineMeans.put(label(name), value));
@@ -88,7 +92,72 @@ public final class ReportAssembler {
     String reference = baselineMeans.containsKey(label(BaselineKind.SEASONAL_NAIVE.name()))
         ? label(BaselineKind.SEASONAL_NAIVE.name()) : null;
     return new AccuracySummary(reference, levels, backtest.meanModelWrmsse(), baselineMeans,
-        backtest.meanModelWspl(), baselineWspl, originScores);
+        backtest.meanModelWspl(), baselineWspl, originScores,
+        worst(origins.stream().map(BacktestResult.OriginResult::model).toList()));
+  }
+
+  /**
+   * One evaluation (a forecast file scored against the actuals, beside the baselines from the same origin) as an
+   * accuracy summary with a single origin.
+   */
+  public static AccuracySummary accuracy(EvaluationResult model, Map<String, EvaluationResult> baselines,
+      LocalDate originDate) {
+    List<AccuracySummary.LevelScore> levels = new ArrayList<>();
+    for (int level = 0; level < model.levels().size(); level++) {
+      Map<String, Double> scores = new LinkedHashMap<>();
+      for (Map.Entry<String, EvaluationResult> baseline : baselines.entrySet()) {
+        scores.put(label(baseline.getKey()), baseline.getValue().levels().get(level).weightedRmsse());
+      }
+      EvaluationResult.LevelResult row = model.levels().get(level);
+      levels.add(new AccuracySummary.LevelScore(row.name(), row.aggregateCount(), row.weightedRmsse(), scores,
+          row.mae(), row.bias()));
+    }
+    Map<String, Double> wrmsse = new LinkedHashMap<>();
+    Map<String, Double> wspl = new LinkedHashMap<>();
+    baselines.forEach((name, result) -> {
+      wrmsse.put(label(name), result.wrmsse());
+      if (result.wspl() != null) {
+        wspl.put(label(name), result.wspl());
+      }
+    });
+    String seasonal = label(BaselineKind.SEASONAL_NAIVE.name());
+    return new AccuracySummary(wrmsse.containsKey(seasonal) ? seasonal : null, levels, model.wrmsse(), wrmsse,
+        model.wspl(), wspl, List.of(new AccuracySummary.OriginScore(originDate, model.wrmsse(), wrmsse)),
+        worst(List.of(model)));
+  }
+
+  /** Aggregates kept per level in the report's list of where the forecast fails (the page shows fewer). */
+  static final int WORST_KEPT_PER_LEVEL = EvaluationResult.WORST_AGGREGATE_COUNT;
+
+  /**
+   * Per level, the aggregates with the largest mean share of the WRMSSE over the evaluations (an aggregate outside an
+   * origin's kept list counts 0 there, so the mean is a lower bound for it); MAE, bias and actual are means over the
+   * origins that list it.
+   */
+  static List<AccuracySummary.WorstAggregate> worst(List<EvaluationResult> evaluations) {
+    List<AccuracySummary.WorstAggregate> out = new ArrayList<>();
+    EvaluationResult first = evaluations.get(0);
+    for (int level = 0; level < first.levels().size(); level++) {
+      Map<String, double[]> sums = new LinkedHashMap<>();
+      for (EvaluationResult evaluation : evaluations) {
+        for (EvaluationResult.AggregateError e : evaluation.levels().get(level).worstAggregates()) {
+          double[] s = sums.computeIfAbsent(e.name(), k -> new double[5]);
+          s[0] += e.wrmsseContribution();
+          s[1] += e.mae();
+          s[2] += e.bias();
+          s[3] += e.actualMean();
+          s[4]++;
+        }
+      }
+      List<AccuracySummary.WorstAggregate> rows = new ArrayList<>();
+      String levelName = first.levels().get(level).name();
+      sums.forEach((name, s) -> rows.add(new AccuracySummary.WorstAggregate(levelName, name,
+          s[0] / evaluations.size(), s[1] / s[4], s[2] / s[4], s[3] / s[4])));
+      rows.sort(java.util.Comparator.comparingDouble(AccuracySummary.WorstAggregate::wrmsseContribution).reversed()
+          .thenComparing(AccuracySummary.WorstAggregate::aggregateName));
+      out.addAll(rows.subList(0, Math.min(WORST_KEPT_PER_LEVEL, rows.size())));
+    }
+    return out;
   }
 
   /** Scaled error per horizon day averaged over origins, the model beside each baseline. */
@@ -111,6 +180,24 @@ public final class ReportAssembler {
     List<HorizonErrors.NamedCurve> curves = new ArrayList<>();
     baselines.forEach((name, values) -> curves.add(new HorizonErrors.NamedCurve(name, values)));
     return new HorizonErrors("weighted scaled error (RMSSE of one day, WRMSSE weights)", model, curves);
+  }
+
+  /** Scaled error per horizon period of one evaluation, the model beside each baseline. */
+  public static HorizonErrors horizon(EvaluationResult model, Map<String, EvaluationResult> baselines) {
+    int horizon = model.horizonDays().size();
+    double[] values = new double[horizon];
+    for (int d = 0; d < horizon; d++) {
+      values[d] = model.horizonDays().get(d).weightedScaledError();
+    }
+    List<HorizonErrors.NamedCurve> curves = new ArrayList<>();
+    baselines.forEach((name, result) -> {
+      double[] curve = new double[horizon];
+      for (int d = 0; d < horizon; d++) {
+        curve[d] = result.horizonDays().get(d).weightedScaledError();
+      }
+      curves.add(new HorizonErrors.NamedCurve(label(name), curve));
+    });
+    return new HorizonErrors("weighted scaled error (RMSSE of one period, WRMSSE weights)", values, curves);
   }
 
   /** Display name of a baseline kind, e.g. SEASONAL_NAIVE → "seasonal naive". */

@@ -118,11 +118,24 @@ class EvaluatorTest {
       double levelSpl = 0;
       double abs = 0;
       double bias = 0;
+      List<EvaluationResult.AggregateError> all = new java.util.ArrayList<>();
       for (String key : series.keySet()) {
         double[] y = series.get(key);
         double[] f = forecast.get(key);
         double w = scales.get(key) > 0 && weightSum > 0 ? rawWeight.get(key) / weightSum : 0;
         double mse = 0;
+        double keyAbs = 0;
+        double keyBias = 0;
+        double keyActual = 0;
+        for (int k = 0; k < horizon; k++) {
+          double e = f[k] - y[origin + k];
+          keyAbs += Math.abs(e) / horizon;
+          keyBias += e / horizon;
+          keyActual += y[origin + k] / horizon;
+        }
+        all.add(new EvaluationResult.AggregateError(key, w > 0 ? w * Math.sqrt(
+            java.util.stream.IntStream.range(0, horizon).mapToDouble(k -> (f[k] - y[origin + k]) * (f[k]
+            - y[origin + k])).sum() / horizon / scales.get(key)) / levels.size() : 0, keyAbs, keyBias, keyActual));
         for (int k = 0; k < horizon; k++) {
           double e = f[k] - y[origin + k];
           mse += e * e / horizon;
@@ -149,7 +162,7 @@ class EvaluatorTest {
       }
       double cells = series.size() * (double) horizon;
       rows.add(new EvaluationResult.LevelResult(level.name(), series.size(), levelRmsse / levels.size(), levelRmsse,
-          abs / cells, bias / cells, excluded, quantiles == null ? null : levelSpl));
+          abs / cells, bias / cells, excluded, quantiles == null ? null : levelSpl, slowWorst(all)));
       wrmsse += levelRmsse / levels.size();
       wspl += levelSpl / levels.size();
     }
@@ -174,6 +187,14 @@ class EvaluatorTest {
         quantiles == null ? null : wspl, rows, days, unknownActual, unknownTraining, "declared");
   }
 
+  /** Sort everything, keep the first ones: largest share first, ties by name. */
+  private static List<EvaluationResult.AggregateError> slowWorst(List<EvaluationResult.AggregateError> all) {
+    List<EvaluationResult.AggregateError> sorted = new java.util.ArrayList<>(all);
+    sorted.sort((a, b) -> a.wrmsseContribution() != b.wrmsseContribution()
+        ? Double.compare(b.wrmsseContribution(), a.wrmsseContribution()) : a.name().compareTo(b.name()));
+    return sorted.subList(0, Math.min(EvaluationResult.WORST_AGGREGATE_COUNT, sorted.size()));
+  }
+
   private static void assertClose(EvaluationResult expected, EvaluationResult actual, String message) {
     assertEquals(expected.weightBasis(), actual.weightBasis(), message);
     assertEquals(expected.wrmsse(), actual.wrmsse(), 1e-9, message);
@@ -196,6 +217,22 @@ class EvaluatorTest {
       assertEquals(e.bias(), a.bias(), 1e-9, where);
       if (e.weightedSpl() != null) {
         assertEquals(e.weightedSpl(), a.weightedSpl(), 1e-9, where);
+      }
+      assertEquals(e.worstAggregates().size(), a.worstAggregates().size(), where);
+      for (int i = 0; i < e.worstAggregates().size(); i++) {
+        EvaluationResult.AggregateError ew = e.worstAggregates().get(i);
+        EvaluationResult.AggregateError aw = a.worstAggregates().get(i);
+        String at = where + ", worst #" + (i + 1);
+        assertEquals(ew.wrmsseContribution(), aw.wrmsseContribution(), 1e-9, at);
+        if (i + 1 < e.worstAggregates().size()
+            && e.worstAggregates().get(i + 1).wrmsseContribution() < ew.wrmsseContribution() - 1e-9
+            && (i == 0 || e.worstAggregates().get(i - 1).wrmsseContribution() > ew.wrmsseContribution() + 1e-9)) {
+          // the name is compared only where the share is clearly unique; near-ties may order either way
+          assertEquals(ew.name(), aw.name(), at);
+          assertEquals(ew.mae(), aw.mae(), 1e-9, at);
+          assertEquals(ew.bias(), aw.bias(), 1e-9, at);
+          assertEquals(ew.actualMean(), aw.actualMean(), 1e-9, at);
+        }
       }
     }
     for (int k = 0; k < expected.horizonDays().size(); k++) {

@@ -12,6 +12,8 @@ import java.util.Locale;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import java.util.stream.Stream;
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
 import org.apache.commons.math3.stat.descriptive.DescriptiveStatistics;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
@@ -21,7 +23,8 @@ import org.w3c.dom.Element;
 class HtmlReportStructureTest {
   private static final long SEED = 20240527L;
   private static final List<String> SECTION_IDS =
-      List.of("summary", "memory", "training", "accuracy", "horizon", "series", "drivers", "caution");
+      List.of("headline", "failures", "series", "drivers", "accuracy", "horizon", "training", "summary", "memory",
+          "caution");
 
   private static String f3(double v) {
     return String.format(Locale.ROOT, "%.3f", v);
@@ -32,8 +35,12 @@ class HtmlReportStructureTest {
     ReportData report = SampleReports.full(SEED);
     String html = HtmlReportWriter.render(report);
     XmlPage page = XmlPage.parse(html);
+    int previous = -1;
     for (String id : SECTION_IDS) {
       assertEquals(1, page.count("//section[@id='" + id + "']"), "section #" + id + ", seed " + SEED);
+      int at = html.indexOf("<section id=\"" + id + "\"");
+      assertTrue(at > previous, "#" + id + " comes after the sections a planner reads before it");
+      previous = at;
     }
     assertEquals(2, occurrences(html, ReportData.DEFAULT_CAUTION), "caution in banner and closing section");
     assertEquals(ReportData.DEFAULT_CAUTION, page.text("//section[@id='caution']/p"));
@@ -275,6 +282,81 @@ class HtmlReportStructureTest {
       assertEquals(List.of("forecast", String.format(Locale.ROOT, "%.1f", forecast), "100%"),
           XmlPage.cells(rows.get(rows.size() - 1)));
     }
+  }
+
+  /** The headline's table holds each level's MAE and bias as report.json holds them, and names the best baseline. */
+  @Test
+  void shouldLeadWithErrorsInUnitsMatchingTheJson() throws Exception {
+    ReportData report = SampleReports.full(SEED);
+    JsonNode json = new ObjectMapper().readTree(ReportJson.toJson(report)).get("report").get("accuracy");
+    XmlPage page = XmlPage.parse(HtmlReportWriter.render(report));
+    List<Element> rows = page.all("//section[@id='headline']//table//tr");
+    JsonNode levels = json.get("levels");
+    assertEquals(levels.size() + 1, rows.size());
+    String best = null;
+    double bestScore = Double.POSITIVE_INFINITY;
+    for (var it = json.get("baselineWrmsse").fields(); it.hasNext(); ) {
+      var e = it.next();
+      if (e.getValue().asDouble() < bestScore) {
+        bestScore = e.getValue().asDouble();
+        best = e.getKey();
+      }
+    }
+    assertEquals(List.of("level", "series", "MAE, units", "bias, units", "scaled error (RMSSE)", best),
+        XmlPage.cells(rows.get(0)));
+    for (int l = 0; l < levels.size(); l++) {
+      JsonNode level = levels.get(l);
+      List<String> cells = XmlPage.cells(rows.get(l + 1));
+      assertEquals(level.get("levelName").asText(), cells.get(0));
+      assertEquals(unitsText(level.get("modelMae").asDouble()), cells.get(2), "MAE of " + cells.get(0));
+      double bias = level.get("modelBias").asDouble();
+      assertEquals((bias > 0 ? "+" : "") + unitsText(bias), cells.get(3), "bias of " + cells.get(0));
+      assertEquals(f3(level.get("modelRmsse").asDouble()), cells.get(4));
+      assertEquals(f3(level.get("baselineRmsse").get(best).asDouble()), cells.get(5));
+    }
+    String headline = page.text("//section[@id='headline']/p[@class='headline']");
+    double change = (json.get("modelWrmsse").asDouble() / bestScore - 1) * 100;
+    assertTrue(headline.contains("the best simple method (" + best + ")"), headline);
+    assertTrue(headline.contains(String.format(Locale.ROOT, "%.1f%% %s", Math.abs(change), change < 0 ? "lower"
+        : "higher")), headline);
+    assertTrue(headline.contains("at the total level the forecast misses by "
+        + unitsText(levels.get(0).get("modelMae").asDouble()) + " units per day"), headline);
+  }
+
+  /** The worst series are the bottom level's largest shares of the WRMSSE, in order, with report.json's numbers. */
+  @Test
+  void shouldListWhereItFailsFromTheJson() throws Exception {
+    ReportData report = SampleReports.full(SEED);
+    JsonNode json = new ObjectMapper().readTree(ReportJson.toJson(report)).get("report").get("accuracy");
+    XmlPage page = XmlPage.parse(HtmlReportWriter.render(report));
+    List<JsonNode> bottom = new ArrayList<>();
+    String bottomLevel = json.get("levels").get(json.get("levels").size() - 1).get("levelName").asText();
+    for (JsonNode w : json.get("worstAggregates")) {
+      if (w.get("levelName").asText().equals(bottomLevel)) {
+        bottom.add(w);
+      }
+    }
+    bottom.sort((a, b) -> Double.compare(b.get("wrmsseContribution").asDouble(),
+        a.get("wrmsseContribution").asDouble()));
+    List<Element> rows = page.all("//section[@id='failures']//table[contains(@class,'worst-series')]//tr");
+    assertEquals(Math.min(10, bottom.size()) + 1, rows.size());
+    double wrmsse = json.get("modelWrmsse").asDouble();
+    for (int r = 1; r < rows.size(); r++) {
+      JsonNode w = bottom.get(r - 1);
+      List<String> cells = XmlPage.cells(rows.get(r));
+      assertEquals(w.get("aggregateName").asText(), cells.get(0));
+      assertEquals(String.format(Locale.ROOT, "%.1f%%", 100 * w.get("wrmsseContribution").asDouble() / wrmsse),
+          cells.get(1));
+      assertEquals(unitsText(w.get("mae").asDouble()), cells.get(2));
+    }
+    // region (3 groups), store (8) and department (5) are small enough for a bias table of every group
+    assertEquals(3, page.count("//section[@id='failures']//table[contains(@class,'bias-by-group')]"));
+  }
+
+  /** Units with 2 decimals below 10, 1 below 100, none above: how the headline and failure tables print them. */
+  private static String unitsText(double value) {
+    double a = Math.abs(value);
+    return String.format(Locale.ROOT, a >= 100 ? "%.0f" : a >= 10 ? "%.1f" : "%.2f", value);
   }
 
   private static int count(Element svg, String tag, String cssClass) {

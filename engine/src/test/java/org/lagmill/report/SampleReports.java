@@ -90,7 +90,22 @@ final class SampleReports {
     List<AccuracySummary.LevelScore> rows = new ArrayList<>();
     for (int i = 0; i < levels.length; i++) {
       double model = 0.45 + 0.08 * i + 0.02 * rnd.nextDouble();
-      rows.add(new AccuracySummary.LevelScore(levels[i], counts[i], model, baselineScores(model, rnd)));
+      double mae = 4_200.0 / counts[i] * (0.08 + 0.3 * i / 5.0);
+      rows.add(new AccuracySummary.LevelScore(levels[i], counts[i], model, baselineScores(model, rnd), mae,
+          mae * (rnd.nextDouble() - 0.6) * 0.5));
+    }
+    List<AccuracySummary.WorstAggregate> worst = new ArrayList<>();
+    String[][] names = {{"total"}, {"Northvale", "Eastmoor", "Southbay"},
+        {"NV-01", "NV-02", "NV-03", "EM-01", "EM-02", "EM-03", "SB-01", "SB-02"},
+        {"Pantry", "Garden", "Fresh", "Frozen", "Home"}};
+    for (int i = 0; i < levels.length; i++) {
+      int shown = i < names.length ? names[i].length : 14;
+      for (int g = 0; g < shown; g++) {
+        String name = i < names.length ? names[i][g] : levels[i].toUpperCase(java.util.Locale.ROOT) + "-" + g;
+        double actual = 4_200.0 / counts[i] * (0.5 + rnd.nextDouble());
+        worst.add(new AccuracySummary.WorstAggregate(levels[i], name, 0.02 * Math.pow(0.8, g) / (i + 1),
+            actual * 0.3, actual * (rnd.nextDouble() - 0.5) * 0.2, actual));
+      }
     }
     List<AccuracySummary.OriginScore> origins = new ArrayList<>();
     for (int k = 3; k >= 0; k--) {
@@ -99,7 +114,7 @@ final class SampleReports {
     }
     double model = 0.651;
     return new AccuracySummary("seasonal naive", rows, model, baselineScores(model, rnd), 0.212,
-        linked("seasonal naive", 0.268, "naive", 0.301), origins);
+        linked("seasonal naive", 0.268, "naive", 0.301), origins, worst);
   }
 
   private static Map<String, Double> baselineScores(double model, Random rnd) {
