@@ -64,7 +64,7 @@ final class DriversSection {
       forecastTotal += v;
     }
     HtmlTable t = new HtmlTable("drivers", "Parts of the forecast over " + c.dates().size() + " " + periodUnit
-        + "s, " + c.title(), List.of("part", "units", "share of forecast"), new boolean[] {false, true, true});
+        + "s", List.of("part", "units", "share of forecast"), new boolean[] {false, true, true});
     for (DriverChart.Part part : c.parts()) {
       double units = part.totalUnits();
       t.row(List.of(part.name(), ReportFormat.fixed(units, 1), forecastTotal > 0

@@ -28,8 +28,7 @@ final class PlannerSections {
     StringBuilder b = new StringBuilder("<p class=\"headline\">").append(ReportFormat.escape(plainWords(a,
         periodUnit))).append("</p>");
     String best = a.bestBaseline();
-    HtmlTable t = new HtmlTable("units", "Error in units per " + periodUnit + " by level (MAE: mean absolute error; "
-        + "bias: mean of forecast minus actual, above 0 the forecast ran high)", List.of("level", "series",
+    HtmlTable t = new HtmlTable("units", "Error in units per " + periodUnit + ", by level", List.of("level", "series",
         "MAE, units", "bias, units", "scaled error (RMSSE)", best == null ? "best baseline" : best),
         new boolean[] {false, true, true, true, true, true});
     for (AccuracySummary.LevelScore l : a.levels()) {
@@ -38,7 +37,8 @@ final class PlannerSections {
           best == null ? ReportFormat.MISSING : ReportFormat.score(l.baselineRmsse().get(best))));
     }
     b.append(t.finish());
-    b.append(Html.note("Scaled errors have no unit (1 is as bad as a one-" + periodUnit + "-ago guess was inside "
+    b.append(Html.note("MAE is the mean absolute error; bias the mean of forecast minus actual, above 0 the forecast "
+        + "ran high. Scaled errors have no unit (1 is as bad as a one-" + periodUnit + "-ago guess was inside "
         + "the history; lower is better) so levels and baselines compare directly; MAE and bias are in units sold per "
         + periodUnit + " and per aggregate of the level. " + (a.origins().size() > 1 ? "Means over "
         + a.origins().size() + " backtest origins." : "One origin.")));
@@ -96,7 +96,7 @@ final class PlannerSections {
     StringBuilder b = new StringBuilder(Html.note("Ranked by each one's share of the overall scaled error (WRMSSE), "
         + "which weighs errors by sales value: fixing the top rows helps most. Bias above 0 means the forecast ran "
         + "high (too much stock), below 0 low (lost sales)."));
-    b.append(worstTable("worst-series", "Series with the largest share of the error (" + bottom + ")",
+    b.append(worstTable("worst-series", "Series with the largest share of the error",
         byLevel.get(bottom), a.modelWrmsse(), periodUnit, false));
     if (!groups.isEmpty()) {
       b.append(worstTable("worst-groups", "Groups with the largest share of the error", groups, a.modelWrmsse(),
