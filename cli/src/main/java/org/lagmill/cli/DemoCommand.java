@@ -24,6 +24,7 @@ import org.lagmill.learner.TrainParameters;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.memory.ProcessMemory;
 import org.lagmill.progress.ProgressListener;
+import org.lagmill.report.DriverChartBuilder;
 import org.lagmill.report.ReportAssembler;
 import org.lagmill.report.ReportData;
 import org.lagmill.report.SeriesChartBuilder;
@@ -134,6 +135,9 @@ final class DemoCommand implements Callable<Integer> {
             models.quantiles(point, ForecastTable.PUBLISHED_QUANTILES));
         ForecastFileWriter.writeLong(table, store, forecastFile);
         run.endStage("forecast", store.offHeapBytes() + learner.peakBytes(), (long) point.length * HORIZON_DAYS);
+        DriverChartBuilder.build(store, hierarchy.bind(store), models, HORIZON_DAYS, List.of(),
+            SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, learner).forEach(report::driver);
+        run.endStage("explain", store.offHeapBytes() + learner.peakBytes(), 0);
       }
       backtest.addTo(report, store, List.of());
       report.clearSeries();

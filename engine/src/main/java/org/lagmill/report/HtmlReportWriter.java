@@ -39,10 +39,10 @@ public final class HtmlReportWriter {
     // a planner reads from the top: how good, where it fails, the charts; engineering details and storage last
     b.append(PlannerSections.headline(report.accuracy(), periodUnit));
     b.append(PlannerSections.failures(report.accuracy(), periodUnit));
-    b.append(SeriesSection.render(report.series()));
+    b.append(SeriesSection.render(report.series(), periodUnit));
     b.append(DriversSection.render(report.drivers(), periodUnit));
     b.append(ModelSections.accuracy(report.accuracy()));
-    b.append(ModelSections.horizon(report.horizon()));
+    b.append(ModelSections.horizon(report.horizon(), periodUnit));
     b.append(ModelSections.training(report.training(), periodUnit));
     b.append(OverviewSections.summary(report.data()));
     b.append(OverviewSections.memory(report.stages()));

@@ -243,17 +243,17 @@ final class ModelSections {
     return reference == null ? null : model / reference;
   }
 
-  static String horizon(HorizonErrors h) {
+  static String horizon(HorizonErrors h, String periodUnit) {
     if (h == null || h.model().length == 0) {
-      return Html.section("horizon", "Error by horizon day",
-          Html.absent("No error by horizon day was recorded for this report."));
+      return Html.section("horizon", "Error by horizon " + periodUnit,
+          Html.absent("No error by horizon " + periodUnit + " was recorded for this report."));
     }
     int dayCount = h.model().length;
     // Seven legend entries (six baselines and the model) take two rows, so the plot starts lower than usual.
     ChartFrame frame = new ChartFrame(ChartFrame.WIDE.widthPx(), ChartFrame.WIDE.heightPx() + 16,
         ChartFrame.WIDE.leftPx(), ChartFrame.WIDE.rightPx(), ChartFrame.WIDE.topPx() + 16, ChartFrame.WIDE.bottomPx());
     LineChart chart = SvgCharts.lineChart(frame, dayCount)
-        .title(h.metricName() + " by horizon day, model and baselines").xLabels(i -> Integer.toString(i + 1))
+        .title(h.metricName() + " by horizon " + periodUnit + ", model and baselines").xLabels(i -> Integer.toString(i + 1))
         .yTitle(h.metricName()).includeZero(true);
     if (dayCount >= 14) {
       chart.xTicks(7, 6);
@@ -263,9 +263,10 @@ final class ModelSections {
       chart.line(c.name(), c.values(), SvgCharts.baselineColour(i), SvgCharts.baselineDash(i), true);
     }
     chart.line("model", h.model(), SvgCharts.MODEL_COLOUR, null, true);
-    return Html.section("horizon", "Error by horizon day", Html.figure(null, chart.render())
-        + Html.note(h.metricName() + " of each forecast day after the origin (day 1 is the day after the last known "
-        + "day), over all backtest origins; lower is better. Error usually grows with the horizon."));
+    return Html.section("horizon", "Error by horizon " + periodUnit, Html.figure(null, chart.render())
+        + Html.note(h.metricName() + " of each forecast " + periodUnit + " after the origin (" + periodUnit + " 1 is "
+        + "the " + periodUnit + " after the last known "
+        + periodUnit + "), over all backtest origins; lower is better. Error usually grows with the horizon."));
   }
 
   /** Mean, sample standard deviation, lowest and highest of the finite values of a column. */

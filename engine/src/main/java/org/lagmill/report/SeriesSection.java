@@ -11,28 +11,29 @@ final class SeriesSection {
 
   private SeriesSection() {}
 
-  static String render(List<SeriesChart> charts) {
+  static String render(List<SeriesChart> charts, String periodUnit) {
     if (charts.isEmpty()) {
       return Html.section("series", "Actual and forecast",
           Html.absent("No series charts were requested for this report."));
     }
     StringBuilder b = new StringBuilder(Html.note("Black: units sold. Blue: the forecast, with its interval shaded. "
-        + "The dashed line marks the forecast origin: the last day the model could see is just left of it."));
+        + "The dashed line marks the forecast origin: the last " + periodUnit + " the model could see is just left of "
+        + "it."));
     for (SeriesChart c : charts) {
-      b.append(Html.figure(c.title(), chart(c)));
+      b.append(Html.figure(c.title(), chart(c, periodUnit)));
     }
     return Html.section("series", "Actual and forecast", b.toString());
   }
 
-  static String chart(SeriesChart c) {
+  static String chart(SeriesChart c, String periodUnit) {
     int dayCount = c.dates().size();
     if (dayCount == 0) {
       return Html.absent("No days to plot.");
     }
     List<LocalDate> dates = c.dates();
     LineChart chart = SvgCharts.lineChart(ChartFrame.WIDE_SHORT, dayCount)
-        .title("Actual and forecast units per day, " + c.title())
-        .xLabels(i -> TICK_DATE.format(dates.get(i))).yTitle("units per day").includeZero(true);
+        .title("Actual and forecast units per " + periodUnit + ", " + c.title())
+        .xLabels(i -> TICK_DATE.format(dates.get(i))).yTitle("units per " + periodUnit).includeZero(true);
     int anchor = c.originIndex() >= 0 ? c.originIndex() : 0;
     chart.xTicks(dayCount > 120 ? 28 : dayCount > 21 ? 7 : 1, anchor);
     if (c.hasBand()) {
