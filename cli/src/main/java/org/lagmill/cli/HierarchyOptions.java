@@ -10,8 +10,8 @@ import picocli.CommandLine.Option;
 final class HierarchyOptions {
   @Option(names = "--hierarchy", paramLabel = "A>B>…", description = {"an attribute hierarchy, repeatable; the error",
       "levels are the cross product of their prefixes. Quote it for the shell, which reads > as a redirection:",
-      "--hierarchy 'region>store' --hierarchy 'category>department>item' (default: those two when the store has",
-      "those attributes, else total and single series)"})
+      "--hierarchy 'region>store' --hierarchy 'category>department>item' (default: the chains of attributes",
+      "that nest in the store's data)"})
   List<String> hierarchies;
 
   @Option(names = "--level", paramLabel = "A,B,…", description = {"an explicit aggregation level, repeatable, replacing",
