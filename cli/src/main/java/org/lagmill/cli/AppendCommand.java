@@ -6,6 +6,7 @@ import org.lagmill.ingest.AppendOptions;
 import org.lagmill.ingest.IngestResult;
 import org.lagmill.ingest.StoreAppend;
 import org.lagmill.memory.MemoryBudget;
+import org.lagmill.store.Periods;
 import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreUpdate;
 import picocli.CommandLine.Command;
@@ -71,9 +72,9 @@ final class AppendCommand implements Callable<Integer> {
       if (!quiet) {
         IngestCommand.printWarnings(spec.commandLine().getErr(), result.warnings());
         StoreManifest manifest = result.manifest();
-        spec.commandLine().getOut().printf("store %s now holds %d series x %d days (%s .. %s)%n", store,
-            manifest.seriesCount(), manifest.dayCount(), manifest.firstDate(),
-            manifest.firstLocalDate().plusDays(manifest.dayCount() - 1L));
+        spec.commandLine().getOut().printf("store %s now holds %d series x %s (%s .. %s)%n", store,
+            manifest.seriesCount(), Periods.count(manifest.dayCount(), manifest.periodDaysOrDaily()),
+            manifest.firstDate(), manifest.lastLocalDate());
         IngestCommand.printFill(spec.commandLine().getOut(), manifest);
       }
     }

@@ -35,7 +35,8 @@ final class BacktestCommand implements Callable<Integer> {
   @Option(names = "--origins", required = true, paramLabel = "K", description = "number of forecast origins")
   int originCount;
 
-  @Option(names = "--step", paramLabel = "DAYS", description = "days between origins (default: the horizon)")
+  @Option(names = "--step", paramLabel = "PERIODS", description = "periods (days, or weeks of a weekly store) between "
+      + "origins (default: the horizon)")
   Integer stepDays;
 
   @Option(names = "--report", required = true, paramLabel = "DIR", description = "folder for report.html, "

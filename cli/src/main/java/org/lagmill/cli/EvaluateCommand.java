@@ -18,6 +18,7 @@ import org.lagmill.memory.MemoryBudget;
 import org.lagmill.report.ReportAssembler;
 import org.lagmill.report.ReportData;
 import org.lagmill.store.StoreSummary;
+import org.lagmill.store.Periods;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.TruncatedHistory;
 import picocli.CommandLine.Command;
@@ -60,7 +61,7 @@ final class EvaluateCommand implements Callable<Integer> {
             + opened.dateOf(lastDay) + " but the store holds actuals for " + opened.firstDate() + " .. "
             + opened.dateOf(opened.dayCount() - 1) + "; append the actuals first (lagmill append)");
       }
-      Evaluator evaluator = new Evaluator(opened, hierarchyOptions.hierarchy(opened));
+      Evaluator evaluator = new Evaluator(opened, hierarchyOptions.hierarchy(opened), table.horizonDays());
       OriginStatistics statistics = evaluator.statistics(origin);
       // Closed or unknown actuals leave both sides of every aggregate.
       double[][][] knownQuantiles = new double[table.quantiles().length][][];
@@ -95,8 +96,8 @@ final class EvaluateCommand implements Callable<Integer> {
         out.println(RunRecord.JSON.writeValueAsString(document));
         return ExitCodes.OK;
       }
-      out.printf(Locale.ROOT, "forecast %s, %s .. %s, %d days%n", forecast, opened.dateOf(origin),
-          opened.dateOf(lastDay), table.horizonDays());
+      out.printf(Locale.ROOT, "forecast %s, %s .. %s, %s%n", forecast, opened.dateOf(origin),
+          opened.dateOf(lastDay), Periods.count(table.horizonDays(), opened.periodDays()));
       out.printf(Locale.ROOT, "%-40s %6s %10s %10s %10s%n", "level", "series", "RMSSE", "MAE", "bias");
       for (EvaluationResult.LevelResult level : result.levels()) {
         out.printf(Locale.ROOT, "%-40s %6d %10.4f %10.3f %10.3f%n", level.name(), level.aggregateCount(),

@@ -17,6 +17,7 @@ import org.lagmill.report.ReportAssembler;
 import org.lagmill.report.ReportData;
 import org.lagmill.report.ReportJson;
 import org.lagmill.report.SeriesChartBuilder;
+import org.lagmill.store.Periods;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.SeriesSelection;
 import org.lagmill.store.StoreSummary;
@@ -178,7 +179,8 @@ final class ForecastCommand implements Callable<Integer> {
         run.write(parent, out.getFileName() + ".run.json");
       }
       if (!quiet) {
-        outText.printf("forecast %,d series x %d days (%s .. %s) written to %s%n", forecastSeriesCount, horizon,
+        outText.printf("forecast %,d series x %s (%s .. %s) written to %s%n", forecastSeriesCount,
+            Periods.count(horizon, opened.periodDays()),
             opened.dateOf(opened.dayCount()), opened.dateOf(opened.dayCount() + horizon - 1), out);
         outText.println("These are estimates for a planner to review, not orders.");
       }

@@ -10,6 +10,7 @@ import org.lagmill.ingest.MissingRows;
 import org.lagmill.ingest.SalesFormat;
 import org.lagmill.ingest.StoreIngest;
 import org.lagmill.memory.MemoryBudget;
+import org.lagmill.store.Periods;
 import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreUpdate;
 import picocli.CommandLine.Command;
@@ -105,9 +106,10 @@ final class IngestCommand implements Callable<Integer> {
       if (!quiet) {
         printWarnings(spec.commandLine().getErr(), result.warnings());
         StoreManifest manifest = result.manifest();
-        spec.commandLine().getOut().printf("ingested %d series x %d days (%s .. %s) into %s, %d bytes, peak off-heap "
-            + "%d bytes%n", manifest.seriesCount(), manifest.dayCount(), manifest.firstDate(),
-            manifest.firstLocalDate().plusDays(manifest.dayCount() - 1L), store, manifest.binaryBytes(),
+        spec.commandLine().getOut().printf("ingested %d series x %s (%s .. %s%s) into %s, %d bytes, peak off-heap "
+            + "%d bytes%n", manifest.seriesCount(), Periods.count(manifest.dayCount(), manifest.periodDaysOrDaily()),
+            manifest.firstDate(), manifest.lastLocalDate(), manifest.periodDaysOrDaily() == Periods.DAILY ? ""
+            : ", " + Periods.describe(manifest.periodDaysOrDaily()), store, manifest.binaryBytes(),
             budget.peakBytes());
         printFill(spec.commandLine().getOut(), manifest);
       }

@@ -3,7 +3,6 @@ package org.lagmill.cli;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.time.LocalDate;
-import java.time.temporal.ChronoUnit;
 import java.util.concurrent.Callable;
 import org.lagmill.features.FeatureSpec;
 import org.lagmill.forecast.ModelDirectory;
@@ -13,6 +12,7 @@ import org.lagmill.forecast.PartitionReport;
 import org.lagmill.forecast.TrainingPlan;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.memory.ProcessMemory;
+import org.lagmill.store.Periods;
 import org.lagmill.store.SalesStore;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -55,7 +55,9 @@ final class TrainCommand implements Callable<Integer> {
     FeatureSpec spec = training.featureSpec();
     try (MemoryBudget budget = CliBudgets.root(memoryLimitBytes);
         SalesStore opened = SalesStore.open(store, budget.child("store"))) {
-      int cut = until == null ? opened.dayCount() - 1 : (int) ChronoUnit.DAYS.between(opened.firstDate(), until);
+      int cut = until == null ? opened.dayCount() - 1
+          : (int) Math.max(-1, Math.min(Integer.MAX_VALUE, Periods.periodIndexOf(opened.firstDate(),
+              opened.periodDays(), until.toEpochDay())));
       if (cut < 0 || cut >= opened.dayCount()) {
         throw new IllegalArgumentException("--until " + until + " is outside the store's days " + opened.firstDate()
             + " .. " + opened.dateOf(opened.dayCount() - 1));

@@ -16,14 +16,16 @@ final class TrainingOptions {
   @Option(names = "--config", paramLabel = "FILE", description = "feature spec YAML (see docs/configuration.md)")
   Path config;
 
-  @Option(names = "--horizon", paramLabel = "DAYS", description = "forecast horizon and validation window in days "
-      + "(default: the config's horizonDays, 28)")
+  @Option(names = "--horizon", paramLabel = "PERIODS", description = "forecast horizon and validation window in "
+      + "periods of the store: days, or weeks of a weekly store (default: the config's horizonDays, 28)")
   Integer horizonDays;
 
-  @Option(names = "--lags", split = ",", paramLabel = "DAYS", description = "lags of units, e.g. 28,35,42")
+  @Option(names = "--lags", split = ",", paramLabel = "PERIODS", description = "lags of units in periods, e.g. "
+      + "28,35,42")
   int[] lagDays;
 
-  @Option(names = "--windows", split = ",", paramLabel = "DAYS", description = "rolling windows, e.g. 7,28,56")
+  @Option(names = "--windows", split = ",", paramLabel = "PERIODS", description = "rolling windows in periods, "
+      + "e.g. 7,28,56")
   int[] windowDays;
 
   @Option(names = "--rounds", paramLabel = "N", defaultValue = "1000", description = "most boosting rounds "

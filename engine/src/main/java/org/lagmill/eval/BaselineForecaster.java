@@ -21,12 +21,13 @@ public final class BaselineForecaster {
       throw new IllegalArgumentException("horizon must be >= 1, got " + horizon);
     }
     double[][] result = new double[history.seriesCount()][horizon];
+    int seasonLength = history.seasonLength();
     if (kind == BaselineKind.ETS) {
       // Fitting costs milliseconds per series, so the series are shared among the cores (a history is safe for
       // concurrent reads); each worker owns its fitter and buffer, and every series' result is the same in any order.
       int workerCount = Math.max(1, Math.min(result.length, 4 * Runtime.getRuntime().availableProcessors()));
       IntStream.range(0, workerCount).parallel().forEach(worker -> {
-        EtsFitter fitter = new EtsFitter(BaselineKernels.SEASON_DAYS);
+        EtsFitter fitter = new EtsFitter(seasonLength);
         int[] units = new int[originDay];
         for (int s = worker; s < result.length; s += workerCount) {
           history.readUnits(s, 0, units, 0, originDay);
@@ -38,7 +39,7 @@ public final class BaselineForecaster {
     int[] units = new int[originDay];
     for (int s = 0; s < result.length; s++) {
       history.readUnits(s, 0, units, 0, originDay);
-      kind.forecast(units, 0, originDay, horizon, result[s], 0);
+      kind.forecast(units, 0, originDay, horizon, seasonLength, result[s], 0);
     }
     return result;
   }

@@ -4,9 +4,7 @@ import java.util.Arrays;
 
 /** The arithmetic of each {@link BaselineKind}; arguments are checked by the caller. */
 public final class BaselineKernels {
-  /** Season length of {@link BaselineKind#SEASONAL_NAIVE}: one week of daily data. */
-  public static final int SEASON_DAYS = 7;
-  /** Window of {@link BaselineKind#MOVING_AVERAGE}. */
+  /** Window of {@link BaselineKind#MOVING_AVERAGE}, in periods (days of a daily store, weeks of a weekly one). */
   public static final int MOVING_AVERAGE_DAYS = 28;
   /** Smoothing constant of Croston and SBA (a common choice for daily retail data; common practice, no source). */
   public static final double CROSTON_ALPHA = 0.1;
@@ -47,7 +45,9 @@ public final class BaselineKernels {
     return 0;
   }
 
-  static void seasonalNaive(int[] units, int from, int origin, int horizon, double[] dst, int offset) {
+  /** @param seasonLength periods per season, {@link org.lagmill.store.Periods#seasonLength}: 7 daily, 52 weekly */
+  static void seasonalNaive(int[] units, int from, int origin, int horizon, int seasonLength, double[] dst,
+      int offset) {
     int start = firstSale(units, from, origin);
     if (start < 0) {
       Arrays.fill(dst, offset, offset + horizon, 0.0);
@@ -55,10 +55,10 @@ public final class BaselineKernels {
     }
     double fallback = lastKnown(units, from, origin);
     for (int k = 0; k < horizon; k++) {
-      // The latest day before the origin on the same weekday as origin + k.
-      int day = origin + k - SEASON_DAYS * ((k / SEASON_DAYS) + 1);
+      // The latest period before the origin in the same season position as origin + k (same weekday when daily).
+      int day = origin + k - seasonLength * ((k / seasonLength) + 1);
       while (day >= start && units[day] < 0) {
-        day -= SEASON_DAYS;
+        day -= seasonLength;
       }
       dst[offset + k] = day >= start ? units[day] : fallback;
     }

@@ -1,5 +1,8 @@
 package org.lagmill.eval;
 
+import org.lagmill.store.Periods;
+import org.lagmill.store.SalesHistory;
+
 /**
  * Simple per-series forecasts that a model must beat. Every kernel reads days {@code firstUsableDay .. originDay-1} of
  * a unit array, skips unknown days (negative values, {@link org.lagmill.store.SalesHistory#UNKNOWN_UNITS}), starts at
@@ -9,9 +12,12 @@ package org.lagmill.eval;
 public enum BaselineKind {
   /** Last known value. */
   NAIVE,
-  /** Value of the same weekday in the latest week with a known value; the naive value when there is none. */
+  /**
+   * Value of the same position in the latest season with a known value (the same weekday of a daily store, the same
+   * week of the year of a weekly one); the naive value when there is none.
+   */
   SEASONAL_NAIVE,
-  /** Mean of the known days among the last {@link BaselineKernels#MOVING_AVERAGE_DAYS} days. */
+  /** Mean of the known periods among the last {@link BaselineKernels#MOVING_AVERAGE_DAYS} periods. */
   MOVING_AVERAGE,
   /** Simple exponential smoothing, alpha chosen per series from a small grid by in-sample one-step squared error. */
   SES,
@@ -26,13 +32,27 @@ public enum BaselineKind {
   ETS;
 
   /**
-   * Writes {@code horizon} forecasts for days {@code originDay ..} into {@code dst[dstOffset ..]}; allocates nothing
-   * (except {@link #ETS}, which builds its fitter's scratch; {@link BaselineForecaster} reuses one per run).
-   *
-   * @param units daily units from day 0, at least {@code originDay} long; negative values are unknown days
-   * @param firstUsableDay first day the kernel may read, {@code 0 .. originDay}
+   * As {@link #forecast(int[], int, int, int, int, double[], int)} for daily units (season length
+   * {@code Periods.seasonLength(Periods.DAILY)}).
    */
   public void forecast(int[] units, int firstUsableDay, int originDay, int horizon, double[] dst, int dstOffset) {
+    forecast(units, firstUsableDay, originDay, horizon, Periods.seasonLength(Periods.DAILY), dst, dstOffset);
+  }
+
+  /**
+   * Writes {@code horizon} forecasts for periods {@code originDay ..} into {@code dst[dstOffset ..]}; allocates
+   * nothing (except {@link #ETS}, which builds its fitter's scratch; {@link BaselineForecaster} reuses one per run).
+   *
+   * @param units units per period from index 0, at least {@code originDay} long; negative values are unknown
+   * @param firstUsableDay first period the kernel may read, {@code 0 .. originDay}
+   * @param seasonLength periods per season ({@link SalesHistory#seasonLength()}: 7 daily, 52 weekly); read by
+   *     {@link #SEASONAL_NAIVE} and {@link #ETS}
+   */
+  public void forecast(int[] units, int firstUsableDay, int originDay, int horizon, int seasonLength, double[] dst,
+      int dstOffset) {
+    if (seasonLength < 1) {
+      throw new IllegalArgumentException("seasonLength must be >= 1, got " + seasonLength);
+    }
     if (firstUsableDay < 0 || firstUsableDay > originDay || originDay > units.length) {
       throw new IllegalArgumentException("need 0 <= firstUsableDay (" + firstUsableDay + ") <= originDay ("
           + originDay + ") <= units.length (" + units.length + ")");
@@ -43,12 +63,13 @@ public enum BaselineKind {
     }
     switch (this) {
       case NAIVE -> BaselineKernels.naive(units, firstUsableDay, originDay, horizon, dst, dstOffset);
-      case SEASONAL_NAIVE -> BaselineKernels.seasonalNaive(units, firstUsableDay, originDay, horizon, dst, dstOffset);
+      case SEASONAL_NAIVE -> BaselineKernels.seasonalNaive(units, firstUsableDay, originDay, horizon, seasonLength, dst,
+          dstOffset);
       case MOVING_AVERAGE -> BaselineKernels.movingAverage(units, firstUsableDay, originDay, horizon, dst, dstOffset);
       case SES -> BaselineKernels.ses(units, firstUsableDay, originDay, horizon, dst, dstOffset);
       case CROSTON -> BaselineKernels.croston(units, firstUsableDay, originDay, horizon, dst, dstOffset, false);
       case SBA -> BaselineKernels.croston(units, firstUsableDay, originDay, horizon, dst, dstOffset, true);
-      case ETS -> new EtsFitter(BaselineKernels.SEASON_DAYS).forecastUnits(units, firstUsableDay, originDay, horizon,
+      case ETS -> new EtsFitter(seasonLength).forecastUnits(units, firstUsableDay, originDay, horizon,
           dst, dstOffset);
     }
   }

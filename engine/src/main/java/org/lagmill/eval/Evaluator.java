@@ -2,6 +2,7 @@ package org.lagmill.eval;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.lagmill.store.Periods;
 import org.lagmill.store.SalesHistory;
 
 /**
@@ -13,8 +14,17 @@ import org.lagmill.store.SalesHistory;
  * .evaluate(originDay, forecasts)}. Not thread-safe (one aggregator buffer); use one evaluator per thread.
  */
 public final class Evaluator {
-  /** Days before the origin whose sales set the weights, as in the published rules. */
+  /** Days before the origin whose sales set the weights of a daily store, as in the published rules. */
   public static final int DEFAULT_WEIGHT_DAYS = 28;
+
+  /**
+   * The weight window in periods, the one rule for it: the last {@code horizonDays} periods before the origin (the
+   * published rules weight by the last 28 days, which is their horizon). A daily store keeps 28 days whatever the
+   * horizon, so daily scores stay as they were; a weekly store weights by its last horizon weeks.
+   */
+  public static int weightDayCount(int periodDays, int horizonDays) {
+    return periodDays == Periods.DAILY ? DEFAULT_WEIGHT_DAYS : Math.max(1, horizonDays);
+  }
 
   private final SalesHistory history;
   private final Aggregator aggregator;
@@ -23,6 +33,11 @@ public final class Evaluator {
 
   public Evaluator(SalesHistory history, Hierarchy hierarchy) {
     this(history, hierarchy.bind(history), DEFAULT_WEIGHT_DAYS, hierarchy.source());
+  }
+
+  /** Weights by {@link #weightDayCount(int, int)} for forecasts of {@code horizonDays} periods. */
+  public Evaluator(SalesHistory history, Hierarchy hierarchy, int horizonDays) {
+    this(history, hierarchy.bind(history), weightDayCount(history.periodDays(), horizonDays), hierarchy.source());
   }
 
   /**

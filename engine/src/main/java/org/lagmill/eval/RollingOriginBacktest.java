@@ -37,7 +37,7 @@ public final class RollingOriginBacktest {
           + (plan.spec().launchSkipDays() + plan.validationDays()) + " days before it; use fewer origins or a "
           + "smaller step");
     }
-    Evaluator evaluator = new Evaluator(history, settings.hierarchy());
+    Evaluator evaluator = new Evaluator(history, settings.hierarchy(), settings.horizonDays());
     List<BacktestResult.OriginResult> origins = new ArrayList<>();
     for (int k = 0; k < settings.originCount(); k++) {
       int origin = settings.originDayIndex(history.dayCount(), k);

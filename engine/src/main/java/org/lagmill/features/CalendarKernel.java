@@ -12,6 +12,10 @@ import org.lagmill.store.SeriesAttributes;
  * 1..53, day_of_year 1..366) and every column of the history's day calendar as {@code cal_<name>}. A per-attribute
  * calendar column reads the value for the series' own code of its key attribute.
  *
+ * <p>Date features read the first date of each period. In a store whose period is a whole number of weeks (weekly)
+ * every period starts on the same weekday, so {@code day_of_week} would be one constant value: it is left out of the
+ * features (and so of the schema and the model), and {@code week_of_year} carries the season.
+ *
  * <p>Date features are tabulated once per pass for the pass's day range ({@code 4 × features × days} heap bytes), so
  * no date object is made per row. Calendar columns are tabulated too, one row of days per key code
  * ({@code 4 × codes × days} bytes per column, one code for a global column), so no calendar lookup is made per row;
@@ -40,17 +44,16 @@ final class CalendarKernel implements FeatureKernel {
   /** @param firstDayIndex first row day of the pass; {@code endDayIndex} one past the last */
   CalendarKernel(SalesHistory history, List<FeatureSpec.CalendarFeature> dateFeatures, boolean calendarColumns,
       int firstDayIndex, int endDayIndex) {
-    this.dateFeatures = List.copyOf(dateFeatures);
-    this.dateFeatureCount = dateFeatures.size();
+    this.dateFeatures = withoutConstantFeatures(dateFeatures, history.periodDays());
+    this.dateFeatureCount = this.dateFeatures.size();
     this.tableFirstDayIndex = firstDayIndex;
     int dayCount = Math.max(0, endDayIndex - firstDayIndex);
     this.dateTable = new float[dayCount * dateFeatureCount];
-    LocalDate date = history.dateOf(firstDayIndex);
     for (int d = 0; d < dayCount; d++) {
+      LocalDate date = history.dateOf(firstDayIndex + d);
       for (int k = 0; k < dateFeatureCount; k++) {
-        dateTable[d * dateFeatureCount + k] = dateValue(dateFeatures.get(k), date);
+        dateTable[d * dateFeatureCount + k] = dateValue(this.dateFeatures.get(k), date);
       }
-      date = date.plusDays(1);
     }
     this.calendar = history.calendar();
     int columnCount = calendarColumns ? calendar.columnCount() : 0;
@@ -86,6 +89,15 @@ final class CalendarKernel implements FeatureKernel {
         tabulatedCells += cells;
       }
     }
+  }
+
+  /** The requested date features less {@code day_of_week} when every period starts on the same weekday. */
+  static List<FeatureSpec.CalendarFeature> withoutConstantFeatures(List<FeatureSpec.CalendarFeature> requested,
+      int periodDays) {
+    if (periodDays % 7 != 0) {
+      return List.copyOf(requested);
+    }
+    return requested.stream().filter(f -> f != FeatureSpec.CalendarFeature.DAY_OF_WEEK).toList();
   }
 
   private void tabulate(int column, int keyCode, float[] table, int offset) {

@@ -1,12 +1,12 @@
 package org.lagmill.features;
 
 import java.time.LocalDate;
-import java.time.temporal.ChronoUnit;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.SplittableRandom;
 import org.lagmill.store.AttributeNesting;
+import org.lagmill.store.Periods;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SeriesAttributes;
 
@@ -232,8 +232,9 @@ public final class FeaturePass implements RowStream {
         weightBySeries.clone());
   }
 
+  /** The period holding the date (its day index in a daily store). */
   private static long dayIndexOf(SalesHistory history, LocalDate date) {
-    return ChronoUnit.DAYS.between(history.firstDate(), date);
+    return Periods.periodIndexOf(history.firstDate(), history.periodDays(), date.toEpochDay());
   }
 
   private static int[] allSeries(SalesHistory history) {

@@ -12,9 +12,9 @@ import org.lagmill.store.SeriesAttributes;
  * <ul>
  *   <li>{@code price}: the shelf price;
  *   <li>{@code price_to_mean}: price / the series' mean price, the unweighted mean of all its change-point prices (the
- *       store keeps only points where the price changes, so repeated rows of a weekly price file do not weigh in);
+ *       store keeps no repeated price except a last point marking how far the price file reached);
  *   <li>{@code price_to_max}: price / the series' regular price;
- *   <li>{@code price_change_7}: price / price 7 days earlier − 1;
+ *   <li>{@code price_change_7}: price / price 7 days earlier − 1 (in a store of longer periods: one period earlier);
  *   <li>{@code promo}: 1 when the price is below the regular price, else 0;
  *   <li>{@code price_to_group}: price / the mean price that day over the series of its group (series sharing the
  *       values of the price group attributes) that have a price that day.
@@ -30,6 +30,7 @@ import org.lagmill.store.SeriesAttributes;
 final class PriceKernel implements FeatureKernel {
   private static final int CHANGE_LAG_DAYS = 7;
 
+  private final int changeLagPeriods;
   private final List<FeatureSpec.PriceFeature> features;
   private final int[] featureCodes;
   private final PriceTable prices;
@@ -51,6 +52,7 @@ final class PriceKernel implements FeatureKernel {
         : List.copyOf(requested);
     this.featureCodes = features.stream().mapToInt(Enum::ordinal).toArray();
     this.prices = history.prices();
+    this.changeLagPeriods = Math.max(1, CHANGE_LAG_DAYS / history.periodDays());
     this.tableFirstDayIndex = firstDayIndex;
     this.tableDayCount = Math.max(0, endDayIndex - firstDayIndex);
     if (features.contains(FeatureSpec.PriceFeature.PRICE_TO_GROUP)) {
@@ -174,7 +176,7 @@ final class PriceKernel implements FeatureKernel {
         case 3:
           for (int j = dayOffset; j < end; j++, out += rowStride) {
             int day = dayIndexes[j];
-            float before = day >= CHANGE_LAG_DAYS ? dayPrices[day - CHANGE_LAG_DAYS] : Float.NaN;
+            float before = day >= changeLagPeriods ? dayPrices[day - changeLagPeriods] : Float.NaN;
             rows[out] = before > 0 ? dayPrices[day] / before - 1f : Float.NaN;
           }
           break;

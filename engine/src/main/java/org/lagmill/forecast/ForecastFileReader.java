@@ -4,7 +4,6 @@ import de.siegmar.fastcsv.reader.CsvRecord;
 import java.nio.file.Path;
 import java.time.LocalDate;
 import java.time.format.DateTimeParseException;
-import java.time.temporal.ChronoUnit;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
@@ -122,7 +121,16 @@ public final class ForecastFileReader {
 
   private static int dayIndex(Path file, long line, int column, String text, SalesHistory history) {
     try {
-      return (int) ChronoUnit.DAYS.between(history.firstDate(), LocalDate.parse(text));
+      LocalDate date = LocalDate.parse(text);
+      long daysAfterFirst = date.toEpochDay() - history.firstDate().toEpochDay();
+      if (Math.floorMod(daysAfterFirst, (long) history.periodDays()) != 0) {
+        LocalDate before = history.firstDate().plusDays(Math.floorDiv(daysAfterFirst, (long) history.periodDays())
+            * history.periodDays());
+        throw new InputFormatException(file, line, column + 1, "date " + text + " is off the store's step of "
+            + history.periodDays() + " days: expected a period's first date such as " + before + " or "
+            + before.plusDays(history.periodDays()));
+      }
+      return (int) (daysAfterFirst / history.periodDays());
     } catch (DateTimeParseException e) {
       throw new InputFormatException(file, line, column + 1, "expected an ISO date (YYYY-MM-DD), found \"" + text
           + "\"");

@@ -44,6 +44,7 @@ final class ForecastScratch implements SalesHistory {
   @Override public int seriesCount() { return base.seriesCount(); }
   @Override public int dayCount() { return baseDayCount + revealedDayCount; }
   @Override public LocalDate firstDate() { return base.firstDate(); }
+  @Override public int periodDays() { return base.periodDays(); }
 
   @Override
   public int units(int seriesIndex, int dayIndex) {

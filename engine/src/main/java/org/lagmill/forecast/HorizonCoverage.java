@@ -19,6 +19,8 @@ public record HorizonCoverage(int seriesWithoutPriceCount, int seriesWithStalePr
           + " but the forecast needs it through " + history.dateOf(lastDay) + "; append a calendar that covers the"
           + " horizon (lagmill append --store DIR --calendar FILE)");
     }
+    // The last week in periods: 7 days, 1 week, at least one period of any longer step.
+    int lastWeekPeriods = Math.max(1, 7 / history.periodDays());
     int withoutPrice = 0;
     int stale = 0;
     if (!history.prices().isEmpty()) {
@@ -26,7 +28,7 @@ public record HorizonCoverage(int seriesWithoutPriceCount, int seriesWithStalePr
         int changes = history.prices().changeCount(s);
         if (changes == 0) {
           withoutPrice++;
-        } else if (history.prices().changeDayIndex(s, changes - 1) < history.dayCount() - 7) {
+        } else if (history.prices().changeDayIndex(s, changes - 1) < history.dayCount() - lastWeekPeriods) {
           stale++;
         }
       }

@@ -15,7 +15,8 @@ final class CalendarAndPrices {
   /** Reads and writes the prices file; call after the last series was added. */
   static void writePrices(StoreWriter writer, Path pricesFile, ColumnNames columns, List<String> warnings)
       throws IOException {
-    PriceReadResult read = PriceFileReader.read(pricesFile, writer.firstDate(), writer.attributes(),
+    PriceReadResult read = PriceFileReader.read(pricesFile, writer.firstDate(), writer.periodDays(),
+        writer.attributes(),
         writer.seriesCount(), columns.fromColumn(), columns.priceColumn());
     warnings.addAll(read.warnings());
     writer.writePrices(read.prices());
@@ -33,8 +34,8 @@ final class CalendarAndPrices {
   /** Reads and writes the calendar file; call after the last series was added. */
   static void writeCalendar(StoreWriter writer, Path calendarFile, ColumnNames columns, List<String> warnings)
       throws IOException {
-    CalendarReadResult read = CalendarFileReader.read(calendarFile, writer.firstDate(), writer.attributes(),
-        columns.calendarDateColumn());
+    CalendarReadResult read = CalendarFileReader.read(calendarFile, writer.firstDate(), writer.periodDays(),
+        writer.attributes(), columns.calendarDateColumn());
     warnings.addAll(read.warnings());
     writer.writeCalendar(read.calendar());
   }

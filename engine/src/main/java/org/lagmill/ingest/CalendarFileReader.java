@@ -12,12 +12,14 @@ import java.util.Map;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.lagmill.store.ArrayDayCalendar;
+import org.lagmill.store.Periods;
 import org.lagmill.store.DayCalendar.ColumnKind;
 import org.lagmill.store.SeriesAttributes;
 
 /**
  * Reads the calendar file: one row per date, consecutive and ascending, aligned to the store's day index (day 0 = the
- * store's first date; earlier rows are dropped). Every column other than the date becomes a calendar column: numeric
+ * store's first date; earlier rows are dropped). For a store of longer periods (weekly) there is one row per period,
+ * dated on the period's first day: rows one period apart, on the store's step from its first date. Every column other than the date becomes a calendar column: numeric
  * when every non-empty cell is a decimal number, categorical otherwise (codes in order of first appearance). A header
  * {@code NAME[ATTRIBUTE=VALUE]} holds the column NAME for the series whose ATTRIBUTE is VALUE; all such headers of one
  * NAME make one per-attribute column. Empty cells read NaN. See docs/formats.md.
@@ -56,6 +58,17 @@ public final class CalendarFileReader {
    */
   public static CalendarReadResult read(Path file, LocalDate storeFirstDate, SeriesAttributes attributes,
       String dateColumn) {
+    return read(file, storeFirstDate, Periods.DAILY, attributes, dateColumn);
+  }
+
+  /**
+   * Reads a calendar file of one row per period of {@code periodDays} days.
+   *
+   * @see #read(Path, LocalDate, SeriesAttributes, String)
+   */
+  public static CalendarReadResult read(Path file, LocalDate storeFirstDate, int periodDays,
+      SeriesAttributes attributes, String dateColumn) {
+    Periods.requireValid(periodDays);
     List<String> warnings = new ArrayList<>();
     try (CsvSource source = CsvSource.open(file)) {
       String[] header = source.readHeader();
@@ -72,10 +85,17 @@ public final class CalendarFileReader {
         long line = source.lineNumber();
         long epochDay = Cells.requireDate(file, line, dateIndex + 1, dateColumn, record.getField(dateIndex));
         if (previous != Cells.NOT_A_DATE) {
-          checkNextDate(file, line, dateIndex + 1, previous, epochDay);
+          checkNextDate(file, line, dateIndex + 1, previous, epochDay, periodDays);
         } else {
           firstDataLine = line;
           firstFileDay = epochDay;
+          if (Math.floorMod(epochDay - firstEpochDay, periodDays) != 0) {
+            LocalDate onStep = storeFirstDate.plusDays(Math.floorDiv(epochDay - firstEpochDay, periodDays)
+                * (long) periodDays);
+            throw new InputFormatException(file, line, dateIndex + 1, "calendar date " + LocalDate.ofEpochDay(epochDay)
+                + " is off the store's step of " + periodDays + " days from its first date " + storeFirstDate
+                + ": expected " + onStep + " or " + onStep.plusDays(periodDays));
+          }
         }
         previous = epochDay;
         if (epochDay >= firstEpochDay) {
@@ -102,8 +122,9 @@ public final class CalendarFileReader {
     }
   }
 
-  private static void checkNextDate(Path file, long line, int column, long previous, long epochDay) {
-    long expected = previous + 1;
+  private static void checkNextDate(Path file, long line, int column, long previous, long epochDay,
+      int periodDays) {
+    long expected = previous + periodDays;
     if (epochDay == expected) {
       return;
     }

@@ -1,7 +1,9 @@
 package org.lagmill.ingest;
 
 import de.siegmar.fastcsv.reader.CsvRecord;
+import it.unimi.dsi.fastutil.longs.Long2IntOpenHashMap;
 import it.unimi.dsi.fastutil.longs.LongArrayList;
+import it.unimi.dsi.fastutil.longs.LongOpenHashSet;
 import it.unimi.dsi.fastutil.objects.Object2IntOpenHashMap;
 import java.nio.file.Path;
 import java.time.LocalDate;
@@ -10,6 +12,7 @@ import java.util.Arrays;
 import java.util.List;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.memory.NativeIntArray;
+import org.lagmill.store.Periods;
 import org.lagmill.store.SalesHistory;
 
 /**
@@ -18,6 +21,10 @@ import org.lagmill.store.SalesHistory;
  * values together). A day with no row for a series, from the series' first row to the file's last date, is read as
  * the {@link MissingRows} policy says (zero by default: till exports omit zero-sales days); days before a series'
  * first row and rows with an empty units cell are unknown.
+ *
+ * <p>The file's period is the most common gap between its consecutive distinct dates (the smaller on a tie): 1 for
+ * daily rows, 7 for weekly rows even when some weeks are missing altogether. Every date must then lie a whole number
+ * of periods after the earliest one; a date off that step (a Tuesday among Mondays) is an error naming its line.
  *
  * <p>Two passes over the file: the first finds the series and the date range and validates every cell; the second
  * fills a series × day units matrix in native memory reserved from a {@link MemoryBudget} (4 bytes per cell), which
@@ -60,15 +67,17 @@ public final class LongSalesReader {
     long minEpochDay = Long.MAX_VALUE;
     long maxEpochDay = Long.MIN_VALUE;
     int[] firstDayIndexBySeries;
+    LongOpenHashSet distinctEpochDays = new LongOpenHashSet();
+    LongArrayList firstEpochDayBySeries = new LongArrayList();
     try (CsvSource source = CsvSource.open(file)) {
       layout = Layout.of(file, source.readHeader(), dateColumn, unitsColumn, seriesIdColumn);
       LongArrayList firstLineBySeries = new LongArrayList();
-      LongArrayList firstEpochDayBySeries = new LongArrayList();
       for (CsvRecord record = source.next(); record != null; record = source.next()) {
         long line = source.lineNumber();
         long epochDay = Cells.requireDate(file, line, layout.dateIndex + 1, dateColumn,
             record.getField(layout.dateIndex));
         checkUnits(file, line, layout, unitsColumn, record.getField(layout.unitsIndex));
+        distinctEpochDays.add(epochDay);
         minEpochDay = Math.min(minEpochDay, epochDay);
         maxEpochDay = Math.max(maxEpochDay, epochDay);
         String key = layout.seriesKey(record);
@@ -91,14 +100,15 @@ public final class LongSalesReader {
       if (valuesBySeries.isEmpty()) {
         throw new InputFormatException(file, 0, 0, "no sales rows: expected at least one row after the header");
       }
-      firstDayIndexBySeries = new int[valuesBySeries.size()];
-      for (int s = 0; s < firstDayIndexBySeries.length; s++) {
-        // Bounded by the day count, which is checked to fit an int below.
-        firstDayIndexBySeries[s] = (int) Math.min(Integer.MAX_VALUE,
-            firstEpochDayBySeries.getLong(s) - minEpochDay);
-      }
     }
-    long dayCountLong = maxEpochDay - minEpochDay + 1;
+    int periodDays = periodDaysOf(distinctEpochDays);
+    firstDayIndexBySeries = new int[valuesBySeries.size()];
+    for (int s = 0; s < firstDayIndexBySeries.length; s++) {
+      // Bounded by the period count, which is checked to fit an int below; a date off the step fails in fill.
+      firstDayIndexBySeries[s] = (int) Math.min(Integer.MAX_VALUE,
+          (firstEpochDayBySeries.getLong(s) - minEpochDay) / periodDays);
+    }
+    long dayCountLong = (maxEpochDay - minEpochDay) / periodDays + 1;
     if (dayCountLong > Integer.MAX_VALUE) {
       throw new InputFormatException(file, 0, 0, "dates span " + dayCountLong + " days: expected at most "
           + Integer.MAX_VALUE);
@@ -106,10 +116,10 @@ public final class LongSalesReader {
     int dayCount = (int) dayCountLong;
     int seriesCount = valuesBySeries.size();
     LongSalesHeader header = new LongSalesHeader(layout.attributeNames(), LocalDate.ofEpochDay(minEpochDay),
-        dayCount, seriesCount);
+        periodDays, dayCount, seriesCount);
     try (NativeIntArray matrix = new NativeIntArray(budget, (long) seriesCount * dayCount)) {
       matrix.fill(0, (int) matrix.length(), SalesHistory.UNKNOWN_UNITS);
-      fill(file, layout, seriesIndexByKey, minEpochDay, dayCount, matrix);
+      fill(file, layout, dateColumn, seriesIndexByKey, minEpochDay, periodDays, dayCount, matrix);
       sink.begin(header);
       int[] units = new int[dayCount];
       long zeroFilled = 0;
@@ -134,14 +144,41 @@ public final class LongSalesReader {
     }
   }
 
-  private static void fill(Path file, Layout layout, Object2IntOpenHashMap<String> seriesIndexByKey,
-      long minEpochDay, int dayCount, NativeIntArray matrix) {
+  /** The most common gap between consecutive distinct dates, the smaller on a tie; 1 for a single date. */
+  static int periodDaysOf(LongOpenHashSet distinctEpochDays) {
+    long[] days = distinctEpochDays.toLongArray();
+    Arrays.sort(days);
+    Long2IntOpenHashMap countByGap = new Long2IntOpenHashMap();
+    long bestGap = 1;
+    int bestCount = 0;
+    for (int i = 1; i < days.length; i++) {
+      long gap = days[i] - days[i - 1];
+      int count = countByGap.addTo(gap, 1) + 1;
+      if (count > bestCount || (count == bestCount && gap < bestGap)) {
+        bestGap = gap;
+        bestCount = count;
+      }
+    }
+    return (int) Math.min(bestGap, Periods.MAX_PERIOD_DAYS);
+  }
+
+  private static void fill(Path file, Layout layout, String dateColumn,
+      Object2IntOpenHashMap<String> seriesIndexByKey, long minEpochDay, int periodDays, int dayCount,
+      NativeIntArray matrix) {
     try (CsvSource source = CsvSource.open(file)) {
       source.readHeader();
       for (CsvRecord record = source.next(); record != null; record = source.next()) {
         int seriesIndex = seriesIndexByKey.getInt(layout.seriesKey(record));
         String dateText = record.getField(layout.dateIndex);
-        int dayIndex = (int) (Cells.epochDay(dateText) - minEpochDay);
+        long daysAfterFirst = Cells.epochDay(dateText) - minEpochDay;
+        if (daysAfterFirst % periodDays != 0) {
+          LocalDate first = LocalDate.ofEpochDay(minEpochDay);
+          LocalDate before = first.plusDays(daysAfterFirst / periodDays * periodDays);
+          throw new InputFormatException(file, source.lineNumber(), layout.dateIndex + 1, dateColumn + " '" + dateText
+              + "' is off the file's step of " + periodDays + " days (the most common gap between its dates, from "
+              + first + "): expected " + before + " or " + before.plusDays(periodDays));
+        }
+        int dayIndex = (int) (daysAfterFirst / periodDays);
         String unitsText = record.getField(layout.unitsIndex);
         int cell = seriesIndex * dayCount + dayIndex;
         if (matrix.get(cell) != SalesHistory.UNKNOWN_UNITS) {

@@ -9,6 +9,7 @@ import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.List;
 import org.lagmill.store.ArrayPriceTable;
+import org.lagmill.store.Periods;
 import org.lagmill.store.SeriesAttributes;
 
 /**
@@ -16,6 +17,9 @@ import org.lagmill.store.SeriesAttributes;
  * for a price that applies to every series of the item), a {@code from} date and a {@code price} (decimal, > 0). A
  * price holds from its date until the next row of the same key; rows may come in any order. Rows before the store's
  * first date collapse to the latest one, clamped to day 0. Rows whose key no series has are skipped and counted.
+ *
+ * <p>In a store of longer periods (weekly) a date maps to the period containing it, so a price from a Wednesday holds
+ * for that whole week; of several rows of one key within one period the latest date holds for the period.
  *
  * <p>Rows are held as primitive columns (key id, day index, price, line), never as one object per row; each row costs
  * one dictionary lookup per key cell and one primitive hash lookup of the packed key codes.
@@ -41,6 +45,17 @@ public final class PriceFileReader {
    */
   public static PriceReadResult read(Path file, LocalDate storeFirstDate, SeriesAttributes attributes,
       int seriesCount, String fromColumn, String priceColumn) {
+    return read(file, storeFirstDate, Periods.DAILY, attributes, seriesCount, fromColumn, priceColumn);
+  }
+
+  /**
+   * Reads a prices file for a store of {@code periodDays} days per period; the change points' indexes count periods.
+   *
+   * @see #read(Path, LocalDate, SeriesAttributes, int, String, String)
+   */
+  public static PriceReadResult read(Path file, LocalDate storeFirstDate, int periodDays, SeriesAttributes attributes,
+      int seriesCount, String fromColumn, String priceColumn) {
+    Periods.requireValid(periodDays);
     if (seriesCount < 0) {
       throw new IllegalArgumentException("seriesCount must be >= 0, got " + seriesCount);
     }
@@ -80,7 +95,8 @@ public final class PriceFileReader {
         rowPrices.add((float) price);
         rowLines.add((int) Math.min(Integer.MAX_VALUE, line));
       }
-      ArrayPriceTable table = buildTable(file, keys, storeFirstDate, rowKeyIds.elements(), rowDays.elements(),
+      ArrayPriceTable table = buildTable(file, keys, storeFirstDate, periodDays, rowKeyIds.elements(),
+          rowDays.elements(),
           rowPrices.elements(), rowLines.elements(), rowKeyIds.size());
       List<String> warnings = new ArrayList<>();
       if (unknownKeyRowCount > 0) {
@@ -90,7 +106,8 @@ public final class PriceFileReader {
     }
   }
 
-  private static ArrayPriceTable buildTable(Path file, SeriesKeys keys, LocalDate storeFirstDate, int[] keyIds,
+  private static ArrayPriceTable buildTable(Path file, SeriesKeys keys, LocalDate storeFirstDate, int periodDays,
+      int[] keyIds,
       int[] days, float[] prices, int[] lines, int rowCount) {
     int[] order = new int[rowCount];
     for (int r = 0; r < rowCount; r++) {
@@ -122,12 +139,13 @@ public final class PriceFileReader {
               + keys.describe(keyId) + " from " + storeFirstDate.plusDays(days[r]) + ": lines "
               + Math.min(lines[r], lines[other]) + " and " + Math.max(lines[r], lines[other]) + ", expected one");
         }
-        boolean beforeStart = days[r] < 0;
-        boolean supersededBeforeStart = beforeStart && i + 1 < end && days[order[i + 1]] <= 0;
-        if (supersededBeforeStart) {
+        // Rows before the first period all land in period 0, and rows within one period share it: the latest holds.
+        int period = keptPeriod(days[r], periodDays);
+        boolean superseded = i + 1 < end && keptPeriod(days[order[i + 1]], periodDays) == period;
+        if (superseded) {
           continue;
         }
-        keyDays.add(Math.max(0, days[r]));
+        keyDays.add(period);
         keyPrices.add(prices[r]);
       }
       int[] sharedDays = keyDays.toIntArray();
@@ -146,5 +164,9 @@ public final class PriceFileReader {
       }
     }
     return new ArrayPriceTable(changeDays, changePrices);
+  }
+
+  private static int keptPeriod(int daysAfterFirst, int periodDays) {
+    return Math.max(0, Math.floorDiv(daysAfterFirst, periodDays));
   }
 }

@@ -10,6 +10,7 @@ import java.util.HashSet;
 import java.util.List;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.ClosureTable;
+import org.lagmill.store.Periods;
 import org.lagmill.store.PriceTable;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SalesStore;
@@ -82,11 +83,18 @@ public final class StoreAppend {
         if (reader == null) {
           newDays = new NewDays(0, new int[store.seriesCount()][], List.of(), List.of());
         } else {
-          LocalDate expectedFirst = store.firstDate().plusDays(store.dayCount());
+          LocalDate expectedFirst = store.dateOf(store.dayCount());
+          int periodDays = store.periodDays();
           if (!reader.firstDate().equals(expectedFirst)) {
             throw new InputFormatException(salesFile, 1, 0, "expected the first date column to be " + expectedFirst
-                + " (the day after the store's last day " + store.dateOf(store.dayCount() - 1) + "), found "
-                + reader.firstDate());
+                + " (the " + (periodDays == Periods.DAILY ? "day" : "period") + " after the store's last "
+                + (periodDays == Periods.DAILY ? "day " : "period, from ") + store.dateOf(store.dayCount() - 1)
+                + "), found " + reader.firstDate());
+          }
+          if (reader.dayCount() > 1 && reader.periodDays() != periodDays) {
+            throw new InputFormatException(salesFile, 1, 0, "date columns " + reader.periodDays() + " days apart: "
+                + "expected the store's step of " + periodDays + (periodDays == 1 ? " day" : " days") + " ("
+                + Periods.describe(periodDays) + ")");
           }
           int[] fileColumnOfAttribute = matchAttributes(store.attributes(), reader);
           newDays = readNewDays(store, reader, fileColumnOfAttribute);
@@ -162,7 +170,8 @@ public final class StoreAppend {
     for (int a = 0; a < attributes.attributeCount(); a++) {
       names.add(attributes.attributeName(a));
     }
-    try (StoreWriter writer = new StoreWriter(temp, store.firstDate(), dayCount, names, budget)) {
+    try (StoreWriter writer = new StoreWriter(temp, store.firstDate(), store.periodDays(), dayCount, names,
+        budget)) {
       int[] row = new int[dayCount];
       String[] values = new String[names.size()];
       for (int s = 0; s < store.seriesCount(); s++) {

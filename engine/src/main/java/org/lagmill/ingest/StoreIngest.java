@@ -75,8 +75,8 @@ public final class StoreIngest {
   /** Streams a wide file into a new writer; the writer is closed when this fails. */
   private static StoreWriter writeWide(IngestOptions options, Path dir, MemoryBudget budget) throws IOException {
     try (WideSalesReader reader = WideSalesReader.open(options.salesFile(), options.seriesIdColumn())) {
-      StoreWriter writer = new StoreWriter(dir, reader.firstDate(), reader.dayCount(), reader.attributeNames(),
-          budget);
+      StoreWriter writer = new StoreWriter(dir, reader.firstDate(), reader.periodDays(), reader.dayCount(),
+          reader.attributeNames(), budget);
       try {
         copyRows(reader, writer);
         if (writer.seriesCount() == 0) {

@@ -45,7 +45,7 @@ final class StoreWriterSink implements SeriesSink {
       names.set(idColumn, WideSalesReader.DEFAULT_SERIES_ID_COLUMN);
     }
     try {
-      writer = new StoreWriter(dir, header.firstDate(), header.dayCount(), names, budget);
+      writer = new StoreWriter(dir, header.firstDate(), header.periodDays(), header.dayCount(), names, budget);
     } catch (IOException e) {
       throw new UncheckedIOException(e);
     }

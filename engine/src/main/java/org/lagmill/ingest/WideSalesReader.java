@@ -8,12 +8,15 @@ import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.List;
+import org.lagmill.store.Periods;
 import org.lagmill.store.SalesHistory;
 
 /**
  * Streams a wide sales file: one row per series, attribute columns (text) and one contiguous, ascending run of
- * consecutive date columns (header {@code yyyy-MM-dd}) holding non-negative integer units; an empty cell is an unknown
- * day. Parses bytes directly (no String per units cell); text cells may use RFC 4180 quotes and must be UTF-8. A file
+ * date columns (header {@code yyyy-MM-dd}) one fixed step apart, holding non-negative integer units; an empty cell is
+ * an unknown period. The step (the store's period: 1 day, 7 days for weekly sales, any number of days) is the
+ * distance between the first two date columns, and every later column must follow at the same step; a file with one
+ * date column is taken as daily. Parses bytes directly (no String per units cell); text cells may use RFC 4180 quotes and must be UTF-8. A file
  * named {@code *.gz} is read through gzip. Empty lines are skipped.
  *
  * <p>The column named by the series-id option becomes the attribute {@code series_id}. Not thread-safe; one row buffer
@@ -33,6 +36,7 @@ public final class WideSalesReader implements AutoCloseable {
   private byte[] scratch = new byte[256];
   private int scratchLength;
   private LocalDate firstDate;
+  private int periodDays = 1;
   private int dayCount;
   private int columnCount;
   private int dateStart;
@@ -70,6 +74,11 @@ public final class WideSalesReader implements AutoCloseable {
   /** Date of the first date column. */
   public LocalDate firstDate() {
     return firstDate;
+  }
+
+  /** Days between consecutive date columns (1 for one date column): the store's period. */
+  public int periodDays() {
+    return periodDays;
   }
 
   /** Number of date columns. */
@@ -146,9 +155,16 @@ public final class WideSalesReader implements AutoCloseable {
           throw error(c, "duplicate date column \"" + name + "\" (first at column " + (firstDateColumn + earlier + 1)
               + ")");
         }
-        if (!date.equals(previous.plusDays(1))) {
-          throw error(c, "expected date " + previous.plusDays(1) + " (one day after the previous date column), found \""
-              + name + "\"");
+        if (c == firstDateColumn + 1) {
+          long stepDays = date.toEpochDay() - previous.toEpochDay();
+          if (stepDays < 1 || stepDays > Periods.MAX_PERIOD_DAYS) {
+            throw error(c, "expected the second date column 1 to " + Periods.MAX_PERIOD_DAYS + " days after the first ("
+                + previous + "), found \"" + name + "\"");
+          }
+          periodDays = (int) stepDays;
+        } else if (!date.equals(previous.plusDays(periodDays))) {
+          throw error(c, "expected date " + previous.plusDays(periodDays) + " (" + stepText()
+              + " after the previous date column), found \"" + name + "\"");
         }
       }
       previous = date;
@@ -160,6 +176,10 @@ public final class WideSalesReader implements AutoCloseable {
     }
     dateStart = firstDateColumn;
     dayCount = lastDateColumn - firstDateColumn + 1;
+  }
+
+  private String stepText() {
+    return periodDays == 1 ? "one day" : periodDays + " days, the step of the first two date columns,";
   }
 
   /** The date of a header cell shaped yyyy-MM-dd, null for any other name; a shaped but impossible date fails. */

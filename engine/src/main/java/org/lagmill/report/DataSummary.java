@@ -1,5 +1,6 @@
 package org.lagmill.report;
 
+import com.fasterxml.jackson.annotation.JsonInclude;
 import java.time.LocalDate;
 import java.util.Collections;
 import java.util.LinkedHashMap;
@@ -18,7 +19,9 @@ import java.util.Map;
  * @param int64BytesPerItemDay bytes per item-day of the same history as one 64-bit integer per item-day (8 plus any
  *     overhead the caller counts)
  * @param csvBytesPerItemDay bytes per item-day of the input as CSV text
- * @param periodDays days per period of the store (1 daily, 7 weekly), or null when not recorded (read as daily)
+ * @param periodDays days per period of the store (7 weekly); null for a daily store, whose day counts are days. With
+ *     another period, "day" in the other fields' names means one period: {@code dayCount} counts weeks, item-days are
+ *     item-weeks
  */
 public record DataSummary(
     Long seriesCount,
@@ -30,9 +33,9 @@ public record DataSummary(
     Double storeBytesPerItemDay,
     Double int64BytesPerItemDay,
     Double csvBytesPerItemDay,
-    Integer periodDays) {
+    @JsonInclude(JsonInclude.Include.NON_NULL) Integer periodDays) {
 
-  /** As the canonical constructor, for a store whose period is not recorded (daily). */
+  /** A daily history's summary. */
   public DataSummary(Long seriesCount, Integer dayCount, LocalDate firstDate, LocalDate lastDate,
       Map<String, Long> attributeCardinalities, Double zeroDayShare, Double storeBytesPerItemDay,
       Double int64BytesPerItemDay, Double csvBytesPerItemDay) {

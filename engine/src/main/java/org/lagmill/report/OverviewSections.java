@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import org.lagmill.store.Periods;
 
 /** The data summary ({@code #summary}) and the time and memory per stage ({@code #memory}). */
 final class OverviewSections {
@@ -16,12 +17,19 @@ final class OverviewSections {
     StringBuilder b = new StringBuilder();
     String period = data.firstDate() == null || data.lastDate() == null ? null
         : data.firstDate() + " to " + data.lastDate();
+    int periodDays = data.periodDays() == null ? Periods.DAILY : data.periodDays();
+    String unit = Periods.unit(periodDays);
+    String units = Character.toUpperCase(unit.charAt(0)) + unit.substring(1) + "s";
+    if (periodDays != Periods.DAILY) {
+      period = period == null ? null : period + " (" + Periods.describe(periodDays) + ", dates are each period's first"
+          + " day)";
+    }
     b.append(Html.facts(
         "Series (item-store)", data.seriesCount() == null ? null : ReportFormat.count(data.seriesCount()),
-        "Days per series", data.dayCount() == null ? null : ReportFormat.count((long) data.dayCount()),
-        "Item-days", data.itemDayCount() == null ? null : ReportFormat.count(data.itemDayCount()),
+        units + " per series", data.dayCount() == null ? null : ReportFormat.count((long) data.dayCount()),
+        "Item-" + unit + "s", data.itemDayCount() == null ? null : ReportFormat.count(data.itemDayCount()),
         "Period", period,
-        "Days with zero sales", data.zeroDayShare() == null ? null : ReportFormat.percent(data.zeroDayShare())));
+        units + " with zero sales", data.zeroDayShare() == null ? null : ReportFormat.percent(data.zeroDayShare())));
     if (!data.attributeCardinalities().isEmpty()) {
       HtmlTable t = new HtmlTable("cardinalities", "Distinct values per attribute", List.of("attribute", "values"),
           new boolean[] {false, true});

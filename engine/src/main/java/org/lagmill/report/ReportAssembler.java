@@ -9,6 +9,7 @@ import org.lagmill.eval.BacktestResult;
 import org.lagmill.eval.BaselineKind;
 import org.lagmill.eval.EvaluationResult;
 import org.lagmill.forecast.PartitionReport;
+import org.lagmill.store.Periods;
 import org.lagmill.store.StoreSummary;
 
 /**
@@ -24,7 +25,8 @@ public final class ReportAssembler {
     double itemDays = (double) store.seriesCount() * store.dayCount();
     return new DataSummary((long) store.seriesCount(), store.dayCount(), store.firstDate(), store.lastDate(),
         cardinalities, store.zeroDayShare(), store.storeBytesPerItemDay(), store.int64ColumnBytes() / itemDays,
-        store.sourceCsvBytes() > 0 ? store.sourceCsvBytes() / itemDays : null);
+        store.sourceCsvBytes() > 0 ? store.sourceCsvBytes() / itemDays : null,
+        store.periodDays() == Periods.DAILY ? null : store.periodDays());
   }
 
   /** Validation curve of the largest partition and feature gain summed over partitions. */

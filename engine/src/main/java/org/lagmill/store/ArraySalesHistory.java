@@ -9,6 +9,7 @@ import java.util.Arrays;
  */
 public final class ArraySalesHistory implements SalesHistory {
   private final LocalDate firstDate;
+  private final int periodDays;
   private final int[][] unitsBySeries;
   private final int dayCount;
   private final SeriesAttributes attributes;
@@ -21,7 +22,14 @@ public final class ArraySalesHistory implements SalesHistory {
    */
   public ArraySalesHistory(LocalDate firstDate, int[][] unitsBySeries, SeriesAttributes attributes, PriceTable prices,
       DayCalendar calendar) {
+    this(firstDate, Periods.DAILY, unitsBySeries, attributes, prices, calendar);
+  }
+
+  /** As the daily constructor, for a store of {@code periodDays} days per index (prices and calendar per period). */
+  public ArraySalesHistory(LocalDate firstDate, int periodDays, int[][] unitsBySeries, SeriesAttributes attributes,
+      PriceTable prices, DayCalendar calendar) {
     this.firstDate = firstDate;
+    this.periodDays = Periods.requireValid(periodDays);
     this.unitsBySeries = unitsBySeries;
     this.dayCount = unitsBySeries.length == 0 ? 0 : unitsBySeries[0].length;
     for (int[] row : unitsBySeries) {
@@ -51,7 +59,8 @@ public final class ArraySalesHistory implements SalesHistory {
       source.readUnits(s, 0, units[s], 0, source.dayCount());
       Arrays.fill(units[s], source.dayCount(), units[s].length, UNKNOWN_UNITS);
     }
-    return new ArraySalesHistory(source.firstDate(), units, source.attributes(), source.prices(), source.calendar());
+    return new ArraySalesHistory(source.firstDate(), source.periodDays(), units, source.attributes(), source.prices(),
+        source.calendar());
   }
 
   /** Overwrites one day; for scratch copies. */
@@ -62,6 +71,7 @@ public final class ArraySalesHistory implements SalesHistory {
   @Override public int seriesCount() { return unitsBySeries.length; }
   @Override public int dayCount() { return dayCount; }
   @Override public LocalDate firstDate() { return firstDate; }
+  @Override public int periodDays() { return periodDays; }
   @Override public int units(int seriesIndex, int dayIndex) { return unitsBySeries[seriesIndex][dayIndex]; }
 
   @Override

@@ -13,10 +13,13 @@ import org.lagmill.memory.MemoryBudget;
  *       when the sales start;
  *   <li>a change point whose price equals the price in force before it is dropped. A price file with one row per
  *       item-store-week repeats the same price week after week; each repeat would cost 8 bytes and change no day's
- *       price. The stored change points are therefore the days on which the price really changes.
+ *       price. The stored change points are therefore the days on which the price really changes,
+ *   <li>except the series' last change point, kept even when it repeats the price: it records how far the price file
+ *       reached, which the forecast's price coverage check reads (a price confirmed for the horizon is not stale).
  * </ul>
- * Dropping repeats changes no day's price. It changes the count of change points, which is why price features that
- * aggregate over change points (the series' mean price) are defined over these collapsed points.
+ * Dropping repeats changes no day's price. Price features that aggregate over change points (the series' mean price)
+ * read these kept points, so a file of weekly rows and a file of change points give the same features, but for the
+ * last point of a weekly file, which counts once more.
  */
 final class PricesFileWriter {
   private PricesFileWriter() {}
@@ -64,7 +67,8 @@ final class PricesFileWriter {
 
   /**
    * Fills {@code kept} (cleared first) with the indexes of the series' change points to store: the last one on or
-   * before day 0 (or the first, when all lie after day 0), then each later one whose price differs from the last kept.
+   * before day 0 (or the first, when all lie after day 0), then each later one whose price differs from the last kept,
+   * and the series' last change point in any case.
    *
    * @return {@code kept}
    */
@@ -86,7 +90,7 @@ final class PricesFileWriter {
     for (int k = first; k < changeCount; k++) {
       // Bit equality, so a price that differs in the last float bit is a change and one read back is never merged.
       int priceBits = Float.floatToIntBits(prices.changePrice(seriesIndex, k));
-      if (kept.isEmpty() || priceBits != lastPriceBits) {
+      if (kept.isEmpty() || priceBits != lastPriceBits || k == changeCount - 1) {
         kept.add(k);
         lastPriceBits = priceBits;
       }

@@ -3,12 +3,12 @@ package org.lagmill.store;
 import java.time.LocalDate;
 
 /**
- * Read access to daily unit sales of many series, by index: the one view that feature, evaluation and forecast code
+ * Read access to unit sales of many series per period (day, week or any fixed step, {@link #periodDays()}), by index: the one view that feature, evaluation and forecast code
  * read. Implemented by the memory-mapped {@link SalesStore} and, for tests and scratch copies, by
  * {@link ArraySalesHistory}.
  *
- * <p>Series are numbered {@code 0 .. seriesCount()-1}; days {@code 0 .. dayCount()-1} from {@link #firstDate()}. A day
- * whose units are not known reads as {@link #UNKNOWN_UNITS}. Implementations are safe for concurrent reads while open.
+ * <p>Series are numbered {@code 0 .. seriesCount()-1}; days {@code 0 .. dayCount()-1} from {@link #firstDate()}: a day
+ * index counts periods of {@link #periodDays()} days (see {@link Periods}). A day whose units are not known reads as {@link #UNKNOWN_UNITS}. Implementations are safe for concurrent reads while open.
  */
 public interface SalesHistory {
   /** Units value of a day whose sales are not known (an empty cell in the input). */
@@ -24,6 +24,15 @@ public interface SalesHistory {
 
   /** Date of day index 0. */
   LocalDate firstDate();
+
+  /** Days per period: 1 for a daily store, 7 for a weekly one; index {@code i} starts {@code i × periodDays()} days
+   * after {@link #firstDate()}. */
+  int periodDays();
+
+  /** The seasonal length in periods, {@link Periods#seasonLength}: 7 daily, 52 weekly. */
+  default int seasonLength() {
+    return Periods.seasonLength(periodDays());
+  }
 
   /** Units sold by one series on one day, or {@link #UNKNOWN_UNITS}. */
   int units(int seriesIndex, int dayIndex);
@@ -70,8 +79,8 @@ public interface SalesHistory {
     return AttributeNesting.detect(attributes(), seriesCount());
   }
 
-  /** Date of a day index, which may lie past the last sales day. */
+  /** First date of the period with this index, which may lie past the last sales period. */
   default LocalDate dateOf(int dayIndex) {
-    return firstDate().plusDays(dayIndex);
+    return firstDate().plusDays((long) dayIndex * periodDays());
   }
 }

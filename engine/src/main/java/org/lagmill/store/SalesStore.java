@@ -31,6 +31,7 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
   private final int seriesCount;
   private final int dayCount;
   private final LocalDate firstDate;
+  private final int periodDays;
   private final MappedRegion seriesTable;
   private final List<MappedRegion> unitsWindows;
   private final UnsafeBuffer[] seriesBuffer;
@@ -53,6 +54,7 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
     this.seriesCount = manifest.seriesCount();
     this.dayCount = manifest.dayCount();
     this.firstDate = manifest.firstLocalDate();
+    this.periodDays = manifest.periodDaysOrDaily();
     for (FileKind kind : FileKind.values()) {
       if (kind == FileKind.CLOSURES && manifest.file(kind.fileName()) == null) {
         continue;  // stores written before closures were kept have none
@@ -335,6 +337,12 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
   public LocalDate firstDate() {
     checkOpen();
     return firstDate;
+  }
+
+  @Override
+  public int periodDays() {
+    checkOpen();
+    return periodDays;
   }
 
   @Override

@@ -1,5 +1,6 @@
 package org.lagmill.store;
 
+import com.fasterxml.jackson.annotation.JsonInclude;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.DeserializationFeature;
 import com.fasterxml.jackson.databind.ObjectMapper;
@@ -23,7 +24,9 @@ import org.lagmill.io.SealedJson;
  *
  * @param formatVersion store format version, {@link #FORMAT_VERSION_OLDEST} to {@link #FORMAT_VERSION_CURRENT}
  * @param firstDate ISO date of day index 0
- * @param dayCount days of sales held per series
+ * @param dayCount periods of sales held per series
+ * @param periodDays days per period (7 weekly); null, and absent from the file, for a daily store, so daily stores
+ *     keep the bytes they had before stores recorded a period and older stores open as daily
  * @param seriesCount number of series
  * @param attributeNames series attribute names, in code order
  * @param sources the input files the store was built from, with their byte sizes
@@ -34,7 +37,8 @@ import org.lagmill.io.SealedJson;
  *     {@link AttributeNesting#parents()} found it when the store was written; null in stores written before it was
  *     recorded (readers compute it from the attributes, see {@link SalesHistory#nesting()})
  */
-public record StoreManifest(int formatVersion, String firstDate, int dayCount, int seriesCount,
+public record StoreManifest(int formatVersion, String firstDate, int dayCount,
+    @JsonInclude(JsonInclude.Include.NON_NULL) Integer periodDays, int seriesCount,
     List<String> attributeNames, List<SourceFile> sources, List<StoreFile> files, String fingerprint, Fill fill,
     Map<String, String> nesting) {
 
@@ -85,6 +89,16 @@ public record StoreManifest(int formatVersion, String firstDate, int dayCount, i
 
   public LocalDate firstLocalDate() {
     return LocalDate.parse(firstDate);
+  }
+
+  /** First date of the last period held. */
+  public LocalDate lastLocalDate() {
+    return firstLocalDate().plusDays((long) (dayCount - 1) * periodDaysOrDaily());
+  }
+
+  /** Days per period: the recorded {@code periodDays}, or 1 (daily) when absent. */
+  public int periodDaysOrDaily() {
+    return periodDays == null ? Periods.DAILY : periodDays;
   }
 
   /** The manifest entry of one file, or null. */
@@ -160,6 +174,10 @@ public record StoreManifest(int formatVersion, String firstDate, int dayCount, i
     if (manifest.formatVersion() < FORMAT_VERSION_OLDEST || manifest.formatVersion() > FORMAT_VERSION_CURRENT) {
       throw new CorruptStoreException(file, "unsupported format version: expected " + FORMAT_VERSION_OLDEST
           + " to " + FORMAT_VERSION_CURRENT + ", actual " + manifest.formatVersion());
+    }
+    if (manifest.periodDays() != null && (manifest.periodDays() < 1 || manifest.periodDays() > Periods.MAX_PERIOD_DAYS)) {
+      throw new CorruptStoreException(file, "periodDays " + manifest.periodDays() + ": expected 1 to "
+          + Periods.MAX_PERIOD_DAYS);
     }
     if (manifest.formatVersion() >= FORMAT_VERSION_SEALED && !unsealed.sealed()) {
       throw new CorruptStoreException(file, "no " + SealedJson.MEMBER + " member: expected one in format version "

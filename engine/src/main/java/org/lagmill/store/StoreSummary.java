@@ -23,12 +23,13 @@ import java.util.Map;
  *     they were recorded
  * @param nesting each attribute to the attribute it lies directly under, or null for a root ({@link AttributeNesting})
  * @param chains the nesting's chains from a root to a leaf, attributes naming each series left out
+ * @param periodDays days per period (7 weekly); {@code dayCount} and the per-item-day figures count periods
  */
 public record StoreSummary(int seriesCount, LocalDate firstDate, LocalDate lastDate, int dayCount,
     Map<String, Integer> attributeCardinalities, Map<String, Long> seriesCountByWidth, long diskBytes,
     long offHeapBytes, long unitsFileBytes, double unitsBytesPerItemDay, double storeBytesPerItemDay,
     long int64ColumnBytes, long sourceCsvBytes, long unknownDayCount, double zeroDayShare, String fingerprint,
-    StoreManifest.Fill fill, Map<String, String> nesting, List<List<String>> chains) {
+    StoreManifest.Fill fill, Map<String, String> nesting, List<List<String>> chains, int periodDays) {
 
   /** Computes the summary; reads every units value once (for the zero share). */
   public static StoreSummary of(SalesStore store) {
@@ -61,7 +62,7 @@ public record StoreSummary(int seriesCount, LocalDate firstDate, LocalDate lastD
         itemDays == 0 ? 0 : (double) unitsFileBytes / itemDays, itemDays == 0 ? 0 : (double) store.diskBytes() / itemDays,
         itemDays * Long.BYTES, store.manifest().sourceBytes(), unknownDays,
         knownDays == 0 ? 0 : (double) zeroDays / knownDays, store.fingerprint(),
-        store.manifest().fill(), store.nesting().parents(), store.nesting().chains());
+        store.manifest().fill(), store.nesting().parents(), store.nesting().chains(), store.periodDays());
   }
 
   /** The summary as plain JSON-ready values (dates as ISO text), in field order. */
@@ -71,6 +72,9 @@ public record StoreSummary(int seriesCount, LocalDate firstDate, LocalDate lastD
     map.put("firstDate", firstDate.toString());
     map.put("lastDate", lastDate.toString());
     map.put("dayCount", dayCount);
+    if (periodDays != Periods.DAILY) {
+      map.put("periodDays", periodDays);
+    }
     map.put("attributeCardinalities", attributeCardinalities);
     map.put("seriesCountByWidth", seriesCountByWidth);
     map.put("diskBytes", diskBytes);

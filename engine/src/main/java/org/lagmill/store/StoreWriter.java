@@ -25,6 +25,7 @@ public final class StoreWriter implements AutoCloseable {
 
   private final Path dir;
   private final LocalDate firstDate;
+  private final int periodDays;
   private final int dayCount;
   private final MemoryBudget budget;
   private final AttributeDictionaryBuilder attributes;
@@ -52,11 +53,24 @@ public final class StoreWriter implements AutoCloseable {
    */
   public StoreWriter(Path dir, LocalDate firstDate, int dayCount, List<String> attributeNames, MemoryBudget budget)
       throws IOException {
+    this(dir, firstDate, Periods.DAILY, dayCount, attributeNames, budget);
+  }
+
+  /**
+   * A store of {@code periodDays} days per index (7 weekly); see {@link Periods}. A daily store records no period in
+   * its manifest.
+   *
+   * @param dayCount periods per series, in {@code [1, MAX_DAY_COUNT]}
+   */
+  public StoreWriter(Path dir, LocalDate firstDate, int periodDays, int dayCount, List<String> attributeNames,
+      MemoryBudget budget) throws IOException {
+    Periods.requireValid(periodDays);
     if (dayCount < 1 || dayCount > MAX_DAY_COUNT) {
       throw new IllegalArgumentException("dayCount must be in [1, " + MAX_DAY_COUNT + "], got " + dayCount);
     }
     this.dir = dir;
     this.firstDate = firstDate;
+    this.periodDays = periodDays;
     this.dayCount = dayCount;
     this.budget = budget;
     this.attributes = new AttributeDictionaryBuilder(attributeNames);
@@ -71,6 +85,11 @@ public final class StoreWriter implements AutoCloseable {
   /** Date of day index 0. */
   public LocalDate firstDate() {
     return firstDate;
+  }
+
+  /** Days per period of the store being written. */
+  public int periodDays() {
+    return periodDays;
   }
 
   public int seriesCount() {
@@ -244,7 +263,8 @@ public final class StoreWriter implements AutoCloseable {
       attributeNames.add(attributes.attributeName(a));
     }
     StoreManifest manifest = new StoreManifest(StoreManifest.FORMAT_VERSION_CURRENT, firstDate.toString(), dayCount,
-        seriesCount(), attributeNames, sources, ordered, StoreManifest.fingerprintOf(ordered),
+        periodDays == Periods.DAILY ? null : periodDays, seriesCount(), attributeNames, sources, ordered,
+        StoreManifest.fingerprintOf(ordered),
         new StoreManifest.Fill(zeroFilledItemDays, unknownItemDays, closedItemDays),
         AttributeNesting.detect(attributes, seriesCount()).parents());
     manifest.write(dir);

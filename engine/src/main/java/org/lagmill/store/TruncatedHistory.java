@@ -25,6 +25,7 @@ public final class TruncatedHistory implements SalesHistory {
   @Override public int seriesCount() { return source.seriesCount(); }
   @Override public int dayCount() { return dayCount; }
   @Override public LocalDate firstDate() { return source.firstDate(); }
+  @Override public int periodDays() { return source.periodDays(); }
 
   @Override
   public int units(int seriesIndex, int dayIndex) {

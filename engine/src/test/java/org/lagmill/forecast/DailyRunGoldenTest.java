@@ -27,7 +27,8 @@ import org.lagmill.store.SalesStore;
  * with unknown days and pre-launch zeros, a calendar with a global and a keyed column, prices past the last day) is
  * ingested, its training features streamed and a direct forecast written with a fixed linear predictor. The SHA-256
  * checksums below were recorded by running this test on main's code before stores recorded a period (main at
- * "One key matcher for dated per-key files: PriceKeys becomes SeriesKeys"). A change that alters daily store bytes,
+ * "One key matcher for dated per-key files: PriceKeys becomes SeriesKeys"). Its price file repeats no price, so the
+ * store is also the one main wrote before repeated prices were collapsed. A change that alters daily store bytes,
  * daily features or daily forecast files on purpose must say so and record new checksums here.
  */
 class DailyRunGoldenTest {

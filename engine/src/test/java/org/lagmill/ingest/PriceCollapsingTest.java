@@ -27,7 +27,10 @@ class PriceCollapsingTest {
 
   @TempDir Path temp;
 
-  /** A hand-worked case: weekly rows 1.99, 1.99, 1.49, 1.49, 1.99 from day 0 keep the days 0, 14 and 28. */
+  /**
+   * A hand-worked case: weekly rows 1.99, 1.99, 1.49, 1.49, 1.99, 1.99 from day 0 keep the days 0, 14 and 28, and the
+   * last row (day 35), which records how far the file reaches.
+   */
   @Test
   void shouldKeepOnlyTheDaysOnWhichThePriceChanges() throws Exception {
     Path sales = Files.writeString(temp.resolve("sales.csv"), "sku,shop,2025-01-06,2025-01-07\nA,s1,1,2\n");
@@ -39,16 +42,17 @@ class PriceCollapsingTest {
         A,s1,2025-01-20,1.49
         A,s1,2025-01-27,1.49
         A,s1,2025-02-03,1.99
+        A,s1,2025-02-10,1.99
         """);
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store")).withPricesFile(prices), budget);
       try (SalesStore store = SalesStore.open(temp.resolve("store"), budget)) {
         PriceTable table = store.prices();
-        assertEquals(3, table.changeCount(0));
-        assertArrayEquals(new int[] {0, 14, 28}, new int[] {table.changeDayIndex(0, 0), table.changeDayIndex(0, 1),
-            table.changeDayIndex(0, 2)});
-        assertArrayEquals(new float[] {1.99f, 1.49f, 1.99f}, new float[] {table.changePrice(0, 0),
-            table.changePrice(0, 1), table.changePrice(0, 2)});
+        assertEquals(4, table.changeCount(0));
+        assertArrayEquals(new int[] {0, 14, 28, 35}, new int[] {table.changeDayIndex(0, 0), table.changeDayIndex(0, 1),
+            table.changeDayIndex(0, 2), table.changeDayIndex(0, 3)});
+        assertArrayEquals(new float[] {1.99f, 1.49f, 1.99f, 1.99f}, new float[] {table.changePrice(0, 0),
+            table.changePrice(0, 1), table.changePrice(0, 2), table.changePrice(0, 3)});
       }
     }
   }
@@ -134,9 +138,20 @@ class PriceCollapsingTest {
     }
   }
 
-  /** Day by day: the price of the latest row on or before the day; a change point wherever it differs. */
+  /**
+   * Day by day: the price of the latest row on or before the day; a change point wherever it differs; and the last
+   * row's day (day 0 when it lies before) when that is no change point already.
+   */
   private static void slowChangePoints(int[] days, float[] prices, int endDay, List<Integer> changeDays,
       List<Float> changePrices) {
+    int lastRowDay = Integer.MIN_VALUE;
+    float lastRowPrice = Float.NaN;
+    for (int r = 0; r < days.length; r++) {
+      if (days[r] > lastRowDay) {
+        lastRowDay = days[r];
+        lastRowPrice = prices[r];
+      }
+    }
     Float previous = null;
     for (int d = 0; d < endDay; d++) {
       Float price = null;
@@ -152,6 +167,10 @@ class PriceCollapsingTest {
         changePrices.add(price);
       }
       previous = price;
+    }
+    if (days.length > 0 && changeDays.get(changeDays.size() - 1) != Math.max(0, lastRowDay)) {
+      changeDays.add(Math.max(0, lastRowDay));
+      changePrices.add(lastRowPrice);
     }
   }
 }

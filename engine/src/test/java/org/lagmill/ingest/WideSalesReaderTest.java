@@ -115,8 +115,13 @@ class WideSalesReaderTest {
         failure(write("sales.csv", "item,store\na,b\n")));
     assertEquals("sales.csv, line 1, column 4: duplicate date column \"2024-01-01\" (first at column 2)",
         failure(write("sales.csv", "item,2024-01-01,2024-01-02,2024-01-01\n")));
-    assertEquals("sales.csv, line 1, column 3: expected date 2024-01-02 (one day after the previous date column), "
-        + "found \"2024-01-03\"", failure(write("sales.csv", "item,2024-01-01,2024-01-03\n")));
+    assertEquals("sales.csv, line 1, column 4: expected date 2024-01-03 (one day after the previous date column), "
+        + "found \"2024-01-04\"", failure(write("sales.csv", "item,2024-01-01,2024-01-02,2024-01-04\n")));
+    assertEquals("sales.csv, line 1, column 4: expected date 2024-01-15 (7 days, the step of the first two date "
+        + "columns, after the previous date column), found \"2024-01-14\"",
+        failure(write("sales.csv", "sku,2024-01-01,2024-01-08,2024-01-14\n")));
+    assertEquals("sales.csv, line 1, column 3: expected the second date column 1 to 366 days after the first "
+        + "(2024-01-08), found \"2024-01-01\"", failure(write("sales.csv", "sku,2024-01-08,2024-01-01\n")));
     assertEquals("sales.csv, line 1, column 4: expected the date columns in one contiguous run, found date "
         + "\"2024-01-02\" after the non-date column \"promo\"",
         failure(write("sales.csv", "item,2024-01-01,promo,2024-01-02\n")));
