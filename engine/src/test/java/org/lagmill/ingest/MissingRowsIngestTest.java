@@ -75,18 +75,20 @@ class MissingRowsIngestTest {
   @Test
   void shouldWarnNamingTheOptionWhenMostDaysAreUnknown() throws Exception {
     Path sparse = temp.resolve("sparse.csv");
-    Files.writeString(sparse, "sku,shop,date,units\nA,s1,2025-01-01,1\nA,s1,2025-01-05,2\nB,s1,2025-01-03,1\n");
+    // B's row sits next to A's first day so that the file's step reads as one day (with rows only on 01-01, 01-03
+    // and 01-05 the most common gap, and so the store's period, would be two days).
+    Files.writeString(sparse, "sku,shop,date,units\nA,s1,2025-01-01,1\nA,s1,2025-01-05,2\nB,s1,2025-01-02,1\n");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       IngestResult result = StoreIngest.ingest(IngestOptions.of(sparse, temp.resolve("u"))
           .withMissingRows(MissingRows.UNKNOWN), budget);
-      // A: days 2..4 unknown (3); B: days 1, 2, 4, 5 unknown (4): 7 of 10.
+      // A: days 2..4 unknown (3); B: days 1, 3, 4, 5 unknown (4): 7 of 10.
       assertEquals(new StoreManifest.Fill(0, 7, 0), result.manifest().fill());
       assertEquals(List.of("7 of 10 item-days (70.0 %) are unknown and are left out of training and scores; if "
           + "they are days with no sale, give long sales with --missing-rows zero (the default) or write 0 in wide "
           + "sales"), result.warnings());
       IngestResult zero = StoreIngest.ingest(IngestOptions.of(sparse, temp.resolve("z")), budget);
-      // A: days 2..4 zero (3); B: days 4, 5 zero (2), days 1, 2 before its first row stay unknown.
-      assertEquals(new StoreManifest.Fill(5, 2, 0), zero.manifest().fill());
+      // A: days 2..4 zero (3); B: days 3..5 zero (3), day 1 before its first row stays unknown.
+      assertEquals(new StoreManifest.Fill(6, 1, 0), zero.manifest().fill());
       assertEquals(1, zero.warnings().size());
     }
   }
