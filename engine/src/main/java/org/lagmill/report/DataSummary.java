@@ -5,6 +5,7 @@ import java.time.LocalDate;
 import java.util.Collections;
 import java.util.LinkedHashMap;
 import java.util.Map;
+import org.lagmill.store.Periods;
 
 /**
  * What the sales history holds and how compactly it is stored. Every field may be null when unknown.
@@ -50,8 +51,7 @@ public record DataSummary(
 
   /** The store's period in words, "day" or "week" (or "period" for another step), for the report's text. */
   public String periodUnit() {
-    // TODO(issue 9): use the store package's one rule for period words once it lands
-    return periodDays == null || periodDays == 1 ? "day" : periodDays == 7 ? "week" : "period";
+    return Periods.unit(periodDays == null ? Periods.DAILY : periodDays);
   }
 
   /** Item-days in the history, or null when series or day count is unknown. */

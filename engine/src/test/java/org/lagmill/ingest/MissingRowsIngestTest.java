@@ -97,13 +97,14 @@ class MissingRowsIngestTest {
   @Test
   void shouldTakeOneDateColumnNamePerFile() throws Exception {
     Path sales = temp.resolve("till.csv");
-    Files.writeString(sales, "sku,shop,day,units\nA,s1,2025-01-01,1\nA,s1,2025-01-03,2\n");
+    Files.writeString(sales, "sku,shop,day,units\nA,s1,2025-01-01,1\nB,s1,2025-01-02,4\nA,s1,2025-01-03,2\n");
     Path calendar = temp.resolve("calendar.csv");
     Files.writeString(calendar, "date,holiday\n2025-01-01,1\n2025-01-02,0\n2025-01-03,0\n");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       IngestResult result = StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("s"))
           .withColumns(ColumnNames.DEFAULTS.withSalesDateColumn("day")).withCalendarFile(calendar), budget);
-      assertEquals(new StoreManifest.Fill(1, 0, 0), result.manifest().fill());
+      // B has no row before its first one (unknown) and none on 01-03 (zero); A none on 01-02 (zero).
+      assertEquals(new StoreManifest.Fill(2, 1, 0), result.manifest().fill());
       try (SalesStore store = SalesStore.open(temp.resolve("s"), budget)) {
         assertEquals(3, store.calendar().dayCount());
       }
