@@ -21,6 +21,7 @@ import org.lagmill.ingest.IngestOptions;
 import org.lagmill.ingest.StoreIngest;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesStore;
+import org.lagmill.store.StoreGenerations;
 
 /**
  * A daily run keeps its behaviour byte for byte while the store learns other periods: a fixed daily data set (sales
@@ -56,7 +57,7 @@ class DailyRunGoldenTest {
       StoreIngest.ingest(IngestOptions.of(sales, storeDir).withCalendarFile(calendar).withPricesFile(prices), budget);
       MessageDigest store = MessageDigest.getInstance("SHA-256");
       for (String name : List.of("units.bin", "series.bin", "attributes.bin", "prices.bin", "calendar.bin")) {
-        store.update(Files.readAllBytes(storeDir.resolve(name)));
+        store.update(Files.readAllBytes(StoreGenerations.readableDir(storeDir).resolve(name)));
       }
       try (SalesStore history = SalesStore.open(storeDir, budget)) {
         FeatureSpec spec = spec();

@@ -12,6 +12,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesStore;
+import org.lagmill.store.StoreGenerations;
 
 /**
  * Stores of other periods: the step detected from wide headers and long dates, calendar and prices read against it,
@@ -56,7 +57,8 @@ class WeeklyStoreTest {
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store")).withCalendarFile(calendar)
           .withPricesFile(prices), budget);
-      assertTrue(Files.readString(temp.resolve("store/manifest.json")).contains("\"periodDays\" : 7"));
+      Path weeklyManifest = StoreGenerations.readableDir(temp.resolve("store")).resolve("manifest.json");
+      assertTrue(Files.readString(weeklyManifest).contains("\"periodDays\" : 7"));
       try (SalesStore store = SalesStore.open(temp.resolve("store"), budget)) {
         assertEquals(7, store.periodDays());
         assertEquals(52, store.seasonLength());
@@ -87,7 +89,8 @@ class WeeklyStoreTest {
     Path sales = write("daily.csv", "sku,2024-01-01,2024-01-02\ntea,1,2\n");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("daily")), budget);
-      assertTrue(!Files.readString(temp.resolve("daily/manifest.json")).contains("periodDays"));
+      Path dailyManifest = StoreGenerations.readableDir(temp.resolve("daily")).resolve("manifest.json");
+      assertTrue(!Files.readString(dailyManifest).contains("periodDays"));
       try (SalesStore store = SalesStore.open(temp.resolve("daily"), budget)) {
         assertEquals(1, store.periodDays());
         assertEquals(7, store.seasonLength());
