@@ -1,10 +1,10 @@
 package org.lagmill.cli;
 
 import java.io.PrintWriter;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.Callable;
+import org.lagmill.eval.CombinedBacktestResult;
 import org.lagmill.features.FeatureSpec;
 import org.lagmill.forecast.TrainingPlan;
 import org.lagmill.io.AtomicFiles;
@@ -56,6 +56,11 @@ final class BacktestCommand implements Callable<Integer> {
   @Option(names = "--quiet", description = "print nothing but errors (and the JSON with --json)")
   boolean quiet;
 
+  @Option(names = "--member", paramLabel = "SPEC[@ATTRIBUTE]", description = "a member of a combined model: a "
+      + "feature spec YAML, optionally @ the attribute to partition by (e.g. recursive.yaml@store); repeat it: each "
+      + "member and their average are scored on the same origins, the training options apply to all")
+  List<String> members = List.of();
+
   @Mixin TrainingOptions training;
   @Mixin HierarchyOptions hierarchyOptions;
 
@@ -66,6 +71,7 @@ final class BacktestCommand implements Callable<Integer> {
     ReportData.Builder report = ReportOutput.start("lagmill backtest", "lagmill backtest --store " + store
         + " --origins " + originCount, store.toString());
     BacktestRun backtest;
+    CombinedBacktestResult[] combined = new CombinedBacktestResult[1];
     try (MemoryBudget budget = CliBudgets.root(memoryLimitBytes);
         SalesStore opened = SalesStore.open(store, budget.child("store"))) {
       report.data(ReportAssembler.dataSummary(StoreSummary.of(opened)));
@@ -74,8 +80,26 @@ final class BacktestCommand implements Callable<Integer> {
       run.configure("store", store.toString()).configure("origins", originCount)
           .configure("stepDays", stepDays == null ? spec.horizonDays() : stepDays).configure("plan", plan.toString());
       try (MemoryBudget learner = budget.child("backtest")) {
-        backtest = BacktestRun.run(opened, plan, originCount, stepDays == null ? spec.horizonDays() : stepDays,
-            hierarchyOptions.hierarchy(opened), learner, ConsoleProgress.forCommand(quiet));
+        if (!members.isEmpty()) {
+          List<String> names = new java.util.ArrayList<>();
+          List<TrainingPlan> plans = new java.util.ArrayList<>();
+          for (String member : members) {
+            int at = member.lastIndexOf('@');
+            Path file = Path.of(at < 0 ? member : member.substring(0, at));
+            TrainingPlan base = training.plan(org.lagmill.features.FeatureSpecYaml.read(file), opened.dayCount() - 1);
+            plans.add(new TrainingPlan(base.spec(), base.trainParameters(), base.datasetParameters(),
+                base.cutDayIndex(), base.validationDays(), at < 0 ? base.partitionAttribute()
+                : member.substring(at + 1), base.salesValueWeights(), base.refit()));
+            names.add(member);
+          }
+          run.configure("members", names);
+          backtest = BacktestRun.runMembers(opened, names, plans, originCount,
+              stepDays == null ? plans.get(0).spec().horizonDays() : stepDays,
+              hierarchyOptions.hierarchy(opened), learner, ConsoleProgress.forCommand(quiet), combined);
+        } else {
+          backtest = BacktestRun.run(opened, plan, originCount, stepDays == null ? spec.horizonDays() : stepDays,
+              hierarchyOptions.hierarchy(opened), learner, ConsoleProgress.forCommand(quiet));
+        }
         long rows = backtest.result.origins().stream().flatMap(o -> o.partitions().stream())
             .mapToLong(p -> p.trainingRowCount()).sum();
         run.endStage("backtest", opened.offHeapBytes() + learner.peakBytes(), rows);
@@ -84,14 +108,18 @@ final class BacktestCommand implements Callable<Integer> {
     }
     ReportOutput.addStages(report, run.stages(), backtest.lastPartitions().get(0).datasetBytesPerRow());
     ReportOutput.checkTarget(reportDir);
-    AtomicFiles.write(reportDir.resolve(ReportOutput.BACKTEST_FILE), RunRecord.JSON.writeValueAsBytes(backtest.result));
+    Object written = combined[0] != null ? combined[0] : backtest.result;
+    AtomicFiles.write(reportDir.resolve(ReportOutput.BACKTEST_FILE), RunRecord.JSON.writeValueAsBytes(written));
     Path html = ReportOutput.write(report.build(), reportDir);
-    run.result("backtest", backtest.result);
+    run.result("backtest", written);
     run.write(reportDir);
     PrintWriter out = commandSpec.commandLine().getOut();
     if (json) {
-      out.println(RunRecord.JSON.writeValueAsString(backtest.result));
+      out.println(RunRecord.JSON.writeValueAsString(written));
     } else if (!quiet) {
+      if (combined[0] != null) {
+        BacktestRun.printMembers(out, combined[0]);
+      }
       backtest.print(out);
       out.println("report written to " + html);
     }

@@ -8,6 +8,7 @@ import java.util.Map;
 import org.lagmill.eval.BacktestResult;
 import org.lagmill.eval.BacktestSettings;
 import org.lagmill.eval.BaselineKind;
+import org.lagmill.eval.CombinedBacktestResult;
 import org.lagmill.eval.Hierarchy;
 import org.lagmill.eval.RollingOriginBacktest;
 import org.lagmill.forecast.ForecastTable;
@@ -54,6 +55,44 @@ final class BacktestRun {
           lastDispersion[0] = dispersion;
         });
     return new BacktestRun(result, lastOrigin[0], lastForecasts[0], lastDispersion[0], hierarchy);
+  }
+
+  /**
+   * Backtests several members on the same origins and their average; the report and summary follow the one with the
+   * lowest mean WRMSSE ({@link CombinedBacktestResult#chosenName()}).
+   */
+  static BacktestRun runMembers(SalesHistory history, List<String> names, List<TrainingPlan> plans, int originCount,
+      int stepDays, Hierarchy hierarchy, MemoryBudget budget, ProgressListener progress, CombinedBacktestResult[] out) {
+    BacktestSettings settings = new BacktestSettings(originCount, stepDays, plans.get(0).spec().horizonDays(),
+        DEFAULT_BASELINES, hierarchy, ForecastTable.PUBLISHED_QUANTILES);
+    Map<Integer, double[][]> lastPoints = new java.util.HashMap<>();
+    Map<Integer, float[]> lastDispersions = new java.util.HashMap<>();
+    int[] lastOrigin = {-1};
+    CombinedBacktestResult combined = RollingOriginBacktest.runMembers(history, names, plans, settings, budget,
+        progress, (member, origin, point, dispersion) -> {
+          lastOrigin[0] = origin;
+          lastPoints.put(member, point);
+          lastDispersions.put(member, dispersion);
+        });
+    out[0] = combined;
+    String chosen = combined.chosenName();
+    int chosenIndex = chosen.equals(CombinedBacktestResult.COMBINATION_NAME) ? names.size() : names.indexOf(chosen);
+    return new BacktestRun(combined.chosen(), lastOrigin[0], lastPoints.get(chosenIndex),
+        lastDispersions.get(chosenIndex), hierarchy);
+  }
+
+  /** One line per member and the combination: mean WRMSSE and the skill ratios; then which one was chosen. */
+  static void printMembers(PrintWriter out, CombinedBacktestResult combined) {
+    out.println("members and their average on the same origins (WRMSSE, lower is better)");
+    out.printf(Locale.ROOT, "%-40s %9s %9s %16s %9s%n", "member", "WRMSSE", "±", "/ seasonal naive", "/ ETS");
+    for (int m = 0; m <= combined.members().size(); m++) {
+      BacktestResult r = m < combined.members().size() ? combined.members().get(m) : combined.combination();
+      String name = m < combined.members().size() ? combined.memberNames().get(m)
+          : CombinedBacktestResult.COMBINATION_NAME;
+      out.printf(Locale.ROOT, "%-40s %9.4f %9.4f %16.3f %9.3f%n", name, r.meanModelWrmsse(), r.stdModelWrmsse(),
+          r.skillRatioAgainstSeasonalNaive(), r.skillRatioAgainst(BaselineKind.ETS));
+    }
+    out.println("chosen: " + combined.chosenName() + " (the report and the lines below describe it)");
   }
 
   List<PartitionReport> lastPartitions() {

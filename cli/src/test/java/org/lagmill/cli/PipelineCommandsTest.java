@@ -104,6 +104,27 @@ class PipelineCommandsTest {
     assertEquals(1, reported.get("origins").size());
     assertTrue(Files.isRegularFile(evaluation.resolve("report.html")));
 
+    // a combined model: two members and their average on the same origins, the chosen one named
+    Path memberA = dir.resolve("member-a.yaml");
+    Path memberB = dir.resolve("member-b.yaml");
+    org.lagmill.features.FeatureSpecYaml.write(org.lagmill.features.FeatureSpec.defaults(), memberA);
+    org.lagmill.features.FeatureSpecYaml.write(org.lagmill.features.FeatureSpec.defaults().toBuilder()
+        .lagDays(28, 35).rollingWindowDays(7).build(), memberB);
+    Path combinedDir = dir.resolve("combined");
+    MainRun combined = MainRun.of("backtest", "--store", storeB.toString(), "--origins", "2", "--rounds", "5",
+        "--deterministic", "--threads", "1", "--report", combinedDir.toString(), "--member", memberA.toString(),
+        "--member", memberB.toString(), "--json", "--quiet");
+    expectOk(combined);
+    JsonNode members = JSON.readTree(combined.out());
+    assertEquals(2, members.get("members").size(), combined.out());
+    assertEquals(2, members.get("combination").get("origins").size(), combined.out());
+    double average = members.get("combination").get("meanModelWrmsse").asDouble();
+    double first = members.get("members").get(0).get("meanModelWrmsse").asDouble();
+    double second = members.get("members").get(1).get("meanModelWrmsse").asDouble();
+    String expected = first <= Math.min(second, average) ? memberA.toString()
+        : second <= average ? memberB.toString() : "average of members";
+    assertEquals(expected, members.get("chosenName").asText(), combined.out());
+
     // evaluate of a forecast naming a series the store does not have: bad input, file and line named
     Path bad = dir.resolve("bad.csv");
     List<String> badLines = new ArrayList<>(lines);

@@ -30,13 +30,7 @@ public final class RollingOriginBacktest {
 
   public static BacktestResult run(SalesHistory history, TrainingPlan plan, BacktestSettings settings,
       MemoryBudget budget, ProgressListener progress, ForecastListener listener) {
-    int firstOrigin = settings.originDayIndex(history.dayCount(), 0);
-    if (firstOrigin - 1 - plan.validationDays() < plan.spec().launchSkipDays()) {
-      throw new IllegalArgumentException("the earliest origin (day " + firstOrigin + ", " + history.dateOf(
-          Math.max(0, firstOrigin)) + ") leaves too little history to train: it needs more than "
-          + (plan.spec().launchSkipDays() + plan.validationDays()) + " days before it; use fewer origins or a "
-          + "smaller step");
-    }
+    checkEarliestOrigin(history, plan, settings);
     Evaluator evaluator = new Evaluator(history, settings.hierarchy(), settings.horizonDays());
     List<BacktestResult.OriginResult> origins = new ArrayList<>();
     for (int k = 0; k < settings.originCount(); k++) {
@@ -49,29 +43,108 @@ public final class RollingOriginBacktest {
   static BacktestResult.OriginResult runOrigin(SalesHistory history, TrainingPlan plan, BacktestSettings settings,
       Evaluator evaluator, int origin, MemoryBudget budget, ProgressListener progress, ForecastListener listener) {
     TruncatedHistory known = new TruncatedHistory(history, origin);
-    long trainStart = System.nanoTime();
-    double[][] point;
-    float[] alphas;
-    List<org.lagmill.forecast.PartitionReport> partitions = new ArrayList<>();
-    double trainSeconds;
-    long forecastStart;
-    try (ModelSet models = ModelTraining.train(known, plan.withCutDayIndex(origin - 1), budget, progress)) {
-      trainSeconds = (System.nanoTime() - trainStart) / 1e9;
-      forecastStart = System.nanoTime();
-      point = models.forecast(known, settings.horizonDays(), budget);
-      alphas = models.dispersionBySeries();
-      models.partitions().forEach(p -> partitions.add(p.report()));
-    }
-    double forecastSeconds = (System.nanoTime() - forecastStart) / 1e9;
+    ModelForecast forecast = trainAndForecast(known, plan, origin, settings, budget, progress);
     if (listener != null) {
-      listener.onOrigin(origin, point, alphas);
+      listener.onOrigin(origin, forecast.point(), forecast.dispersion());
     }
     OriginStatistics statistics = evaluator.statistics(origin);
+    Map<String, EvaluationResult> baselines = scoreBaselines(known, settings.baselines(), settings.horizonDays(),
+        evaluator, statistics);
+    return score(history, settings, evaluator, statistics, origin, forecast, baselines);
+  }
+
+  /**
+   * Several training plans (members) on the same origins, each scored, and their average (the mean of the members'
+   * point forecasts per series and day; intervals from the mean of their dispersions). Members train one after
+   * another and each member's models are closed before the next trains, so memory is that of the largest member.
+   *
+   * @param memberNames one name per plan, for the result
+   * @param listener receives each member's forecasts per origin (member index), then the combination's (index
+   *     {@code plans.size()}); may be null
+   */
+  public static CombinedBacktestResult runMembers(SalesHistory history, List<String> memberNames,
+      List<TrainingPlan> plans, BacktestSettings settings, MemoryBudget budget, ProgressListener progress,
+      MemberListener listener) {
+    if (plans.isEmpty() || plans.size() != memberNames.size()) {
+      throw new IllegalArgumentException("need one name per member and at least one member, got " + memberNames.size()
+          + " names for " + plans.size() + " plans");
+    }
+    for (TrainingPlan plan : plans) {
+      checkEarliestOrigin(history, plan, settings);
+      if (plan.spec().horizonDays() != settings.horizonDays()) {
+        throw new IllegalArgumentException("every member must forecast the same horizon: a member's spec has "
+            + plan.spec().horizonDays() + " days, the backtest " + settings.horizonDays() + "; give each member's "
+            + "config the same horizonDays");
+      }
+    }
+    Evaluator evaluator = new Evaluator(history, settings.hierarchy(), settings.horizonDays());
+    List<List<BacktestResult.OriginResult>> memberOrigins = new ArrayList<>();
+    plans.forEach(p -> memberOrigins.add(new ArrayList<>()));
+    List<BacktestResult.OriginResult> combinedOrigins = new ArrayList<>();
+    for (int k = 0; k < settings.originCount(); k++) {
+      int origin = settings.originDayIndex(history.dayCount(), k);
+      TruncatedHistory known = new TruncatedHistory(history, origin);
+      OriginStatistics statistics = evaluator.statistics(origin);
+      Map<String, EvaluationResult> baselines = scoreBaselines(known, settings.baselines(), settings.horizonDays(),
+          evaluator, statistics);
+      List<ModelForecast> forecasts = new ArrayList<>();
+      for (int m = 0; m < plans.size(); m++) {
+        ModelForecast forecast = trainAndForecast(known, plans.get(m), origin, settings, budget, progress);
+        if (listener != null) {
+          listener.onForecast(m, origin, forecast.point(), forecast.dispersion());
+        }
+        forecasts.add(forecast);
+        memberOrigins.get(m).add(score(history, settings, evaluator, statistics, origin, forecast, baselines));
+      }
+      ModelForecast combined = ModelForecast.mean(forecasts);
+      if (listener != null) {
+        listener.onForecast(plans.size(), origin, combined.point(), combined.dispersion());
+      }
+      combinedOrigins.add(score(history, settings, evaluator, statistics, origin, combined, baselines));
+    }
+    List<BacktestResult> members = new ArrayList<>();
+    memberOrigins.forEach(origins -> members.add(summarise(origins, settings)));
+    return new CombinedBacktestResult(memberNames, members, summarise(combinedOrigins, settings));
+  }
+
+  /** Receives the forecasts of each member and of the combination at each origin. */
+  public interface MemberListener {
+    void onForecast(int memberIndex, int originDayIndex, double[][] pointForecasts, float[] dispersionBySeries);
+  }
+
+  private static void checkEarliestOrigin(SalesHistory history, TrainingPlan plan, BacktestSettings settings) {
+    int firstOrigin = settings.originDayIndex(history.dayCount(), 0);
+    if (firstOrigin - 1 - plan.validationDays() < plan.spec().launchSkipDays()) {
+      throw new IllegalArgumentException("the earliest origin (day " + firstOrigin + ", " + history.dateOf(
+          Math.max(0, firstOrigin)) + ") leaves too little history to train: it needs more than "
+          + (plan.spec().launchSkipDays() + plan.validationDays()) + " days before it; use fewer origins or a "
+          + "smaller step");
+    }
+  }
+
+  private static ModelForecast trainAndForecast(TruncatedHistory known, TrainingPlan plan, int origin,
+      BacktestSettings settings, MemoryBudget budget, ProgressListener progress) {
+    long trainStart = System.nanoTime();
+    List<org.lagmill.forecast.PartitionReport> partitions = new ArrayList<>();
+    try (ModelSet models = ModelTraining.train(known, plan.withCutDayIndex(origin - 1), budget, progress)) {
+      double trainSeconds = (System.nanoTime() - trainStart) / 1e9;
+      long forecastStart = System.nanoTime();
+      double[][] point = models.forecast(known, settings.horizonDays(), budget);
+      float[] alphas = models.dispersionBySeries();
+      models.partitions().forEach(p -> partitions.add(p.report()));
+      return new ModelForecast(point, alphas, partitions, trainSeconds, (System.nanoTime() - forecastStart) / 1e9);
+    }
+  }
+
+  private static BacktestResult.OriginResult score(SalesHistory history, BacktestSettings settings,
+      Evaluator evaluator, OriginStatistics statistics, int origin, ModelForecast forecast,
+      Map<String, EvaluationResult> baselines) {
+    double[][] point = forecast.point();
     Aggregator aggregator = evaluator.aggregator();
     // Scored on known actuals only: a closed or unknown day leaves both sides of every aggregate (mean and variance).
     double[][] scored = evaluator.withoutUnknownActuals(point, origin);
     QuantileForecasts quantiles = settings.quantileLevels().length == 0 ? null
-        : IntervalAggregation.quantiles(aggregator, scored, alphas, settings.quantileLevels());
+        : IntervalAggregation.quantiles(aggregator, scored, forecast.dispersion(), settings.quantileLevels());
     EvaluationResult model = evaluator.evaluate(statistics, aggregator.aggregateForecasts(scored), quantiles);
     Double poissonWspl = null;
     if (quantiles != null) {
@@ -79,10 +152,8 @@ public final class RollingOriginBacktest {
           settings.quantileLevels());
       poissonWspl = evaluator.evaluate(statistics, aggregator.aggregateForecasts(scored), poisson).wspl();
     }
-    Map<String, EvaluationResult> baselines = scoreBaselines(known, settings.baselines(), settings.horizonDays(),
-        evaluator, statistics);
     return new BacktestResult.OriginResult(origin, history.dateOf(origin).toString(), model, baselines, poissonWspl,
-        partitions, trainSeconds, forecastSeconds);
+        forecast.partitions(), forecast.trainSeconds(), forecast.forecastSeconds());
   }
 
   /**
