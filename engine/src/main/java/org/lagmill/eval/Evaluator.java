@@ -10,7 +10,7 @@ import org.lagmill.store.SalesHistory;
  * MAE and bias, per-day errors and, given quantile forecasts, WSPL. Bottom forecasts are summed up the hierarchy
  * (bottom-up reconciliation). Formulas and sources: docs/metrics.md.
  *
- * <p>Usage: {@code new Evaluator(history, Hierarchy.parse(List.of("region>store", "category>item")))
+ * <p>Usage: {@code new Evaluator(history, Hierarchy.parse(List.of("banner>outlet", "section>family")), horizonDays)
  * .evaluate(originDay, forecasts)}. Not thread-safe (one aggregator buffer); use one evaluator per thread.
  */
 public final class Evaluator {
@@ -31,8 +31,9 @@ public final class Evaluator {
   private final int weightDayCount;
   private final Hierarchy.Source levelSource;
 
+  /** As {@link #Evaluator(SalesHistory, Hierarchy, int)} for a horizon of {@link #DEFAULT_WEIGHT_DAYS} periods. */
   public Evaluator(SalesHistory history, Hierarchy hierarchy) {
-    this(history, hierarchy.bind(history), DEFAULT_WEIGHT_DAYS, hierarchy.source());
+    this(history, hierarchy, DEFAULT_WEIGHT_DAYS);
   }
 
   /** Weights by {@link #weightDayCount(int, int)} for forecasts of {@code horizonDays} periods. */
