@@ -121,9 +121,15 @@ final class IngestCommand implements Callable<Integer> {
   static void printFill(PrintWriter out, StoreManifest manifest) {
     StoreManifest.Fill fill = manifest.fill();
     if (fill != null) {
-      out.printf("item-days filled with zero %,d, unknown %,d, closed %,d%n", fill.zeroFilledItemDays(),
-          fill.unknownItemDays(), fill.closedItemDays());
+      out.printf("item-days filled with zero %,d, unknown %,d, closed %,d%s%n", fill.zeroFilledItemDays(),
+          fill.unknownItemDays(), fill.closedItemDays(), partlyClosed(fill));
     }
+  }
+
+  /** ", N partly closed (kept open)" when a store of longer periods has periods closed on some days only. */
+  static String partlyClosed(StoreManifest.Fill fill) {
+    return fill.partlyClosedItemDays() == 0 ? ""
+        : String.format(java.util.Locale.ROOT, ", %,d partly closed (kept open)", fill.partlyClosedItemDays());
   }
 
   static void printWarnings(PrintWriter err, List<String> warnings) {

@@ -72,8 +72,9 @@ final class InspectCommand implements Callable<Integer> {
     if (fill == null) {
       out.printf("filled                not recorded (store written before fill counts were kept)%n");
     } else {
-      out.printf("filled                %,d item-days with zero (no row in long sales), %,d unknown, %,d closed%n",
-          fill.zeroFilledItemDays(), fill.unknownItemDays(), fill.closedItemDays());
+      out.printf("filled                %,d item-days with zero (no row in long sales), %,d unknown, %,d closed%s%n",
+          fill.zeroFilledItemDays(), fill.unknownItemDays(), fill.closedItemDays(),
+          IngestCommand.partlyClosed(fill));
     }
     out.printf("fingerprint           %s%n", summary.fingerprint());
     return ExitCodes.OK;

@@ -25,10 +25,10 @@ final class CalendarAndPrices {
   /** Reads and writes the closures file; call after the last series was added. */
   static void writeClosures(StoreWriter writer, Path closuresFile, List<String> warnings) throws IOException {
     ClosuresFileReader.ClosuresReadResult read = ClosuresFileReader.read(closuresFile, writer.firstDate(),
-        writer.attributes(), writer.seriesCount(), ClosuresFileReader.DEFAULT_FROM_COLUMN,
+        writer.periodDays(), writer.attributes(), writer.seriesCount(), ClosuresFileReader.DEFAULT_FROM_COLUMN,
         ClosuresFileReader.DEFAULT_UNTIL_COLUMN);
     warnings.addAll(read.warnings());
-    writer.writeClosures(read.closures());
+    writer.writeClosures(read.closures(), read.partlyClosedItemPeriods());
   }
 
   /** Reads and writes the calendar file; call after the last series was added. */

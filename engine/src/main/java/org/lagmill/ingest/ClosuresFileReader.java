@@ -7,8 +7,10 @@ import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import java.util.Locale;
 import org.lagmill.store.ArrayClosureTable;
 import org.lagmill.store.ClosureTable;
+import org.lagmill.store.Periods;
 import org.lagmill.store.SeriesAttributes;
 
 /**
@@ -17,6 +19,11 @@ import org.lagmill.store.SeriesAttributes;
  * file only. Rows may come in any order and overlap; each series' closed days are merged into sorted ranges. Days
  * before the store's first date are dropped; days after its last sales day are kept (a closure planned in the
  * forecast horizon). Rows whose key no series has are skipped and counted.
+ *
+ * <p>Dates are days, a store's indexes are periods ({@link Periods}). A period is closed when the closures cover every
+ * one of its days: only then is nothing known about its sales. A period the closures cover in part (a week with a
+ * two-day holiday) stays open, since its total is still what the series sold that period; such item-periods are
+ * counted and reported, because their sales (and a forecast for one) are those of a shorter period.
  */
 public final class ClosuresFileReader {
   public static final String DEFAULT_FROM_COLUMN = "from";
@@ -25,20 +32,29 @@ public final class ClosuresFileReader {
 
   private ClosuresFileReader() {}
 
-  /** The closures read, and what the user should be told about skipped rows. */
-  public record ClosuresReadResult(ClosureTable closures, long unknownKeyRowCount, List<String> warnings) {
+  /**
+   * The closures read, and what the user should be told about skipped rows and partly closed periods.
+   *
+   * @param closures closed period index ranges per series
+   * @param partlyClosedItemPeriods item-periods the closures cover on some days but not all (0 for a daily store),
+   *     anywhere from the store's first period on, the forecast horizon included
+   */
+  public record ClosuresReadResult(ClosureTable closures, long unknownKeyRowCount, long partlyClosedItemPeriods,
+      List<String> warnings) {
     public ClosuresReadResult {
       warnings = List.copyOf(warnings);
     }
   }
 
   /**
-   * Reads a closures file against a store's first date and series.
+   * Reads a closures file against a store's first date, period and series.
    *
+   * @param periodDays the store's step in days ({@link Periods})
    * @throws InputFormatException on any violation of the format, with file, line, column and an exact message
    */
-  public static ClosuresReadResult read(Path file, LocalDate storeFirstDate, SeriesAttributes attributes,
-      int seriesCount, String fromColumn, String untilColumn) {
+  public static ClosuresReadResult read(Path file, LocalDate storeFirstDate, int periodDays,
+      SeriesAttributes attributes, int seriesCount, String fromColumn, String untilColumn) {
+    Periods.requireValid(periodDays);
     try (CsvSource source = CsvSource.open(file)) {
       String[] header = source.readHeader();
       Cells.requireDistinct(file, header);
@@ -85,11 +101,21 @@ public final class ClosuresFileReader {
       if (unknownKeyRowCount > 0) {
         warnings.add(unknownKeyRowCount + " closure rows for unknown keys skipped (first: " + firstUnknownKey + ")");
       }
-      return new ClosuresReadResult(merged(rangesBySeries), unknownKeyRowCount, warnings);
+      // Days are merged before they become periods, so two rows that together cover a week close it.
+      ClosedPeriods periods = ClosedPeriods.of(merged(rangesBySeries), seriesCount, periodDays);
+      if (periods.partlyClosedItemPeriods() > 0) {
+        String unit = Periods.unit(periodDays);
+        warnings.add(String.format(Locale.ROOT, "%,d item-%ss partly closed (the closures cover some of their days, "
+            + "not all) are kept open: their sales are those of the open days, and a forecast for one is not "
+            + "reduced; a %s counts as closed only when every day of it is closed", periods.partlyClosedItemPeriods(),
+            unit, unit));
+      }
+      return new ClosuresReadResult(periods.closures(), unknownKeyRowCount, periods.partlyClosedItemPeriods(),
+          warnings);
     }
   }
 
-  /** Sorts each series' ranges and merges those that overlap or touch. */
+  /** Sorts each series' day ranges (days from the store's first date) and merges those that overlap or touch. */
   static ArrayClosureTable merged(IntArrayList[] rangesBySeries) {
     int[][] firstDays = new int[rangesBySeries.length][];
     int[][] lastDays = new int[rangesBySeries.length][];

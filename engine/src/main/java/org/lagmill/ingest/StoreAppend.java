@@ -208,7 +208,8 @@ public final class StoreAppend {
       if (options.closuresFile() != null) {
         CalendarAndPrices.writeClosures(writer, options.closuresFile(), warnings);
       } else {
-        writer.writeClosures(extended(store.closures(), store.seriesCount()));
+        writer.writeClosures(extended(store.closures(), store.seriesCount()),
+            oldFill == null ? 0 : oldFill.partlyClosedItemDays());
       }
       List<StoreManifest.SourceFile> sources = new ArrayList<>(store.manifest().sources());
       sources.addAll(StoreIngest.sourcesOf(options.salesFile(), options.calendarFile(), options.pricesFile(),

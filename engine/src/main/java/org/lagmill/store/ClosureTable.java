@@ -1,7 +1,8 @@
 package org.lagmill.store;
 
 /**
- * Declared closures: per series, sorted day index ranges on which the series could not sell (a store shut for a
+ * Declared closures: per series, sorted day index ranges (periods of the store's step; a period is closed when every
+ * day of it is, see {@code ingest/ClosuresFileReader}) on which the series could not sell (a store shut for a
  * holiday, an item not yet listed or delisted). A closed day reads as {@link SalesHistory#UNKNOWN_UNITS} for every
  * consumer; {@link SalesHistory#isClosed} tells it from an unknown day. Ranges may lie past the last sales day (a
  * closure planned in the forecast horizon).

@@ -74,9 +74,18 @@ public record StoreManifest(int formatVersion, String firstDate, int dayCount,
    * @param unknownItemDays item-days whose units are unknown (an empty cell, no row under
    *     {@code --missing-rows unknown}, days before a series' first row or after it left the file)
    * @param closedItemDays item-days declared closed, counted apart from the unknown ones
+   * @param partlyClosedItemDays item-periods (of a store whose period is longer than a day) that the closures cover
+   *     on some days but not all, from the first period on, the forecast horizon included: they stay open (a period
+   *     is closed only when every day of it is); absent from the file when 0, so daily stores keep their bytes
    */
-  public record Fill(long zeroFilledItemDays, long unknownItemDays, long closedItemDays) {
+  public record Fill(long zeroFilledItemDays, long unknownItemDays, long closedItemDays,
+      @JsonInclude(JsonInclude.Include.NON_DEFAULT) long partlyClosedItemDays) {
     public static final Fill NONE = new Fill(0, 0, 0);
+
+    /** A fill with no partly closed periods (every daily store). */
+    public Fill(long zeroFilledItemDays, long unknownItemDays, long closedItemDays) {
+      this(zeroFilledItemDays, unknownItemDays, closedItemDays, 0);
+    }
   }
 
   public StoreManifest {

@@ -42,6 +42,7 @@ public final class StoreWriter implements AutoCloseable {
   private boolean calendarWritten;
   private boolean closuresWritten;
   private long closedItemDays;
+  private long partlyClosedItemPeriods;
   private boolean finished;
   private boolean closed;
 
@@ -217,6 +218,17 @@ public final class StoreWriter implements AutoCloseable {
    * {@code fill} counts the closed item-days within the sales days.
    */
   public void writeClosures(ClosureTable closures) throws IOException {
+    writeClosures(closures, 0);
+  }
+
+  /**
+   * As {@link #writeClosures(ClosureTable)}, recording how many item-periods the closures cover only in part (see
+   * {@link StoreManifest.Fill#partlyClosedItemDays()}).
+   */
+  public void writeClosures(ClosureTable closures, long partlyClosedItemPeriods) throws IOException {
+    if (partlyClosedItemPeriods < 0) {
+      throw new IllegalArgumentException("partlyClosedItemPeriods must be >= 0, got " + partlyClosedItemPeriods);
+    }
     checkWritable();
     if (closuresWritten) {
       throw new IllegalStateException("closures were already written");
@@ -224,6 +236,7 @@ public final class StoreWriter implements AutoCloseable {
     seriesSealed = true;
     addFile(ClosuresFileWriter.write(dir.resolve(FileKind.CLOSURES.fileName()), closures, seriesCount(), budget));
     closedItemDays = closures.closedItemDays(seriesCount(), dayCount);
+    this.partlyClosedItemPeriods = partlyClosedItemPeriods;
     closuresWritten = true;
   }
 
@@ -265,7 +278,7 @@ public final class StoreWriter implements AutoCloseable {
     StoreManifest manifest = new StoreManifest(StoreManifest.FORMAT_VERSION_CURRENT, firstDate.toString(), dayCount,
         periodDays == Periods.DAILY ? null : periodDays, seriesCount(), attributeNames, sources, ordered,
         StoreManifest.fingerprintOf(ordered),
-        new StoreManifest.Fill(zeroFilledItemDays, unknownItemDays, closedItemDays),
+        new StoreManifest.Fill(zeroFilledItemDays, unknownItemDays, closedItemDays, partlyClosedItemPeriods),
         AttributeNesting.detect(attributes, seriesCount()).parents());
     manifest.write(dir);
     finished = true;
