@@ -19,9 +19,10 @@ import picocli.CommandLine.Spec;
 @Command(name = "append", header = "Add new days (and a newer calendar and prices) to a store, atomically.", mixinStandardHelpOptions = true,
     description = {"Add new days to a store from a wide sales CSV whose first date is the store's next day.",
         "Series missing from the file get unknown units on the new days; new series get unknown units before them.",
-        "A --calendar or --prices file replaces the stored calendar or prices; without it they are kept."},
+        "A --calendar, --prices, --closures or --plan file replaces the stored one; without it it is kept."},
     footer = {"", "Example:", "  lagmill append --store stores/chain --sales sales-next-week.csv \\",
-        "      --calendar calendar.csv --prices prices.csv"})
+        "      --calendar calendar.csv --prices prices.csv",
+        "  lagmill append --store stores/chain --plan plan-next-month.csv"})
 final class AppendCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
 
@@ -29,7 +30,7 @@ final class AppendCommand implements Callable<Integer> {
   Path store;
 
   @Option(names = "--sales", paramLabel = "FILE", description = {"wide sales CSV, optionally .gz; without it the",
-      "calendar, prices or closures given replace the stored ones and the days stay as they are"})
+      "calendar, prices, closures or plan given replace the stored ones and the days stay as they are"})
   Path sales;
 
   @Option(names = "--calendar", paramLabel = "FILE", description = "newer calendar CSV replacing the stored one")
@@ -43,6 +44,8 @@ final class AppendCommand implements Callable<Integer> {
   Path closures;
 
   @Mixin ColumnOptions columns;
+
+  @Mixin PlanOptions plan;
 
   @Option(names = "--date-window", paramLabel = "FROM..TO", description = "plausible dates: any date read outside "
       + "stops the run (default: 1900-01-01..2200-12-31)")
@@ -59,8 +62,10 @@ final class AppendCommand implements Callable<Integer> {
   public Integer call() throws Exception {
     DateWindows.apply(dateWindow);
     AppendOptions options = AppendOptions.of(store, sales).withColumns(columns.names())
-        .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures);
-    RunRecord run = new RunRecord("append").configure("store", store.toString()).configure("sales", sales == null ? null : sales.toString());
+        .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures)
+        .withPlan(plan.source());
+    RunRecord run = new RunRecord("append").configure("store", store.toString()).configure("sales", sales == null ? null : sales.toString())
+        .configure("plan", plan.file == null ? null : plan.file.toString());
     try (MemoryBudget budget = CliBudgets.root(null)) {
       IngestResult result = StoreAppend.append(options, new StoreUpdate.Policy(StoreUpdate.Mode.CHANGE, !noWait),
           budget);

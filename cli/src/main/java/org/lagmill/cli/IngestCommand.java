@@ -25,7 +25,7 @@ import picocli.CommandLine.Spec;
         "(one row per series and day), with an optional calendar and prices (see docs/formats.md)."},
     footer = {"", "Example:", "  lagmill ingest --sales sales.csv.gz --store stores/chain",
         "  lagmill ingest --sales sales.csv --calendar calendar.csv --prices prices.csv \\",
-        "      --store stores/chain",
+        "      --plan plan.csv --store stores/chain",
         "  lagmill ingest --sales sales.csv --store stores/chain --replace"})
 final class IngestCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
@@ -62,6 +62,8 @@ final class IngestCommand implements Callable<Integer> {
 
   @Mixin ColumnOptions columns;
 
+  @Mixin PlanOptions plan;
+
   @Option(names = "--date-window", paramLabel = "FROM..TO", description = "plausible dates: any date read outside "
       + "stops the run (default: 1900-01-01..2200-12-31)")
   String dateWindow;
@@ -89,10 +91,12 @@ final class IngestCommand implements Callable<Integer> {
     IngestOptions options = IngestOptions.of(sales, store)
         .withColumns(columns.names().withUnitsColumn(unitsColumn))
         .withSalesFormat(SalesFormat.parse(salesFormat)).withMissingRows(MissingRows.parse(missingRows))
-        .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures);
+        .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures)
+        .withPlan(plan.source());
     RunRecord run = new RunRecord("ingest").configure("sales", sales.toString())
         .configure("calendar", calendar == null ? null : calendar.toString())
         .configure("prices", prices == null ? null : prices.toString()).configure("store", store.toString())
+        .configure("plan", plan.file == null ? null : plan.file.toString())
         .configure("missingRows", MissingRows.parse(missingRows).optionValue());
     try (MemoryBudget budget = CliBudgets.root(memoryLimitBytes)) {
       IngestResult result = StoreIngest.ingest(options, new StoreUpdate.Policy(replace ? StoreUpdate.Mode.REPLACE

@@ -3,6 +3,7 @@ package org.lagmill.forecast;
 import java.time.LocalDate;
 import org.lagmill.store.AttributeNesting;
 import org.lagmill.store.ClosureTable;
+import org.lagmill.store.PlanTable;
 import org.lagmill.store.DayCalendar;
 import org.lagmill.store.PriceTable;
 import org.lagmill.store.SalesHistory;
@@ -80,4 +81,5 @@ final class ForecastScratch implements SalesHistory {
   @Override public DayCalendar calendar() { return base.calendar(); }
   @Override public AttributeNesting nesting() { return base.nesting(); }
   @Override public ClosureTable closures() { return base.closures(); }
+  @Override public PlanTable plan() { return base.plan(); }
 }

@@ -31,6 +31,14 @@ final class CalendarAndPrices {
     writer.writeClosures(read.closures(), read.partlyClosedItemPeriods());
   }
 
+  /** Reads and writes the plan file; call after the last series was added. */
+  static void writePlan(StoreWriter writer, PlanSource plan, List<String> warnings) throws IOException {
+    PlanFileReader.PlanReadResult read = PlanFileReader.read(plan.file(), writer.firstDate(), writer.periodDays(),
+        writer.dayCount(), writer.attributes(), writer.seriesCount(), plan.dateColumn(), plan.fromColumn());
+    warnings.addAll(read.warnings());
+    writer.writePlan(read.plan());
+  }
+
   /** Reads and writes the calendar file; call after the last series was added. */
   static void writeCalendar(StoreWriter writer, Path calendarFile, ColumnNames columns, List<String> warnings)
       throws IOException {

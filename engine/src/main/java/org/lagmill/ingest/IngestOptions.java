@@ -24,10 +24,12 @@ import org.lagmill.store.SeriesAttributes;
  * @param missingRows what a day with no row means in long sales (ignored for wide sales, whose empty cells are
  *     unknown)
  * @param closuresFile optional closures CSV (days on which series could not sell), or null
+ * @param plan optional plan file (known-future drivers) with its column names, or null
  */
 public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, Path storeDir, ColumnNames columns,
     SalesFormat salesFormat, Function<SeriesAttributes, DayCalendar> calendarSource,
-    Function<SeriesAttributes, PriceTable> pricesSource, MissingRows missingRows, Path closuresFile) {
+    Function<SeriesAttributes, PriceTable> pricesSource, MissingRows missingRows, Path closuresFile,
+    PlanSource plan) {
 
   public IngestOptions {
     Objects.requireNonNull(salesFile, "salesFile");
@@ -40,7 +42,7 @@ public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, 
   /** Sales only, default column names, format decided from the header. */
   public static IngestOptions of(Path salesFile, Path storeDir) {
     return new IngestOptions(salesFile, null, null, storeDir, ColumnNames.DEFAULTS, SalesFormat.AUTO, null, null,
-        MissingRows.DEFAULT, null);
+        MissingRows.DEFAULT, null, null);
   }
 
   /** The column naming each series ({@code --series-id-column}). */
@@ -54,32 +56,38 @@ public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, 
 
   public IngestOptions withColumns(ColumnNames names) {
     return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, names, salesFormat, calendarSource,
-        pricesSource, missingRows, closuresFile);
+        pricesSource, missingRows, closuresFile, plan);
   }
 
   public IngestOptions withSalesFormat(SalesFormat format) {
     return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, format, calendarSource,
-        pricesSource, missingRows, closuresFile);
+        pricesSource, missingRows, closuresFile, plan);
   }
 
   public IngestOptions withCalendarFile(Path file) {
     return new IngestOptions(salesFile, file, pricesFile, storeDir, columns, salesFormat, calendarSource,
-        pricesSource, missingRows, closuresFile);
+        pricesSource, missingRows, closuresFile, plan);
   }
 
   public IngestOptions withPricesFile(Path file) {
     return new IngestOptions(salesFile, calendarFile, file, storeDir, columns, salesFormat, calendarSource,
-        pricesSource, missingRows, closuresFile);
+        pricesSource, missingRows, closuresFile, plan);
   }
 
   public IngestOptions withClosuresFile(Path file) {
     return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, calendarSource,
-        pricesSource, missingRows, file);
+        pricesSource, missingRows, file, plan);
+  }
+
+  /** A plan file read once the series are known, or null for none. */
+  public IngestOptions withPlan(PlanSource source) {
+    return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, calendarSource,
+        pricesSource, missingRows, closuresFile, source);
   }
 
   public IngestOptions withMissingRows(MissingRows policy) {
     return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, calendarSource,
-        pricesSource, policy, closuresFile);
+        pricesSource, policy, closuresFile, plan);
   }
 
   /** A calendar already parsed, aligned to day 0 = the first sales date. */
@@ -90,7 +98,7 @@ public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, 
   /** A calendar built once the series are known (a keyed column needs the store's attribute codes). */
   public IngestOptions withCalendar(Function<SeriesAttributes, DayCalendar> source) {
     return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, source,
-        pricesSource, missingRows, closuresFile);
+        pricesSource, missingRows, closuresFile, plan);
   }
 
   /** A price table already built, indexed by series in the sales file's row order, days from the first sales date. */
@@ -101,6 +109,6 @@ public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, 
   /** A price table built once the series are known (the price reader maps its keys to series indexes). */
   public IngestOptions withPrices(Function<SeriesAttributes, PriceTable> source) {
     return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, calendarSource,
-        source, missingRows, closuresFile);
+        source, missingRows, closuresFile, plan);
   }
 }

@@ -11,6 +11,7 @@ import java.util.List;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.ClosureTable;
 import org.lagmill.store.Periods;
+import org.lagmill.store.PlanTable;
 import org.lagmill.store.PriceTable;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SalesStore;
@@ -68,8 +69,9 @@ public final class StoreAppend {
     Path storeDir = options.storeDir();
     Path salesFile = options.salesFile();
     if (salesFile == null && options.calendarFile() == null && options.pricesFile() == null
-        && options.closuresFile() == null) {
-      throw new IllegalArgumentException("nothing to append: give --sales, --calendar, --prices or --closures");
+        && options.closuresFile() == null && options.plan() == null) {
+      throw new IllegalArgumentException("nothing to append: give --sales, --calendar, --prices, --closures or "
+          + "--plan");
     }
     try (StoreUpdate update = StoreUpdate.begin(storeDir, policy);
         MemoryBudget stage = budget.child("append")) {
@@ -211,9 +213,15 @@ public final class StoreAppend {
         writer.writeClosures(extended(store.closures(), store.seriesCount()),
             oldFill == null ? 0 : oldFill.partlyClosedItemDays());
       }
+      if (options.plan() != null) {
+        CalendarAndPrices.writePlan(writer, options.plan(), warnings);
+      } else {
+        // Kept as stored; series new to the store have no plan row until a plan file is appended.
+        writer.writePlan(extended(store.plan(), store.seriesCount()));
+      }
       List<StoreManifest.SourceFile> sources = new ArrayList<>(store.manifest().sources());
       sources.addAll(StoreIngest.sourcesOf(options.salesFile(), options.calendarFile(), options.pricesFile(),
-          options.closuresFile()));
+          options.closuresFile(), options.plan() == null ? null : options.plan().file()));
       StoreManifest manifest = writer.finish(sources);
       FillWarnings.add(manifest, 0, warnings);
       return new IngestResult(manifest, warnings);
@@ -227,6 +235,21 @@ public final class StoreAppend {
       @Override public int rangeCount(int s) { return s < oldSeriesCount ? closures.rangeCount(s) : 0; }
       @Override public int firstDayIndex(int s, int k) { return closures.firstDayIndex(s, k); }
       @Override public int lastDayIndex(int s, int k) { return closures.lastDayIndex(s, k); }
+    };
+  }
+
+  /** The old plan, with no plan key for series added by the append. */
+  private static PlanTable extended(PlanTable plan, int oldSeriesCount) {
+    return new PlanTable() {
+      @Override public int columnCount() { return plan.columnCount(); }
+      @Override public String columnName(int c) { return plan.columnName(c); }
+      @Override public List<String> keyAttributeNames() { return plan.keyAttributeNames(); }
+      @Override public int keyOf(int s) { return s < oldSeriesCount ? plan.keyOf(s) : NO_KEY; }
+      @Override public int keyCount() { return plan.keyCount(); }
+      @Override public int changeCount(int k) { return plan.changeCount(k); }
+      @Override public int changeDayIndex(int k, int i) { return plan.changeDayIndex(k, i); }
+      @Override public float changeValue(int k, int i, int c) { return plan.changeValue(k, i, c); }
+      @Override public int reachDayIndex() { return plan.reachDayIndex(); }
     };
   }
 

@@ -63,6 +63,9 @@ public final class StoreIngest {
         if (options.closuresFile() != null) {
           CalendarAndPrices.writeClosures(writer, options.closuresFile(), warnings);
         }
+        if (options.plan() != null) {
+          CalendarAndPrices.writePlan(writer, options.plan(), warnings);
+        }
         manifest = writer.finish(sources(options));
       }
       // A new store's zero fills are all this run's.
@@ -135,7 +138,8 @@ public final class StoreIngest {
   }
 
   static List<StoreManifest.SourceFile> sources(IngestOptions options) throws IOException {
-    return sourcesOf(options.salesFile(), options.calendarFile(), options.pricesFile(), options.closuresFile());
+    return sourcesOf(options.salesFile(), options.calendarFile(), options.pricesFile(), options.closuresFile(),
+        options.plan() == null ? null : options.plan().file());
   }
 
   /** The given files (nulls skipped) with their sizes, as the manifest records them. */

@@ -15,6 +15,7 @@ public final class ArraySalesHistory implements SalesHistory {
   private final SeriesAttributes attributes;
   private final PriceTable prices;
   private final DayCalendar calendar;
+  private final PlanTable plan;
 
   /**
    * @param unitsBySeries one row per series, all of the same length; {@link #UNKNOWN_UNITS} marks unknown days. The
@@ -28,6 +29,11 @@ public final class ArraySalesHistory implements SalesHistory {
   /** As the daily constructor, for a store of {@code periodDays} days per index (prices and calendar per period). */
   public ArraySalesHistory(LocalDate firstDate, int periodDays, int[][] unitsBySeries, SeriesAttributes attributes,
       PriceTable prices, DayCalendar calendar) {
+    this(firstDate, periodDays, unitsBySeries, attributes, prices, calendar, PlanTable.EMPTY);
+  }
+
+  private ArraySalesHistory(LocalDate firstDate, int periodDays, int[][] unitsBySeries, SeriesAttributes attributes,
+      PriceTable prices, DayCalendar calendar, PlanTable plan) {
     this.firstDate = firstDate;
     this.periodDays = Periods.requireValid(periodDays);
     this.unitsBySeries = unitsBySeries;
@@ -40,6 +46,17 @@ public final class ArraySalesHistory implements SalesHistory {
     this.attributes = attributes;
     this.prices = prices;
     this.calendar = calendar;
+    this.plan = plan;
+  }
+
+  /** The same history (sharing its unit arrays) holding {@code plan}. */
+  public ArraySalesHistory withPlan(PlanTable plan) {
+    return new ArraySalesHistory(firstDate, periodDays, unitsBySeries, attributes, prices, calendar, plan);
+  }
+
+  @Override
+  public PlanTable plan() {
+    return plan;
   }
 
   /** A history with one attribute {@code series_id} naming series s0, s1, …, no prices and no calendar. */
@@ -60,7 +77,7 @@ public final class ArraySalesHistory implements SalesHistory {
       Arrays.fill(units[s], source.dayCount(), units[s].length, UNKNOWN_UNITS);
     }
     return new ArraySalesHistory(source.firstDate(), source.periodDays(), units, source.attributes(), source.prices(),
-        source.calendar());
+        source.calendar(), source.plan());
   }
 
   /** Overwrites one day; for scratch copies. */

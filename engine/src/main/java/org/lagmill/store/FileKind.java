@@ -7,7 +7,8 @@ enum FileKind {
   ATTRIBUTES(3, "attributes.bin"),
   PRICES(4, "prices.bin"),
   CALENDAR(5, "calendar.bin"),
-  CLOSURES(6, "closures.bin");
+  CLOSURES(6, "closures.bin"),
+  PLAN(7, "plan.bin");
 
   private final int kindNumber;
   private final String fileName;
@@ -23,5 +24,13 @@ enum FileKind {
 
   String fileName() {
     return fileName;
+  }
+
+  /**
+   * Whether a store may lack the file: stores written before closures were kept have no {@code closures.bin}, and a
+   * store without a plan has no {@code plan.bin}; the manifest lists what a store has.
+   */
+  boolean optional() {
+    return this == CLOSURES || this == PLAN;
   }
 }

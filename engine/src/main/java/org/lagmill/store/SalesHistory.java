@@ -64,6 +64,15 @@ public interface SalesHistory {
   }
 
   /**
+   * Known-future drivers (planned promotions and the like) per plan key, which may reach past the last sales day;
+   * {@link PlanTable#isEmpty()} unless a plan was ingested. Plans are known in advance, so views that cut the history
+   * (a backtest's origin) keep the plan whole.
+   */
+  default PlanTable plan() {
+    return PlanTable.EMPTY;
+  }
+
+  /**
    * Whether the series was (or will be) closed on a day index, which may lie past the last sales day: tells a closed
    * day from an unknown one.
    */

@@ -43,6 +43,7 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
   private final MappedDayCalendar calendar;
   private final ClosureTable closures;
   private final boolean anyClosures;
+  private final PlanTable plan;
   private final long diskBytes;
   private AttributeNesting nesting;
   private volatile boolean closed;
@@ -56,8 +57,8 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
     this.firstDate = manifest.firstLocalDate();
     this.periodDays = manifest.periodDaysOrDaily();
     for (FileKind kind : FileKind.values()) {
-      if (kind == FileKind.CLOSURES && manifest.file(kind.fileName()) == null) {
-        continue;  // stores written before closures were kept have none
+      if (kind.optional() && manifest.file(kind.fileName()) == null) {
+        continue;
       }
       StoreManifest.StoreFile entry = entry(dir, manifest, kind);
       StoreFileFormat.verify(dir.resolve(kind.fileName()), kind, entry.bytes(), entry.checksum());
@@ -98,6 +99,14 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
       closures = mapped;
     }
     anyClosures = !closures.isEmpty();
+    if (manifest.file(FileKind.PLAN.fileName()) == null) {
+      plan = PlanTable.EMPTY;
+    } else {
+      MappedPlanTable mapped = MappedPlanTable.open(dir.resolve(FileKind.PLAN.fileName()),
+          entry(dir, manifest, FileKind.PLAN).bytes(), seriesCount, budget);
+      opened.add(mapped);
+      plan = mapped;
+    }
     diskBytes = manifest.binaryBytes() + Files.size(dir.resolve(StoreManifest.FILE_NAME));
   }
 
@@ -168,6 +177,9 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
     Path dir = StoreGenerations.readableDir(storeDir);
     StoreManifest manifest = StoreManifest.read(dir);
     for (FileKind kind : FileKind.values()) {
+      if (kind.optional() && manifest.file(kind.fileName()) == null) {
+        continue;
+      }
       StoreManifest.StoreFile entry = entry(dir, manifest, kind);
       StoreFileFormat.verify(dir.resolve(kind.fileName()), kind, entry.bytes(), entry.checksum());
     }
@@ -287,7 +299,8 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
   public long offHeapBytes() {
     checkOpen();
     long total = seriesTable.byteCount() + attributes.offHeapBytes() + prices.offHeapBytes()
-        + calendar.offHeapBytes() + (closures instanceof MappedClosureTable mapped ? mapped.offHeapBytes() : 0);
+        + calendar.offHeapBytes() + (closures instanceof MappedClosureTable mapped ? mapped.offHeapBytes() : 0)
+        + (plan instanceof MappedPlanTable mappedPlan ? mappedPlan.offHeapBytes() : 0);
     for (MappedRegion window : unitsWindows) {
       total += window.byteCount();
     }
@@ -443,6 +456,12 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
     return closures;
   }
 
+  @Override
+  public PlanTable plan() {
+    checkOpen();
+    return plan;
+  }
+
   private void checkOpen() {
     if (closed) {
       throw new IllegalStateException("store " + dir + " is closed");
@@ -456,6 +475,9 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
       return;
     }
     closed = true;
+    if (plan instanceof MappedPlanTable mappedPlan) {
+      mappedPlan.close();
+    }
     if (closures instanceof MappedClosureTable mapped) {
       mapped.close();
     }

@@ -41,6 +41,7 @@ public final class StoreWriter implements AutoCloseable {
   private boolean pricesWritten;
   private boolean calendarWritten;
   private boolean closuresWritten;
+  private boolean planWritten;
   private long closedItemDays;
   private long partlyClosedItemPeriods;
   private boolean finished;
@@ -238,6 +239,22 @@ public final class StoreWriter implements AutoCloseable {
     closedItemDays = closures.closedItemDays(seriesCount(), dayCount);
     this.partlyClosedItemPeriods = partlyClosedItemPeriods;
     closuresWritten = true;
+  }
+
+  /**
+   * Writes the plan of every series added (by series index) into {@code plan.bin}; call after the last series. An
+   * empty plan writes no file, so a store without a plan keeps exactly the files it had before plans existed.
+   */
+  public void writePlan(PlanTable plan) throws IOException {
+    checkWritable();
+    if (planWritten) {
+      throw new IllegalStateException("the plan was already written");
+    }
+    seriesSealed = true;
+    if (!plan.isEmpty()) {
+      addFile(PlanFileWriter.write(dir.resolve(FileKind.PLAN.fileName()), plan, seriesCount(), budget));
+    }
+    planWritten = true;
   }
 
   /**

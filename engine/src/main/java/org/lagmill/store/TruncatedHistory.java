@@ -7,7 +7,8 @@ import java.time.LocalDate;
  * A backtest forecasts from this view, so no feature, scale or weight can read a unit it would not have known at the
  * forecast origin; the leak-freedom of a backtest rests on this class, not on the care of each caller.
  *
- * <p>Prices and calendar stay whole: announced shelf prices and the calendar of the horizon are known in advance.
+ * <p>Prices, calendar and plan stay whole: announced shelf prices, the calendar of the horizon and planned promotions
+ * are known in advance.
  */
 public final class TruncatedHistory implements SalesHistory {
   private final SalesHistory source;
@@ -68,4 +69,5 @@ public final class TruncatedHistory implements SalesHistory {
   @Override public DayCalendar calendar() { return source.calendar(); }
   @Override public AttributeNesting nesting() { return source.nesting(); }
   @Override public ClosureTable closures() { return source.closures(); }
+  @Override public PlanTable plan() { return source.plan(); }
 }

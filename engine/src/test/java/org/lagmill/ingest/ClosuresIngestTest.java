@@ -101,7 +101,7 @@ class ClosuresIngestTest {
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store")), budget);
       IngestResult result = StoreAppend.append(new AppendOptions(temp.resolve("store"), null, null, null,
-          ColumnNames.DEFAULTS, closures), budget);
+          ColumnNames.DEFAULTS, closures, null), budget);
       assertEquals(6, result.manifest().dayCount());
       assertEquals(1, result.manifest().fill().closedItemDays());
       try (SalesStore store = SalesStore.open(temp.resolve("store"), budget)) {
@@ -111,8 +111,8 @@ class ClosuresIngestTest {
         assertTrue(store.isClosed(a2, 7));
       }
       IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> StoreAppend.append(
-          new AppendOptions(temp.resolve("store"), null, null, null, ColumnNames.DEFAULTS, null), budget));
-      assertEquals("nothing to append: give --sales, --calendar, --prices or --closures", e.getMessage());
+          new AppendOptions(temp.resolve("store"), null, null, null, ColumnNames.DEFAULTS, null, null), budget));
+      assertEquals("nothing to append: give --sales, --calendar, --prices, --closures or --plan", e.getMessage());
       assertEquals(0, budget.heldBytes());
     }
   }

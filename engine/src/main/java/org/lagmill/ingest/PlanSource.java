@@ -1,0 +1,36 @@
+package org.lagmill.ingest;
+
+import java.nio.file.Path;
+import java.util.Objects;
+
+/**
+ * A plan file and the names of its time columns ({@link PlanFileReader}).
+ *
+ * @param file the plan CSV (optionally {@code .gz})
+ * @param dateColumn the column of a plan whose rows hold for one period ({@code --plan-date-column})
+ * @param fromColumn the column of a plan whose rows hold until the next row ({@code --plan-from-column})
+ */
+public record PlanSource(Path file, String dateColumn, String fromColumn) {
+  public PlanSource {
+    Objects.requireNonNull(file, "file");
+    requireName(dateColumn, "--plan-date-column", PlanFileReader.DEFAULT_DATE_COLUMN);
+    requireName(fromColumn, "--plan-from-column", PlanFileReader.DEFAULT_FROM_COLUMN);
+    if (dateColumn.equals(fromColumn)) {
+      throw new IllegalArgumentException("--plan-date-column and --plan-from-column both name '" + dateColumn
+          + "'; they must differ, since the column's name tells how long a row holds");
+    }
+  }
+
+  /** A plan file with the default column names {@code date} and {@code from}. */
+  public static PlanSource of(Path file) {
+    return new PlanSource(file, PlanFileReader.DEFAULT_DATE_COLUMN, PlanFileReader.DEFAULT_FROM_COLUMN);
+  }
+
+  private static void requireName(String name, String option, String defaultName) {
+    Objects.requireNonNull(name, option);
+    if (name.isEmpty()) {
+      throw new IllegalArgumentException(option + " must name a column, got an empty name; the default is "
+          + defaultName);
+    }
+  }
+}
