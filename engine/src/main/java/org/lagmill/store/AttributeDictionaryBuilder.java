@@ -89,6 +89,33 @@ final class AttributeDictionaryBuilder implements SeriesAttributes {
     return seriesIds.size();
   }
 
+  /**
+   * Gives every value of every attribute of {@code source} the same code it has there, before any series is added:
+   * a shard then codes each value as its whole store does (categorical features and calendar rows agree).
+   *
+   * @throws IllegalStateException when a series or value was added already
+   * @throws IllegalArgumentException when the attribute names differ
+   */
+  void seed(SeriesAttributes source) {
+    if (!seriesIds.isEmpty()) {
+      throw new IllegalStateException("attribute values can only be seeded before the first series");
+    }
+    if (source.attributeCount() != names.length) {
+      throw new IllegalArgumentException("seeding " + names.length + " attributes from " + source.attributeCount());
+    }
+    for (int a = 0; a < names.length; a++) {
+      if (!source.attributeName(a).equals(names[a]) || !values[a].isEmpty()) {
+        throw new IllegalArgumentException("attribute " + a + " is \"" + names[a] + "\", the source's is \""
+            + source.attributeName(a) + "\"");
+      }
+      for (int code = 0; code < source.cardinality(a); code++) {
+        String value = source.value(a, code);
+        codeByValue[a].put(value, code);
+        values[a].add(value);
+      }
+    }
+  }
+
   /** @return the finished file's size in bytes and checksum, through the writer */
   ChecksummedFileWriter write(Path file, MemoryBudget budget) throws IOException {
     int seriesCount = seriesCount();

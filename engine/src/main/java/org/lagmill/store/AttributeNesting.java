@@ -63,12 +63,13 @@ public final class AttributeNesting {
     boolean[] identity = new boolean[count];
     for (int a = 0; a < count; a++) {
       names.add(attributes.attributeName(a));
-      cardinalities[a] = attributes.cardinality(a);
+      // Values the series take, not the dictionary's size: a shard keeps its whole store's dictionaries.
+      cardinalities[a] = usedValueCount(attributes, seriesCount, a);
       identity[a] = cardinalities[a] >= seriesCount;
     }
     boolean[][] under = new boolean[count][count];
     for (int a = 0; a < count; a++) {
-      int[] parentCodeByCode = new int[cardinalities[a]];
+      int[] parentCodeByCode = new int[attributes.cardinality(a)];
       for (int b = 0; b < count; b++) {
         if (a != b) {
           under[a][b] = determines(attributes, seriesCount, a, b, parentCodeByCode);
@@ -80,6 +81,19 @@ public final class AttributeNesting {
       parents[a] = parentOf(a, under, identity, cardinalities);
     }
     return new AttributeNesting(attributes, seriesCount, List.copyOf(names), cardinalities, under, identity, parents);
+  }
+
+  private static int usedValueCount(SeriesAttributes attributes, int seriesCount, int a) {
+    boolean[] used = new boolean[attributes.cardinality(a)];
+    int count = 0;
+    for (int s = 0; s < seriesCount; s++) {
+      int code = attributes.code(s, a);
+      if (!used[code]) {
+        used[code] = true;
+        count++;
+      }
+    }
+    return count;
   }
 
   /** True when every value of {@code a} occurs with exactly one value of {@code b}. */

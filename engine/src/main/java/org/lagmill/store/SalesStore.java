@@ -377,6 +377,18 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
   /** One switch per call picks the width's decoder, whose loop has no branch on width. */
   @Override
   public void readUnits(int seriesIndex, int fromDayIndex, int[] dst, int dstOffset, int count) {
+    readStoredUnits(seriesIndex, fromDayIndex, dst, dstOffset, count);
+    if (anyClosures) {
+      // A closed day reads as unknown for every consumer: no training row, no score, a gap in charts.
+      closures.maskClosed(seriesIndex, fromDayIndex, dst, dstOffset, count);
+    }
+  }
+
+  /**
+   * As {@link #readUnits} but closed days read as stored, not as unknown: for copying a store's units to another
+   * store that carries the same closures (a shard).
+   */
+  public void readStoredUnits(int seriesIndex, int fromDayIndex, int[] dst, int dstOffset, int count) {
     checkOpen();
     checkDays(seriesIndex, fromDayIndex, count);
     if (dstOffset < 0 || dstOffset + count > dst.length) {
@@ -389,10 +401,6 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
       case 0 -> ByteUnitsReader.read(buffer, offset, fromDayIndex, dst, dstOffset, count);
       case 1 -> ShortUnitsReader.read(buffer, offset, fromDayIndex, dst, dstOffset, count);
       default -> IntUnitsReader.read(buffer, offset, fromDayIndex, dst, dstOffset, count);
-    }
-    if (anyClosures) {
-      // A closed day reads as unknown for every consumer: no training row, no score, a gap in charts.
-      closures.maskClosed(seriesIndex, fromDayIndex, dst, dstOffset, count);
     }
   }
 

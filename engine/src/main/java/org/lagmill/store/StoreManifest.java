@@ -36,11 +36,13 @@ import org.lagmill.io.SealedJson;
  * @param nesting each attribute name to the attribute it lies directly under, or null for a root, as
  *     {@link AttributeNesting#parents()} found it when the store was written; null in stores written before it was
  *     recorded (readers compute it from the attributes, see {@link SalesHistory#nesting()})
+ * @param shard which part of which store this store is, when {@code lagmill shard} or {@code ingest --shard} wrote
+ *     it; null, and absent from the file, for a whole store
  */
 public record StoreManifest(int formatVersion, String firstDate, int dayCount,
     @JsonInclude(JsonInclude.Include.NON_NULL) Integer periodDays, int seriesCount,
     List<String> attributeNames, List<SourceFile> sources, List<StoreFile> files, String fingerprint, Fill fill,
-    Map<String, String> nesting) {
+    Map<String, String> nesting, @JsonInclude(JsonInclude.Include.NON_NULL) Shard shard) {
 
   public static final String FILE_NAME = "manifest.json";
   /**
@@ -87,6 +89,20 @@ public record StoreManifest(int formatVersion, String firstDate, int dayCount,
       this(zeroFilledItemDays, unknownItemDays, closedItemDays, 0);
     }
   }
+
+  /**
+   * The part of a sharded store this store holds ({@link ShardAssignment} is the rule).
+   *
+   * @param part this shard's number, {@code 0 .. partCount-1}
+   * @param partCount how many shards the store was split into
+   * @param attribute the attribute whose value chose each series' shard
+   * @param hash the name of the hash rule, {@link ShardAssignment#HASH_NAME}
+   * @param sourceName what the shards were split from: the source store's fingerprint, or the sales file's name and
+   *     size for {@code ingest --shard}; every shard of one split carries the same text
+   * @param sourceSeriesCount series in the whole store (the sum over every shard)
+   */
+  public record Shard(int part, int partCount, String attribute, String hash, String sourceName,
+      int sourceSeriesCount) {}
 
   public StoreManifest {
     attributeNames = List.copyOf(attributeNames);

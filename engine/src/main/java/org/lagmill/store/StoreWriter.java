@@ -9,6 +9,7 @@ import java.nio.file.Path;
 import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Map;
 import org.lagmill.memory.MemoryBudget;
 
 /**
@@ -46,6 +47,8 @@ public final class StoreWriter implements AutoCloseable {
   private long partlyClosedItemPeriods;
   private boolean finished;
   private boolean closed;
+  private Map<String, String> recordedNesting;
+  private StoreManifest.Shard shard;
 
   /**
    * @param dir directory to write into; created when missing, must hold no store files
@@ -101,6 +104,26 @@ public final class StoreWriter implements AutoCloseable {
   /** The series added so far; a price or calendar reader maps its keys to series through it. */
   public SeriesAttributes attributes() {
     return attributes;
+  }
+
+  /**
+   * Codes every attribute value as {@code source} does, before the first series (a shard keeps its whole store's
+   * dictionaries, so a value's code, and with it a categorical feature or a calendar row, is the same in every
+   * shard). Values no series of this store takes stay in the dictionaries.
+   */
+  public void seedAttributeValues(SeriesAttributes source) {
+    checkWritable();
+    attributes.seed(source);
+  }
+
+  /**
+   * Records this store as one shard of a split: the manifest's {@code shard}, and the whole store's nesting as its
+   * {@code nesting} instead of the one found in this shard's series alone.
+   */
+  public void recordShard(StoreManifest.Shard shard, Map<String, String> wholeStoreNesting) {
+    checkWritable();
+    this.shard = shard;
+    this.recordedNesting = wholeStoreNesting;
   }
 
   /**
@@ -296,7 +319,8 @@ public final class StoreWriter implements AutoCloseable {
         periodDays == Periods.DAILY ? null : periodDays, seriesCount(), attributeNames, sources, ordered,
         StoreManifest.fingerprintOf(ordered),
         new StoreManifest.Fill(zeroFilledItemDays, unknownItemDays, closedItemDays, partlyClosedItemPeriods),
-        AttributeNesting.detect(attributes, seriesCount()).parents());
+        recordedNesting != null ? recordedNesting : AttributeNesting.detect(attributes, seriesCount()).parents(),
+        shard);
     manifest.write(dir);
     finished = true;
     close();

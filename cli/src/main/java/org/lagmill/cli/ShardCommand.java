@@ -1,0 +1,61 @@
+package org.lagmill.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.Callable;
+import org.lagmill.memory.MemoryBudget;
+import org.lagmill.store.ShardAssignment;
+import org.lagmill.store.StoreManifest;
+import org.lagmill.store.StoreSharding;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/** {@code lagmill shard}: splits a store into complete stores by a hash of one attribute's value. */
+@Command(name = "shard", header = "Split a store into N complete stores by one attribute, one per machine.",
+    mixinStandardHelpOptions = true,
+    description = {"Split a store into N stores DIR/shard-0 .. DIR/shard-(N-1): each series goes to the shard its",
+        "value of --by hashes to (64-bit FNV-1a of the UTF-8 text, modulo N), with its prices and closures;",
+        "every shard gets the calendar. Each shard is a complete store with its own checksums (see",
+        "docs/distributed.md)."},
+    footer = {"", "Example:", "  lagmill shard --store stores/chain --parts 3 --by item --out stores/chain-shards"})
+final class ShardCommand implements Callable<Integer> {
+  @Spec CommandSpec spec;
+
+  @Option(names = "--store", required = true, paramLabel = "DIR", description = "store to split")
+  Path store;
+
+  @Option(names = "--parts", required = true, paramLabel = "N", description = "number of shards, 1 to "
+      + ShardAssignment.MAX_PART_COUNT)
+  int parts;
+
+  @Option(names = "--by", required = true, paramLabel = "ATTR", description = "attribute whose value picks each "
+      + "series' shard; every series with the same value lands in the same shard (e.g. item)")
+  String by;
+
+  @Option(names = "--out", required = true, paramLabel = "DIR", description = "folder for the shard stores; an "
+      + "existing shard store there is replaced")
+  Path out;
+
+  @Option(names = "--memory-limit", paramLabel = "SIZE", converter = ByteSizeConverter.class,
+      description = "off-heap budget: bytes, or with k, m, g (1024-based), e.g. 512m or 2g (default: none)")
+  Long memoryLimitBytes;
+
+  @Override
+  public Integer call() throws Exception {
+    PrintWriter console = spec.commandLine().getOut();
+    try (MemoryBudget budget = CliBudgets.root(memoryLimitBytes)) {
+      List<StoreManifest> manifests = StoreSharding.shard(store, parts, by, out, budget);
+      for (StoreManifest manifest : manifests) {
+        console.printf("shard %d of %d: %d series, %d bytes in %s%n", manifest.shard().part(), parts,
+            manifest.seriesCount(), manifest.binaryBytes(),
+            out.resolve(StoreSharding.shardDirectoryName(manifest.shard().part())));
+      }
+      console.printf("split %d series by %s into %d shards, peak off-heap %d bytes%n",
+          manifests.get(0).shard().sourceSeriesCount(), by, parts, budget.peakBytes());
+    }
+    return ExitCodes.OK;
+  }
+}
