@@ -20,7 +20,7 @@ import picocli.CommandLine.Spec;
         "value of --by hashes to (64-bit FNV-1a of the UTF-8 text, modulo N), with its prices and closures;",
         "every shard gets the calendar. Each shard is a complete store with its own checksums (see",
         "docs/distributed.md)."},
-    footer = {"", "Example:", "  lagmill shard --store stores/chain --parts 3 --by item --out stores/chain-shards"})
+    footer = {"", "Example:", "  lagmill shard --store stores/chain --parts 3 --by item --out shards"})
 final class ShardCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
 
