@@ -3,6 +3,7 @@ package org.lagmill.ingest;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.List;
+import org.lagmill.store.ClosureTable;
 import org.lagmill.store.StoreWriter;
 
 /**
@@ -22,13 +23,14 @@ final class CalendarAndPrices {
     writer.writePrices(read.prices());
   }
 
-  /** Reads and writes the closures file; call after the last series was added. */
-  static void writeClosures(StoreWriter writer, Path closuresFile, List<String> warnings) throws IOException {
+  /** Reads and writes the closures file; call after the last series was added. Returns the closed periods. */
+  static ClosureTable writeClosures(StoreWriter writer, Path closuresFile, List<String> warnings) throws IOException {
     ClosuresFileReader.ClosuresReadResult read = ClosuresFileReader.read(closuresFile, writer.firstDate(),
         writer.periodDays(), writer.attributes(), writer.seriesCount(), ClosuresFileReader.DEFAULT_FROM_COLUMN,
         ClosuresFileReader.DEFAULT_UNTIL_COLUMN);
     warnings.addAll(read.warnings());
     writer.writeClosures(read.closures(), read.partlyClosedItemPeriods());
+    return read.closures();
   }
 
   /** Reads and writes the plan file; call after the last series was added. */

@@ -124,13 +124,18 @@ public final class LongSalesReader {
       int[] units = new int[dayCount];
       long zeroFilled = 0;
       int missingValue = missingRows == MissingRows.ZERO ? 0 : SalesHistory.UNKNOWN_UNITS;
+      long[] zeroFilledBits = new long[missingValue == 0 ? (int) (((long) seriesCount * dayCount + 63) >>> 6) : 0];
       for (int s = 0; s < seriesCount; s++) {
         matrix.read(s * dayCount, units, 0, dayCount);
         // Before the series' first row nothing was recorded: unknown whatever the policy.
         for (int d = firstDayIndexBySeries[s]; d < dayCount; d++) {
           if (units[d] == SalesHistory.UNKNOWN_UNITS) {
             units[d] = missingValue;
-            zeroFilled += missingValue == 0 ? 1 : 0;
+            if (missingValue == 0) {
+              zeroFilled++;
+              long bit = (long) s * dayCount + d;
+              zeroFilledBits[(int) (bit >>> 6)] |= 1L << (bit & 63);
+            }
           }
         }
         for (int d = 0; d < dayCount; d++) {
@@ -140,7 +145,7 @@ public final class LongSalesReader {
         }
         sink.accept(valuesBySeries.get(s), units);
       }
-      return new LongSalesRead(header, zeroFilled);
+      return new LongSalesRead(header, zeroFilled, zeroFilledBits);
     }
   }
 

@@ -7,6 +7,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import org.lagmill.memory.MemoryBudget;
+import org.lagmill.store.ClosureTable;
 import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreUpdate;
 import org.lagmill.store.StoreWriter;
@@ -48,7 +49,8 @@ public final class StoreIngest {
       Path temp = update.buildingDir();
       List<String> warnings = new ArrayList<>();
       StoreManifest manifest;
-      try (StoreWriter writer = format == SalesFormat.LONG ? writeLong(options, temp, stage)
+      LongSalesRead[] longRead = new LongSalesRead[1];
+      try (StoreWriter writer = format == SalesFormat.LONG ? writeLong(options, temp, stage, longRead)
           : writeWide(options, temp, stage)) {
         if (options.pricesSource() != null) {
           writer.writePrices(options.pricesSource().apply(writer.attributes()));
@@ -60,8 +62,11 @@ public final class StoreIngest {
         } else if (options.calendarFile() != null) {
           CalendarAndPrices.writeCalendar(writer, options.calendarFile(), columns, warnings);
         }
-        if (options.closuresFile() != null) {
-          CalendarAndPrices.writeClosures(writer, options.closuresFile(), warnings);
+        ClosureTable closures = options.closuresFile() == null ? ClosureTable.EMPTY
+            : CalendarAndPrices.writeClosures(writer, options.closuresFile(), warnings);
+        if (longRead[0] != null) {
+          writer.addZeroFilledItemDays(longRead[0].zeroFilledItemDays()
+              - longRead[0].zeroFilledClosedItemDays(closures));
         }
         if (options.plan() != null) {
           CalendarAndPrices.writePlan(writer, options.plan(), warnings);
@@ -94,14 +99,18 @@ public final class StoreIngest {
     }
   }
 
-  /** Reads a long file in its two passes into a new writer; the writer is closed when this fails. */
-  private static StoreWriter writeLong(IngestOptions options, Path dir, MemoryBudget budget) throws IOException {
+  /**
+   * Reads a long file in its two passes into a new writer; the writer is closed when this fails. The read (with its
+   * zero fills, counted once the closures are known) is left in {@code readOut[0]}.
+   */
+  private static StoreWriter writeLong(IngestOptions options, Path dir, MemoryBudget budget, LongSalesRead[] readOut)
+      throws IOException {
     ColumnNames columns = options.columns();
     StoreWriterSink sink = new StoreWriterSink(options.salesFile(), dir, columns.seriesIdColumn(), budget);
     try {
       LongSalesRead read = LongSalesReader.read(options.salesFile(), columns.dateColumn(), columns.unitsColumn(),
           columns.seriesIdColumn(), options.missingRows(), budget, sink);
-      sink.writer().addZeroFilledItemDays(read.zeroFilledItemDays());
+      readOut[0] = read;
       return sink.writer();
     } catch (UncheckedIOException e) {
       IOException cause = e.getCause();
