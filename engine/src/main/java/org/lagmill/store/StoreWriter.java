@@ -37,6 +37,14 @@ public final class StoreWriter implements AutoCloseable {
   private final IntArrayList maxUnits = new IntArrayList();
   private final List<StoreManifest.StoreFile> files = new ArrayList<>();
   private long unknownItemDays;
+  /**
+   * Each series' runs of unknown days (first, last pairs), so that closed days that were unknown anyway are counted
+   * once, as closed; runs are few per series (before a first row, after a last one), so this stays small.
+   */
+  private final IntArrayList unknownRuns = new IntArrayList();
+  /** End (exclusive) in {@link #unknownRuns} of each series' runs. */
+  private final IntArrayList unknownRunsEnd = new IntArrayList();
+  private int unknownRunStart = -1;
   private long zeroFilledItemDays;
   private boolean seriesSealed;
   private boolean pricesWritten;
@@ -152,9 +160,24 @@ public final class StoreWriter implements AutoCloseable {
       if (u > 0 && firstSale < 0) {
         firstSale = d;
       }
-      unknownItemDays += u == SalesHistory.UNKNOWN_UNITS ? 1 : 0;
+      if (u == SalesHistory.UNKNOWN_UNITS) {
+        unknownItemDays++;
+        if (unknownRunStart < 0) {
+          unknownRunStart = d;
+        }
+      } else if (unknownRunStart >= 0) {
+        unknownRuns.add(unknownRunStart);
+        unknownRuns.add(d - 1);
+        unknownRunStart = -1;
+      }
       max = Math.max(max, u);
     }
+    if (unknownRunStart >= 0) {
+      unknownRuns.add(unknownRunStart);
+      unknownRuns.add(dayCount - 1);
+      unknownRunStart = -1;
+    }
+    unknownRunsEnd.add(unknownRuns.size());
     UnitsWidth width = UnitsWidth.forMaxValue(max);
     attributes.add(attributeValues);
     unitsOffsets.add(this.units.position());
@@ -260,8 +283,35 @@ public final class StoreWriter implements AutoCloseable {
     seriesSealed = true;
     addFile(ClosuresFileWriter.write(dir.resolve(FileKind.CLOSURES.fileName()), closures, seriesCount(), budget));
     closedItemDays = closures.closedItemDays(seriesCount(), dayCount);
+    unknownItemDays -= closedUnknownItemDays(closures);
     this.partlyClosedItemPeriods = partlyClosedItemPeriods;
     closuresWritten = true;
+  }
+
+  /** Item-days both unknown in the units and closed: counted as closed only. */
+  private long closedUnknownItemDays(ClosureTable closures) {
+    if (closures.isEmpty()) {
+      return 0;
+    }
+    long total = 0;
+    for (int s = 0; s < seriesCount(); s++) {
+      int run = s == 0 ? 0 : unknownRunsEnd.getInt(s - 1);
+      int runEnd = unknownRunsEnd.getInt(s);
+      int k = 0;
+      int rangeCount = closures.rangeCount(s);
+      // Both lists are sorted and disjoint within themselves: walk them together.
+      while (run < runEnd && k < rangeCount) {
+        int first = Math.max(unknownRuns.getInt(run), closures.firstDayIndex(s, k));
+        int last = Math.min(unknownRuns.getInt(run + 1), closures.lastDayIndex(s, k));
+        total += Math.max(0, last - first + 1);
+        if (unknownRuns.getInt(run + 1) < closures.lastDayIndex(s, k)) {
+          run += 2;
+        } else {
+          k++;
+        }
+      }
+    }
+    return total;
   }
 
   /**

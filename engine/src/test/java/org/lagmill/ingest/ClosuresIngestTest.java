@@ -121,7 +121,8 @@ class ClosuresIngestTest {
    * A till export writes no row on a day a shop is shut, so under {@code --missing-rows zero} those days would be
    * counted as zero-filled and as closed at once. Hand-worked: without closures A/s1 has 3 days with no row
    * (03-02 .. 03-04), B/s1 3 (03-02, 03-04, 03-05), A/s2 2 (03-03, 03-04; 03-01 lies before its first row). Shop s1
-   * shut 03-03 .. 03-04 takes 2 of A/s1's and 1 of B/s1's (B/s1 has a row on 03-03): 8 - 3 = 5 zero-filled, 4 closed.
+   * shut 03-03 .. 03-04 takes 2 of A/s1's and 1 of B/s1's (B/s1 has a row on 03-03): 8 - 3 = 5 zero-filled. Shop s2
+   * shut on 03-01, before A/s2's first row: that unknown day counts as closed only. Closed: 4 + 1 = 5, unknown 0.
    */
   @Test
   void shouldNotCountClosedDaysWithNoRowAsZeroFilled() throws Exception {
@@ -134,11 +135,12 @@ class ClosuresIngestTest {
         A,s2,2025-03-02,3
         A,s2,2025-03-05,2
         """);
-    Path closures = Files.writeString(temp.resolve("shut.csv"), "shop,from,until\ns1,2025-03-03,2025-03-04\n");
+    Path closures = Files.writeString(temp.resolve("shut.csv"), "shop,from,until\ns1,2025-03-03,2025-03-04\n"
+        + "s2,2025-03-01,2025-03-01\n");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       IngestResult result = StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store")).withClosuresFile(closures)
           .withColumns(ColumnNames.DEFAULTS.withSalesDateColumn("day").withUnitsColumn("qty")), budget);
-      assertEquals(new StoreManifest.Fill(5, 1, 4), result.manifest().fill());
+      assertEquals(new StoreManifest.Fill(5, 0, 5), result.manifest().fill());
       assertTrue(result.warnings().get(0).startsWith("read 5 item-days with no row in the long sales as zero sales"),
           result.warnings().toString());
       assertEquals(0, budget.heldBytes());
