@@ -12,6 +12,7 @@ import org.lagmill.memory.MemoryBudget;
 import org.lagmill.report.ReportAssembler;
 import org.lagmill.report.ReportData;
 import org.lagmill.store.SalesStore;
+import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreSummary;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -72,9 +73,11 @@ final class BacktestCommand implements Callable<Integer> {
         + " --origins " + originCount, store.toString());
     BacktestRun backtest;
     CombinedBacktestResult[] combined = new CombinedBacktestResult[1];
+    StoreManifest[] fill = new StoreManifest[1];
     try (MemoryBudget budget = CliBudgets.root(memoryLimitBytes);
         SalesStore opened = SalesStore.open(store, budget.child("store"))) {
       report.data(ReportAssembler.dataSummary(StoreSummary.of(opened)));
+      fill[0] = opened.manifest();
       run.endStage("open store", opened.offHeapBytes(), 0);
       TrainingPlan plan = training.plan(spec, opened.dayCount() - 1);
       run.configure("store", store.toString()).configure("origins", originCount)
@@ -111,7 +114,8 @@ final class BacktestCommand implements Callable<Integer> {
     Object written = combined[0] != null ? combined[0] : backtest.result;
     AtomicFiles.write(reportDir.resolve(ReportOutput.BACKTEST_FILE), RunRecord.JSON.writeValueAsBytes(written));
     Path html = ReportOutput.write(report.build(), reportDir);
-    run.result("backtest", written);
+    run.result("backtest", written).result("levelsScored", ScoredLevels.describe(backtest.result.origins().get(0)
+        .model())).result("fill", fill[0].fill());
     run.write(reportDir);
     PrintWriter out = commandSpec.commandLine().getOut();
     if (json) {
@@ -121,6 +125,7 @@ final class BacktestCommand implements Callable<Integer> {
         BacktestRun.printMembers(out, combined[0]);
       }
       backtest.print(out);
+      ScoredLevels.print(out, backtest.result.origins().get(0).model(), fill[0]);
       out.println("report written to " + html);
     }
     return ExitCodes.OK;

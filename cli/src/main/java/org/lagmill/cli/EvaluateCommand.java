@@ -93,6 +93,7 @@ final class EvaluateCommand implements Callable<Integer> {
         Map<String, Object> document = new LinkedHashMap<>();
         document.put("forecast", result);
         document.put("baselineWrmsse", baselines);
+        document.put("fill", opened.manifest().fill());
         out.println(RunRecord.JSON.writeValueAsString(document));
         return ExitCodes.OK;
       }
@@ -108,6 +109,7 @@ final class EvaluateCommand implements Callable<Integer> {
               result.wspl()));
       baselines.forEach((name, value) -> out.printf(Locale.ROOT, "  baseline %-24s WRMSSE %.4f  (model / baseline %.3f)%n",
           name, value, result.wrmsse() / value));
+      ScoredLevels.print(out, result, opened.manifest());
     }
     return ExitCodes.OK;
   }

@@ -127,7 +127,7 @@ final class ForecastCommand implements Callable<Integer> {
             + "forecast file's closed column)");
         err.flush();
       }
-      run.result("closedSeriesDays", closedSeriesDays);
+      run.result("closedSeriesDays", closedSeriesDays).result("fill", opened.manifest().fill());
       run.endStage("forecast", opened.offHeapBytes() + forecastBudget.peakBytes(), (long) forecastSeriesCount
           * horizon);
       if (wide) {

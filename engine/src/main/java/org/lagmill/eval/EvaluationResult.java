@@ -15,10 +15,12 @@ import java.util.List;
  * @param unknownTrainingCount bottom series-days before the origin whose units were unknown (counted as 0)
  * @param levelSource where the levels came from: {@code detected} (the nesting found in the data) or
  *     {@code declared} ({@code --hierarchy} or {@code --level})
+ * @param levelBasis what the levels were built from: the detected chains ({@code dept > grp > sku; shop}) or the
+ *     option as given ({@link Hierarchy#basis()})
  */
 public record EvaluationResult(int originDay, int horizon, String weightBasis, double wrmsse, Double wspl,
     List<LevelResult> levels, List<HorizonDayError> horizonDays, long unknownActualCount, long unknownTrainingCount,
-    String levelSource) {
+    String levelSource, String levelBasis) {
 
   public EvaluationResult {
     levels = List.copyOf(levels);

@@ -30,6 +30,7 @@ public final class Evaluator {
   private final Aggregator aggregator;
   private final int weightDayCount;
   private final Hierarchy.Source levelSource;
+  private final String levelBasis;
 
   /** As {@link #Evaluator(SalesHistory, Hierarchy, int)} for a horizon of {@link #DEFAULT_WEIGHT_DAYS} periods. */
   public Evaluator(SalesHistory history, Hierarchy hierarchy) {
@@ -38,7 +39,8 @@ public final class Evaluator {
 
   /** Weights by {@link #weightDayCount(int, int)} for forecasts of {@code horizonDays} periods. */
   public Evaluator(SalesHistory history, Hierarchy hierarchy, int horizonDays) {
-    this(history, hierarchy.bind(history), weightDayCount(history.periodDays(), horizonDays), hierarchy.source());
+    this(history, hierarchy.bind(history), weightDayCount(history.periodDays(), horizonDays), hierarchy.source(),
+        hierarchy.basis());
   }
 
   /**
@@ -48,11 +50,13 @@ public final class Evaluator {
    * @param weightDayCount days before the origin that set the weights
    */
   public Evaluator(SalesHistory history, List<Level> levels, int weightDayCount) {
-    this(history, levels, weightDayCount, Hierarchy.Source.DECLARED);
+    this(history, levels, weightDayCount, Hierarchy.Source.DECLARED, "levels given by the caller");
   }
 
-  private Evaluator(SalesHistory history, List<Level> levels, int weightDayCount, Hierarchy.Source levelSource) {
+  private Evaluator(SalesHistory history, List<Level> levels, int weightDayCount, Hierarchy.Source levelSource,
+      String levelBasis) {
     this.levelSource = levelSource;
+    this.levelBasis = levelBasis;
     this.history = history;
     this.aggregator = new Aggregator(levels);
     this.weightDayCount = weightDayCount;
@@ -192,7 +196,7 @@ public final class Evaluator {
     }
     return new EvaluationResult(origin, horizon, statistics.weightBasis().name(), wrmsse / levelCount,
         quantiles == null ? null : wspl / levelCount, levelResults, days, actuals.unknownCount(),
-        statistics.unknownTrainingCount(), levelSource.label());
+        statistics.unknownTrainingCount(), levelSource.label(), levelBasis);
   }
 
   /** The aggregates with the largest share of the WRMSSE, largest first, ties by name; at most the kept count. */

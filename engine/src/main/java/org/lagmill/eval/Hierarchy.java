@@ -38,11 +38,23 @@ public final class Hierarchy {
   private final List<List<String>> levelAttributeNames;
   private final List<List<String>> declaredChains;
   private final Source source;
+  private final String basis;
 
-  private Hierarchy(List<List<String>> levelAttributeNames, List<List<String>> declaredChains, Source source) {
+  private Hierarchy(List<List<String>> levelAttributeNames, List<List<String>> declaredChains, Source source,
+      String basis) {
     this.levelAttributeNames = levelAttributeNames;
     this.declaredChains = declaredChains;
     this.source = source;
+    this.basis = basis;
+  }
+
+  /** Chains as the report and {@code --json} show them: {@code dept > grp > sku; shop}. */
+  static String chainsText(List<List<String>> chains) {
+    List<String> parts = new ArrayList<>();
+    for (List<String> chain : chains) {
+      parts.add(String.join(" > ", chain));
+    }
+    return String.join("; ", parts);
   }
 
   /**
@@ -67,7 +79,8 @@ public final class Hierarchy {
       }
       chains.add(List.copyOf(chain));
     }
-    return new Hierarchy(crossProduct(chains), List.copyOf(chains), Source.DECLARED);
+    return new Hierarchy(crossProduct(chains), List.copyOf(chains), Source.DECLARED,
+        "--hierarchy " + chainsText(chains));
   }
 
   /**
@@ -121,7 +134,8 @@ public final class Hierarchy {
       }
       copy.add(List.copyOf(level));
     }
-    return new Hierarchy(List.copyOf(copy), List.of(), Source.DECLARED);
+    return new Hierarchy(List.copyOf(copy), List.of(), Source.DECLARED,
+        "--level " + String.join("; ", copy.stream().map(Level::nameOf).toList()));
   }
 
   /**
@@ -146,12 +160,23 @@ public final class Hierarchy {
       levels.add(bottom);
     }
     levels.sort(Comparator.comparingInt(List::size));
-    return new Hierarchy(List.copyOf(levels), List.of(), Source.DETECTED);
+    List<List<String>> chains = nesting.chains();
+    return new Hierarchy(List.copyOf(levels), List.of(), Source.DETECTED,
+        chains.isEmpty() ? "no attributes" : chainsText(chains));
   }
 
   /** Where the levels came from. */
   public Source source() {
     return source;
+  }
+
+  /**
+   * What the levels were built from, for the report and {@code --json}: the detected chains
+   * ({@code dept > grp > sku; shop}: each chain outermost first, chains apart by ';'), or the option as given
+   * ({@code --hierarchy region > store}, {@code --level total; store}).
+   */
+  public String basis() {
+    return basis;
   }
 
   public int levelCount() {

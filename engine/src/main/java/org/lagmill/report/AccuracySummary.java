@@ -1,5 +1,6 @@
 package org.lagmill.report;
 
+import com.fasterxml.jackson.annotation.JsonInclude;
 import java.time.LocalDate;
 import java.util.Collections;
 import java.util.LinkedHashMap;
@@ -20,6 +21,10 @@ import java.util.Map;
  * @param origins one row per backtest origin, in date order; empty when a single split was scored
  * @param worstAggregates where the forecast fails: per level, the aggregates with the largest share of the WRMSSE,
  *     averaged over origins, largest first; empty when not recorded
+ * @param levelSource where the scored levels came from: {@code detected} (the nesting found in the data, the default)
+ *     or {@code declared} ({@code --hierarchy} or {@code --level}); null when not recorded
+ * @param levelBasis what they were built from: the detected chains ({@code dept > grp > sku; shop}) or the option as
+ *     given; null when not recorded
  */
 public record AccuracySummary(
     String referenceBaseline,
@@ -29,7 +34,17 @@ public record AccuracySummary(
     Double modelWspl,
     Map<String, Double> baselineWspl,
     List<OriginScore> origins,
-    List<WorstAggregate> worstAggregates) {
+    List<WorstAggregate> worstAggregates,
+    @JsonInclude(JsonInclude.Include.NON_NULL) String levelSource,
+    @JsonInclude(JsonInclude.Include.NON_NULL) String levelBasis) {
+
+  /** As the canonical constructor, without where the levels came from. */
+  public AccuracySummary(String referenceBaseline, List<LevelScore> levels, double modelWrmsse,
+      Map<String, Double> baselineWrmsse, Double modelWspl, Map<String, Double> baselineWspl,
+      List<OriginScore> origins, List<WorstAggregate> worstAggregates) {
+    this(referenceBaseline, levels, modelWrmsse, baselineWrmsse, modelWspl, baselineWspl, origins, worstAggregates,
+        null, null);
+  }
 
   /** As the canonical constructor, without the worst aggregates. */
   public AccuracySummary(String referenceBaseline, List<LevelScore> levels, double modelWrmsse,

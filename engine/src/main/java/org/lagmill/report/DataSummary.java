@@ -6,6 +6,7 @@ import java.util.Collections;
 import java.util.LinkedHashMap;
 import java.util.Map;
 import org.lagmill.store.Periods;
+import org.lagmill.store.StoreManifest;
 
 /**
  * What the sales history holds and how compactly it is stored. Every field may be null when unknown.
@@ -23,6 +24,8 @@ import org.lagmill.store.Periods;
  * @param periodDays days per period of the store (7 weekly); null for a daily store, whose day counts are days. With
  *     another period, "day" in the other fields' names means one period: {@code dayCount} counts weeks, item-days are
  *     item-weeks
+ * @param fill item-days not read as a count from the input (zero-filled, unknown, closed, partly closed periods), as
+ *     the store's manifest records them; null when not recorded
  */
 public record DataSummary(
     Long seriesCount,
@@ -34,7 +37,16 @@ public record DataSummary(
     Double storeBytesPerItemDay,
     Double int64BytesPerItemDay,
     Double csvBytesPerItemDay,
-    @JsonInclude(JsonInclude.Include.NON_NULL) Integer periodDays) {
+    @JsonInclude(JsonInclude.Include.NON_NULL) Integer periodDays,
+    @JsonInclude(JsonInclude.Include.NON_NULL) StoreManifest.Fill fill) {
+
+  /** A summary without fill counts. */
+  public DataSummary(Long seriesCount, Integer dayCount, LocalDate firstDate, LocalDate lastDate,
+      Map<String, Long> attributeCardinalities, Double zeroDayShare, Double storeBytesPerItemDay,
+      Double int64BytesPerItemDay, Double csvBytesPerItemDay, Integer periodDays) {
+    this(seriesCount, dayCount, firstDate, lastDate, attributeCardinalities, zeroDayShare, storeBytesPerItemDay,
+        int64BytesPerItemDay, csvBytesPerItemDay, periodDays, null);
+  }
 
   /** A daily history's summary. */
   public DataSummary(Long seriesCount, Integer dayCount, LocalDate firstDate, LocalDate lastDate,

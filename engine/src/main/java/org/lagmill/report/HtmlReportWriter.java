@@ -37,7 +37,7 @@ public final class HtmlReportWriter {
     String periodUnit = report.data() == null ? "day" : report.data().periodUnit();
     b.append(contents());
     // a planner reads from the top: how good, where it fails, the charts; engineering details and storage last
-    b.append(PlannerSections.headline(report.accuracy(), periodUnit));
+    b.append(PlannerSections.headline(report.accuracy(), report.data(), periodUnit));
     b.append(PlannerSections.failures(report.accuracy(), periodUnit));
     b.append(SeriesSection.render(report.series(), periodUnit));
     b.append(DriversSection.render(report.drivers(), periodUnit));

@@ -18,12 +18,12 @@ final class PlannerSections {
 
   private PlannerSections() {}
 
-  static String headline(AccuracySummary a, String periodUnit) {
+  static String headline(AccuracySummary a, DataSummary data, String periodUnit) {
     String heading = "How good is the forecast";
     if (a == null) {
       return Html.section("headline", heading, Html.absent("No accuracy was measured for this report: run lagmill "
           + "backtest on the same store and pass its folder with forecast --backtest DIR, or score a past forecast "
-          + "with lagmill evaluate --report DIR."));
+          + "with lagmill evaluate --report DIR.") + fillNote(data, periodUnit));
     }
     StringBuilder b = new StringBuilder("<p class=\"headline\">").append(ReportFormat.escape(plainWords(a,
         periodUnit))).append("</p>");
@@ -42,7 +42,39 @@ final class PlannerSections {
         + "the history; lower is better) so levels and baselines compare directly; MAE and bias are in units sold per "
         + periodUnit + " and per aggregate of the level. " + (a.origins().size() > 1 ? "Means over "
         + a.origins().size() + " backtest origins." : "One origin.")));
+    b.append(levelsNote(a));
+    b.append(fillNote(data, periodUnit));
     return Html.section("headline", heading, b.toString());
+  }
+
+  /** Which levels were scored and where they came from, so a reader knows what the WRMSSE averages over. */
+  static String levelsNote(AccuracySummary a) {
+    if (a.levelSource() == null) {
+      return "";
+    }
+    List<String> names = a.levels().stream().map(AccuracySummary.LevelScore::levelName).toList();
+    String from = "detected".equals(a.levelSource())
+        ? "from how the attributes nest in the data (the default): " + a.levelBasis()
+        : "as declared with " + a.levelBasis();
+    return Html.note("Levels scored (" + names.size() + "): " + String.join(", ", names) + "; " + from + ".");
+  }
+
+  /** What the store filled, left unknown or holds as closed, with counts: nothing a score rests on is silent. */
+  static String fillNote(DataSummary data, String periodUnit) {
+    if (data == null || data.fill() == null) {
+      return "";
+    }
+    org.lagmill.store.StoreManifest.Fill fill = data.fill();
+    String item = "item-" + periodUnit + "s";
+    StringBuilder text = new StringBuilder(String.format(Locale.ROOT, "Data: %s %s with no row in long sales read "
+        + "as zero sales; %s %s unknown and %s closed, both left out of training and scores",
+        ReportFormat.count(fill.zeroFilledItemDays()), item, ReportFormat.count(fill.unknownItemDays()), item,
+        ReportFormat.count(fill.closedItemDays())));
+    if (fill.partlyClosedItemDays() > 0) {
+      text.append(String.format(Locale.ROOT, "; %s %s partly closed, kept open",
+          ReportFormat.count(fill.partlyClosedItemDays()), item));
+    }
+    return Html.note(text.append('.').toString());
   }
 
   /** The headline sentence: model against the best baseline, then the error in units at the top and bottom. */

@@ -26,7 +26,7 @@ public final class ReportAssembler {
     return new DataSummary((long) store.seriesCount(), store.dayCount(), store.firstDate(), store.lastDate(),
         cardinalities, store.zeroDayShare(), store.storeBytesPerItemDay(), store.int64ColumnBytes() / itemDays,
         store.sourceCsvBytes() > 0 ? store.sourceCsvBytes() / itemDays : null,
-        store.periodDays() == Periods.DAILY ? null : store.periodDays());
+        store.periodDays() == Periods.DAILY ? null : store.periodDays(), store.fill());
   }
 
   /** Validation curve of the largest partition and feature gain summed over partitions. */
@@ -95,7 +95,8 @@ public final class ReportAssembler {
         ? label(BaselineKind.SEASONAL_NAIVE.name()) : null;
     return new AccuracySummary(reference, levels, backtest.meanModelWrmsse(), baselineMeans,
         backtest.meanModelWspl(), baselineWspl, originScores,
-        worst(origins.stream().map(BacktestResult.OriginResult::model).toList()));
+        worst(origins.stream().map(BacktestResult.OriginResult::model).toList()), first.levelSource(),
+        first.levelBasis());
   }
 
   /**
@@ -125,7 +126,7 @@ public final class ReportAssembler {
     String seasonal = label(BaselineKind.SEASONAL_NAIVE.name());
     return new AccuracySummary(wrmsse.containsKey(seasonal) ? seasonal : null, levels, model.wrmsse(), wrmsse,
         model.wspl(), wspl, List.of(new AccuracySummary.OriginScore(originDate, model.wrmsse(), wrmsse)),
-        worst(List.of(model)));
+        worst(List.of(model)), model.levelSource(), model.levelBasis());
   }
 
   /** Aggregates kept per level in the report's list of where the forecast fails (the page shows fewer). */

@@ -184,7 +184,8 @@ class EvaluatorTest {
       }
     }
     return new EvaluationResult(origin, horizon, byValue ? "SALES_VALUE" : "UNIT_VOLUME", wrmsse,
-        quantiles == null ? null : wspl, rows, days, unknownActual, unknownTraining, "declared");
+        quantiles == null ? null : wspl, rows, days, unknownActual, unknownTraining, "declared",
+        "levels given by the caller");
   }
 
   /** Sort everything, keep the first ones: largest share first, ties by name. */
