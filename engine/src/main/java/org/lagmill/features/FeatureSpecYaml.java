@@ -3,10 +3,9 @@ package org.lagmill.features;
 import com.fasterxml.jackson.annotation.JsonAutoDetect;
 import com.fasterxml.jackson.annotation.JsonInclude;
 import com.fasterxml.jackson.annotation.JsonPropertyOrder;
-import com.fasterxml.jackson.core.JsonLocation;
+import com.fasterxml.jackson.core.JsonParser;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.DeserializationFeature;
-import com.fasterxml.jackson.databind.exc.UnrecognizedPropertyException;
 import com.fasterxml.jackson.dataformat.yaml.YAMLFactory;
 import com.fasterxml.jackson.dataformat.yaml.YAMLGenerator;
 import com.fasterxml.jackson.dataformat.yaml.YAMLMapper;
@@ -20,8 +19,8 @@ import java.util.List;
 
 /**
  * Reads and writes a {@link FeatureSpec} as YAML (docs/configuration.md lists every key). Keys left out keep their
- * defaults; an unknown key, a wrong type or an invalid value raises {@link IllegalArgumentException} naming the file
- * and, where known, the line.
+ * defaults; an unknown key, a repeated key, a wrong type or an invalid value raises {@link IllegalArgumentException}
+ * naming the file and, where known, the line, the key, what was expected and what was found.
  */
 public final class FeatureSpecYaml {
   static final List<String> KEYS = List.of("horizonDays", "strategy", "lagDays", "rollingWindowDays",
@@ -31,6 +30,9 @@ public final class FeatureSpecYaml {
   private static final YAMLMapper MAPPER = YAMLMapper.builder(
           YAMLFactory.builder().disable(YAMLGenerator.Feature.WRITE_DOC_START_MARKER).build())
       .enable(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES)
+      // 28.5 as a lag or 14.0 as a horizon is a mistake to report, not a number to truncate
+      .disable(DeserializationFeature.ACCEPT_FLOAT_AS_INT)
+      .enable(JsonParser.Feature.STRICT_DUPLICATE_DETECTION)
       .serializationInclusion(JsonInclude.Include.NON_NULL)
       .build();
 
@@ -49,12 +51,8 @@ public final class FeatureSpecYaml {
     Document doc;
     try {
       doc = MAPPER.readValue(yaml, Document.class);
-    } catch (UnrecognizedPropertyException e) {
-      throw new IllegalArgumentException(where(source, e.getLocation()) + "unknown key '" + e.getPropertyName()
-          + "'; allowed: " + String.join(", ", KEYS), e);
     } catch (JsonProcessingException e) {
-      throw new IllegalArgumentException(where(source, e.getLocation()) + e.getOriginalMessage().lines().findFirst()
-          .orElse("unreadable YAML"), e);
+      throw new IllegalArgumentException(FeatureSpecYamlErrors.message(source, e, KEYS), e);
     }
     try {
       return doc == null ? FeatureSpec.defaults() : doc.toSpec();
@@ -80,14 +78,6 @@ public final class FeatureSpecYaml {
   public static java.util.Map<String, Object> values(FeatureSpec spec) {
     return MAPPER.convertValue(Document.of(spec), MAPPER.getTypeFactory().constructMapType(
         java.util.LinkedHashMap.class, String.class, Object.class));
-  }
-
-  private static String where(String source, JsonLocation location) {
-    if (location == null || location.getLineNr() < 1) {
-      return source + ": ";
-    }
-    // Jackson places the location after the offending token, so only the line is reliable enough to print
-    return source + " line " + location.getLineNr() + ": ";
   }
 
   /** The file's shape; null fields keep the defaults. */

@@ -76,4 +76,55 @@ class FeatureSpecYamlTest {
     assertEquals("features.yaml: fromDate '2024/01/31' is not a date; write it as yyyy-mm-dd, e.g. 2024-01-31",
         e.getMessage());
   }
+
+  @Test
+  void shouldRefuseAFractionalLagInItsOwnWords() {
+    assertYamlError("horizonDays: 14\nlagDays: [14, 28.5]\n",
+        "features.yaml line 2: key 'lagDays': expected a list of whole numbers, e.g. [28, 35], found '28.5'");
+    assertYamlError("horizonDays: 14.0\n", "features.yaml line 1: key 'horizonDays': expected a whole number, found '14.0'");
+  }
+
+  @Test
+  void shouldRefuseADuplicateKey() {
+    assertYamlError("horizonDays: 14\nstrategy: direct\nhorizonDays: 21\n",
+        "features.yaml line 3: key 'horizonDays' appears twice: expected each key once");
+  }
+
+  @Test
+  void shouldNameKeyExpectedTypeAndFoundValue() {
+    assertYamlError("horizonDays: fourteen\n",
+        "features.yaml line 1: key 'horizonDays': expected a whole number, found 'fourteen'");
+    assertYamlError("lagDays: 14\n",
+        "features.yaml line 1: key 'lagDays': expected a list of whole numbers, e.g. [28, 35], found '14'");
+    assertYamlError("horizonDays: 99999999999\n",
+        "features.yaml line 1: key 'horizonDays': expected a whole number, found '99999999999'");
+    assertYamlError("calendarColumns: true\nskipPreLaunch: maybe\n",
+        "features.yaml line 2: key 'skipPreLaunch': expected true or false, found 'maybe'");
+    assertYamlError("horizonDays: [1, 2]\n",
+        "features.yaml line 1: key 'horizonDays': expected a whole number, found a list");
+    assertYamlError("- a\n- b\n",
+        "features.yaml line 1: expected keys with values (key: value, one per line), found a list");
+  }
+
+  @Test
+  void shouldReportBrokenYamlWithoutTheLibrarysWords() {
+    IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+        () -> FeatureSpecYaml.parse("strategy: direct\nhorizonDays: 14: 15\n", "features.yaml"));
+    assertEquals("features.yaml line 2: not valid YAML (mapping values are not allowed here): expected one"
+        + " 'key: value' per line", e.getMessage());
+  }
+
+  @Test
+  void shouldQuoteAtMostAnExcerptOfALongValue() {
+    assertYamlError("horizonDays: 14\n" + "x".repeat(500) + ": 1\n", "features.yaml line 2: unknown key '"
+        + "x".repeat(60) + "… (500 characters)'; allowed: " + String.join(", ", FeatureSpecYaml.KEYS));
+    assertYamlError("horizonDays: " + "9".repeat(5000) + "\n",
+        "features.yaml: key 'horizonDays': expected a whole number");
+  }
+
+  private static void assertYamlError(String yaml, String expected) {
+    IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+        () -> FeatureSpecYaml.parse(yaml, "features.yaml"));
+    assertEquals(expected, e.getMessage());
+  }
 }
