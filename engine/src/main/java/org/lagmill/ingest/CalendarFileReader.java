@@ -1,6 +1,7 @@
 package org.lagmill.ingest;
 
 import de.siegmar.fastcsv.reader.CsvRecord;
+import it.unimi.dsi.fastutil.longs.LongArrayList;
 import it.unimi.dsi.fastutil.objects.Object2IntOpenHashMap;
 import java.nio.file.Path;
 import java.time.LocalDate;
@@ -11,6 +12,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
+import org.lagmill.io.Excerpts;
 import org.lagmill.store.ArrayDayCalendar;
 import org.lagmill.store.Periods;
 import org.lagmill.store.DayCalendar.ColumnKind;
@@ -78,6 +80,7 @@ public final class CalendarFileReader {
 
       long firstEpochDay = storeFirstDate.toEpochDay();
       List<String[]> rows = new ArrayList<>();
+      LongArrayList rowLines = new LongArrayList();
       long previous = Cells.NOT_A_DATE;
       long firstDataLine = 0;
       long firstFileDay = Cells.NOT_A_DATE;
@@ -100,6 +103,7 @@ public final class CalendarFileReader {
         previous = epochDay;
         if (epochDay >= firstEpochDay) {
           rows.add(record.getFields().toArray(new String[0]));
+          rowLines.add(line);
         }
       }
       if (previous == Cells.NOT_A_DATE) {
@@ -116,7 +120,7 @@ public final class CalendarFileReader {
       }
       List<ArrayDayCalendar.Column> columns = new ArrayList<>(groups.size());
       for (Group group : groups) {
-        columns.add(buildColumn(group, rows, attributes));
+        columns.add(buildColumn(file, header, group, rows, rowLines, attributes, warnings));
       }
       return new CalendarReadResult(new ArrayDayCalendar(rows.size(), columns), warnings);
     }
@@ -189,16 +193,49 @@ public final class CalendarFileReader {
     return new ArrayList<>(byName.values());
   }
 
-  private static ArrayDayCalendar.Column buildColumn(Group group, List<String[]> rows, SeriesAttributes attributes) {
+  private static ArrayDayCalendar.Column buildColumn(Path file, String[] header, Group group, List<String[]> rows,
+      LongArrayList rowLines, SeriesAttributes attributes, List<String> warnings) {
     int dayCount = rows.size();
-    boolean numeric = true;
+    long numberCellCount = 0;
+    long otherCellCount = 0;
+    int firstOtherDay = Integer.MAX_VALUE;
+    int firstOtherColumn = 0;
     for (int[] source : group.sources) {
-      for (String[] row : rows) {
-        String cell = row[source[0]];
-        if (!cell.isEmpty() && !Cells.isDecimal(cell)) {
-          numeric = false;
+      for (int day = 0; day < dayCount; day++) {
+        String cell = rows.get(day)[source[0]];
+        if (cell.isEmpty()) {
+          continue;
+        }
+        if (Cells.isNonFiniteNumber(cell)) {
+          throw new InputFormatException(file, rowLines.getLong(day), source[0] + 1, "calendar column '"
+              + header[source[0]] + "' value '" + Excerpts.of(cell) + "': expected a finite number, a category or an"
+              + " empty cell (empty means unknown)");
+        }
+        if (Cells.isDecimal(cell)) {
+          if (Float.isInfinite((float) Double.parseDouble(cell))) {
+            throw new InputFormatException(file, rowLines.getLong(day), source[0] + 1, "calendar column '"
+                + header[source[0]] + "' value '" + Excerpts.of(cell) + "': expected a number of at most "
+                + Float.MAX_VALUE + " in size");
+          }
+          numberCellCount++;
+        } else {
+          otherCellCount++;
+          if (day < firstOtherDay) {
+            firstOtherDay = day;
+            firstOtherColumn = source[0] + 1;
+          }
         }
       }
+    }
+    boolean numeric = otherCellCount == 0;
+    // A column of numbers with a few stray texts is most likely a typo, not a category list: reading it as categories
+    // changes every value the model sees, so the user hears about the first stray cell.
+    if (!numeric && numberCellCount > otherCellCount) {
+      warnings.add(file + ", line " + rowLines.getLong(firstOtherDay) + ", column " + firstOtherColumn
+          + ": calendar column '" + group.name + "' read as categories because " + otherCellCount + " of "
+          + (numberCellCount + otherCellCount) + " cells are not numbers (first: '"
+          + Excerpts.of(rows.get(firstOtherDay)[firstOtherColumn - 1])
+          + "'); write numbers only, or leave a cell empty for unknown");
     }
     int keyRowCount = group.attributeIndex < 0 ? 1 : attributes.cardinality(group.attributeIndex);
     float[][] values = new float[keyRowCount][dayCount];

@@ -97,6 +97,16 @@ final class Cells {
     return i == n;
   }
 
+  /**
+   * True when the cell spells a number that is not finite: {@code NaN}, {@code Inf} or {@code Infinity}, any letter
+   * case, with an optional sign. Such a cell is never a category a user meant.
+   */
+  static boolean isNonFiniteNumber(String text) {
+    String unsigned = text.startsWith("+") || text.startsWith("-") ? text.substring(1) : text;
+    return unsigned.equalsIgnoreCase("nan") || unsigned.equalsIgnoreCase("inf")
+        || unsigned.equalsIgnoreCase("infinity");
+  }
+
   private static boolean isDigit(char c) {
     return c >= '0' && c <= '9';
   }

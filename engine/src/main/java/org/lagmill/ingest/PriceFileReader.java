@@ -8,6 +8,7 @@ import java.nio.file.Path;
 import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.List;
+import org.lagmill.io.Excerpts;
 import org.lagmill.store.ArrayPriceTable;
 import org.lagmill.store.Periods;
 import org.lagmill.store.SeriesAttributes;
@@ -81,7 +82,12 @@ public final class PriceFileReader {
         double price = Cells.isDecimal(priceText) ? Double.parseDouble(priceText) : Double.NaN;
         if (!(price > 0) || Double.isInfinite(price) || (float) price == 0f) {
           throw new InputFormatException(file, line, priceIndex + 1,
-              priceColumn + " '" + priceText + "': expected a decimal number > 0");
+              priceColumn + " '" + Excerpts.of(priceText) + "': expected a decimal number > 0");
+        }
+        if (Float.isInfinite((float) price)) {
+          // the store keeps prices as float32: a larger number would read back as infinity
+          throw new InputFormatException(file, line, priceIndex + 1, priceColumn + " '" + Excerpts.of(priceText)
+              + "': expected a decimal number > 0 and at most " + Float.MAX_VALUE);
         }
         int keyId = keys.keyIdOf(record);
         if (keyId < 0) {

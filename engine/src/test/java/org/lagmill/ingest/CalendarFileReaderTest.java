@@ -112,6 +112,30 @@ class CalendarFileReaderTest {
   }
 
   @Test
+  void shouldWarnWhenOneStrayCellTurnsANumericColumnIntoCategories() {
+    CalendarReadResult result = read("c.csv", "date,temp,event\n2024-03-01,11.5,fair\n2024-03-02,12,\n"
+        + "2024-03-03,n/a,fair\n2024-03-04,10,1\n");
+    String file = dir.resolve("c.csv").toString();
+    assertEquals(List.of(file + ", line 4, column 2: calendar column 'temp' read as categories because 1 of 4 cells"
+        + " are not numbers (first: 'n/a'); write numbers only, or leave a cell empty for unknown"), result.warnings());
+    assertEquals(ColumnKind.CATEGORICAL, result.calendar().kind(0));
+    // a column mostly of texts is a category column, read without a word
+    assertEquals(ColumnKind.CATEGORICAL, result.calendar().kind(1));
+  }
+
+  @Test
+  void shouldRefuseNonFiniteCalendarValues() {
+    for (String cell : new String[] {"NaN", "-Infinity", "inf", "+INF"}) {
+      assertEquals("F, line 3, column 2: calendar column 'temp' value '" + cell + "': expected a finite number, a"
+          + " category or an empty cell (empty means unknown)", error("date,temp\n2024-03-01,1\n2024-03-02," + cell
+          + "\n"));
+    }
+    assertEquals("F, line 2, column 3: calendar column 'payday[region=Southmoor]' value '1e39': expected a number of"
+        + " at most 3.4028235E38 in size", error("date,payday[region=Northvale],payday[region=Southmoor]\n"
+        + "2024-03-01,1,1e39\n"));
+  }
+
+  @Test
   void shouldReportEveryErrorExactly() {
     assertEquals("F, line 4, column 1: calendar gap: expected 2024-03-03, found 2024-03-05",
         error("date,x\n2024-03-01,1\n2024-03-02,1\n2024-03-05,1\n"));

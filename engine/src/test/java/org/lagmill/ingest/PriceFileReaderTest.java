@@ -101,6 +101,8 @@ class PriceFileReaderTest {
       assertEquals("F, line 2, column 3: price '" + price + "': expected a decimal number > 0",
           error("item,from,price\ntea_tin,2024-03-01," + price + "\n"));
     }
+    assertEquals("F, line 2, column 3: price '1e39': expected a decimal number > 0 and at most 3.4028235E38",
+        error("item,from,price\ntea_tin,2024-03-01,1e39\n"));
     assertEquals("F, line 1, column 1: price key column 'color' is not a series attribute: expected one of item,"
         + " store, region", error("color,from,price\nred,2024-03-01,1\n"));
     assertEquals("F, line 1: no key columns: expected at least one series attribute column (item, store, region)"
