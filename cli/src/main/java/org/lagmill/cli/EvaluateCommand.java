@@ -12,6 +12,7 @@ import org.lagmill.eval.Evaluator;
 import org.lagmill.eval.OriginStatistics;
 import org.lagmill.eval.QuantileForecasts;
 import org.lagmill.eval.RollingOriginBacktest;
+import org.lagmill.eval.ScoringPart;
 import org.lagmill.forecast.ForecastFileReader;
 import org.lagmill.forecast.ForecastTable;
 import org.lagmill.memory.MemoryBudget;
@@ -20,6 +21,7 @@ import org.lagmill.report.ReportData;
 import org.lagmill.store.StoreSummary;
 import org.lagmill.store.Periods;
 import org.lagmill.store.SalesStore;
+import org.lagmill.store.StoreManifest;
 import org.lagmill.store.TruncatedHistory;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -47,6 +49,10 @@ final class EvaluateCommand implements Callable<Integer> {
   @Option(names = "--report", paramLabel = "DIR", description = "also write report.html and report.json here")
   Path reportDir;
 
+  @Option(names = "--scoring-part", paramLabel = "FILE", description = {"also write this store's additive share of",
+      "the score (for a shard: merge every shard's part with lagmill merge-scores)"})
+  Path scoringPart;
+
   @Mixin HierarchyOptions hierarchyOptions;
 
   @Override
@@ -73,6 +79,11 @@ final class EvaluateCommand implements Callable<Integer> {
       AggregateTable aggregated = evaluator.aggregator()
           .aggregateForecasts(evaluator.withoutUnknownActuals(table.point(), origin));
       EvaluationResult result = evaluator.evaluate(statistics, aggregated, quantiles);
+      if (scoringPart != null) {
+        StoreManifest manifest = opened.manifest();
+        ScoringPart.build(opened, evaluator, origin, aggregated, quantiles, manifest.shard(),
+            manifest.nesting() != null ? manifest.nesting() : opened.nesting().parents()).write(scoringPart);
+      }
       Map<String, Double> baselines = new LinkedHashMap<>();
       Map<String, EvaluationResult> baselineResults = RollingOriginBacktest.scoreBaselines(
           new TruncatedHistory(opened, origin), BacktestRun.DEFAULT_BASELINES, table.horizonDays(), evaluator,
@@ -99,18 +110,23 @@ final class EvaluateCommand implements Callable<Integer> {
       }
       out.printf(Locale.ROOT, "forecast %s, %s .. %s, %s%n", forecast, opened.dateOf(origin),
           opened.dateOf(lastDay), Periods.count(table.horizonDays(), opened.periodDays()));
-      out.printf(Locale.ROOT, "%-40s %6s %10s %10s %10s%n", "level", "series", "RMSSE", "MAE", "bias");
-      for (EvaluationResult.LevelResult level : result.levels()) {
-        out.printf(Locale.ROOT, "%-40s %6d %10.4f %10.3f %10.3f%n", level.name(), level.aggregateCount(),
-            level.weightedRmsse(), level.mae(), level.bias());
-      }
-      out.printf(Locale.ROOT, "WRMSSE %.4f%s%n", result.wrmsse(), result.wspl() == null ? ""
-          : String.format(Locale.ROOT, ", WSPL %.4f (aggregate quantiles summed from the series' quantiles)",
-              result.wspl()));
+      printLevels(out, result);
       baselines.forEach((name, value) -> out.printf(Locale.ROOT, "  baseline %-24s WRMSSE %.4f  (model / baseline %.3f)%n",
           name, value, result.wrmsse() / value));
       ScoredLevels.print(out, result, opened.manifest());
     }
     return ExitCodes.OK;
+  }
+
+  /** The per-level table and the WRMSSE line, as evaluate and merge-scores print them. */
+  static void printLevels(PrintWriter out, EvaluationResult result) {
+    out.printf(Locale.ROOT, "%-40s %6s %10s %10s %10s%n", "level", "series", "RMSSE", "MAE", "bias");
+    for (EvaluationResult.LevelResult level : result.levels()) {
+      out.printf(Locale.ROOT, "%-40s %6d %10.4f %10.3f %10.3f%n", level.name(), level.aggregateCount(),
+          level.weightedRmsse(), level.mae(), level.bias());
+    }
+    out.printf(Locale.ROOT, "WRMSSE %.4f%s%n", result.wrmsse(), result.wspl() == null ? ""
+        : String.format(Locale.ROOT, ", WSPL %.4f (aggregate quantiles summed from the series' quantiles)",
+            result.wspl()));
   }
 }

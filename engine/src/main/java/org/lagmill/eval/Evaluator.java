@@ -70,6 +70,21 @@ public final class Evaluator {
     return aggregator;
   }
 
+  /** Periods before the origin whose sales set the weights. */
+  public int weightDayCount() {
+    return weightDayCount;
+  }
+
+  /** What the levels were built from, as {@link EvaluationResult#levelBasis()} says it. */
+  public String levelBasis() {
+    return levelBasis;
+  }
+
+  /** Where the levels came from, {@code detected} or {@code declared}. */
+  public String levelSource() {
+    return levelSource.label();
+  }
+
   /** Scales and weights for an origin; compute once and reuse for several forecasts of the same origin. */
   public OriginStatistics statistics(int originDay) {
     return OriginStatistics.compute(history, aggregator, originDay, weightDayCount);
@@ -125,7 +140,22 @@ public final class Evaluator {
           + aggregator.levels().size());
     }
     AggregateTable actuals = aggregator.aggregateActuals(history, origin, horizon);
-    List<Level> levels = aggregator.levels();
+    return score(aggregator.levels(), statistics, actuals, forecasts, quantiles, actuals.unknownCount(),
+        levelSource.label(), levelBasis);
+  }
+
+  /**
+   * The scoring rules themselves, on tables of every aggregate's actuals and forecasts over the horizon: the one
+   * place they live, used by {@link #evaluate} and by the merge of shards' scoring parts.
+   *
+   * @param levels give each level's name, aggregate count and aggregate names
+   * @param unknownActualCount bottom series-days in the horizon whose actuals were unknown or closed
+   */
+  static EvaluationResult score(List<Level> levels, OriginStatistics statistics, AggregateTable actuals,
+      AggregateTable forecasts, QuantileForecasts quantiles, long unknownActualCount, String levelSource,
+      String levelBasis) {
+    int origin = statistics.originDay();
+    int horizon = forecasts.dayCount();
     int levelCount = levels.size();
     int finest = 0;
     for (int l = 1; l < levelCount; l++) {
@@ -195,8 +225,8 @@ public final class Evaluator {
           finestDayAbsError[k] / levels.get(finest).aggregateCount()));
     }
     return new EvaluationResult(origin, horizon, statistics.weightBasis().name(), wrmsse / levelCount,
-        quantiles == null ? null : wspl / levelCount, levelResults, days, actuals.unknownCount(),
-        statistics.unknownTrainingCount(), levelSource.label(), levelBasis);
+        quantiles == null ? null : wspl / levelCount, levelResults, days, unknownActualCount,
+        statistics.unknownTrainingCount(), levelSource, levelBasis);
   }
 
   /** The aggregates with the largest share of the WRMSSE, largest first, ties by name; at most the kept count. */

@@ -96,6 +96,15 @@ public final class Level {
         aggregateIndexBySeries, aggregateNames);
   }
 
+  /**
+   * A level known only by its aggregates' names, with no bottom series bound to it: the shape of a level merged from
+   * shards' scoring parts, which the scoring rules need (name, aggregate count, aggregate names) and nothing more.
+   */
+  static Level named(List<String> attributeNames, String[] aggregateNames) {
+    return new Level(nameOf(attributeNames), List.copyOf(attributeNames), new int[0], new int[0],
+        aggregateNames.clone());
+  }
+
   private static int[] codesOf(int seriesIndex, int[] attributeIndexes, SeriesAttributes attributes) {
     int[] codes = new int[attributeIndexes.length];
     for (int a = 0; a < codes.length; a++) {

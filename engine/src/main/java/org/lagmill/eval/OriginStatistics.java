@@ -61,18 +61,9 @@ public final class OriginStatistics {
     }
     List<Level> levels = aggregator.levels();
     int levelCount = levels.size();
-    double[][] previous = new double[levelCount][];
-    boolean[][] started = new boolean[levelCount][];
-    double[][] sumSquared = new double[levelCount][];
-    double[][] sumAbsolute = new double[levelCount][];
-    int[][] diffCounts = new int[levelCount][];
+    ScaleSums[] sums = new ScaleSums[levelCount];
     for (int l = 0; l < levelCount; l++) {
-      int n = levels.get(l).aggregateCount();
-      previous[l] = new double[n];
-      started[l] = new boolean[n];
-      sumSquared[l] = new double[n];
-      sumAbsolute[l] = new double[n];
-      diffCounts[l] = new int[n];
+      sums[l] = new ScaleSums(levels.get(l).aggregateCount());
     }
     int blockDays = Math.min(BLOCK_DAYS, originDay);
     AggregateTable block = AggregateTable.forLevels(levels, blockDays);
@@ -82,48 +73,39 @@ public final class OriginStatistics {
       aggregator.aggregateActualsInto(history, from, n, block);
       unknown += block.unknownCount();
       for (int l = 0; l < levelCount; l++) {
-        double[] values = block.levelValues(l);
-        for (int g = 0; g < previous[l].length; g++) {
-          int base = g * blockDays;
-          for (int d = 0; d < n; d++) {
-            double y = values[base + d];
-            if (started[l][g]) {
-              double diff = y - previous[l][g];
-              sumSquared[l][g] += diff * diff;
-              sumAbsolute[l][g] += Math.abs(diff);
-              diffCounts[l][g]++;
-              previous[l][g] = y;
-            } else if (y > 0) {
-              started[l][g] = true;
-              previous[l][g] = y;
-            }
-          }
-        }
+        sums[l].add(block.levelValues(l), blockDays, n);
       }
     }
+    double[] values = weightWindowSumsBefore(history, originDay, weightDayCount, true);
+    double[][] pricedByLevel = values == null ? null : aggregator.aggregateValues(values);
+    return fromSums(originDay, weightDayCount, sums, pricedByLevel,
+        () -> aggregator.aggregateValues(weightWindowSumsBefore(history, originDay, weightDayCount, false)), unknown);
+  }
+
+  /**
+   * Scales and weights from their additive parts, the one place that turns them into statistics (used by
+   * {@link #compute} and by the merge of shards' scoring parts).
+   *
+   * @param sums per level, each aggregate's sums of squared and absolute one-step differences and their count
+   * @param pricedByLevel per level and aggregate, units × price over the weight window; null when there are no prices
+   * @param unitsByLevel per level and aggregate, units over the weight window; asked for only when the weights fall
+   *     back to unit volume
+   * @param unknownTrainingCount bottom series-days before the origin whose units were unknown
+   */
+  static OriginStatistics fromSums(int originDay, int weightDayCount, ScaleSums[] sums, double[][] pricedByLevel,
+      java.util.function.Supplier<double[][]> unitsByLevel, long unknownTrainingCount) {
+    int levelCount = sums.length;
     double[][] squaredScales = new double[levelCount][];
     double[][] absoluteScales = new double[levelCount][];
     for (int l = 0; l < levelCount; l++) {
-      int n = previous[l].length;
-      squaredScales[l] = new double[n];
-      absoluteScales[l] = new double[n];
-      for (int g = 0; g < n; g++) {
-        int count = diffCounts[l][g];
-        squaredScales[l][g] = count == 0 ? Double.NaN : sumSquared[l][g] / count;
-        absoluteScales[l][g] = count == 0 ? Double.NaN : sumAbsolute[l][g] / count;
-      }
+      squaredScales[l] = sums[l].squaredScales();
+      absoluteScales[l] = sums[l].absoluteScales();
     }
-
-    int windowStart = Math.max(0, originDay - weightDayCount);
-    double[][] values = weightWindowSums(history, windowStart, originDay, true);
     WeightBasis basis = WeightBasis.SALES_VALUE;
-    double[][] byLevel = null;
-    if (values != null) {
-      byLevel = aggregator.aggregateValues(values[0]);
-    }
+    double[][] byLevel = pricedByLevel == null ? null : copy(pricedByLevel);
     if (byLevel == null || sum(byLevel[0]) <= 0) {
       basis = WeightBasis.UNIT_VOLUME;
-      byLevel = aggregator.aggregateValues(weightWindowSums(history, windowStart, originDay, false)[0]);
+      byLevel = copy(unitsByLevel.get());
     }
     double[][] weights = new double[levelCount][];
     int[] excluded = new int[levelCount];
@@ -138,12 +120,27 @@ public final class OriginStatistics {
       }
       weights[l] = SeriesMetrics.normalise(raw);
     }
-    return new OriginStatistics(originDay, weightDayCount, squaredScales, absoluteScales, weights, excluded, unknown,
-        basis);
+    return new OriginStatistics(originDay, weightDayCount, squaredScales, absoluteScales, weights, excluded,
+        unknownTrainingCount, basis);
+  }
+
+  private static double[][] copy(double[][] values) {
+    double[][] result = new double[values.length][];
+    for (int l = 0; l < values.length; l++) {
+      result[l] = values[l].clone();
+    }
+    return result;
+  }
+
+  /** Per-series units (× price) summed over the weight window before {@code originDay}; null when unpriced. */
+  static double[] weightWindowSumsBefore(SalesHistory history, int originDay, int weightDayCount, boolean priced) {
+    int windowStart = Math.max(0, originDay - weightDayCount);
+    double[][] values = windowSums(history, windowStart, originDay, priced);
+    return values == null ? null : values[0];
   }
 
   /** Per-series units (× day price when {@code priced}) summed over the window; null when priced but no prices. */
-  private static double[][] weightWindowSums(SalesHistory history, int fromDay, int toDay, boolean priced) {
+  private static double[][] windowSums(SalesHistory history, int fromDay, int toDay, boolean priced) {
     PriceTable prices = history.prices();
     if (priced && prices.isEmpty()) {
       return null;

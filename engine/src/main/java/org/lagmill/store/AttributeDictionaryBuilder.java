@@ -90,8 +90,9 @@ final class AttributeDictionaryBuilder implements SeriesAttributes {
   }
 
   /**
-   * Gives every value of every attribute of {@code source} the same code it has there, before any series is added:
-   * a shard then codes each value as its whole store does (categorical features and calendar rows agree).
+   * Gives every value of every attribute of {@code source} (but {@code series_id}) the same code it has there, before
+   * any series is added: a shard then codes each value as its whole store does (categorical features and calendar
+   * rows agree).
    *
    * @throws IllegalStateException when a series or value was added already
    * @throws IllegalArgumentException when the attribute names differ
@@ -107,6 +108,9 @@ final class AttributeDictionaryBuilder implements SeriesAttributes {
       if (!source.attributeName(a).equals(names[a]) || !values[a].isEmpty()) {
         throw new IllegalArgumentException("attribute " + a + " is \"" + names[a] + "\", the source's is \""
             + source.attributeName(a) + "\"");
+      }
+      if (a == seriesIdAttribute) {
+        continue;  // one value per series, never a feature: each shard keeps only its own ids
       }
       for (int code = 0; code < source.cardinality(a); code++) {
         String value = source.value(a, code);

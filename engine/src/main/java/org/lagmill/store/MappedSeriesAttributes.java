@@ -21,7 +21,7 @@ final class MappedSeriesAttributes extends MappedStoreFile implements SeriesAttr
   private Object2IntOpenHashMap<String> seriesIndexById;
 
   @SuppressWarnings("unchecked")
-  private MappedSeriesAttributes(Path file, MappedRegion region, int expectedSeriesCount) {
+  private MappedSeriesAttributes(Path file, MappedRegion region, int expectedSeriesCount, int maxValueCount) {
     super(region);
     MappedFileReads reads = readsFrom(file, AttributesLayout.SERIES_COUNT_OFFSET);
     seriesCount = reads.getInt();
@@ -37,7 +37,7 @@ final class MappedSeriesAttributes extends MappedStoreFile implements SeriesAttr
       if (names[a].equals(AttributeDictionaryBuilder.SERIES_ID)) {
         idAttribute = a;
       }
-      int valueCount = reads.getCount("dictionary size", seriesCount);
+      int valueCount = reads.getCount("dictionary size", Math.max(seriesCount, maxValueCount));
       values[a] = new String[valueCount];
       codeByValue[a] = new Object2IntOpenHashMap<>(valueCount);
       codeByValue[a].defaultReturnValue(-1);
@@ -54,8 +54,14 @@ final class MappedSeriesAttributes extends MappedStoreFile implements SeriesAttr
     heapBytes = heap;
   }
 
-  static MappedSeriesAttributes open(Path file, long fileBytes, int expectedSeriesCount, MemoryBudget budget) {
-    return openMapped(file, fileBytes, budget, region -> new MappedSeriesAttributes(file, region, expectedSeriesCount));
+  /**
+   * @param maxValueCount the most values one dictionary may hold: the series count, or for a shard (which keeps its
+   *     whole store's dictionaries) the whole store's series count
+   */
+  static MappedSeriesAttributes open(Path file, long fileBytes, int expectedSeriesCount, int maxValueCount,
+      MemoryBudget budget) {
+    return openMapped(file, fileBytes, budget,
+        region -> new MappedSeriesAttributes(file, region, expectedSeriesCount, maxValueCount));
   }
 
   long heapBytes() {

@@ -82,7 +82,8 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
         maxWindowBytes, budget, opened);
 
     attributes = MappedSeriesAttributes.open(dir.resolve(FileKind.ATTRIBUTES.fileName()),
-        entry(dir, manifest, FileKind.ATTRIBUTES).bytes(), seriesCount, budget);
+        entry(dir, manifest, FileKind.ATTRIBUTES).bytes(), seriesCount,
+        manifest.shard() == null ? seriesCount : manifest.shard().sourceSeriesCount(), budget);
     opened.add(attributes);
     prices = MappedPriceTable.open(dir.resolve(FileKind.PRICES.fileName()),
         entry(dir, manifest, FileKind.PRICES).bytes(), seriesCount, budget);

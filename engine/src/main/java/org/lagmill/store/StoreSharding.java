@@ -10,9 +10,9 @@ import org.lagmill.memory.MemoryBudget;
 /**
  * Splits a store into {@code partCount} complete stores by a hash of one attribute's value ({@link ShardAssignment}):
  * every series goes, whole and unchanged, to the shard its value hashes to, with its prices and closures; the calendar
- * goes to every shard. Each shard is written by {@link StoreWriter} into its own store directory
- * {@code outDir/shard-K} through {@link StoreUpdate} (lock, generation, commit), so it is a store like any other, with
- * its own checksums, plus a manifest {@code shard} record.
+ * and the plan go to every shard (each series keeps its plan key). Each shard is written by {@link StoreWriter}
+ * into its own store directory {@code outDir/shard-K} through {@link StoreUpdate} (lock, generation, commit), so it is
+ * a store like any other, with its own checksums, plus a manifest {@code shard} record.
  *
  * <p>A shard keeps the whole store's attribute dictionaries ({@link StoreWriter#seedAttributeValues}), so a value has
  * the same code in every shard, and records the whole store's nesting. Memory: the source store mapped, one row of
@@ -108,7 +108,9 @@ public final class StoreSharding {
       }
       writer.writePrices(selectedPrices(store.prices(), sourceIndexes));
       writer.writeCalendar(store.calendar());
+      // The source's count of partly closed item-periods cannot be split by series; the source manifest keeps it.
       writer.writeClosures(selectedClosures(store.closures(), sourceIndexes));
+      writer.writePlan(selectedPlan(store.plan(), sourceIndexes));
       StoreManifest manifest = writer.finish(store.manifest().sources());
       update.commit();
       return manifest;
@@ -130,6 +132,21 @@ public final class StoreSharding {
       @Override public int rangeCount(int s) { return closures.rangeCount(sourceIndexes[s]); }
       @Override public int firstDayIndex(int s, int k) { return closures.firstDayIndex(sourceIndexes[s], k); }
       @Override public int lastDayIndex(int s, int k) { return closures.lastDayIndex(sourceIndexes[s], k); }
+    };
+  }
+
+  /** The plan with every key kept (keys are few) and each shard series pointing at its source series' key. */
+  private static PlanTable selectedPlan(PlanTable plan, int[] sourceIndexes) {
+    return new PlanTable() {
+      @Override public int columnCount() { return plan.columnCount(); }
+      @Override public String columnName(int c) { return plan.columnName(c); }
+      @Override public List<String> keyAttributeNames() { return plan.keyAttributeNames(); }
+      @Override public int keyOf(int s) { return plan.keyOf(sourceIndexes[s]); }
+      @Override public int keyCount() { return plan.keyCount(); }
+      @Override public int changeCount(int k) { return plan.changeCount(k); }
+      @Override public int changeDayIndex(int k, int i) { return plan.changeDayIndex(k, i); }
+      @Override public float changeValue(int k, int i, int c) { return plan.changeValue(k, i, c); }
+      @Override public int reachDayIndex() { return plan.reachDayIndex(); }
     };
   }
 

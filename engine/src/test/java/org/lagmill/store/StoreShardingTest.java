@@ -80,7 +80,8 @@ class StoreShardingTest {
       IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
           () -> StoreSharding.shard(source, 3, "shop", out, budget));
       int emptyPart = 0;
-      while (new ShardAssignment(3).partOf("north") == emptyPart || new ShardAssignment(3).partOf("south") == emptyPart) {
+      ShardAssignment three = new ShardAssignment(3);
+      while (three.partOf("north") == emptyPart || three.partOf("south") == emptyPart) {
         emptyPart++;
       }
       assertEquals("shard " + emptyPart + " of 3 would hold no series: the 3 series take 2 values of 'shop' and none "
@@ -159,6 +160,13 @@ class StoreShardingTest {
     for (int d = -2; d < dayCount + 10; d++) {
       assertEquals(whole.isClosed(w, d), shard.isClosed(s, d), context + " day " + d);
     }
+    for (int c = 0; c < whole.plan().columnCount(); c++) {
+      for (int d = 0; d < dayCount + 6; d++) {
+        assertEquals(whole.plan().valueAt(w, c, d), shard.plan().valueAt(s, c, d), context + " plan day " + d);
+      }
+    }
+    assertEquals(whole.plan().columnNames(), shard.plan().columnNames());
+    assertEquals(whole.plan().reachDayIndex(), shard.plan().reachDayIndex());
     DayCalendar wc = whole.calendar();
     DayCalendar sc = shard.calendar();
     assertEquals(wc.columnCount(), sc.columnCount());
@@ -244,6 +252,16 @@ class StoreShardingTest {
           DayCalendar.ColumnKind.CATEGORICAL, List.of("no", "yes", "half"), "shop", byShop))));
       if (closures != null) {
         writer.writeClosures(closures);
+        // a plan keyed by department: two keys, a promotion flag and a discount depth, reaching past the sales
+        int deptIndex = writer.attributes().attributeIndex("dept");
+        int[] keyBySeries = new int[values.length];
+        for (int s = 0; s < values.length; s++) {
+          int code = writer.attributes().code(s, deptIndex);
+          keyBySeries[s] = code < 2 ? code : PlanTable.NO_KEY;
+        }
+        writer.writePlan(new ArrayPlanTable(List.of("dept"), List.of("promo", "depth"), keyBySeries,
+            new int[][] {{0, 3, dayCount + 2}, {1}}, new float[][] {{1, 0.2f, 0, 0, 1, 0.5f}, {1, 0.1f}},
+            dayCount + 4));
       }
       writer.finish(List.of(new StoreManifest.SourceFile("weekly.csv", 99)));
       update.commit();

@@ -1,0 +1,56 @@
+package org.lagmill.cli;
+
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.concurrent.Callable;
+import org.lagmill.eval.EvaluationResult;
+import org.lagmill.eval.MergedScoring;
+import org.lagmill.eval.ScoringPart;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/** {@code lagmill merge-scores}: one hierarchy-wide score from every shard's scoring part. */
+@Command(name = "merge-scores", header = "Merge the shards' scoring parts into one hierarchy-wide score.",
+    mixinStandardHelpOptions = true,
+    description = {"Add every shard's scoring part (lagmill evaluate --scoring-part on each shard) and score the",
+        "whole hierarchy: the same WRMSSE and per-level table one evaluate of the unsplit store gives."},
+    footer = {"", "Example:", "  lagmill merge-scores part-0.json part-1.json part-2.json --json"})
+final class MergeScoresCommand implements Callable<Integer> {
+  @Spec CommandSpec spec;
+
+  @Parameters(arity = "1..*", paramLabel = "PART", description = "scoring part files, one per shard")
+  List<Path> parts;
+
+  @Option(names = "--json", description = "print the result as JSON")
+  boolean json;
+
+  @Override
+  public Integer call() throws Exception {
+    PrintWriter out = spec.commandLine().getOut();
+    List<ScoringPart> read = new ArrayList<>();
+    for (Path part : parts) {
+      read.add(ScoringPart.read(part));
+    }
+    EvaluationResult result = MergedScoring.merge(read);
+    if (json) {
+      Map<String, Object> document = new LinkedHashMap<>();
+      document.put("forecast", result);
+      document.put("partCount", read.size());
+      out.println(RunRecord.JSON.writeValueAsString(document));
+      return ExitCodes.OK;
+    }
+    ScoringPart first = read.get(0);
+    out.printf(Locale.ROOT, "%d scoring parts, origin period %d, horizon %d%n", read.size(), first.originDay(),
+        first.horizon());
+    EvaluateCommand.printLevels(out, result);
+    return ExitCodes.OK;
+  }
+}
