@@ -171,7 +171,8 @@ public record ScoringPart(String kind, int formatVersion, String firstDate, int 
       quantileLevels[q] = quantiles.quantileLevel(q);
     }
     return new ScoringPart(KIND, FORMAT_VERSION, history.firstDate().toString(), history.periodDays(), originDay,
-        horizon, evaluator.weightDayCount(), evaluator.levelSource(), evaluator.levelBasis(), shard, priced != null, unknownTrainingCount,
+        horizon, evaluator.weightDayCount(), evaluator.levelSource(), evaluator.levelBasis(), shard, priced != null,
+        unknownTrainingCount,
         actuals.unknownCount(), quantileLevels, levelParts);
   }
 
