@@ -12,14 +12,14 @@ import org.lagmill.eval.CombinedBacktestResult;
 import org.lagmill.eval.Hierarchy;
 import org.lagmill.eval.RollingOriginBacktest;
 import org.lagmill.forecast.ForecastTable;
-import org.lagmill.forecast.PartitionReport;
-import org.lagmill.forecast.TrainingPlan;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.progress.ProgressListener;
 import org.lagmill.report.ReportAssembler;
 import org.lagmill.report.ReportData;
 import org.lagmill.report.SeriesChartBuilder;
 import org.lagmill.store.SalesHistory;
+import org.lagmill.training.PartitionReport;
+import org.lagmill.training.TrainingPlan;
 
 /** Runs a backtest and turns it into console lines and report sections; shared by {@code backtest} and {@code demo}. */
 final class BacktestRun {

@@ -10,12 +10,10 @@ import org.lagmill.eval.BacktestResult;
 import org.lagmill.eval.Hierarchy;
 import org.lagmill.features.FeatureSpec;
 import org.lagmill.features.FeatureSpecYaml;
+import org.lagmill.forecast.CountQuantiles;
 import org.lagmill.forecast.ForecastFileWriter;
 import org.lagmill.forecast.ForecastTable;
-import org.lagmill.forecast.ModelDirectory;
-import org.lagmill.forecast.ModelSet;
-import org.lagmill.forecast.ModelTraining;
-import org.lagmill.forecast.TrainingPlan;
+import org.lagmill.forecast.Forecaster;
 import org.lagmill.ingest.IngestOptions;
 import org.lagmill.ingest.StoreIngest;
 import org.lagmill.learner.DatasetParameters;
@@ -32,6 +30,10 @@ import org.lagmill.scenario.ScenarioGenerator;
 import org.lagmill.scenario.ScenarioSpec;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.StoreSummary;
+import org.lagmill.training.ModelDirectory;
+import org.lagmill.training.ModelSet;
+import org.lagmill.training.ModelTraining;
+import org.lagmill.training.TrainingPlan;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -129,10 +131,10 @@ final class DemoCommand implements Callable<Integer> {
         run.endStage("train", store.offHeapBytes() + learner.peakBytes(),
             models.partitions().get(0).report().trainingRowCount());
         report.training(ReportAssembler.training(models.partitions().stream().map(p -> p.report()).toList()));
-        point = models.forecast(store, HORIZON_DAYS, learner);
+        point = Forecaster.forecast(models, store, HORIZON_DAYS, learner);
         dispersion = models.dispersionBySeries();
         ForecastTable table = new ForecastTable(store.dayCount(), point, ForecastTable.PUBLISHED_QUANTILES,
-            models.quantiles(point, ForecastTable.PUBLISHED_QUANTILES));
+            CountQuantiles.quantiles(point, models.dispersionBySeries(), ForecastTable.PUBLISHED_QUANTILES));
         ForecastFileWriter.writeLong(table, store, forecastFile);
         run.endStage("forecast", store.offHeapBytes() + learner.peakBytes(), (long) point.length * HORIZON_DAYS);
         DriverChartBuilder.build(store, hierarchy.bind(store), models, HORIZON_DAYS, List.of(),

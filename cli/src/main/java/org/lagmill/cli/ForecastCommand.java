@@ -4,12 +4,11 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.Callable;
+import org.lagmill.forecast.CountQuantiles;
 import org.lagmill.forecast.ForecastFileWriter;
 import org.lagmill.forecast.ForecastTable;
+import org.lagmill.forecast.Forecaster;
 import org.lagmill.forecast.HorizonCoverage;
-import org.lagmill.forecast.ModelDirectory;
-import org.lagmill.forecast.ModelManifest;
-import org.lagmill.forecast.ModelSet;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.eval.Level;
 import org.lagmill.report.DriverChartBuilder;
@@ -21,6 +20,9 @@ import org.lagmill.store.Periods;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.SeriesSelection;
 import org.lagmill.store.StoreSummary;
+import org.lagmill.training.ModelDirectory;
+import org.lagmill.training.ModelManifest;
+import org.lagmill.training.ModelSet;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -115,11 +117,11 @@ final class ForecastCommand implements Callable<Integer> {
             + "; list the store's series with lagmill series --store " + store);
       }
       run.endStage("open", opened.offHeapBytes(), 0);
-      double[][] point = models.forecast(opened, horizon, forecastBudget, chosen);
+      double[][] point = Forecaster.forecast(models, opened, horizon, forecastBudget, chosen);
       int forecastSeriesCount = chosen == null ? point.length : chosen.length;
       double[] levels = intervals ? ForecastTable.PUBLISHED_QUANTILES : new double[0];
       ForecastTable table = new ForecastTable(opened.dayCount(), point, levels,
-          intervals ? models.quantiles(point, levels) : new double[0][][]);
+          intervals ? CountQuantiles.quantiles(point, models.dispersionBySeries(), levels) : new double[0][][]);
       long closedSeriesDays = table.zeroClosedDays(opened);
       if (closedSeriesDays > 0 && !quiet) {
         PrintWriter err = commandSpec.commandLine().getErr();

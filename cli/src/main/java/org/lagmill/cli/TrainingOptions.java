@@ -8,7 +8,7 @@ import org.lagmill.features.FeatureSpecYaml;
 import org.lagmill.learner.DatasetParameters;
 import org.lagmill.learner.Objective;
 import org.lagmill.learner.TrainParameters;
-import org.lagmill.forecast.TrainingPlan;
+import org.lagmill.training.TrainingPlan;
 import picocli.CommandLine.Option;
 
 /** Options shared by every command that trains ({@code train}, {@code backtest}, {@code demo}). */

@@ -2,7 +2,7 @@ package org.lagmill.eval;
 
 import java.util.List;
 import java.util.Map;
-import org.lagmill.forecast.PartitionReport;
+import org.lagmill.training.PartitionReport;
 
 /**
  * Scores of a rolling-origin backtest: per origin the model and each baseline under the same metric, and their mean

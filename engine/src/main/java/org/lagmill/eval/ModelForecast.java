@@ -2,7 +2,7 @@ package org.lagmill.eval;
 
 import java.util.ArrayList;
 import java.util.List;
-import org.lagmill.forecast.PartitionReport;
+import org.lagmill.training.PartitionReport;
 
 /**
  * One trained model's (or combination's) forecasts at one backtest origin.

@@ -4,13 +4,15 @@ import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
-import org.lagmill.forecast.ModelSet;
-import org.lagmill.forecast.ModelTraining;
-import org.lagmill.forecast.TrainingPlan;
+import org.lagmill.forecast.Forecaster;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.progress.ProgressListener;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.TruncatedHistory;
+import org.lagmill.training.ModelSet;
+import org.lagmill.training.ModelTraining;
+import org.lagmill.training.PartitionReport;
+import org.lagmill.training.TrainingPlan;
 
 /**
  * Rolling-origin backtest: for each origin, train only on the history cut at the origin, forecast the horizon with
@@ -125,11 +127,11 @@ public final class RollingOriginBacktest {
   private static ModelForecast trainAndForecast(TruncatedHistory known, TrainingPlan plan, int origin,
       BacktestSettings settings, MemoryBudget budget, ProgressListener progress) {
     long trainStart = System.nanoTime();
-    List<org.lagmill.forecast.PartitionReport> partitions = new ArrayList<>();
+    List<PartitionReport> partitions = new ArrayList<>();
     try (ModelSet models = ModelTraining.train(known, plan.withCutDayIndex(origin - 1), budget, progress)) {
       double trainSeconds = (System.nanoTime() - trainStart) / 1e9;
       long forecastStart = System.nanoTime();
-      double[][] point = models.forecast(known, settings.horizonDays(), budget);
+      double[][] point = Forecaster.forecast(models, known, settings.horizonDays(), budget);
       float[] alphas = models.dispersionBySeries();
       models.partitions().forEach(p -> partitions.add(p.report()));
       return new ModelForecast(point, alphas, partitions, trainSeconds, (System.nanoTime() - forecastStart) / 1e9);

@@ -1,5 +1,6 @@
 package org.lagmill.forecast;
 
+
 /**
  * Quantiles of a negative binomial distribution of daily units with mean {@code mean} and dispersion {@code alpha}
  * (variance = mean + alpha · mean²; alpha = 0 is Poisson). Forecast intervals use it around each point forecast:
@@ -14,6 +15,28 @@ public final class CountQuantiles {
   private static final double POISSON_ALPHA = 1e-9;
 
   private CountQuantiles() {}
+
+  /**
+   * Quantile forecasts around point forecasts, each series with its own dispersion.
+   *
+   * @param pointForecasts {@code [seriesIndex][dayOffset]} expected units
+   * @param dispersionBySeries each series' dispersion alpha, indexed like {@code pointForecasts}
+   * @param probabilities quantile levels in (0, 1)
+   * @return {@code [quantileIndex][seriesIndex][dayOffset]}
+   */
+  public static double[][][] quantiles(double[][] pointForecasts, float[] dispersionBySeries, double[] probabilities) {
+    double[][][] out = new double[probabilities.length][pointForecasts.length][];
+    for (int q = 0; q < probabilities.length; q++) {
+      for (int s = 0; s < pointForecasts.length; s++) {
+        double[] row = new double[pointForecasts[s].length];
+        for (int d = 0; d < row.length; d++) {
+          row[d] = quantile(pointForecasts[s][d], dispersionBySeries[s], probabilities[q]);
+        }
+        out[q][s] = row;
+      }
+    }
+    return out;
+  }
 
   /**
    * Smallest count {@code k} with {@code P(X <= k) >= probability}.

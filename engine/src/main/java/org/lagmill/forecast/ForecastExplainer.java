@@ -8,6 +8,7 @@ import org.lagmill.features.FeaturePass;
 import org.lagmill.learner.TrainedModel;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesHistory;
+import org.lagmill.training.ModelSet;
 
 /**
  * Why a forecast is what it is: per horizon period, the forecast of a series or of a group of series split into a

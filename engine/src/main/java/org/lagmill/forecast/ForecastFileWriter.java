@@ -19,6 +19,7 @@ import org.lagmill.io.CsvCells;
 import org.lagmill.io.OutputTargets;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SeriesAttributes;
+import org.lagmill.training.ModelDirectory;
 
 /**
  * Writes a {@link ForecastTable} as CSV (gzip when the name ends in {@code .gz}), through a temporary file renamed into

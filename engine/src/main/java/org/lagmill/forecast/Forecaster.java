@@ -1,10 +1,14 @@
 package org.lagmill.forecast;
 
+import java.util.Arrays;
+import java.util.BitSet;
 import org.lagmill.features.FeatureBatch;
 import org.lagmill.features.FeaturePass;
 import org.lagmill.features.FeatureSpec;
+import org.lagmill.learner.TrainedModel;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesHistory;
+import org.lagmill.training.ModelSet;
 
 /**
  * Point forecasts of the {@code horizonDays} days after a history's last day, for a chosen set of series.
@@ -15,10 +19,50 @@ import org.lagmill.store.SalesHistory;
  * numbers, which a test checks.
  */
 public final class Forecaster {
-  /** Rows per batch: large enough to amortise the native prediction call, small enough to stay a few MB. */
-  public static final int DEFAULT_BATCH_ROWS = 16_384;
-
   private Forecaster() {}
+
+  /**
+   * Point forecasts of the {@code horizonDays} days after the history's last day for every series, each series by its
+   * partition's model.
+   *
+   * @return {@code [seriesIndex][dayOffset]} non-negative expected units
+   */
+  public static double[][] forecast(ModelSet models, SalesHistory history, int horizonDays, MemoryBudget budget) {
+    return forecast(models, history, horizonDays, budget, null);
+  }
+
+  /**
+   * As {@link #forecast(ModelSet, SalesHistory, int, MemoryBudget)}, for the chosen series only; the rows of the
+   * others hold NaN (which the forecast file writer leaves out).
+   *
+   * @param chosenSeries ascending series indexes, or null for every series
+   */
+  public static double[][] forecast(ModelSet models, SalesHistory history, int horizonDays, MemoryBudget budget,
+      int[] chosenSeries) {
+    double[][] out = new double[history.seriesCount()][horizonDays];
+    BitSet chosen = null;
+    if (chosenSeries != null) {
+      chosen = new BitSet(history.seriesCount());
+      for (int s : chosenSeries) {
+        chosen.set(s);
+      }
+      for (int s = 0; s < out.length; s++) {
+        if (!chosen.get(s)) {
+          Arrays.fill(out[s], Double.NaN);
+        }
+      }
+    }
+    for (ModelSet.Partition partition : models.partitions()) {
+      int[] series = partition.seriesIndexes();
+      if (chosen != null) {
+        series = Arrays.stream(series).filter(chosen::get).toArray();
+      }
+      if (series.length > 0) {
+        forecast(history, models.spec(), partition.model()::predict, series, horizonDays, budget, out);
+      }
+    }
+    return out;
+  }
 
   /**
    * Forecasts every horizon day of the given series, writing non-negative units into {@code out[s][day]}.
@@ -66,7 +110,7 @@ public final class Forecaster {
 
   private static void predictInto(FeaturePass pass, BatchPredictor predictor, int firstHorizonDayIndex,
       MemoryBudget budget, PredictionSink sink) {
-    int batchRows = (int) Math.max(1, Math.min(DEFAULT_BATCH_ROWS, pass.rowCount()));
+    int batchRows = (int) Math.max(1, Math.min(TrainedModel.PREDICTION_BATCH_ROWS, pass.rowCount()));
     double[] predictions = new double[batchRows];
     try (FeatureBatch batch = new FeatureBatch(budget, batchRows, pass.schema().featureCount())) {
       pass.stream(batch, full -> {

@@ -29,6 +29,8 @@ public final class TrainedModel implements AutoCloseable {
   private final double[] validationCurve;
   private final double[] validationRmseCurve;
   private final int featureCount;
+  /** Rows per prediction batch: large enough to amortise the native call, small enough to stay a few MB. */
+  public static final int PREDICTION_BATCH_ROWS = 16_384;
   private static final long MODEL_TEXT_INITIAL_BYTES = 1L << 20;
 
   private SWIGTYPE_p_void booster;

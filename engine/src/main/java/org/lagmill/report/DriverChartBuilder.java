@@ -8,7 +8,7 @@ import org.lagmill.eval.Aggregator;
 import org.lagmill.eval.Level;
 import org.lagmill.features.FeatureFamily;
 import org.lagmill.forecast.ForecastExplainer;
-import org.lagmill.forecast.ModelSet;
+import org.lagmill.training.ModelSet;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesHistory;
 

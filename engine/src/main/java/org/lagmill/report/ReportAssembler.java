@@ -8,9 +8,9 @@ import java.util.Map;
 import org.lagmill.eval.BacktestResult;
 import org.lagmill.eval.BaselineKind;
 import org.lagmill.eval.EvaluationResult;
-import org.lagmill.forecast.PartitionReport;
 import org.lagmill.store.Periods;
 import org.lagmill.store.StoreSummary;
+import org.lagmill.training.PartitionReport;
 
 /**
  * Turns engine results (store summary, training reports, backtest and evaluation results) into the report's own

@@ -8,12 +8,12 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
-import org.lagmill.forecast.SmallHistories;
-import org.lagmill.forecast.TrainingPlan;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.progress.ProgressListener;
 import org.lagmill.store.ArraySalesHistory;
 import org.lagmill.store.TruncatedHistory;
+import org.lagmill.training.SmallHistories;
+import org.lagmill.training.TrainingPlan;
 
 /**
  * Nothing a backtest origin produces depends on a unit at or after that origin: scrambling every such unit leaves the

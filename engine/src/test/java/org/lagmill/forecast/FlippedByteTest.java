@@ -25,6 +25,11 @@ import org.lagmill.report.ReportJson;
 import org.lagmill.store.ArraySalesHistory;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.StoreGenerations;
+import org.lagmill.training.SmallHistories;
+import org.lagmill.training.ModelDirectory;
+import org.lagmill.training.ModelSet;
+import org.lagmill.training.ModelTraining;
+import org.lagmill.training.TrainingPlan;
 
 /**
  * A byte flipped anywhere in any file lagmill writes and later reads is caught on open: every store file (the five

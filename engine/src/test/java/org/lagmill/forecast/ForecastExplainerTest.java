@@ -15,6 +15,10 @@ import org.lagmill.learner.TrainParameters;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.progress.ProgressListener;
 import org.lagmill.store.ArraySalesHistory;
+import org.lagmill.training.SmallHistories;
+import org.lagmill.training.ModelSet;
+import org.lagmill.training.ModelTraining;
+import org.lagmill.training.TrainingPlan;
 
 /** The explained forecast against a slow reference built from every row's raw contributions. */
 class ForecastExplainerTest {
@@ -84,7 +88,7 @@ class ForecastExplainerTest {
           }
         }, p.seriesIndexes(), HORIZON_DAYS, budget, forecast);
       }
-      double[][] production = models.forecast(history, HORIZON_DAYS, budget);
+      double[][] production = Forecaster.forecast(models, history, HORIZON_DAYS, budget);
       for (int t = 0; t < targets.size(); t++) {
         ForecastExplainer.Explanation e = explained.get(t);
         for (int d = 0; d < HORIZON_DAYS; d++) {

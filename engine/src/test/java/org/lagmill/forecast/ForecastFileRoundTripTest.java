@@ -16,6 +16,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.ingest.InputFormatException;
 import org.lagmill.store.ArraySalesHistory;
+import org.lagmill.training.SmallHistories;
 
 class ForecastFileRoundTripTest {
   private static final long SEED = 88_123L;

@@ -15,6 +15,10 @@ import org.lagmill.memory.MemoryBudget;
 import org.lagmill.progress.ProgressListener;
 import org.lagmill.store.ArraySalesHistory;
 import org.lagmill.store.SalesHistory;
+import org.lagmill.training.ModelSet;
+import org.lagmill.training.ModelTraining;
+import org.lagmill.training.SmallHistories;
+import org.lagmill.training.TrainingPlan;
 
 class ForecasterStrategyTest {
   private static final long SEED = 20240611L;
@@ -50,7 +54,7 @@ class ForecasterStrategyTest {
     TrainingPlan plan = SmallHistories.plan(spec, 8, history.dayCount() - 1, HORIZON_DAYS, null);
     try (MemoryBudget budget = MemoryBudget.unlimited("test");
         ModelSet models = ModelTraining.train(history, plan, budget, ProgressListener.SILENT)) {
-      double[][] direct = models.forecast(history, HORIZON_DAYS, budget);
+      double[][] direct = Forecaster.forecast(models, history, HORIZON_DAYS, budget);
       double[][] recursive = new double[history.seriesCount()][HORIZON_DAYS];
       ModelSet.Partition only = models.partitions().get(0);
       Forecaster.forecastRecursive(history, spec, only.model()::predict, only.seriesIndexes(), HORIZON_DAYS, budget,

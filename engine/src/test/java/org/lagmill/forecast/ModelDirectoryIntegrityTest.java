@@ -23,6 +23,12 @@ import org.lagmill.progress.ProgressListener;
 import org.lagmill.store.ArraySalesHistory;
 import org.lagmill.store.CorruptStoreException;
 import org.lagmill.store.StoreNotices;
+import org.lagmill.training.SmallHistories;
+import org.lagmill.training.ModelDirectory;
+import org.lagmill.training.ModelManifest;
+import org.lagmill.training.ModelSet;
+import org.lagmill.training.ModelTraining;
+import org.lagmill.training.TrainingPlan;
 
 /**
  * Every byte of a model directory is checked on open (the manifest by its own checksum, the dispersion table by the

@@ -11,6 +11,7 @@ import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.ingest.IngestOptions;
 import org.lagmill.ingest.StoreIngest;
 import org.lagmill.memory.MemoryBudget;
+import org.lagmill.training.ModelDirectory;
 
 /** A store given where a model is expected is named as such, not reported as a broken model. */
 class ModelPathTest {

@@ -1,4 +1,4 @@
-package org.lagmill.forecast;
+package org.lagmill.training;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;

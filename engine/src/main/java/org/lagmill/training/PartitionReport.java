@@ -1,4 +1,4 @@
-package org.lagmill.forecast;
+package org.lagmill.training;
 
 import java.util.List;
 

@@ -1,4 +1,4 @@
-package org.lagmill.forecast;
+package org.lagmill.training;
 
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -188,7 +188,7 @@ public final class ModelTraining {
       return 0;
     }
     DispersionEstimator partitionOnly = new DispersionEstimator(1);
-    int batchRows = (int) Math.min(Forecaster.DEFAULT_BATCH_ROWS, validationRows.rowCount());
+    int batchRows = (int) Math.min(TrainedModel.PREDICTION_BATCH_ROWS, validationRows.rowCount());
     double[] predictions = new double[batchRows];
     try (FeatureBatch batch = new FeatureBatch(budget, batchRows, validationRows.schema().featureCount())) {
       validationRows.stream(batch, full -> {

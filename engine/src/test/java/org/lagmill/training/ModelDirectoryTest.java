@@ -1,4 +1,4 @@
-package org.lagmill.forecast;
+package org.lagmill.training;
 
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
@@ -15,6 +15,7 @@ import java.util.TreeMap;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.forecast.Forecaster;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.progress.ProgressListener;
 import org.lagmill.store.ArraySalesHistory;
@@ -40,9 +41,9 @@ class ModelDirectoryTest {
       for (PartitionReport report : manifest.partitions()) {
         assertEquals(10, report.seriesCount(), report.partitionValue());
       }
-      double[][] expected = trained.forecast(history, HORIZON_DAYS, budget);
+      double[][] expected = Forecaster.forecast(trained, history, HORIZON_DAYS, budget);
       try (ModelSet opened = ModelDirectory.open(modelDir, history)) {
-        double[][] actual = opened.forecast(history, HORIZON_DAYS, budget);
+        double[][] actual = Forecaster.forecast(opened, history, HORIZON_DAYS, budget);
         for (int s = 0; s < expected.length; s++) {
           assertArrayEquals(expected[s], actual[s], "series " + s + ", seed " + SEED);
         }

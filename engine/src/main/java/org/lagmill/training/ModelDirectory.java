@@ -1,4 +1,4 @@
-package org.lagmill.forecast;
+package org.lagmill.training;
 
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.databind.JsonNode;

@@ -1,4 +1,4 @@
-package org.lagmill.forecast;
+package org.lagmill.training;
 
 import java.time.LocalDate;
 import java.util.ArrayList;
@@ -116,7 +116,7 @@ public final class SmallHistories {
   }
 
   /** Every row of a stream as {@code [seriesIndex, dayIndex, label, weight, features…]}, in stream order. */
-  static List<float[]> rows(RowStream stream, MemoryBudget budget) {
+  public static List<float[]> rows(RowStream stream, MemoryBudget budget) {
     List<float[]> rows = new ArrayList<>();
     int featureCount = stream.schema().featureCount();
     try (FeatureBatch batch = new FeatureBatch(budget, 257, featureCount)) {
@@ -138,7 +138,7 @@ public final class SmallHistories {
   }
 
   /** Bitwise comparison (NaN equals NaN) of two row lists; returns a description of the first difference or null. */
-  static String firstDifference(List<float[]> expected, List<float[]> actual) {
+  public static String firstDifference(List<float[]> expected, List<float[]> actual) {
     if (expected.size() != actual.size()) {
       return "row count " + expected.size() + " vs " + actual.size();
     }

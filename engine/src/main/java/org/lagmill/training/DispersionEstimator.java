@@ -1,4 +1,5 @@
-package org.lagmill.forecast;
+package org.lagmill.training;
+
 
 /**
  * Estimates the negative binomial dispersion of each series from held-out days (actual against forecast), shrunk
