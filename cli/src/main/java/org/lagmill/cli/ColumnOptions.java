@@ -1,11 +1,12 @@
 package org.lagmill.cli;
 
 import org.lagmill.ingest.ColumnNames;
+import org.lagmill.store.SeriesIdentity;
 import picocli.CommandLine.Option;
 
 /** The column-name options shared by {@code ingest} and {@code append}; defaults as in docs/formats.md. */
 final class ColumnOptions {
-  @Option(names = "--series-id-column", paramLabel = "NAME", defaultValue = "series_id",
+  @Option(names = "--series-id-column", paramLabel = "NAME", defaultValue = SeriesIdentity.SERIES_ID,
       description = "column naming each series (default: ${DEFAULT-VALUE}); without it a series is named by its "
           + "attribute values joined with '/'")
   String seriesIdColumn;

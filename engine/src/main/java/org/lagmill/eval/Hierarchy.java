@@ -215,12 +215,8 @@ public final class Hierarchy {
       for (int a = 0; a < indexes.length; a++) {
         indexes[a] = attributes.attributeIndex(names.get(a));
         if (indexes[a] < 0) {
-          List<String> allowed = new ArrayList<>();
-          for (int k = 0; k < attributes.attributeCount(); k++) {
-            allowed.add(attributes.attributeName(k));
-          }
           throw new IllegalArgumentException("unknown attribute '" + names.get(a) + "' in level '"
-              + Level.nameOf(names) + "'; allowed: " + allowed);
+              + Level.nameOf(names) + "'; allowed: " + attributes.attributeNames());
         }
       }
       levels.add(Level.build(names, indexes, attributes, seriesCount));

@@ -9,6 +9,7 @@ import org.lagmill.store.AttributeNesting;
 import org.lagmill.store.Periods;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SeriesAttributes;
+import org.lagmill.store.SeriesIdentity;
 
 /**
  * Streams feature rows of a {@link SalesHistory} under a {@link FeatureSpec}: series by series in the order of the
@@ -259,7 +260,7 @@ public final class FeaturePass implements RowStream {
     if (names == null) {
       List<Integer> all = new ArrayList<>();
       for (int a = 0; a < attributes.attributeCount(); a++) {
-        if (!attributes.attributeName(a).equals(FeatureSpec.SERIES_ID_ATTRIBUTE)) {
+        if (!attributes.attributeName(a).equals(SeriesIdentity.SERIES_ID)) {
           all.add(a);
         }
       }
@@ -273,12 +274,8 @@ public final class FeaturePass implements RowStream {
     for (int i = 0; i < indexes.length; i++) {
       indexes[i] = attributes.attributeIndex(names.get(i));
       if (indexes[i] < 0) {
-        List<String> known = new ArrayList<>();
-        for (int a = 0; a < attributes.attributeCount(); a++) {
-          known.add(attributes.attributeName(a));
-        }
         throw new IllegalArgumentException(what + " attribute '" + names.get(i) + "' does not exist; the series have: "
-            + String.join(", ", known));
+            + String.join(", ", attributes.attributeNames()));
       }
     }
     return indexes;

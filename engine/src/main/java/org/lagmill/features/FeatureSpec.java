@@ -74,7 +74,6 @@ public final class FeatureSpec {
   }
 
   public static final int DEFAULT_HORIZON_DAYS = 28;
-  static final String SERIES_ID_ATTRIBUTE = "series_id";
 
   private final int horizonDays;
   private final Strategy strategy;

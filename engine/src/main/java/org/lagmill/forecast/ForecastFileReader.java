@@ -11,6 +11,7 @@ import org.lagmill.ingest.CsvSource;
 import org.lagmill.ingest.InputFormatException;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SeriesAttributes;
+import org.lagmill.store.SeriesIdentity;
 
 /**
  * Reads a long forecast file (the {@link ForecastFileWriter} form, or any file with {@code series_id} or the store's
@@ -26,13 +27,14 @@ public final class ForecastFileReader {
       String[] header = csv.readHeader();
       int dateColumn = column(header, "date", file);
       int forecastColumn = column(header, "forecast", file);
-      int idColumn = Arrays.asList(header).indexOf("series_id");
+      List<String> columns = Arrays.asList(header);
+      int idColumn = SeriesIdentity.idIndex(columns);
       int[] attributeColumns = new int[attributes.attributeCount()];
       for (int a = 0; a < attributeColumns.length; a++) {
-        attributeColumns[a] = Arrays.asList(header).indexOf(attributes.attributeName(a));
+        attributeColumns[a] = columns.indexOf(attributes.attributeName(a));
         if (idColumn < 0 && attributeColumns[a] < 0) {
-          throw new InputFormatException(file, 1, 0, "expected a series_id column or the store's attribute column '"
-              + attributes.attributeName(a) + "', found neither");
+          throw new InputFormatException(file, 1, 0, "expected a " + SeriesIdentity.SERIES_ID + " column or the"
+              + " store's attribute column '" + attributes.attributeName(a) + "', found neither");
         }
       }
       List<Integer> quantileColumns = new ArrayList<>();
@@ -51,18 +53,16 @@ public final class ForecastFileReader {
       CsvRecord record;
       while ((record = csv.next()) != null) {
         long line = csv.lineNumber();
-        int series;
-        if (idColumn >= 0) {
-          series = attributes.seriesIndexOf(record.getField(idColumn));
-        } else {
+        if (idColumn < 0) {
           for (int a = 0; a < key.length; a++) {
             key[a] = record.getField(attributeColumns[a]);
           }
-          series = attributes.seriesIndexOf(String.join("/", key));
         }
+        String seriesId = SeriesIdentity.seriesId(idColumn >= 0 ? record.getField(idColumn) : null, key);
+        int series = attributes.seriesIndexOf(seriesId);
         if (series < 0) {
           throw new InputFormatException(file, line, idColumn + 1, "expected a series of the store, found '"
-              + (idColumn >= 0 ? record.getField(idColumn) : String.join("/", key)) + "'");
+              + seriesId + "'");
         }
         int day = dayIndex(file, line, dateColumn, record.getField(dateColumn), history);
         double[] row = new double[1 + quantileColumns.size()];

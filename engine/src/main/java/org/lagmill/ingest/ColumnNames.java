@@ -1,6 +1,7 @@
 package org.lagmill.ingest;
 
 import java.util.Objects;
+import org.lagmill.store.SeriesIdentity;
 
 /**
  * Names of the columns the readers look for, each renamable on the command line (see docs/formats.md, "Column-name
@@ -18,13 +19,13 @@ import java.util.Objects;
 public record ColumnNames(String seriesIdColumn, String dateColumn, String unitsColumn, String fromColumn,
     String priceColumn, String calendarDateColumn) {
   /** The documented defaults: series_id, date, units, from, price. */
-  public static final ColumnNames DEFAULTS = new ColumnNames(WideSalesReader.DEFAULT_SERIES_ID_COLUMN,
+  public static final ColumnNames DEFAULTS = new ColumnNames(SeriesIdentity.SERIES_ID,
       CalendarFileReader.DEFAULT_DATE_COLUMN, LongSalesReader.DEFAULT_UNITS_COLUMN,
       PriceFileReader.DEFAULT_FROM_COLUMN, PriceFileReader.DEFAULT_PRICE_COLUMN,
       CalendarFileReader.DEFAULT_DATE_COLUMN);
 
   public ColumnNames {
-    requireName(seriesIdColumn, "--series-id-column", WideSalesReader.DEFAULT_SERIES_ID_COLUMN);
+    requireName(seriesIdColumn, "--series-id-column", SeriesIdentity.SERIES_ID);
     requireName(dateColumn, "--date-column", CalendarFileReader.DEFAULT_DATE_COLUMN);
     requireName(unitsColumn, "--units-column", LongSalesReader.DEFAULT_UNITS_COLUMN);
     requireName(fromColumn, "--from-column", PriceFileReader.DEFAULT_FROM_COLUMN);

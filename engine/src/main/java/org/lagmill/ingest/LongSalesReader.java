@@ -14,6 +14,7 @@ import org.lagmill.memory.MemoryBudget;
 import org.lagmill.memory.NativeIntArray;
 import org.lagmill.store.Periods;
 import org.lagmill.store.SalesHistory;
+import org.lagmill.store.SeriesIdentity;
 
 /**
  * Reads long-format sales: one row per series and day, in any order, with a date column, a units column and attribute
@@ -33,7 +34,6 @@ import org.lagmill.store.SalesHistory;
 public final class LongSalesReader {
   public static final String DEFAULT_DATE_COLUMN = "date";
   public static final String DEFAULT_UNITS_COLUMN = "units";
-  public static final String DEFAULT_SERIES_ID_COLUMN = "series_id";
 
   /** A matrix cell whose row was present with an empty units cell: unknown, but taken for duplicate detection. */
   private static final int PRESENT_UNKNOWN = -2;
@@ -43,11 +43,11 @@ public final class LongSalesReader {
 
   /**
    * As {@link #read(Path, String, String, String, MissingRows, MemoryBudget, SeriesSink)} with the series id column
-   * "series_id".
+   * {@link SeriesIdentity#SERIES_ID}.
    */
   public static LongSalesRead read(Path file, String dateColumn, String unitsColumn, MissingRows missingRows,
       MemoryBudget budget, SeriesSink sink) {
-    return read(file, dateColumn, unitsColumn, DEFAULT_SERIES_ID_COLUMN, missingRows, budget, sink);
+    return read(file, dateColumn, unitsColumn, SeriesIdentity.SERIES_ID, missingRows, budget, sink);
   }
 
   /**
@@ -299,10 +299,8 @@ public final class LongSalesReader {
 
     /** The series' name as the store will show it: the series id, or the attribute values joined by '/'. */
     String describe(CsvRecord record) {
-      if (seriesIdIndex >= 0) {
-        return record.getField(seriesIdIndex);
-      }
-      return String.join("/", attributeValues(record));
+      return SeriesIdentity.seriesId(seriesIdIndex >= 0 ? record.getField(seriesIdIndex) : null,
+          attributeValues(record));
     }
 
     void checkSameAttributes(Path file, long line, CsvRecord record, String[] firstValues, long firstLine) {

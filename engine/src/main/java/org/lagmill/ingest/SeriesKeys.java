@@ -147,11 +147,7 @@ final class SeriesKeys {
   }
 
   static String attributeNames(SeriesAttributes attributes) {
-    List<String> names = new ArrayList<>();
-    for (int a = 0; a < attributes.attributeCount(); a++) {
-      names.add(attributes.attributeName(a));
-    }
-    return String.join(", ", names);
+    return String.join(", ", attributes.attributeNames());
   }
 
   int seriesCount() {

@@ -16,6 +16,7 @@ import org.lagmill.store.PriceTable;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.SeriesAttributes;
+import org.lagmill.store.SeriesIdentity;
 import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreUpdate;
 import org.lagmill.store.StoreWriter;
@@ -113,10 +114,7 @@ public final class StoreAppend {
       List<int[]> newSeriesUnits) {}
 
   private static int[] matchAttributes(SeriesAttributes attributes, WideSalesReader reader) {
-    List<String> storeNames = new ArrayList<>();
-    for (int a = 0; a < attributes.attributeCount(); a++) {
-      storeNames.add(attributes.attributeName(a));
-    }
+    List<String> storeNames = attributes.attributeNames();
     List<String> fileNames = reader.attributeNames();
     if (!new HashSet<>(storeNames).equals(new HashSet<>(fileNames))) {
       throw new InputFormatException(reader.file(), 1, 0, "expected the attribute columns of the store "
@@ -137,7 +135,7 @@ public final class StoreAppend {
     List<int[]> newUnits = new ArrayList<>();
     Object2IntOpenHashMap<String> newIndexById = new Object2IntOpenHashMap<>();
     newIndexById.defaultReturnValue(-1);
-    int idAttribute = store.attributes().attributeIndex("series_id");
+    int idAttribute = SeriesIdentity.idIndex(store.attributes().attributeNames());
     String[] fileValues = new String[fileColumnOfAttribute.length];
     int[] row = new int[dayCount];
     while (reader.next(fileValues, row)) {
@@ -145,7 +143,7 @@ public final class StoreAppend {
       for (int a = 0; a < values.length; a++) {
         values[a] = fileValues[fileColumnOfAttribute[a]];
       }
-      String seriesId = idAttribute >= 0 ? values[idAttribute] : String.join("/", values);
+      String seriesId = SeriesIdentity.seriesId(values, idAttribute);
       int seriesIndex = store.attributes().seriesIndexOf(seriesId);
       boolean repeated = seriesIndex >= 0 ? unitsBySeries[seriesIndex] != null : newIndexById.containsKey(seriesId);
       if (repeated) {
@@ -168,10 +166,7 @@ public final class StoreAppend {
     int oldDayCount = store.dayCount();
     int dayCount = oldDayCount + newDays.dayCount();
     SeriesAttributes attributes = store.attributes();
-    List<String> names = new ArrayList<>();
-    for (int a = 0; a < attributes.attributeCount(); a++) {
-      names.add(attributes.attributeName(a));
-    }
+    List<String> names = attributes.attributeNames();
     try (StoreWriter writer = new StoreWriter(temp, store.firstDate(), store.periodDays(), dayCount, names,
         budget)) {
       int[] row = new int[dayCount];

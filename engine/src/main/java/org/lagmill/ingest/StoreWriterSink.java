@@ -6,6 +6,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import org.lagmill.memory.MemoryBudget;
+import org.lagmill.store.SeriesIdentity;
 import org.lagmill.store.StoreWriter;
 
 /**
@@ -36,13 +37,13 @@ final class StoreWriterSink implements SeriesSink {
   public void begin(LongSalesHeader header) {
     List<String> names = new ArrayList<>(header.attributeNames());
     int idColumn = names.indexOf(seriesIdColumn);
-    if (idColumn >= 0 && !seriesIdColumn.equals(WideSalesReader.DEFAULT_SERIES_ID_COLUMN)) {
-      int clash = names.indexOf(WideSalesReader.DEFAULT_SERIES_ID_COLUMN);
+    if (idColumn >= 0 && !seriesIdColumn.equals(SeriesIdentity.SERIES_ID)) {
+      int clash = names.indexOf(SeriesIdentity.SERIES_ID);
       if (clash >= 0) {
         throw new InputFormatException(salesFile, 1, 0, "column \"series_id\" clashes with the series id column \""
             + seriesIdColumn + "\": expected one of them, found both; rename one");
       }
-      names.set(idColumn, WideSalesReader.DEFAULT_SERIES_ID_COLUMN);
+      names.set(idColumn, SeriesIdentity.SERIES_ID);
     }
     try {
       writer = new StoreWriter(dir, header.firstDate(), header.periodDays(), header.dayCount(), names, budget);

@@ -10,6 +10,7 @@ import java.util.Collections;
 import java.util.List;
 import org.lagmill.store.Periods;
 import org.lagmill.store.SalesHistory;
+import org.lagmill.store.SeriesIdentity;
 
 /**
  * Streams a wide sales file: one row per series, attribute columns (text) and one contiguous, ascending run of
@@ -23,7 +24,6 @@ import org.lagmill.store.SalesHistory;
  * is filled per {@link #next} call, nothing is allocated per units cell.
  */
 public final class WideSalesReader implements AutoCloseable {
-  public static final String DEFAULT_SERIES_ID_COLUMN = "series_id";
   /** Units cells longer than this are rejected anyway (at most 10 digits); the parser keeps this much lookahead. */
   private static final int UNITS_LOOKAHEAD_BYTES = 40;
   private static final int MAX_UNITS_DIGITS = 10;
@@ -130,8 +130,8 @@ public final class WideSalesReader implements AutoCloseable {
         if (name.isEmpty()) {
           throw error(c, "expected a column name, found an empty header cell");
         }
-        String storedName = name.equals(seriesIdColumn) ? DEFAULT_SERIES_ID_COLUMN : name;
-        if (name.equals(DEFAULT_SERIES_ID_COLUMN) && !seriesIdColumn.equals(DEFAULT_SERIES_ID_COLUMN)) {
+        String storedName = name.equals(seriesIdColumn) ? SeriesIdentity.SERIES_ID : name;
+        if (name.equals(SeriesIdentity.SERIES_ID) && !seriesIdColumn.equals(SeriesIdentity.SERIES_ID)) {
           throw error(c, "column \"series_id\" clashes with the series id column \"" + seriesIdColumn
               + "\": expected one of them, found both; rename one");
         }

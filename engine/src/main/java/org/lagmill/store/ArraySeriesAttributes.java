@@ -23,12 +23,7 @@ public final class ArraySeriesAttributes implements SeriesAttributes {
       valuesByAttribute.add(new ArrayList<>());
       codeByValue.add(new HashMap<>());
     }
-    int idColumn = -1;
-    for (int a = 0; a < names.length; a++) {
-      if (names[a].equals("series_id")) {
-        idColumn = a;
-      }
-    }
+    int idColumn = SeriesIdentity.idIndex(List.of(names));
     seriesIds = new String[valuesBySeries.length];
     for (int s = 0; s < valuesBySeries.length; s++) {
       for (int a = 0; a < names.length; a++) {
@@ -42,7 +37,7 @@ public final class ArraySeriesAttributes implements SeriesAttributes {
         }
         codesBySeries[s][a] = code;
       }
-      seriesIds[s] = idColumn >= 0 ? valuesBySeries[s][idColumn] : String.join("/", valuesBySeries[s]);
+      seriesIds[s] = SeriesIdentity.seriesId(valuesBySeries[s], idColumn);
       seriesIndexById.put(seriesIds[s], s);
     }
   }
@@ -54,6 +49,7 @@ public final class ArraySeriesAttributes implements SeriesAttributes {
 
   @Override public int attributeCount() { return names.length; }
   @Override public String attributeName(int attributeIndex) { return names[attributeIndex]; }
+  @Override public List<String> attributeNames() { return List.of(names); }
 
   @Override
   public int attributeIndex(String attributeName) {

@@ -15,8 +15,6 @@ import org.lagmill.memory.MemoryBudget;
  * reader can map its keys to series before the store is finished.
  */
 final class AttributeDictionaryBuilder implements SeriesAttributes {
-  static final String SERIES_ID = "series_id";
-
   private final String[] names;
   private final int seriesIdAttribute;
   private final Object2IntOpenHashMap<String>[] codeByValue;
@@ -28,18 +26,14 @@ final class AttributeDictionaryBuilder implements SeriesAttributes {
   @SuppressWarnings("unchecked")
   AttributeDictionaryBuilder(List<String> attributeNames) {
     names = attributeNames.toArray(new String[0]);
-    int idAttribute = -1;
     for (int a = 0; a < names.length; a++) {
       for (int b = 0; b < a; b++) {
         if (names[a].equals(names[b])) {
           throw new IllegalArgumentException("attribute names must be distinct, got \"" + names[a] + "\" twice");
         }
       }
-      if (names[a].equals(SERIES_ID)) {
-        idAttribute = a;
-      }
     }
-    seriesIdAttribute = idAttribute;
+    seriesIdAttribute = SeriesIdentity.idIndex(attributeNames);
     codeByValue = new Object2IntOpenHashMap[names.length];
     values = new ObjectArrayList[names.length];
     codes = new IntArrayList[names.length];
@@ -52,11 +46,6 @@ final class AttributeDictionaryBuilder implements SeriesAttributes {
     seriesIndexById.defaultReturnValue(-1);
   }
 
-  /** The id a series with these attribute values gets: its series_id value, else the values joined by '/'. */
-  String seriesIdOf(String[] attributeValues) {
-    return seriesIdAttribute >= 0 ? attributeValues[seriesIdAttribute] : String.join("/", attributeValues);
-  }
-
   /**
    * Adds one series' attribute values.
    *
@@ -67,7 +56,7 @@ final class AttributeDictionaryBuilder implements SeriesAttributes {
       throw new IllegalArgumentException("expected " + names.length + " attribute values, got "
           + attributeValues.length);
     }
-    String seriesId = seriesIdOf(attributeValues);
+    String seriesId = SeriesIdentity.seriesId(attributeValues, seriesIdAttribute);
     int seriesIndex = seriesIds.size();
     if (seriesIndexById.putIfAbsent(seriesId, seriesIndex) != -1) {
       throw new IllegalArgumentException("duplicate series \"" + seriesId + "\": each series may appear once");
@@ -150,6 +139,7 @@ final class AttributeDictionaryBuilder implements SeriesAttributes {
 
   @Override public int attributeCount() { return names.length; }
   @Override public String attributeName(int attributeIndex) { return names[attributeIndex]; }
+  @Override public List<String> attributeNames() { return List.of(names); }
 
   @Override
   public int attributeIndex(String attributeName) {

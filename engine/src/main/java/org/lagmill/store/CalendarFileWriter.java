@@ -66,10 +66,6 @@ final class CalendarFileWriter {
   }
 
   private static String attributeNames(SeriesAttributes attributes) {
-    StringBuilder b = new StringBuilder();
-    for (int a = 0; a < attributes.attributeCount(); a++) {
-      b.append(a == 0 ? "" : ", ").append(attributes.attributeName(a));
-    }
-    return b.toString();
+    return String.join(", ", attributes.attributeNames());
   }
 }

@@ -4,6 +4,7 @@ import it.unimi.dsi.fastutil.objects.Object2IntOpenHashMap;
 import java.nio.ByteOrder;
 import java.nio.file.Path;
 import java.util.Arrays;
+import java.util.List;
 import org.lagmill.memory.MemoryBudget;
 
 /**
@@ -31,12 +32,8 @@ final class MappedSeriesAttributes extends MappedStoreFile implements SeriesAttr
     values = new String[attributeCount][];
     codeByValue = new Object2IntOpenHashMap[attributeCount];
     long heap = 0;
-    int idAttribute = -1;
     for (int a = 0; a < attributeCount; a++) {
       names[a] = reads.getString();
-      if (names[a].equals(AttributeDictionaryBuilder.SERIES_ID)) {
-        idAttribute = a;
-      }
       int valueCount = reads.getCount("dictionary size", Math.max(seriesCount, maxValueCount));
       values[a] = new String[valueCount];
       codeByValue[a] = new Object2IntOpenHashMap<>(valueCount);
@@ -47,7 +44,7 @@ final class MappedSeriesAttributes extends MappedStoreFile implements SeriesAttr
         heap += 56 + 2L * values[a][code].length() + 24;
       }
     }
-    seriesIdAttribute = idAttribute;
+    seriesIdAttribute = SeriesIdentity.idIndex(List.of(names));
     reads.alignTo(Integer.BYTES);
     codesOffset = reads.position();
     AttributesLayout.checkFileSize(file, codesOffset, seriesCount, attributeCount, fileBytes());
@@ -116,14 +113,7 @@ final class MappedSeriesAttributes extends MappedStoreFile implements SeriesAttr
 
   @Override
   public String seriesId(int seriesIndex) {
-    if (seriesIdAttribute >= 0) {
-      return value(seriesIdAttribute, code(seriesIndex, seriesIdAttribute));
-    }
-    String[] parts = new String[names.length];
-    for (int a = 0; a < names.length; a++) {
-      parts[a] = value(a, code(seriesIndex, a));
-    }
-    return String.join("/", parts);
+    return SeriesIdentity.seriesId(this, seriesIndex, seriesIdAttribute);
   }
 
   /** Builds the id index on first use: most readers go by series index and never pay for it. */

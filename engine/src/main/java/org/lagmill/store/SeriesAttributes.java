@@ -1,11 +1,22 @@
 package org.lagmill.store;
 
+import java.util.List;
+
 /**
  * Text attributes of each series (item, store, region, …), dictionary-encoded: attribute {@code a} of series {@code s}
  * is a code {@code 0 .. cardinality(a)-1} whose text is {@link #value(int, int)}.
  */
 public interface SeriesAttributes {
   int attributeCount();
+
+  /** The attribute names in attribute index order (an unmodifiable copy). */
+  default List<String> attributeNames() {
+    String[] names = new String[attributeCount()];
+    for (int a = 0; a < names.length; a++) {
+      names[a] = attributeName(a);
+    }
+    return List.of(names);
+  }
 
   String attributeName(int attributeIndex);
 
@@ -22,7 +33,7 @@ public interface SeriesAttributes {
   /** Code of a value, or -1 when the attribute never takes it. */
   int codeOf(int attributeIndex, String value);
 
-  /** The series' name: its {@code series_id} cell, or its attribute values joined by '/'. */
+  /** The series' name as {@link SeriesIdentity} gives it: its {@code series_id} value, or its values joined by '/'. */
   String seriesId(int seriesIndex);
 
   /** Index of the series with this name, or -1. */

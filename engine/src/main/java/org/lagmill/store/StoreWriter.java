@@ -361,12 +361,8 @@ public final class StoreWriter implements AutoCloseable {
         }
       }
     }
-    List<String> attributeNames = new ArrayList<>();
-    for (int a = 0; a < attributes.attributeCount(); a++) {
-      attributeNames.add(attributes.attributeName(a));
-    }
     StoreManifest manifest = new StoreManifest(StoreManifest.FORMAT_VERSION_CURRENT, firstDate.toString(), dayCount,
-        periodDays == Periods.DAILY ? null : periodDays, seriesCount(), attributeNames, sources, ordered,
+        periodDays == Periods.DAILY ? null : periodDays, seriesCount(), attributes.attributeNames(), sources, ordered,
         StoreManifest.fingerprintOf(ordered),
         new StoreManifest.Fill(zeroFilledItemDays, unknownItemDays, closedItemDays, partlyClosedItemPeriods),
         recordedNesting != null ? recordedNesting : AttributeNesting.detect(attributes, seriesCount()).parents(),

@@ -26,6 +26,7 @@ import org.lagmill.io.SealedJson;
 import org.lagmill.learner.TrainedModel;
 import org.lagmill.store.CorruptStoreException;
 import org.lagmill.store.SalesHistory;
+import org.lagmill.store.SeriesIdentity;
 import org.lagmill.store.StoreDirectories;
 import org.lagmill.store.StoreGenerations;
 
@@ -178,7 +179,7 @@ public final class ModelDirectory {
 
   private static void writeDispersion(Path file, SalesHistory history, float[] dispersion) throws IOException {
     try (BufferedWriter out = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
-      out.write("series_id,dispersion\n");
+      out.write(SeriesIdentity.SERIES_ID + ",dispersion\n");
       for (int s = 0; s < dispersion.length; s++) {
         out.write(CsvCells.cell(history.attributes().seriesId(s)) + "," + dispersion[s] + "\n");
       }
@@ -193,7 +194,8 @@ public final class ModelDirectory {
         lineNumber++;
         int comma = line.lastIndexOf(',');
         if (comma < 0) {
-          throw new CorruptStoreException(file, "line " + lineNumber + ": expected series_id,dispersion, actual "
+          throw new CorruptStoreException(file, "line " + lineNumber + ": expected " + SeriesIdentity.SERIES_ID
+              + ",dispersion, actual "
               + line);
         }
         String id = line.substring(0, comma);

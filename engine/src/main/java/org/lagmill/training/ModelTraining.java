@@ -237,12 +237,8 @@ public final class ModelTraining {
     SeriesAttributes attributes = history.attributes();
     int attribute = attributes.attributeIndex(partitionAttribute);
     if (attribute < 0) {
-      List<String> names = new ArrayList<>();
-      for (int a = 0; a < attributes.attributeCount(); a++) {
-        names.add(attributes.attributeName(a));
-      }
       throw new IllegalArgumentException("unknown partition attribute '" + partitionAttribute + "'; the store has "
-          + names);
+          + attributes.attributeNames());
     }
     int[] counts = new int[attributes.cardinality(attribute)];
     for (int s = 0; s < history.seriesCount(); s++) {
