@@ -62,7 +62,7 @@ public final class SeriesSelection {
       int attribute = attributes.attributeIndex(name);
       if (attribute < 0) {
         throw new IllegalArgumentException("--where '" + condition + "': the store has no attribute '" + name
-            + "'; its attributes: " + String.join(", ", attributeNames(attributes)));
+            + "'; its attributes: " + String.join(", ", attributes.attributeNames()));
       }
       int code = attributes.codeOf(attribute, value);
       if (code < 0) {
@@ -102,14 +102,6 @@ public final class SeriesSelection {
       }
     }
     return out.stream().mapToInt(Integer::intValue).toArray();
-  }
-
-  private static List<String> attributeNames(SeriesAttributes attributes) {
-    List<String> names = new ArrayList<>();
-    for (int a = 0; a < attributes.attributeCount(); a++) {
-      names.add(attributes.attributeName(a));
-    }
-    return names;
   }
 
   private static String someValues(SeriesAttributes attributes, int attribute) {
