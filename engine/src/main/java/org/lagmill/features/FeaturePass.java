@@ -24,8 +24,9 @@ import org.lagmill.store.SeriesIdentity;
  *   <li>{@link #prediction}: chosen series, a run of target days that may pass the end of the history; the label is the
  *       units when known and NaN otherwise, and no row is skipped.
  * </ul>
- * Features read units only from days before the history's {@link SalesHistory#dayCount()}; a recursive forecaster
- * writes its predictions into a scratch {@code ArraySalesHistory} copy to make later days readable.
+ * Features read units only from days before the history's {@link SalesHistory#dayCount()}; a recursive forecast
+ * passes a history view whose {@code dayCount()} grows by one forecast day per step (the forecast package's
+ * {@code ForecastScratch}), so earlier forecasts become readable without copying the history.
  *
  * <p>{@link #rowCount()} is exact and known at construction; streaming again yields the same rows in the same order.
  * Not thread-safe: one {@link #stream} at a time.

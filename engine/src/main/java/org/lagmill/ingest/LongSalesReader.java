@@ -35,7 +35,11 @@ public final class LongSalesReader {
   public static final String DEFAULT_DATE_COLUMN = "date";
   public static final String DEFAULT_UNITS_COLUMN = "units";
 
-  /** A matrix cell whose row was present with an empty units cell: unknown, but taken for duplicate detection. */
+  /**
+   * The units matrix starts at {@link SalesHistory#UNKNOWN_UNITS}, meaning "no row seen"; a row with an empty units
+   * cell stores this value instead, so a second row for the same series and date is still caught as a duplicate. When
+   * the matrix is handed on, "no row" becomes what the missing-rows policy says and this value becomes unknown.
+   */
   private static final int PRESENT_UNKNOWN = -2;
   private static final char KEY_SEPARATOR = '\u0000';
 

@@ -2,7 +2,8 @@ package org.lagmill.store;
 
 /**
  * Byte width of one series' daily units column, chosen once from the series' largest value. The all-ones value of each
- * width is the sentinel for an unknown day, so each width holds one value fewer than its unsigned range.
+ * width is the sentinel for an unknown day: 255 and 65535 for the unsigned byte and short widths (which therefore hold
+ * one value fewer than their range) and -1 for the signed int width, which no units value can take.
  */
 public enum UnitsWidth {
   BYTE(1, 0xFF),
@@ -13,7 +14,10 @@ public enum UnitsWidth {
   public static final int BYTE_MAX_UNITS = 254;
   /** Largest units value a SHORT column holds; 65535 is its unknown-day sentinel. */
   public static final int SHORT_MAX_UNITS = 65_534;
-  /** Largest units value an INT column holds; the all-ones int (-1) is its unknown-day sentinel. */
+  /**
+   * Largest units value an INT column holds, the bound the sales readers enforce. Integer.MAX_VALUE is not a
+   * sentinel (the INT sentinel is the all-ones int, -1); the bound stays one below it like the other widths' bounds.
+   */
   public static final int INT_MAX_UNITS = Integer.MAX_VALUE - 1;
 
   private final int bytesPerValue;
@@ -38,7 +42,7 @@ public enum UnitsWidth {
   public static UnitsWidth forMaxValue(int maxUnits) {
     if (maxUnits < 0 || maxUnits > INT_MAX_UNITS) {
       throw new IllegalArgumentException("maxUnits must be in [0, " + INT_MAX_UNITS + "], got " + maxUnits
-          + "; daily units are non-negative and Integer.MAX_VALUE is reserved for unknown days");
+          + "; daily units are non-negative and fit a signed int, whose all-ones value (-1) marks an unknown day");
     }
     if (maxUnits <= BYTE_MAX_UNITS) {
       return BYTE;

@@ -38,7 +38,7 @@ class UnitsWidthTest {
     IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
         () -> UnitsWidth.forMaxValue(Integer.MAX_VALUE));
     assertEquals("maxUnits must be in [0, 2147483646], got 2147483647; daily units are non-negative and "
-        + "Integer.MAX_VALUE is reserved for unknown days", e.getMessage());
+        + "fit a signed int, whose all-ones value (-1) marks an unknown day", e.getMessage());
     assertThrows(IllegalArgumentException.class, () -> UnitsWidth.forMaxValue(-1));
   }
 
