@@ -17,6 +17,8 @@ public final class ExitCodes {
   public static final int IO_ERROR = 6;
   /** Another command is writing the store and {@code --no-wait} was given. */
   public static final int STORE_BUSY = 7;
+  /** The Java heap (or the JVM's native memory) ran out: not a budget refusal, the process itself hit its limit. */
+  public static final int JVM_OUT_OF_MEMORY = 8;
 
   private ExitCodes() {}
 }

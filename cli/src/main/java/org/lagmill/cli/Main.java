@@ -22,7 +22,8 @@ import picocli.CommandLine.Command;
     footer = {"", "Example:", "  lagmill demo --out demo-run", "",
         "Exit codes: 0 ok, 1 internal error, 2 usage error, 3 bad input, 4 corrupt store,",
         "            5 out of memory budget, 6 file not readable or writable, or not ours",
-        "            to replace, 7 store busy (being written, and --no-wait was given)"})
+        "            to replace, 7 store busy (being written, and --no-wait was given),",
+        "            8 Java heap exhausted"})
 public final class Main {
 
   public static void main(String[] args) {
@@ -60,8 +61,11 @@ public final class Main {
     if (t instanceof CorruptFileException) {
       return ExitCodes.CORRUPT_STORE;
     }
-    if (t instanceof MemoryBudgetExceededException || t instanceof OutOfMemoryError) {
+    if (t instanceof MemoryBudgetExceededException) {
       return ExitCodes.OUT_OF_MEMORY_BUDGET;
+    }
+    if (t instanceof OutOfMemoryError) {
+      return ExitCodes.JVM_OUT_OF_MEMORY;
     }
     if (t instanceof IllegalArgumentException) {
       return ExitCodes.USAGE_ERROR;
@@ -75,12 +79,16 @@ public final class Main {
     return ExitCodes.INTERNAL_ERROR;
   }
 
-  private static String message(Throwable t) {
+  static String message(Throwable t) {
     if (t instanceof OutputRefusedException r && r.reason() == OutputRefusedException.Reason.EXISTS) {
       return r.getMessage() + "; pass --replace to replace it";
     }
     if (t instanceof NoSuchFileException n) {
       return "no such file: " + n.getFile() + (n.getReason() == null ? "" : " (" + n.getReason() + ")");
+    }
+    if (t instanceof OutOfMemoryError) {
+      return "the Java process ran out of memory (" + t.getMessage() + "), outside lagmill's off-heap budget; give it"
+          + " more heap with LAGMILL_HEAP (e.g. LAGMILL_HEAP=4g, the launcher's default is 1g) or run on fewer series";
     }
     if (t instanceof InputFormatException || t instanceof CorruptFileException
         || t instanceof MemoryBudgetExceededException || t instanceof IllegalArgumentException

@@ -60,6 +60,16 @@ class StoreCommandsTest {
         + "\"-1\"", err.toString().trim());
     assertEquals(ExitCodes.IO_ERROR, run("ingest", "--sales", temp.resolve("none.csv").toString(), "--store",
         temp.resolve("s").toString()));
+    Path sales = temp.resolve("sales.csv");
+    Files.writeString(sales, "item,2024-01-01\na,1\n");
+    // A missing calendar or prices file is the same failure as a missing sales file: file not readable.
+    for (String option : new String[] {"--calendar", "--prices"}) {
+      err.getBuffer().setLength(0);
+      Path missing = temp.resolve("none.CSV.GZ");
+      assertEquals(ExitCodes.IO_ERROR, run("ingest", "--sales", sales.toString(), option, missing.toString(),
+          "--store", temp.resolve("s").toString()), option);
+      assertEquals("lagmill: no such file: " + missing, err.toString().trim(), option);
+    }
     Path good = temp.resolve("good.csv");
     Files.writeString(good, "item,2024-01-01\na,1\n");
     Path store = temp.resolve("store");

@@ -1,17 +1,13 @@
 package org.lagmill.ingest;
 
-import java.io.BufferedInputStream;
 import java.io.EOFException;
 import java.io.IOException;
 import java.io.InputStream;
-import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.Locale;
-import java.util.zip.GZIPInputStream;
 import java.util.zip.ZipException;
 
 /**
- * A refillable byte window over a (possibly gzip-compressed, by the {@code .gz} extension) input file, for hand-written
+ * A refillable byte window over a (possibly gzip-compressed: opened by {@link InputFiles}) input file, for hand-written
  * parsers: {@link #buffer}, {@link #position} and {@link #limit} are read and advanced by the parser directly.
  * {@link #ensure(int)} guarantees a lookahead so short cells never straddle a refill.
  */
@@ -29,17 +25,7 @@ final class CsvByteSource implements AutoCloseable {
 
   CsvByteSource(Path file) throws IOException {
     this.file = file;
-    InputStream raw = Files.newInputStream(file);
-    try {
-      boolean gzip = file.getFileName().toString().toLowerCase(Locale.ROOT).endsWith(".gz");
-      in = gzip ? new GZIPInputStream(raw, 1 << 16) : new BufferedInputStream(raw, 1 << 16);
-    } catch (EOFException e) {
-      raw.close();
-      throw truncatedGzip(e);
-    } catch (ZipException e) {
-      raw.close();
-      throw new InputFormatException(file, 0, 0, "not a gzip file: " + e.getMessage(), e);
-    }
+    this.in = InputFiles.open(file);
   }
 
   boolean endOfInput() {
@@ -58,10 +44,8 @@ final class CsvByteSource implements AutoCloseable {
       int read;
       try {
         read = in.read(buffer, limit, buffer.length - limit);
-      } catch (EOFException e) {
-        throw truncatedGzip(e);
-      } catch (ZipException e) {
-        throw new InputFormatException(file, lineNumber, 0, "corrupt gzip stream: " + e.getMessage(), e);
+      } catch (EOFException | ZipException e) {
+        throw InputFiles.failure(file, lineNumber, e);
       }
       if (read < 0) {
         endOfInput = true;
@@ -78,11 +62,6 @@ final class CsvByteSource implements AutoCloseable {
     }
     ensure(1);
     return position < limit;
-  }
-
-  private InputFormatException truncatedGzip(EOFException e) {
-    return new InputFormatException(file, lineNumber, 0,
-        "truncated gzip stream: expected more compressed data, found the end of the file", e);
   }
 
   @Override

@@ -4,7 +4,6 @@ import de.siegmar.fastcsv.reader.CloseableIterator;
 import de.siegmar.fastcsv.reader.CsvParseException;
 import de.siegmar.fastcsv.reader.CsvReader;
 import de.siegmar.fastcsv.reader.CsvRecord;
-import java.io.EOFException;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.InputStreamReader;
@@ -16,14 +15,11 @@ import java.nio.charset.CharsetDecoder;
 import java.nio.charset.CoderResult;
 import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
-import java.util.zip.GZIPInputStream;
-import java.util.zip.ZipException;
 
 /**
- * One CSV input file opened for reading: gzip-compressed when its name ends in {@code .gz}, decoded as strict UTF-8
+ * One CSV input file opened for reading: gzip-compressed when its name ends in {@code .gz} (any case, see {@link InputFiles}), decoded as strict UTF-8
  * (an invalid byte is an error naming its line, never a replacement character), tokenized by fastcsv. Blank lines are
  * skipped; a UTF-8 byte order mark before the header is dropped. Every problem surfaces as an
  * {@link InputFormatException} naming the file.
@@ -46,7 +42,10 @@ public final class CsvSource implements AutoCloseable {
     this.records = reader.iterator();
   }
 
-  /** Opens a file; a missing file or a {@code .gz} file that is not gzip data is an {@link InputFormatException}. */
+  /**
+   * Opens a file as {@link InputFiles} says: a missing file is an {@link UncheckedIOException} around the
+   * {@link NoSuchFileException}; a {@code .gz} file (any case) that is not gzip data is an {@link InputFormatException}.
+   */
   public static CsvSource open(Path file) {
     InputStream bytes = openBytes(file);
     CharsetDecoder decoder = strictUtf8();
@@ -130,13 +129,7 @@ public final class CsvSource implements AutoCloseable {
     if (e instanceof CharacterCodingException) {
       return locateInvalidUtf8(e);
     }
-    if (e instanceof EOFException) {
-      return new InputFormatException(file, 0, 0, "truncated gzip stream", e);
-    }
-    if (e instanceof ZipException) {
-      return new InputFormatException(file, 0, 0, "corrupt gzip stream (" + e.getMessage() + ")", e);
-    }
-    return new UncheckedIOException("cannot read " + file, e);
+    return InputFiles.failure(file, 0, e);
   }
 
   /**
@@ -189,38 +182,14 @@ public final class CsvSource implements AutoCloseable {
   }
 
   private static InputStream openBytes(Path file) {
-    InputStream raw;
     try {
-      raw = Files.newInputStream(file);
-    } catch (NoSuchFileException e) {
-      throw new InputFormatException(file, 0, 0, "file not found", e);
+      return InputFiles.open(file);
     } catch (IOException e) {
-      throw new UncheckedIOException("cannot open " + file, e);
-    }
-    if (!file.getFileName().toString().endsWith(".gz")) {
-      return raw;
-    }
-    try {
-      return new GZIPInputStream(raw, GZIP_BUFFER_BYTES);
-    } catch (EOFException e) {
-      closeQuietly(raw, e);
-      throw new InputFormatException(file, 0, 0, "truncated gzip stream", e);
-    } catch (ZipException e) {
-      closeQuietly(raw, e);
-      throw new InputFormatException(file, 0, 0, "not gzip data: expected a gzip stream in a file named .gz", e);
-    } catch (IOException e) {
-      closeQuietly(raw, e);
-      throw new UncheckedIOException("cannot open " + file, e);
+      throw new UncheckedIOException(e);
     }
   }
 
-  private static void closeQuietly(InputStream in, Exception pending) {
-    try {
-      in.close();
-    } catch (IOException e) {
-      pending.addSuppressed(e);
-    }
-  }
+
 
   @Override
   public void close() {

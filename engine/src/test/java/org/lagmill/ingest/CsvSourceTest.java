@@ -8,14 +8,18 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import de.siegmar.fastcsv.reader.CsvRecord;
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
+import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.ValueSource;
 
 class CsvSourceTest {
   @TempDir Path dir;
@@ -76,7 +80,16 @@ class CsvSourceTest {
     Path cut = IngestFiles.write(dir, "cut.csv", Arrays.copyOf(gz, gz.length / 2));
     Path cutGz = Files.move(cut, dir.resolve("cut.csv.gz"));
     InputFormatException e = assertThrows(InputFormatException.class, () -> readAll(cutGz));
-    assertEquals(cutGz + ": truncated gzip stream", e.getMessage());
+    assertEquals(cutGz + ": truncated gzip stream: expected more compressed data, found the end of the file",
+        e.getMessage());
+  }
+
+  @ParameterizedTest
+  @ValueSource(strings = {"a.csv.gz", "a.csv.GZ", "a.CSV.Gz"})
+  void shouldReadGzipWhateverTheCaseOfItsSuffix(String name) throws IOException {
+    Path written = IngestFiles.write(dir, name + ".tmp.gz", "a,b\n1,2\n");
+    Path file = Files.move(written, dir.resolve(name));
+    assertEquals(List.of("a|b", "2:1|2"), readAll(file));
   }
 
   @Test
@@ -93,8 +106,10 @@ class CsvSourceTest {
     assertEquals(empty + ": empty file: expected a header line",
         assertThrows(InputFormatException.class, () -> readAll(empty)).getMessage());
     Path missing = dir.resolve("none.csv");
-    assertEquals(missing + ": file not found",
-        assertThrows(InputFormatException.class, () -> readAll(missing)).getMessage());
+    // A missing file is an I/O failure (exit 6), the same for every input file, not bad input.
+    UncheckedIOException notFound = assertThrows(UncheckedIOException.class, () -> readAll(missing));
+    assertEquals(NoSuchFileException.class, notFound.getCause().getClass());
+    assertEquals(missing.toString(), ((NoSuchFileException) notFound.getCause()).getFile());
     Path ragged = IngestFiles.write(dir, "r.csv", "a,b\n1,2\n3\n");
     assertEquals(ragged + ", line 3: found 1 fields, expected 2 as in the header",
         assertThrows(InputFormatException.class, () -> readAll(ragged)).getMessage());
