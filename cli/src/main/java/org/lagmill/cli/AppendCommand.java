@@ -5,8 +5,9 @@ import java.util.concurrent.Callable;
 import org.lagmill.ingest.AppendOptions;
 import org.lagmill.ingest.IngestResult;
 import org.lagmill.ingest.StoreAppend;
-import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.Periods;
+import org.lagmill.run.Run;
+import org.lagmill.run.Stage;
 import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreUpdate;
 import picocli.CommandLine.Command;
@@ -64,16 +65,19 @@ final class AppendCommand implements Callable<Integer> {
     AppendOptions options = AppendOptions.of(store, sales).withColumns(columns.names())
         .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures)
         .withPlan(plan.source());
-    RunRecord run = new RunRecord("append").configure("store", store.toString()).configure("sales", sales == null ? null : sales.toString())
-        .configure("plan", plan.file == null ? null : plan.file.toString());
-    try (MemoryBudget budget = CliBudgets.root(null)) {
-      IngestResult result = StoreAppend.append(options, new StoreUpdate.Policy(StoreUpdate.Mode.CHANGE, !noWait),
-          budget);
+    try (Run run = Run.unlimited("append")) {
+      run.record().configure("store", store.toString())
+          .configure("sales", sales == null ? null : sales.toString())
+          .configure("plan", plan.file == null ? null : plan.file.toString());
+      IngestResult result;
+      try (Stage stage = run.stage("append")) {
+        result = StoreAppend.append(options, new StoreUpdate.Policy(StoreUpdate.Mode.CHANGE, !noWait), stage.budget());
+        stage.addRows((long) result.manifest().seriesCount() * result.manifest().dayCount());
+      }
       StoreManifest appended = result.manifest();
-      run.endStage("append", budget.peakBytes(), (long) appended.seriesCount() * appended.dayCount());
-      run.result("seriesCount", appended.seriesCount()).result("dayCount", appended.dayCount())
+      run.record().result("seriesCount", appended.seriesCount()).result("dayCount", appended.dayCount())
           .result("fill", appended.fill()).result("warnings", result.warnings());
-      run.write(store);
+      run.record().write(store);
       if (!quiet) {
         IngestCommand.printWarnings(spec.commandLine().getErr(), result.warnings());
         StoreManifest manifest = result.manifest();

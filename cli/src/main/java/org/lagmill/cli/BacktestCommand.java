@@ -7,9 +7,12 @@ import java.util.concurrent.Callable;
 import org.lagmill.eval.CombinedBacktestResult;
 import org.lagmill.features.FeatureSpec;
 import org.lagmill.io.AtomicFiles;
-import org.lagmill.memory.MemoryBudget;
 import org.lagmill.report.ReportAssembler;
 import org.lagmill.report.ReportData;
+import org.lagmill.run.Run;
+import org.lagmill.run.RunRecord;
+import org.lagmill.run.RunReport;
+import org.lagmill.run.Stage;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreSummary;
@@ -67,22 +70,26 @@ final class BacktestCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
-    RunRecord run = new RunRecord("backtest");
+    // Refused before the (long) backtest runs, not after it.
+    RunReport.checkTarget(reportDir);
+    Path html;
     FeatureSpec spec = training.featureSpec();
-    ReportData.Builder report = ReportOutput.start("lagmill backtest", "lagmill backtest --store " + store
+    ReportData.Builder report = RunReport.start("lagmill backtest", "lagmill backtest --store " + store
         + " --origins " + originCount, store.toString());
     BacktestRun backtest;
     CombinedBacktestResult[] combined = new CombinedBacktestResult[1];
     StoreManifest[] fill = new StoreManifest[1];
-    try (MemoryBudget budget = CliBudgets.root(memoryLimitBytes);
-        SalesStore opened = SalesStore.open(store, budget.child("store"))) {
+    Object written;
+    try (Run run = Run.start("backtest", MemoryLimitOption.bytes(memoryLimitBytes));
+        Stage opening = run.stage("open store");
+        SalesStore opened = SalesStore.open(store, run.budget().child("store"))) {
+      opening.close();
       report.data(ReportAssembler.dataSummary(StoreSummary.of(opened)));
       fill[0] = opened.manifest();
-      run.endStage("open store", opened.offHeapBytes(), 0);
       TrainingPlan plan = training.plan(spec, opened.dayCount() - 1);
-      run.configure("store", store.toString()).configure("origins", originCount)
+      run.record().configure("store", store.toString()).configure("origins", originCount)
           .configure("stepDays", stepDays == null ? spec.horizonDays() : stepDays).configure("plan", plan.toString());
-      try (MemoryBudget learner = budget.child("backtest")) {
+      try (Stage stage = run.stage("backtest")) {
         if (!members.isEmpty()) {
           List<String> names = new java.util.ArrayList<>();
           List<TrainingPlan> plans = new java.util.ArrayList<>();
@@ -95,28 +102,26 @@ final class BacktestCommand implements Callable<Integer> {
                 : member.substring(at + 1), base.salesValueWeights(), base.refit()));
             names.add(member);
           }
-          run.configure("members", names);
+          run.record().configure("members", names);
           backtest = BacktestRun.runMembers(opened, names, plans, originCount,
               stepDays == null ? plans.get(0).spec().horizonDays() : stepDays,
-              hierarchyOptions.hierarchy(opened), learner, ConsoleProgress.forCommand(quiet), combined);
+              hierarchyOptions.hierarchy(opened), stage.budget(), ConsoleProgress.forCommand(quiet), combined);
         } else {
           backtest = BacktestRun.run(opened, plan, originCount, stepDays == null ? spec.horizonDays() : stepDays,
-              hierarchyOptions.hierarchy(opened), learner, ConsoleProgress.forCommand(quiet));
+              hierarchyOptions.hierarchy(opened), stage.budget(), ConsoleProgress.forCommand(quiet));
         }
-        long rows = backtest.result.origins().stream().flatMap(o -> o.partitions().stream())
-            .mapToLong(p -> p.trainingRowCount()).sum();
-        run.endStage("backtest", opened.offHeapBytes() + learner.peakBytes(), rows);
+        stage.addRows(backtest.result.origins().stream().flatMap(o -> o.partitions().stream())
+            .mapToLong(p -> p.trainingRowCount()).sum());
       }
       backtest.addTo(report, opened, shownSeries);
+      RunReport.addStages(report, run.record(), backtest.lastPartitions().get(0).datasetBytesPerRow());
+      written = combined[0] != null ? combined[0] : backtest.result;
+      AtomicFiles.write(reportDir.resolve(RunReport.BACKTEST_FILE), RunRecord.JSON.writeValueAsBytes(written));
+      html = RunReport.write(report.build(), reportDir);
+      run.record().result("backtest", written).result("levelsScored", ScoredLevels.describe(backtest.result.origins()
+          .get(0).model())).result("fill", fill[0].fill());
+      run.record().write(reportDir);
     }
-    ReportOutput.addStages(report, run.stages(), backtest.lastPartitions().get(0).datasetBytesPerRow());
-    ReportOutput.checkTarget(reportDir);
-    Object written = combined[0] != null ? combined[0] : backtest.result;
-    AtomicFiles.write(reportDir.resolve(ReportOutput.BACKTEST_FILE), RunRecord.JSON.writeValueAsBytes(written));
-    Path html = ReportOutput.write(report.build(), reportDir);
-    run.result("backtest", written).result("levelsScored", ScoredLevels.describe(backtest.result.origins().get(0)
-        .model())).result("fill", fill[0].fill());
-    run.write(reportDir);
     PrintWriter out = commandSpec.commandLine().getOut();
     if (json) {
       out.println(RunRecord.JSON.writeValueAsString(written));

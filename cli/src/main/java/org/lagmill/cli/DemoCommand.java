@@ -19,13 +19,16 @@ import org.lagmill.ingest.StoreIngest;
 import org.lagmill.learner.DatasetParameters;
 import org.lagmill.learner.Objective;
 import org.lagmill.learner.TrainParameters;
-import org.lagmill.memory.MemoryBudget;
 import org.lagmill.memory.ProcessMemory;
 import org.lagmill.progress.ProgressListener;
 import org.lagmill.report.DriverChartBuilder;
 import org.lagmill.report.ReportAssembler;
 import org.lagmill.report.ReportData;
 import org.lagmill.report.SeriesChartBuilder;
+import org.lagmill.run.Run;
+import org.lagmill.run.RunRecord;
+import org.lagmill.run.RunReport;
+import org.lagmill.run.Stage;
 import org.lagmill.scenario.ScenarioGenerator;
 import org.lagmill.scenario.ScenarioSpec;
 import org.lagmill.store.SalesStore;
@@ -85,7 +88,6 @@ final class DemoCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     Size chosen = parseSize(size);
-    RunRecord run = new RunRecord("demo");
     ProgressListener progress = ConsoleProgress.forCommand(quiet);
     PrintWriter out = commandSpec.commandLine().getOut();
     Path data = outDir.resolve("data");
@@ -93,64 +95,78 @@ final class DemoCommand implements Callable<Integer> {
     Path reportDir = outDir.resolve("report");
     Path forecastFile = outDir.resolve("forecast.csv");
     Files.createDirectories(outDir);
-    ScenarioGenerator.write(new ScenarioSpec(chosen.seriesCount, chosen.dayCount, ScenarioSpec.DEFAULT_START_DATE, seed,
-        ScenarioSpec.DEFAULT_FUTURE_DAY_COUNT, false), data);
-    run.endStage("generate", 0, (long) chosen.seriesCount * chosen.dayCount);
-    StoreIngest.ingest(IngestOptions.of(data.resolve(ScenarioGenerator.SALES_FILE), storeDir)
-        .withCalendarFile(data.resolve(ScenarioGenerator.CALENDAR_FILE))
-        .withPricesFile(data.resolve(ScenarioGenerator.PRICES_FILE)), MemoryBudget.unlimited("ingest"));
-    run.endStage("ingest", 0, (long) chosen.seriesCount * chosen.dayCount);
-    // The engine does not read closures or plans yet: the demo scores closed outlet days as zero sales and the model
-    // learns promotions from prices alone. Say so rather than drop the files silently.
-    commandSpec.commandLine().getErr().println("warning: the demo data's " + ScenarioGenerator.CLOSURES_FILE + " and "
-        + ScenarioGenerator.PLAN_FILE + " are not ingested by this version; closed outlet days count as zero sales");
-    ReportData.Builder report = ReportOutput.start("lagmill demo: Marrowgate & Tillbox, " + chosen.name()
-        .toLowerCase(Locale.ROOT) + " scenario", "lagmill demo --size " + size, storeDir.toString());
-    BacktestRun backtest;
-    double[][] point;
-    float[] dispersion;
-    try (MemoryBudget budget = MemoryBudget.unlimited("demo");
-        SalesStore store = SalesStore.open(storeDir, budget.child("store"))) {
-      report.data(ReportAssembler.dataSummary(StoreSummary.of(store)));
-      FeatureSpec spec = demoSpec();
-      TrainingPlan plan = new TrainingPlan(spec, demoTrainParameters(), DatasetParameters.defaults(),
-          store.dayCount() - 1, HORIZON_DAYS, null, false, true);
-      FeatureSpecYaml.write(spec, outDir.resolve("features.yaml"));
-      run.configure("size", chosen.name()).configure("seriesCount", chosen.seriesCount)
-          .configure("dayCount", chosen.dayCount).configure("seed", seed).configure("plan", plan.toString());
-      Hierarchy hierarchy = demoHierarchy();
-      // One origin more than the backtest: the last one forecasts the final four weeks, which the backtest's
-      // origins never see, as a check that backtest scores predict the score on new days.
-      try (MemoryBudget learner = budget.child("backtest")) {
-        backtest = BacktestRun.run(store, plan, BACKTEST_ORIGINS + 1, HORIZON_DAYS, hierarchy, learner, progress);
-        run.endStage("backtest", store.offHeapBytes() + learner.peakBytes(), rowCount(backtest));
+    long itemDays = (long) chosen.seriesCount * chosen.dayCount;
+    try (Run run = Run.unlimited("demo")) {
+      try (Stage stage = run.stage("generate")) {
+        // The generator writes CSV from heap arrays and reserves no off-heap bytes, so its stage records 0 truly.
+        ScenarioGenerator.write(new ScenarioSpec(chosen.seriesCount, chosen.dayCount, ScenarioSpec.DEFAULT_START_DATE,
+            seed, ScenarioSpec.DEFAULT_FUTURE_DAY_COUNT, false), data);
+        stage.addRows(itemDays);
       }
-      try (MemoryBudget learner = budget.child("train");
-          ModelSet models = ModelTraining.train(store, plan, learner, progress)) {
-        ModelDirectory.save(models, outDir.resolve("model"), store, plan, store.fingerprint());
-        run.endStage("train", store.offHeapBytes() + learner.peakBytes(),
-            models.partitions().get(0).report().trainingRowCount());
-        report.training(ReportAssembler.training(models.partitions().stream().map(p -> p.report()).toList()));
-        point = Forecaster.forecast(models, store, HORIZON_DAYS, learner);
-        dispersion = models.dispersionBySeries();
-        ForecastTable table = new ForecastTable(store.dayCount(), point, ForecastTable.PUBLISHED_QUANTILES,
-            CountQuantiles.quantiles(point, models.dispersionBySeries(), ForecastTable.PUBLISHED_QUANTILES));
-        ForecastFileWriter.writeLong(table, store, forecastFile);
-        run.endStage("forecast", store.offHeapBytes() + learner.peakBytes(), (long) point.length * HORIZON_DAYS);
-        DriverChartBuilder.build(store, hierarchy.bind(store), models, HORIZON_DAYS, List.of(),
-            SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, learner).forEach(report::driver);
-        run.endStage("explain", store.offHeapBytes() + learner.peakBytes(), 0);
+      try (Stage stage = run.stage("ingest")) {
+        StoreIngest.ingest(IngestOptions.of(data.resolve(ScenarioGenerator.SALES_FILE), storeDir)
+            .withCalendarFile(data.resolve(ScenarioGenerator.CALENDAR_FILE))
+            .withPricesFile(data.resolve(ScenarioGenerator.PRICES_FILE)), stage.budget());
+        stage.addRows(itemDays);
       }
-      backtest.addTo(report, store, List.of());
-      report.clearSeries();
-      SeriesChartBuilder.build(store, hierarchy.bind(store), store.dayCount(), point, dispersion,
-          SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, List.of()).forEach(report::series);
+      // The engine does not read closures or plans yet: the demo scores closed outlet days as zero sales and the model
+      // learns promotions from prices alone. Say so rather than drop the files silently.
+      commandSpec.commandLine().getErr().println("warning: the demo data's " + ScenarioGenerator.CLOSURES_FILE
+          + " and " + ScenarioGenerator.PLAN_FILE + " are not ingested by this version; closed outlet days count as"
+          + " zero sales");
+      ReportData.Builder report = RunReport.start("lagmill demo: Marrowgate & Tillbox, " + chosen.name()
+          .toLowerCase(Locale.ROOT) + " scenario", "lagmill demo --size " + size, storeDir.toString());
+      BacktestRun backtest;
+      double[][] point;
+      float[] dispersion;
+      try (SalesStore store = SalesStore.open(storeDir, run.budget().child("store"))) {
+        report.data(ReportAssembler.dataSummary(StoreSummary.of(store)));
+        FeatureSpec spec = demoSpec();
+        TrainingPlan plan = new TrainingPlan(spec, demoTrainParameters(), DatasetParameters.defaults(),
+            store.dayCount() - 1, HORIZON_DAYS, null, false, true);
+        FeatureSpecYaml.write(spec, outDir.resolve("features.yaml"));
+        run.record().configure("size", chosen.name()).configure("seriesCount", chosen.seriesCount)
+            .configure("dayCount", chosen.dayCount).configure("seed", seed).configure("plan", plan.toString());
+        Hierarchy hierarchy = demoHierarchy();
+        // One origin more than the backtest: the last one forecasts the final four weeks, which the backtest's
+        // origins never see, as a check that backtest scores predict the score on new days.
+        try (Stage stage = run.stage("backtest")) {
+          backtest = BacktestRun.run(store, plan, BACKTEST_ORIGINS + 1, HORIZON_DAYS, hierarchy, stage.budget(),
+              progress);
+          stage.addRows(rowCount(backtest));
+        }
+        Stage trainStage = run.stage("train");
+        try (ModelSet models = ModelTraining.train(store, plan, trainStage.budget(), progress)) {
+          ModelDirectory.save(models, outDir.resolve("model"), store, plan, store.fingerprint());
+          trainStage.addRows(models.partitions().stream().mapToLong(p -> p.report().trainingRowCount()).sum())
+              .close();
+          report.training(ReportAssembler.training(models.partitions().stream().map(p -> p.report()).toList()));
+          try (Stage stage = run.stage("forecast")) {
+            point = Forecaster.forecast(models, store, HORIZON_DAYS, stage.budget());
+            dispersion = models.dispersionBySeries();
+            ForecastTable table = new ForecastTable(store.dayCount(), point, ForecastTable.PUBLISHED_QUANTILES,
+                CountQuantiles.quantiles(point, dispersion, ForecastTable.PUBLISHED_QUANTILES));
+            ForecastFileWriter.writeLong(table, store, forecastFile);
+            stage.addRows((long) point.length * HORIZON_DAYS);
+          }
+          try (Stage stage = run.stage("explain")) {
+            DriverChartBuilder.build(store, hierarchy.bind(store), models, HORIZON_DAYS, List.of(),
+                SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, stage.budget()).forEach(report::driver);
+          }
+        } finally {
+          trainStage.close();
+        }
+        backtest.addTo(report, store, List.of());
+        report.clearSeries();
+        SeriesChartBuilder.build(store, hierarchy.bind(store), store.dayCount(), point, dispersion,
+            SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, List.of()).forEach(report::series);
+      }
+      RunReport.addStages(report, run.record(), backtest.lastPartitions().get(0).datasetBytesPerRow());
+      Path html = RunReport.write(report.build(), reportDir);
+      run.record().result("backtest", backtest.result);
+      run.record().write(outDir);
+      printSummary(out, backtest.result, html, forecastFile, run.record());
     }
-    ReportOutput.addStages(report, run.stages(), backtest.lastPartitions().get(0).datasetBytesPerRow());
-    Path html = ReportOutput.write(report.build(), reportDir);
-    run.result("backtest", backtest.result);
-    run.write(outDir);
-    printSummary(out, backtest.result, html, forecastFile, run);
     return ExitCodes.OK;
   }
 

@@ -15,11 +15,13 @@ import org.lagmill.eval.RollingOriginBacktest;
 import org.lagmill.eval.ScoringPart;
 import org.lagmill.forecast.ForecastFileReader;
 import org.lagmill.forecast.ForecastTable;
-import org.lagmill.memory.MemoryBudget;
 import org.lagmill.report.ReportAssembler;
 import org.lagmill.report.ReportData;
 import org.lagmill.store.StoreSummary;
 import org.lagmill.store.Periods;
+import org.lagmill.run.Run;
+import org.lagmill.run.RunRecord;
+import org.lagmill.run.RunReport;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.StoreManifest;
 import org.lagmill.store.TruncatedHistory;
@@ -58,7 +60,7 @@ final class EvaluateCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     PrintWriter out = commandSpec.commandLine().getOut();
-    try (MemoryBudget budget = CliBudgets.root(null); SalesStore opened = SalesStore.open(store, budget)) {
+    try (Run run = Run.unlimited("evaluate"); SalesStore opened = SalesStore.open(store, run.budget().child("store"))) {
       ForecastTable table = ForecastFileReader.read(forecast, opened);
       int origin = table.firstDayIndex();
       int lastDay = origin + table.horizonDays() - 1;
@@ -90,12 +92,12 @@ final class EvaluateCommand implements Callable<Integer> {
           statistics);
       baselineResults.forEach((kind, score) -> baselines.put(ReportAssembler.label(kind), score.wrmsse()));
       if (reportDir != null) {
-        ReportData.Builder report = ReportOutput.start("lagmill evaluate", "lagmill evaluate --store " + store
+        ReportData.Builder report = RunReport.start("lagmill evaluate", "lagmill evaluate --store " + store
             + " --forecast " + forecast, store.toString());
         report.data(ReportAssembler.dataSummary(StoreSummary.of(opened)))
             .accuracy(ReportAssembler.accuracy(result, baselineResults, opened.dateOf(origin)))
             .horizon(ReportAssembler.horizon(result, baselineResults));
-        Path html = ReportOutput.write(report.build(), reportDir);
+        Path html = RunReport.write(report.build(), reportDir);
         if (!json) {
           out.println("report written to " + html);
         }

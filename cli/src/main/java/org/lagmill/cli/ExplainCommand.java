@@ -11,10 +11,12 @@ import java.util.concurrent.Callable;
 import org.lagmill.forecast.HorizonCoverage;
 import org.lagmill.training.ModelDirectory;
 import org.lagmill.training.ModelSet;
-import org.lagmill.memory.MemoryBudget;
 import org.lagmill.report.DriverChart;
 import org.lagmill.report.DriverChartBuilder;
 import org.lagmill.report.SeriesChartBuilder;
+import org.lagmill.run.Run;
+import org.lagmill.run.RunRecord;
+import org.lagmill.run.Stage;
 import org.lagmill.store.SalesStore;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -57,15 +59,15 @@ final class ExplainCommand implements Callable<Integer> {
   public Integer call() throws Exception {
     PrintWriter out = commandSpec.commandLine().getOut();
     List<DriverChart> charts;
-    try (MemoryBudget budget = CliBudgets.root(null);
-        SalesStore opened = SalesStore.open(store, budget.child("store"));
+    try (Run run = Run.unlimited("explain");
+        SalesStore opened = SalesStore.open(store, run.budget().child("store"));
         ModelSet models = ModelDirectory.open(model, opened);
-        MemoryBudget explainBudget = budget.child("explain")) {
+        Stage stage = run.stage("explain")) {
       int horizon = horizonDays == null ? models.spec().horizonDays() : horizonDays;
       HorizonCoverage.check(opened, models.spec(), horizon).warnings()
           .forEach(w -> System.err.println("warning: " + w));
       charts = DriverChartBuilder.build(opened, hierarchyOptions.hierarchy(opened).bind(opened), models,
-          horizon, seriesIds, SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, explainBudget);
+          horizon, seriesIds, SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, stage.budget());
     }
     if (json) {
       List<Map<String, Object>> document = new ArrayList<>();

@@ -9,7 +9,6 @@ import org.lagmill.forecast.ForecastFileWriter;
 import org.lagmill.forecast.ForecastTable;
 import org.lagmill.forecast.Forecaster;
 import org.lagmill.forecast.HorizonCoverage;
-import org.lagmill.memory.MemoryBudget;
 import org.lagmill.eval.Level;
 import org.lagmill.report.DriverChartBuilder;
 import org.lagmill.report.ReportAssembler;
@@ -17,6 +16,9 @@ import org.lagmill.report.ReportData;
 import org.lagmill.report.ReportJson;
 import org.lagmill.report.SeriesChartBuilder;
 import org.lagmill.store.Periods;
+import org.lagmill.run.Run;
+import org.lagmill.run.RunReport;
+import org.lagmill.run.Stage;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.SeriesSelection;
 import org.lagmill.store.StoreSummary;
@@ -91,12 +93,11 @@ final class ForecastCommand implements Callable<Integer> {
       throw new IllegalArgumentException("--backtest adds a backtest's accuracy to the report; give --report DIR "
           + "as well");
     }
-    RunRecord run = new RunRecord("forecast");
     PrintWriter outText = commandSpec.commandLine().getOut();
-    try (MemoryBudget budget = CliBudgets.root(null);
-        SalesStore opened = SalesStore.open(store, budget.child("store"));
-        ModelSet models = ModelDirectory.open(model, opened);
-        MemoryBudget forecastBudget = budget.child("forecast")) {
+    try (Run run = Run.unlimited("forecast");
+        Stage opening = run.stage("open");
+        SalesStore opened = SalesStore.open(store, run.budget().child("store"));
+        ModelSet models = ModelDirectory.open(model, opened)) {
       ModelManifest manifest = ModelDirectory.readManifest(model);
       int horizon = horizonDays == null ? models.spec().horizonDays() : horizonDays;
       HorizonCoverage coverage = HorizonCoverage.check(opened, models.spec(), horizon);
@@ -116,12 +117,18 @@ final class ForecastCommand implements Callable<Integer> {
         throw new IllegalArgumentException("no series meets every --where condition " + conditions
             + "; list the store's series with lagmill series --store " + store);
       }
-      run.endStage("open", opened.offHeapBytes(), 0);
-      double[][] point = Forecaster.forecast(models, opened, horizon, forecastBudget, chosen);
-      int forecastSeriesCount = chosen == null ? point.length : chosen.length;
-      double[] levels = intervals ? ForecastTable.PUBLISHED_QUANTILES : new double[0];
-      ForecastTable table = new ForecastTable(opened.dayCount(), point, levels,
-          intervals ? CountQuantiles.quantiles(point, models.dispersionBySeries(), levels) : new double[0][][]);
+      opening.close();
+      double[][] point;
+      ForecastTable table;
+      int forecastSeriesCount;
+      try (Stage stage = run.stage("forecast")) {
+        point = Forecaster.forecast(models, opened, horizon, stage.budget(), chosen);
+        forecastSeriesCount = chosen == null ? point.length : chosen.length;
+        double[] levels = intervals ? ForecastTable.PUBLISHED_QUANTILES : new double[0];
+        table = new ForecastTable(opened.dayCount(), point, levels,
+            intervals ? CountQuantiles.quantiles(point, models.dispersionBySeries(), levels) : new double[0][][]);
+        stage.addRows((long) forecastSeriesCount * horizon);
+      }
       long closedSeriesDays = table.zeroClosedDays(opened);
       if (closedSeriesDays > 0 && !quiet) {
         PrintWriter err = commandSpec.commandLine().getErr();
@@ -129,27 +136,27 @@ final class ForecastCommand implements Callable<Integer> {
             + "forecast file's closed column)");
         err.flush();
       }
-      run.result("closedSeriesDays", closedSeriesDays).result("fill", opened.manifest().fill());
-      run.endStage("forecast", opened.offHeapBytes() + forecastBudget.peakBytes(), (long) forecastSeriesCount
-          * horizon);
-      if (wide) {
-        ForecastFileWriter.writeWide(table, opened, out);
-      } else {
-        ForecastFileWriter.writeLong(table, opened, out);
+      run.record().result("closedSeriesDays", closedSeriesDays).result("fill", opened.manifest().fill());
+      try (Stage stage = run.stage("write")) {
+        if (wide) {
+          ForecastFileWriter.writeWide(table, opened, out);
+        } else {
+          ForecastFileWriter.writeLong(table, opened, out);
+        }
       }
-      run.endStage("write", opened.offHeapBytes(), 0);
-      run.configure("store", store.toString()).configure("model", model.toString()).configure("horizonDays", horizon)
-          .configure("intervals", intervals).configure("series", chosenSeriesIds).configure("where", conditions)
+      run.record().configure("store", store.toString()).configure("model", model.toString())
+          .configure("horizonDays", horizon).configure("intervals", intervals)
+          .configure("series", chosenSeriesIds).configure("where", conditions)
           .result("seriesCount", forecastSeriesCount).result("forecastFile", out.toString())
           .result("firstDate", opened.dateOf(opened.dayCount()).toString())
           .result("lastDate", opened.dateOf(opened.dayCount() + horizon - 1).toString());
       if (reportDir != null) {
-        ReportData.Builder report = ReportOutput.start("lagmill forecast", "lagmill forecast --store " + store
+        ReportData.Builder report = RunReport.start("lagmill forecast", "lagmill forecast --store " + store
             + " --model " + model, store.toString());
         report.data(ReportAssembler.dataSummary(StoreSummary.of(opened)))
             .training(ReportAssembler.training(manifest.partitions()));
         if (backtestDir != null) {
-          ReportData backtest = ReportJson.read(backtestDir.resolve(ReportOutput.JSON_FILE));
+          ReportData backtest = ReportJson.read(backtestDir.resolve(RunReport.JSON_FILE));
           if (backtest.accuracy() == null) {
             throw new IllegalArgumentException("--backtest " + backtestDir + ": its report.json holds no accuracy; "
                 + "give the folder lagmill backtest --report wrote");
@@ -160,17 +167,18 @@ final class ForecastCommand implements Callable<Integer> {
               System.err.println("warning: " + w);
             }
           });
-          run.configure("backtest", backtestDir.toString());
+          run.record().configure("backtest", backtestDir.toString());
         }
         List<Level> scoredLevels = hierarchyOptions.hierarchy(opened).bind(opened);
         SeriesChartBuilder.build(opened, scoredLevels, opened.dayCount(), point, models.dispersionBySeries(),
             SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, shownSeries).forEach(report::series);
-        DriverChartBuilder.build(opened, scoredLevels, models, horizon, shownSeries,
-            SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, forecastBudget).forEach(report::driver);
-        run.endStage("explain", opened.offHeapBytes() + forecastBudget.peakBytes(), 0);
-        ReportOutput.addStages(report, run.stages(), null);
-        Path html = ReportOutput.write(report.build(), reportDir);
-        run.write(reportDir);
+        try (Stage stage = run.stage("explain")) {
+          DriverChartBuilder.build(opened, scoredLevels, models, horizon, shownSeries,
+              SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, stage.budget()).forEach(report::driver);
+        }
+        RunReport.addStages(report, run.record(), null);
+        Path html = RunReport.write(report.build(), reportDir);
+        run.record().write(reportDir);
         if (!quiet) {
           outText.println("report written to " + html);
         }
@@ -178,7 +186,7 @@ final class ForecastCommand implements Callable<Integer> {
       if (reportDir == null) {
         // Without a report folder the record goes beside the forecast file, so every run leaves one.
         Path parent = out.toAbsolutePath().getParent();
-        run.write(parent, out.getFileName() + ".run.json");
+        run.record().write(parent, out.getFileName() + ".run.json");
       }
       if (!quiet) {
         outText.printf("forecast %,d series x %s (%s .. %s) written to %s%n", forecastSeriesCount,

@@ -9,8 +9,9 @@ import org.lagmill.ingest.IngestResult;
 import org.lagmill.ingest.MissingRows;
 import org.lagmill.ingest.SalesFormat;
 import org.lagmill.ingest.StoreIngest;
-import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.Periods;
+import org.lagmill.run.Run;
+import org.lagmill.run.Stage;
 import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreUpdate;
 import picocli.CommandLine.Command;
@@ -93,20 +94,25 @@ final class IngestCommand implements Callable<Integer> {
         .withSalesFormat(SalesFormat.parse(salesFormat)).withMissingRows(MissingRows.parse(missingRows))
         .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures)
         .withPlan(plan.source());
-    RunRecord run = new RunRecord("ingest").configure("sales", sales.toString())
-        .configure("calendar", calendar == null ? null : calendar.toString())
-        .configure("prices", prices == null ? null : prices.toString()).configure("store", store.toString())
-        .configure("plan", plan.file == null ? null : plan.file.toString())
-        .configure("missingRows", MissingRows.parse(missingRows).optionValue());
-    try (MemoryBudget budget = CliBudgets.root(memoryLimitBytes)) {
-      IngestResult result = StoreIngest.ingest(options, new StoreUpdate.Policy(replace ? StoreUpdate.Mode.REPLACE
-          : StoreUpdate.Mode.CREATE, !noWait), budget);
+    try (Run run = Run.start("ingest", MemoryLimitOption.bytes(memoryLimitBytes))) {
+      run.record().configure("sales", sales.toString())
+          .configure("calendar", calendar == null ? null : calendar.toString())
+          .configure("prices", prices == null ? null : prices.toString()).configure("store", store.toString())
+          .configure("plan", plan.file == null ? null : plan.file.toString())
+          .configure("missingRows", MissingRows.parse(missingRows).optionValue());
+      IngestResult result;
+      long peakOffHeapBytes;
+      try (Stage stage = run.stage("ingest")) {
+        result = StoreIngest.ingest(options, new StoreUpdate.Policy(replace ? StoreUpdate.Mode.REPLACE
+            : StoreUpdate.Mode.CREATE, !noWait), stage.budget());
+        peakOffHeapBytes = stage.budget().peakBytes();
+        stage.addRows((long) result.manifest().seriesCount() * result.manifest().dayCount());
+      }
       StoreManifest ingested = result.manifest();
-      run.endStage("ingest", budget.peakBytes(), (long) ingested.seriesCount() * ingested.dayCount());
-      run.result("seriesCount", ingested.seriesCount()).result("dayCount", ingested.dayCount())
+      run.record().result("seriesCount", ingested.seriesCount()).result("dayCount", ingested.dayCount())
           .result("storeBytes", ingested.binaryBytes()).result("fill", ingested.fill())
           .result("warnings", result.warnings());
-      run.write(store);
+      run.record().write(store);
       if (!quiet) {
         printWarnings(spec.commandLine().getErr(), result.warnings());
         StoreManifest manifest = result.manifest();
@@ -114,7 +120,7 @@ final class IngestCommand implements Callable<Integer> {
             + "%d bytes%n", manifest.seriesCount(), Periods.count(manifest.dayCount(), manifest.periodDaysOrDaily()),
             manifest.firstDate(), manifest.lastLocalDate(), manifest.periodDaysOrDaily() == Periods.DAILY ? ""
             : ", " + Periods.describe(manifest.periodDaysOrDaily()), store, manifest.binaryBytes(),
-            budget.peakBytes());
+            peakOffHeapBytes);
         printFill(spec.commandLine().getOut(), manifest);
       }
     }

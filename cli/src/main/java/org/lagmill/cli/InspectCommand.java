@@ -8,7 +8,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.Callable;
-import org.lagmill.memory.MemoryBudget;
+import org.lagmill.run.Run;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreSummary;
@@ -33,7 +33,7 @@ final class InspectCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     StoreSummary summary;
-    try (MemoryBudget budget = CliBudgets.root(null); SalesStore opened = SalesStore.open(store, budget)) {
+    try (Run run = Run.unlimited("inspect"); SalesStore opened = SalesStore.open(store, run.budget().child("store"))) {
       summary = StoreSummary.of(opened);
     }
     PrintWriter out = spec.commandLine().getOut();

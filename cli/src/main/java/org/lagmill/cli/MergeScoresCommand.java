@@ -11,6 +11,7 @@ import java.util.concurrent.Callable;
 import org.lagmill.eval.EvaluationResult;
 import org.lagmill.eval.MergedScoring;
 import org.lagmill.eval.ScoringPart;
+import org.lagmill.run.RunRecord;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;

@@ -11,6 +11,7 @@ import java.util.concurrent.Callable;
 import org.lagmill.features.FeatureFamily;
 import org.lagmill.features.FeatureSpec;
 import org.lagmill.features.FeatureSpecYaml;
+import org.lagmill.run.RunRecord;
 import org.lagmill.training.ModelDirectory;
 import org.lagmill.training.ModelManifest;
 import org.lagmill.training.PartitionReport;

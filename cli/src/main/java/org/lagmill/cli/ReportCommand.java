@@ -3,6 +3,7 @@ package org.lagmill.cli;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import org.lagmill.report.ReportJson;
+import org.lagmill.run.RunReport;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -20,7 +21,7 @@ final class ReportCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
-    Path html = ReportOutput.write(ReportJson.read(run.resolve(ReportOutput.JSON_FILE)), run);
+    Path html = RunReport.write(ReportJson.read(run.resolve(RunReport.JSON_FILE)), run);
     spec.commandLine().getOut().println("report written to " + html);
     return ExitCodes.OK;
   }

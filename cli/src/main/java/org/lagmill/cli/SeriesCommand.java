@@ -7,7 +7,8 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.Callable;
-import org.lagmill.memory.MemoryBudget;
+import org.lagmill.run.Run;
+import org.lagmill.run.RunRecord;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.SeriesAttributes;
 import org.lagmill.store.SeriesSelection;
@@ -38,7 +39,7 @@ final class SeriesCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
-    try (MemoryBudget budget = CliBudgets.root(null); SalesStore opened = SalesStore.open(store, budget)) {
+    try (Run run = Run.unlimited("series"); SalesStore opened = SalesStore.open(store, run.budget().child("store"))) {
       SeriesAttributes attributes = opened.attributes();
       int[] chosen = SeriesSelection.matching(opened, match);
       List<String> columns = new ArrayList<>();

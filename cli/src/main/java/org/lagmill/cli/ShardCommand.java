@@ -4,7 +4,8 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.Callable;
-import org.lagmill.memory.MemoryBudget;
+import org.lagmill.run.Run;
+import org.lagmill.run.Stage;
 import org.lagmill.store.ShardAssignment;
 import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreSharding;
@@ -46,15 +47,16 @@ final class ShardCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     PrintWriter console = spec.commandLine().getOut();
-    try (MemoryBudget budget = CliBudgets.root(memoryLimitBytes)) {
-      List<StoreManifest> manifests = StoreSharding.shard(store, parts, by, out, budget);
+    try (Run run = Run.start("shard", MemoryLimitOption.bytes(memoryLimitBytes));
+        Stage stage = run.stage("shard")) {
+      List<StoreManifest> manifests = StoreSharding.shard(store, parts, by, out, stage.budget());
       for (StoreManifest manifest : manifests) {
         console.printf("shard %d of %d: %d series, %d bytes in %s%n", manifest.shard().part(), parts,
             manifest.seriesCount(), manifest.binaryBytes(),
             out.resolve(StoreSharding.shardDirectoryName(manifest.shard().part())));
       }
       console.printf("split %d series by %s into %d shards, peak off-heap %d bytes%n",
-          manifests.get(0).shard().sourceSeriesCount(), by, parts, budget.peakBytes());
+          manifests.get(0).shard().sourceSeriesCount(), by, parts, stage.budget().peakBytes());
     }
     return ExitCodes.OK;
   }

@@ -5,9 +5,10 @@ import java.nio.file.Path;
 import java.time.LocalDate;
 import java.util.concurrent.Callable;
 import org.lagmill.features.FeatureSpec;
-import org.lagmill.memory.MemoryBudget;
 import org.lagmill.memory.ProcessMemory;
 import org.lagmill.store.Periods;
+import org.lagmill.run.Run;
+import org.lagmill.run.Stage;
 import org.lagmill.store.SalesStore;
 import org.lagmill.training.ModelDirectory;
 import org.lagmill.training.ModelSet;
@@ -51,10 +52,11 @@ final class TrainCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
-    RunRecord run = new RunRecord("train");
     FeatureSpec spec = training.featureSpec();
-    try (MemoryBudget budget = CliBudgets.root(memoryLimitBytes);
-        SalesStore opened = SalesStore.open(store, budget.child("store"))) {
+    try (Run run = Run.start("train", MemoryLimitOption.bytes(memoryLimitBytes));
+        Stage opening = run.stage("open store");
+        SalesStore opened = SalesStore.open(store, run.budget().child("store"))) {
+      opening.close();
       int cut = until == null ? opened.dayCount() - 1
           : (int) Math.max(-1, Math.min(Integer.MAX_VALUE, Periods.periodIndexOf(opened.firstDate(),
               opened.periodDays(), until.toEpochDay())));
@@ -63,27 +65,27 @@ final class TrainCommand implements Callable<Integer> {
             + " .. " + opened.dateOf(opened.dayCount() - 1));
       }
       TrainingPlan plan = training.plan(spec, cut);
-      run.configure("store", store.toString()).configure("model", model.toString())
+      run.record().configure("store", store.toString()).configure("model", model.toString())
           .configure("cutDate", opened.dateOf(cut).toString()).configure("plan", plan.toString());
-      run.endStage("open store", opened.offHeapBytes(), 0);
-      MemoryBudget learnerBudget = budget.child("learner");
-      try (ModelSet models = ModelTraining.train(opened, plan, learnerBudget,
+      Stage trainStage = run.stage("train");
+      try (ModelSet models = ModelTraining.train(opened, plan, trainStage.budget(),
           ConsoleProgress.forCommand(quiet))) {
-        long rows = models.partitions().stream().mapToLong(p -> p.report().trainingRowCount()).sum();
-        run.endStage("train", opened.offHeapBytes() + learnerBudget.peakBytes(), rows);
-        ModelDirectory.save(models, model, opened, plan, opened.fingerprint());
-        run.result("partitions", models.partitions().stream().map(ModelSet.Partition::report).toList());
-        run.endStage("save model", opened.offHeapBytes(), 0);
-        printSummary(models, opened, learnerBudget);
+        long learnerPeakBytes = trainStage.budget().peakBytes();
+        trainStage.addRows(models.partitions().stream().mapToLong(p -> p.report().trainingRowCount()).sum()).close();
+        try (Stage saving = run.stage("save model")) {
+          ModelDirectory.save(models, model, opened, plan, opened.fingerprint());
+        }
+        run.record().result("partitions", models.partitions().stream().map(ModelSet.Partition::report).toList());
+        printSummary(models, opened, learnerPeakBytes);
       } finally {
-        learnerBudget.close();
+        trainStage.close();
       }
+      run.record().write(model);
     }
-    run.write(model);
     return ExitCodes.OK;
   }
 
-  private void printSummary(ModelSet models, SalesStore opened, MemoryBudget learnerBudget) {
+  private void printSummary(ModelSet models, SalesStore opened, long learnerPeakBytes) {
     if (quiet) {
       return;
     }
@@ -99,7 +101,7 @@ final class TrainCommand implements Callable<Integer> {
     long rows = models.partitions().stream().mapToLong(p -> p.report().trainingRowCount()).max().orElse(0);
     out.printf("peak RSS %,d MB (%.1f bytes per training row of the largest partition); off-heap held: store %,d MB "
         + "mapped, learner peak %,d KB%n", peak >> 20, rows == 0 ? 0 : peak / (double) rows, opened.offHeapBytes() >> 20,
-        learnerBudget.peakBytes() >> 10);
+        learnerPeakBytes >> 10);
     out.printf("model written to %s%n", model);
   }
 }

@@ -6,11 +6,13 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import com.fasterxml.jackson.databind.JsonNode;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.run.RunRecord;
 
 /** The README's first command, at its small size: every artefact it promises, and a model that beats the baselines. */
 class DemoCommandTest {
@@ -36,6 +38,12 @@ class DemoCommandTest {
     assertTrue(run.out().contains("never automatic orders"), run.out());
     JsonNode record = RunRecord.JSON.readTree(out.resolve("run.json").toFile());
     assertEquals(DemoCommand.BACKTEST_ORIGINS + 1, record.path("results").path("backtest").path("origins").size());
+    // Every stage in order, each measured by its own Stage: ingest maps and buffers off-heap, the generator does not.
+    List<String> stageNames = new ArrayList<>();
+    record.path("stages").forEach(stage -> stageNames.add(stage.path("name").asText()));
+    assertEquals(List.of("generate", "ingest", "backtest", "train", "forecast"), stageNames);
+    assertEquals(0, record.path("stages").path(0).path("offHeapBytes").asLong());
+    assertTrue(record.path("stages").path(1).path("offHeapBytes").asLong() > 0, record.toString());
     String html = Files.readString(out.resolve("report/report.html"));
     assertTrue(html.contains("id=\"accuracy\"") && html.contains("id=\"series\""), "report sections");
   }

@@ -1,16 +1,17 @@
 package org.lagmill.memory;
 
-import java.util.ArrayList;
-import java.util.List;
+import java.util.concurrent.CopyOnWriteArrayList;
 import java.util.concurrent.atomic.AtomicLong;
 
 /**
  * Accounts for the off-heap bytes (allocations and memory mappings) a run holds, as a tree of named budgets.
  *
- * <p>The command line creates one root budget; each stage (ingest, feature pass, learner) takes a named child. A child
- * reserves bytes before it allocates or maps them and releases them when it frees them; every reservation is also
- * charged to its ancestors, so the root always knows the total. Closing a budget that still holds bytes fails and
- * names the stage, which makes every test a leak test.
+ * <p>A run creates one root budget; each stage (ingest, feature pass, learner) takes a named child, optionally with a
+ * limit of its own. A child reserves bytes before it allocates or maps them and releases them when it frees them;
+ * every reservation is also charged to its ancestors, so the root always knows the total and each limit on the path
+ * binds. Closing a budget that still holds bytes fails and names the stage, which makes every test a leak test. A
+ * {@link PeakWindow} watches the largest total a budget holds while it is open, which is how a stage learns the
+ * run's peak during the stage rather than since the run began.
  *
  * <p>Thread-safe: reservations use atomic counters. Lifetime: a budget is closed once, after all its children.
  */
@@ -23,7 +24,7 @@ public final class MemoryBudget implements AutoCloseable {
   private final long limitBytes;
   private final AtomicLong heldBytes = new AtomicLong();
   private final AtomicLong peakBytes = new AtomicLong();
-  private final List<MemoryBudget> children = new ArrayList<>();
+  private final CopyOnWriteArrayList<PeakWindow> windows = new CopyOnWriteArrayList<>();
   private volatile boolean closed;
 
   private MemoryBudget(String name, MemoryBudget parent, long limitBytes) {
@@ -34,10 +35,7 @@ public final class MemoryBudget implements AutoCloseable {
 
   /** Creates a root budget that refuses reservations beyond {@code limitBytes} in total. */
   public static MemoryBudget root(String name, long limitBytes) {
-    if (limitBytes <= 0) {
-      throw new IllegalArgumentException("limitBytes must be positive, got " + limitBytes);
-    }
-    return new MemoryBudget(name, null, limitBytes);
+    return new MemoryBudget(name, null, checkLimit(limitBytes));
   }
 
   /** Creates a root budget with no limit. */
@@ -45,12 +43,27 @@ public final class MemoryBudget implements AutoCloseable {
     return root(name, UNLIMITED_BYTES);
   }
 
-  /** Creates a child budget for one stage; its reservations count against this budget too. */
-  public synchronized MemoryBudget child(String stageName) {
+  /** Creates a child budget for one stage with no limit of its own; its reservations count against this budget too. */
+  public MemoryBudget child(String stageName) {
+    return child(stageName, UNLIMITED_BYTES);
+  }
+
+  /**
+   * Creates a child budget for one stage that refuses reservations beyond {@code limitBytes} held by it and its
+   * children; its reservations count against this budget (and its limit) too.
+   *
+   * @param limitBytes positive; {@link #UNLIMITED_BYTES} for no limit of its own
+   */
+  public MemoryBudget child(String stageName, long limitBytes) {
     checkOpen();
-    MemoryBudget child = new MemoryBudget(name + "/" + stageName, this, UNLIMITED_BYTES);
-    children.add(child);
-    return child;
+    return new MemoryBudget(name + "/" + stageName, this, checkLimit(limitBytes));
+  }
+
+  private static long checkLimit(long limitBytes) {
+    if (limitBytes <= 0) {
+      throw new IllegalArgumentException("limitBytes must be positive, got " + limitBytes);
+    }
+    return limitBytes;
   }
 
   /**
@@ -77,6 +90,9 @@ public final class MemoryBudget implements AutoCloseable {
       }
     }
     peakBytes.accumulateAndGet(after, Math::max);
+    for (PeakWindow window : windows) {
+      window.peakBytes.accumulateAndGet(after, Math::max);
+    }
   }
 
   /** Releases bytes reserved earlier, after they are freed or unmapped. */
@@ -102,8 +118,24 @@ public final class MemoryBudget implements AutoCloseable {
     return peakBytes.get();
   }
 
+  /** This budget's own limit in bytes ({@link #UNLIMITED_BYTES} when it has none). */
+  public long limitBytes() {
+    return limitBytes;
+  }
+
   public String name() {
     return name;
+  }
+
+  /**
+   * Starts watching the largest {@link #heldBytes()} of this budget from now until the window closes; the window
+   * starts at the bytes held now. Windows may overlap (a stage inside a stage).
+   */
+  public PeakWindow openPeakWindow() {
+    checkOpen();
+    PeakWindow window = new PeakWindow(this, heldBytes.get());
+    windows.add(window);
+    return window;
   }
 
   private void checkOpen() {
@@ -128,10 +160,26 @@ public final class MemoryBudget implements AutoCloseable {
       throw new IllegalStateException("budget " + name + " closed while still holding " + held
           + " bytes: an owner of off-heap memory in this stage was not closed");
     }
-    if (parent != null) {
-      synchronized (parent) {
-        parent.children.remove(this);
-      }
+  }
+
+  /** The largest bytes a budget held while the window was open; closing stops the watch. Thread-safe. */
+  public static final class PeakWindow implements AutoCloseable {
+    private final MemoryBudget budget;
+    private final AtomicLong peakBytes;
+
+    private PeakWindow(MemoryBudget budget, long heldBytes) {
+      this.budget = budget;
+      this.peakBytes = new AtomicLong(heldBytes);
+    }
+
+    /** The largest bytes held since the window opened (including what was held when it opened). */
+    public long peakBytes() {
+      return peakBytes.get();
+    }
+
+    @Override
+    public void close() {
+      budget.windows.remove(this);
     }
   }
 }

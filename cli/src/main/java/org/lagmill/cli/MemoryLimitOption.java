@@ -2,18 +2,18 @@ package org.lagmill.cli;
 
 import org.lagmill.memory.MemoryBudget;
 
-/** The root memory budget of one command, from its {@code --memory-limit}. */
-final class CliBudgets {
-  private CliBudgets() {}
+/** The run's off-heap limit from {@code --memory-limit}: absent means none. */
+final class MemoryLimitOption {
+  private MemoryLimitOption() {}
 
-  static MemoryBudget root(Long memoryLimitBytes) {
+  static long bytes(Long memoryLimitBytes) {
     if (memoryLimitBytes == null) {
-      return MemoryBudget.unlimited("lagmill");
+      return MemoryBudget.UNLIMITED_BYTES;
     }
     if (memoryLimitBytes <= 0) {
       throw new IllegalArgumentException("--memory-limit must be a positive number of bytes, got " + memoryLimitBytes
           + "; e.g. --memory-limit 2g");
     }
-    return MemoryBudget.root("lagmill", memoryLimitBytes);
+    return memoryLimitBytes;
   }
 }

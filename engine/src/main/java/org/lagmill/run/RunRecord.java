@@ -1,4 +1,4 @@
-package org.lagmill.cli;
+package org.lagmill.run;
 
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
@@ -11,70 +11,66 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import org.lagmill.io.AtomicFiles;
+import org.lagmill.learner.LightGbmVersion;
 import org.lagmill.memory.ProcessMemory;
 
 /**
- * The {@code run.json} every command that produces results writes: configuration, versions, time and memory per
- * stage, and metrics, so a run can be compared with another or turned into a report later.
+ * The {@code run.json} of a run: configuration, versions, the stages' time and memory, and results, so a run can be
+ * compared with another or turned into a report later. Stages are added by {@link Stage#close()} only.
+ *
+ * <p>Not thread-safe.
  */
-final class RunRecord {
-  static final String FILE_NAME = "run.json";
-  static final ObjectMapper JSON = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
-
-  /** Time and memory of one stage. */
-  record Stage(String name, double seconds, long peakResidentBytes, long offHeapBytes, long rowCount) {
-    public double rowsPerSecond() {
-      return seconds > 0 ? rowCount / seconds : 0;
-    }
-  }
+public final class RunRecord {
+  /** The record's file name in a run's output folder. */
+  public static final String FILE_NAME = "run.json";
+  /** Indented JSON for every file a run writes. */
+  public static final ObjectMapper JSON = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
 
   private final String command;
   private final long startNanos = System.nanoTime();
   private final String startedAt = Instant.now().toString();
   private final Map<String, Object> configuration = new LinkedHashMap<>();
   private final Map<String, Object> results = new LinkedHashMap<>();
-  private final List<Stage> stages = new ArrayList<>();
-  private long stageStartNanos = System.nanoTime();
+  private final List<StageRecord> stages = new ArrayList<>();
 
   RunRecord(String command) {
     this.command = command;
   }
 
-  RunRecord configure(String key, Object value) {
+  /** Records one configuration value (an option, a plan) under {@code key}. */
+  public RunRecord configure(String key, Object value) {
     configuration.put(key, value);
     return this;
   }
 
-  RunRecord result(String key, Object value) {
+  /** Records one result (metrics, partition reports) under {@code key}. */
+  public RunRecord result(String key, Object value) {
     results.put(key, value);
     return this;
   }
 
-  /** Closes the stage that began at the previous call (or at creation) and records it. */
-  Stage endStage(String name, long offHeapBytes, long rowCount) {
-    long now = System.nanoTime();
-    Stage stage = new Stage(name, (now - stageStartNanos) / 1e9, ProcessMemory.peakResidentBytes(), offHeapBytes,
-        rowCount);
+  void addStage(StageRecord stage) {
     stages.add(stage);
-    stageStartNanos = now;
-    return stage;
   }
 
-  List<Stage> stages() {
-    return stages;
+  /** The finished stages in the order they closed. */
+  public List<StageRecord> stages() {
+    return List.copyOf(stages);
   }
 
-  double elapsedSeconds() {
+  /** Wall time since the run started. */
+  public double elapsedSeconds() {
     return (System.nanoTime() - startNanos) / 1e9;
   }
 
-  Map<String, Object> toMap() {
+  /** The record as the JSON document {@link #write} produces. */
+  public Map<String, Object> toMap() {
     Map<String, Object> map = new LinkedHashMap<>();
     map.put("command", command);
     map.put("startedAt", startedAt);
     map.put("seconds", elapsedSeconds());
-    map.put("versions", Map.of("lagmill", new VersionProvider().getVersion()[0],
-        "java", System.getProperty("java.version"), "lightgbm", "4.3.0 (lightgbm4j 4.3.0-1)"));
+    map.put("versions", Map.of("lagmill", Versions.lagmill(), "java", System.getProperty("java.version"),
+        "lightgbm", LightGbmVersion.describe()));
     map.put("machine", Map.of("processors", Runtime.getRuntime().availableProcessors(),
         "maxHeapBytes", Runtime.getRuntime().maxMemory()));
     map.put("configuration", configuration);
@@ -85,12 +81,12 @@ final class RunRecord {
   }
 
   /** Writes {@code dir/run.json} through a temporary file. */
-  void write(Path dir) throws IOException {
+  public void write(Path dir) throws IOException {
     write(dir, FILE_NAME);
   }
 
   /** Writes {@code dir/fileName} through a temporary file. */
-  void write(Path dir, String fileName) throws IOException {
+  public void write(Path dir, String fileName) throws IOException {
     AtomicFiles.write(dir.resolve(fileName), JSON.writeValueAsBytes(toMap()));
   }
 

@@ -1,0 +1,10 @@
+/**
+ * The run model: a {@link org.lagmill.run.Run} owns the root memory budget and the {@link org.lagmill.run.RunRecord}
+ * ({@code run.json}); each {@link org.lagmill.run.Stage} owns a named child budget (optionally limited), times itself,
+ * records the run's peak off-heap bytes while it ran and the peak resident memory, and on close fails naming itself
+ * when it leaked. {@link org.lagmill.run.RunReport} writes the report with the stages' figures, so what run.json and
+ * the report say about time and memory is what the stages measured.
+ *
+ * <p>Sits on top of the engine: may depend on every other engine package; only {@code cli} depends on it.
+ */
+package org.lagmill.run;
