@@ -9,10 +9,11 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.util.Arrays;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
+import org.lagmill.TestSeeds;
 import org.lagmill.store.ArraySalesHistory;
 
 class EtsFitterTest {
-  private static final long MASTER_SEED = Long.getLong("lagmill.seed", 20240611L);
+  private static final long MASTER_SEED = TestSeeds.master(20240611L);
   private static final int U = -1;
 
   /**

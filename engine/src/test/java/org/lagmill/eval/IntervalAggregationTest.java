@@ -7,12 +7,13 @@ import java.util.List;
 import java.util.SplittableRandom;
 import org.apache.commons.math3.distribution.PoissonDistribution;
 import org.junit.jupiter.api.Test;
+import org.lagmill.TestSeeds;
 import org.lagmill.forecast.CountQuantiles;
 import org.lagmill.forecast.ForecastTable;
 import org.lagmill.store.ArraySalesHistory;
 
 class IntervalAggregationTest {
-  private static final long SEED = 61_403L;
+  private static final long SEED = TestSeeds.master(61_403L);
   private static final double[] LEVELS = ForecastTable.PUBLISHED_QUANTILES;
 
   @Test

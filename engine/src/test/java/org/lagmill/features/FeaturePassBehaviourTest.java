@@ -7,13 +7,14 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.time.LocalDate;
 import java.util.List;
 import org.junit.jupiter.api.Test;
+import org.lagmill.TestSeeds;
 import org.lagmill.features.FeatureSpec.RollingStat;
 import org.lagmill.features.FeatureSpec.Strategy;
 import org.lagmill.store.ArraySalesHistory;
 import org.lagmill.store.SalesHistory;
 
 class FeaturePassBehaviourTest {
-  private static final long MASTER_SEED = Long.getLong("lagmill.seed", 20240611L);
+  private static final long MASTER_SEED = TestSeeds.master(20240611L);
   private static final int U = SalesHistory.UNKNOWN_UNITS;
 
   @Test

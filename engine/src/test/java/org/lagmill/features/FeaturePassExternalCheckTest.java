@@ -8,13 +8,14 @@ import java.util.List;
 import java.util.Random;
 import org.apache.commons.math3.stat.descriptive.DescriptiveStatistics;
 import org.junit.jupiter.api.Test;
+import org.lagmill.TestSeeds;
 import org.lagmill.features.FeatureSpec.RollingStat;
 import org.lagmill.features.FeatureSpec.Strategy;
 import org.lagmill.store.ArraySalesHistory;
 
 /** Checks against sources outside this code base. */
 class FeaturePassExternalCheckTest {
-  private static final long MASTER_SEED = Long.getLong("lagmill.seed", 20240611L);
+  private static final long MASTER_SEED = TestSeeds.master(20240611L);
 
   @Test
   void shouldMatchCommonsMathRollingMeanAndSampleStandardDeviation() {

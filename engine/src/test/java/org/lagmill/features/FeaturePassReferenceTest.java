@@ -7,12 +7,13 @@ import static org.junit.jupiter.api.Assertions.fail;
 import java.util.List;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
+import org.lagmill.TestSeeds;
 import org.lagmill.features.FeatureSpec.RollingStat;
 import org.lagmill.features.FeatureSpec.Strategy;
 
 /** Every streamed feature value against {@link SlowFeatures} on seeded random stores. */
 class FeaturePassReferenceTest {
-  private static final long MASTER_SEED = Long.getLong("lagmill.seed", 20240611L);
+  private static final long MASTER_SEED = TestSeeds.master(20240611L);
 
   private static final List<RollingStat> ALL_STATS = List.of(RollingStat.values());
 

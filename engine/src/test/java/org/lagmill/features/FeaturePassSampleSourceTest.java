@@ -15,10 +15,11 @@ import java.util.Random;
 import java.util.Set;
 import org.apache.commons.math3.distribution.ChiSquaredDistribution;
 import org.junit.jupiter.api.Test;
+import org.lagmill.TestSeeds;
 
 /** The sample source of a feature pass: whole series drawn by a seed, their rows exactly as the full pass has them. */
 class FeaturePassSampleSourceTest {
-  private static final long MASTER_SEED = Long.getLong("lagmill.seed", 20240611L);
+  private static final long MASTER_SEED = TestSeeds.master(20240611L);
 
   @Test
   void shouldYieldExactlyTheFullPassRowsOfTheChosenSeries() {

@@ -6,9 +6,10 @@ import java.util.SplittableRandom;
 import org.apache.commons.math3.distribution.PascalDistribution;
 import org.apache.commons.math3.distribution.PoissonDistribution;
 import org.junit.jupiter.api.Test;
+import org.lagmill.TestSeeds;
 
 class CountQuantilesTest {
-  private static final long SEED = 20261202L;
+  private static final long SEED = TestSeeds.master(20261202L);
   private static final double[] PROBABILITIES = {0.005, 0.025, 0.165, 0.25, 0.5, 0.75, 0.835, 0.975, 0.995};
 
   @Test

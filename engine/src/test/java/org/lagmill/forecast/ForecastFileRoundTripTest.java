@@ -14,12 +14,13 @@ import java.util.SplittableRandom;
 import java.util.zip.GZIPInputStream;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.TestSeeds;
 import org.lagmill.ingest.InputFormatException;
 import org.lagmill.store.ArraySalesHistory;
 import org.lagmill.training.SmallHistories;
 
 class ForecastFileRoundTripTest {
-  private static final long SEED = 88_123L;
+  private static final long SEED = TestSeeds.master(88_123L);
   private static final double[] LEVELS = ForecastTable.PUBLISHED_QUANTILES;
 
   @Test

@@ -12,13 +12,14 @@ import java.util.List;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.TestSeeds;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.RandomStoreData;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SalesStore;
 
 class LongSalesIngestTest {
-  private static final long MASTER_SEED = 7_340_211L;
+  private static final long MASTER_SEED = TestSeeds.master(7_340_211L);
 
   @TempDir Path temp;
 

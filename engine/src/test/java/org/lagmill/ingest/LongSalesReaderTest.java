@@ -15,11 +15,12 @@ import java.util.Map;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.TestSeeds;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesHistory;
 
 class LongSalesReaderTest {
-  private static final long MASTER_SEED = 0x10A65L;
+  private static final long MASTER_SEED = TestSeeds.master(0x10A65L);
   private static final int U = SalesHistory.UNKNOWN_UNITS;
 
   @TempDir Path dir;

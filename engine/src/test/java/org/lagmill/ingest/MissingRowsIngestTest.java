@@ -12,6 +12,7 @@ import java.util.List;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.TestSeeds;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SalesStore;
@@ -24,7 +25,7 @@ import org.lagmill.store.StoreManifest;
  * different days, some rows with an empty units cell.
  */
 class MissingRowsIngestTest {
-  private static final long MASTER_SEED = Long.getLong("lagmill.seed", 20_261_202L);
+  private static final long MASTER_SEED = TestSeeds.master(20_261_202L);
   private static final LocalDate FIRST_DATE = LocalDate.of(2025, 11, 3);
   private static final int U = SalesHistory.UNKNOWN_UNITS;
   /** Marks a day written with an empty units cell in both files. */

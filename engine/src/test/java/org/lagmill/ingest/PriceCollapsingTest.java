@@ -12,6 +12,7 @@ import java.util.List;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.TestSeeds;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.PriceTable;
 import org.lagmill.store.SalesStore;
@@ -21,7 +22,7 @@ import org.lagmill.store.SalesStore;
  * the price file row by row for every day and keeps the days on which the price differs from the day before.
  */
 class PriceCollapsingTest {
-  private static final long MASTER_SEED = Long.getLong("lagmill.seed", 0x5EED_9A1CL);
+  private static final long MASTER_SEED = TestSeeds.master(0x5EED_9A1CL);
   private static final LocalDate FIRST = LocalDate.of(2025, 1, 6);
   private static final float[] PRICE_LEVELS = {1.49f, 1.99f, 2.49f};
 

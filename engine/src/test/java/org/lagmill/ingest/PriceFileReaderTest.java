@@ -14,11 +14,12 @@ import java.util.Map;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.TestSeeds;
 import org.lagmill.store.ArrayPriceTable;
 import org.lagmill.store.ArraySeriesAttributes;
 
 class PriceFileReaderTest {
-  private static final long MASTER_SEED = 0x9A1CE5L;
+  private static final long MASTER_SEED = TestSeeds.master(0x9A1CE5L);
   private static final LocalDate STORE_START = LocalDate.of(2024, 3, 1);
   private static final ArraySeriesAttributes CHAIN = IngestFiles.chain();
   private static final int SERIES_COUNT = 9;

@@ -11,11 +11,12 @@ import java.util.List;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.TestSeeds;
 import org.lagmill.store.ArraySeriesAttributes;
 
 /** The shared key matcher of dated per-key files against a slow reference that compares the cells as text. */
 class SeriesKeysTest {
-  private static final long MASTER_SEED = Long.getLong("lagmill.seed", 0x4B3E_75L);
+  private static final long MASTER_SEED = TestSeeds.master(0x4B3E_75L);
   private static final String[] NAMES = {"sku", "shop", "dept", "banner"};
 
   @TempDir Path dir;

@@ -11,6 +11,7 @@ import java.util.List;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.TestSeeds;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.ArraySalesHistory;
 import org.lagmill.store.RandomStoreData;
@@ -19,7 +20,7 @@ import org.lagmill.store.SalesStore;
 import org.lagmill.store.StoreAssertions;
 
 class StoreAppendTest {
-  private static final long MASTER_SEED = 99_173L;
+  private static final long MASTER_SEED = TestSeeds.master(99_173L);
 
   @TempDir Path temp;
 

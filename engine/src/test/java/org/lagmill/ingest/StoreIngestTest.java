@@ -17,6 +17,7 @@ import java.util.stream.Stream;
 import java.util.zip.GZIPOutputStream;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.TestSeeds;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.RandomStoreData;
 import org.lagmill.store.SalesStore;
@@ -26,7 +27,7 @@ import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreSummary;
 
 class StoreIngestTest {
-  private static final long MASTER_SEED = 20_240_601L;
+  private static final long MASTER_SEED = TestSeeds.master(20_240_601L);
 
   @TempDir Path temp;
 

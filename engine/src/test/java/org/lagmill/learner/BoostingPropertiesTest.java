@@ -6,12 +6,13 @@ import java.util.List;
 import java.util.SplittableRandom;
 import org.apache.commons.math3.stat.descriptive.moment.Mean;
 import org.junit.jupiter.api.Test;
+import org.lagmill.TestSeeds;
 import org.lagmill.features.FeatureSchema;
 import org.lagmill.memory.MemoryBudget;
 
 /** Hand-checkable models whose predictions follow from the definition of gradient boosting. */
 class BoostingPropertiesTest {
-  private static final long MASTER_SEED = 9_001L;
+  private static final long MASTER_SEED = TestSeeds.master(9_001L);
 
   static {
     NativeLibrary.load();

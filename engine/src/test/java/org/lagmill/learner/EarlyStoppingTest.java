@@ -8,11 +8,12 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
+import org.lagmill.TestSeeds;
 import org.lagmill.memory.MemoryBudget;
 
 /** Early stopping on a validation Dataset built by reference. */
 class EarlyStoppingTest {
-  private static final long MASTER_SEED = 77_031L;
+  private static final long MASTER_SEED = TestSeeds.master(77_031L);
 
   static {
     NativeLibrary.load();

@@ -13,13 +13,14 @@ import java.util.Arrays;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.TestSeeds;
 import org.lagmill.features.FeatureBatch;
 import org.lagmill.features.FeatureSchema;
 import org.lagmill.memory.MemoryBudget;
 
 /** Saving, loading, categorical columns, importances, closing and misuse. */
 class ModelLifecycleTest {
-  private static final long MASTER_SEED = 4_242L;
+  private static final long MASTER_SEED = TestSeeds.master(4_242L);
 
   static {
     NativeLibrary.load();

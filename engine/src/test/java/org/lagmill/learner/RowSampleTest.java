@@ -6,12 +6,13 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.util.ArrayList;
 import java.util.List;
 import org.junit.jupiter.api.Test;
+import org.lagmill.TestSeeds;
 import org.lagmill.features.FeatureBatch;
 import org.lagmill.memory.MemoryBudget;
 
 /** The sampling pass against an obvious reference built from the sampled row list. */
 class RowSampleTest {
-  private static final long MASTER_SEED = 31_337L;
+  private static final long MASTER_SEED = TestSeeds.master(31_337L);
 
   /** Streams {@code rows} through a batch of {@code batchRows} and records which stream rows the sample took. */
   private static RowSample sample(MatrixRowStream rows, int sampleRows, int batchRows, List<Integer> taken) {

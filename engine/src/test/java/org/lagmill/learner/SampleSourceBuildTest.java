@@ -12,6 +12,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
+import org.lagmill.TestSeeds;
 import org.lagmill.features.FeatureBatch;
 import org.lagmill.features.FeaturePass;
 import org.lagmill.features.FeatureSchema;
@@ -22,7 +23,7 @@ import org.lagmill.store.ArraySalesHistory;
 
 /** The build's sampling pass streams the feature pass's sample source, its push pass every row. */
 class SampleSourceBuildTest {
-  private static final long MASTER_SEED = 20_261_202L;
+  private static final long MASTER_SEED = TestSeeds.master(20_261_202L);
 
   static {
     NativeLibrary.load();

@@ -10,12 +10,13 @@ import java.nio.file.Path;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.TestSeeds;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.memory.NativeFloatArray;
 
 /** A Dataset pushed in batches from a RowStream must train the same model as the whole matrix handed over at once. */
 class StreamedDatasetTest {
-  private static final long MASTER_SEED = 20_240_611L;
+  private static final long MASTER_SEED = TestSeeds.master(20_240_611L);
 
   static {
     NativeLibrary.load();

@@ -5,10 +5,11 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 
 import java.util.Random;
 import org.junit.jupiter.api.Test;
+import org.lagmill.TestSeeds;
 
 /** The bulk {@link NativeFloatArray#put} against one {@link NativeFloatArray#set} per value. */
 class NativeFloatArrayBulkTest {
-  private static final long SEED = 20261202L;
+  private static final long SEED = TestSeeds.master(20261202L);
 
   @Test
   void shouldPutTheSameBitsAsOneSetPerValue() {

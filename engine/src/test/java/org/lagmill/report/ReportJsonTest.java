@@ -14,11 +14,12 @@ import java.util.List;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.TestSeeds;
 import org.lagmill.store.CorruptStoreException;
 
 /** report.json: what is written reads back equal, is strict JSON, and a wrong file is refused by name. */
 class ReportJsonTest {
-  private static final long SEED = 77L;
+  private static final long SEED = TestSeeds.master(77L);
 
   @Test
   void shouldReadBackAnEqualReport(@TempDir Path dir) throws Exception {

@@ -10,11 +10,12 @@ import java.util.Random;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
+import org.lagmill.TestSeeds;
 import org.w3c.dom.Element;
 
 /** The SVG charts against direct formulas: where points land, how NaN splits a line, what the ticks are. */
 class SvgChartsTest {
-  private static final long MASTER_SEED = 0x5EEDL;
+  private static final long MASTER_SEED = TestSeeds.master(0x5EEDL);
   private static final double HALF_ROUNDING_PX = 0.05 + 1e-9;
 
   @Test

@@ -7,9 +7,10 @@ import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
+import org.lagmill.TestSeeds;
 
 class AsciiWriterTest {
-  private static final long MASTER_SEED = 77L;
+  private static final long MASTER_SEED = TestSeeds.master(77L);
 
   @Test
   void shouldFormatIntegersLikeIntegerToStringAcrossBufferBoundaries() throws IOException {

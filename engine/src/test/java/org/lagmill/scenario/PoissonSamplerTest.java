@@ -8,9 +8,10 @@ import org.apache.commons.math3.distribution.PoissonDistribution;
 import org.apache.commons.math3.special.Gamma;
 import org.apache.commons.math3.stat.inference.ChiSquareTest;
 import org.junit.jupiter.api.Test;
+import org.lagmill.TestSeeds;
 
 class PoissonSamplerTest {
-  private static final long MASTER_SEED = 20240611L;
+  private static final long MASTER_SEED = TestSeeds.master(20240611L);
 
   @Test
   void shouldMatchPoissonMomentsOnBothSides() {

@@ -11,9 +11,10 @@ import java.util.List;
 import java.util.Locale;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
+import org.lagmill.TestSeeds;
 
 class SeriesSelectionTest {
-  private static final long MASTER_SEED = Long.getLong("lagmill.seed", 20240611L);
+  private static final long MASTER_SEED = TestSeeds.master(20240611L);
 
   /** Series named by sku, shop and dept (no series_id column), so ids are the values joined by '/'. */
   private static SalesHistory history(String[][] rows) {

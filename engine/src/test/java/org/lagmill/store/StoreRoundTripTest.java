@@ -9,10 +9,11 @@ import java.nio.file.Path;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.TestSeeds;
 import org.lagmill.memory.MemoryBudget;
 
 class StoreRoundTripTest {
-  private static final long MASTER_SEED = 0x5EED_2024L;
+  private static final long MASTER_SEED = TestSeeds.master(0x5EED_2024L);
 
   @TempDir Path temp;
 

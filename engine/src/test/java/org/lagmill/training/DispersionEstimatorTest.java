@@ -7,9 +7,10 @@ import java.util.SplittableRandom;
 import org.apache.commons.math3.distribution.PascalDistribution;
 import org.apache.commons.math3.random.JDKRandomGenerator;
 import org.junit.jupiter.api.Test;
+import org.lagmill.TestSeeds;
 
 class DispersionEstimatorTest {
-  private static final long SEED = 77L;
+  private static final long SEED = TestSeeds.master(77L);
 
   @Test
   void shouldRecoverTheDispersionOfNegativeBinomialDraws() {

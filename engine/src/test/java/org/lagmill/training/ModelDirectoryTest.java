@@ -15,6 +15,7 @@ import java.util.TreeMap;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.TestSeeds;
 import org.lagmill.forecast.Forecaster;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.progress.ProgressListener;
@@ -22,7 +23,7 @@ import org.lagmill.store.ArraySalesHistory;
 import org.lagmill.store.CorruptStoreException;
 
 class ModelDirectoryTest {
-  private static final long SEED = 4_401L;
+  private static final long SEED = TestSeeds.master(4_401L);
   private static final int HORIZON_DAYS = 7;
 
   @Test
