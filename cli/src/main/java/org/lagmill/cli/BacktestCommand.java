@@ -88,7 +88,8 @@ final class BacktestCommand implements Callable<Integer> {
       fill[0] = opened.manifest();
       TrainingPlan plan = training.plan(spec, opened.dayCount() - 1);
       run.record().configure("store", store.toString()).configure("origins", originCount)
-          .configure("stepDays", stepDays == null ? spec.horizonDays() : stepDays).configure("plan", plan.toString());
+          .configure("stepDays", stepDays == null ? Integer.valueOf(spec.horizonDays()) : stepDays)
+          .configure("plan", plan.toString());
       try (Stage stage = run.stage("backtest")) {
         if (!members.isEmpty()) {
           List<String> names = new java.util.ArrayList<>();

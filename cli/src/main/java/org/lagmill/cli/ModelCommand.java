@@ -97,8 +97,8 @@ final class ModelCommand implements Callable<Integer> {
     out.printf("features by share of gain (%d of %d, summed over partitions)%n", shown, importance.size());
     out.printf("  %7s %7s  %-32s %-20s %s%n", "gain", "splits", "feature", "family", "meaning");
     for (Map<String, Object> row : importance.subList(0, shown)) {
-      out.printf(Locale.ROOT, "  %6.1f%% %7d  %-32s %-20s %s%n", 100 * (double) row.get("gainShare"),
-          (long) row.get("splitCount"), row.get("feature"), row.get("family"), row.get("label"));
+      out.printf(Locale.ROOT, "  %6.1f%% %7d  %-32s %-20s %s%n", 100 * ((Number) row.get("gainShare")).doubleValue(),
+          row.get("splitCount"), row.get("feature"), row.get("family"), row.get("label"));
     }
     return ExitCodes.OK;
   }

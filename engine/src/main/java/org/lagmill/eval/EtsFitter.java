@@ -413,7 +413,7 @@ public final class EtsFitter implements BoundedSimplex.Objective {
       if (!Double.isNaN(y)) {
         knownCount++;
         sum += y;
-        allPositive &= y > 0;
+        allPositive = allPositive && y > 0;
       }
     }
     knownMean = knownCount == 0 ? 0 : sum / knownCount;

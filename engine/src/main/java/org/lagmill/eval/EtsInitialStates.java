@@ -68,7 +68,7 @@ final class EtsInitialStates {
     int firstCentre = half;
     int lastCentre = spanLength - 1 - half;
     for (int t = firstCentre; t <= lastCentre; t++) {
-      if (m % 2 == 1) {
+      if (m % 2 != 0) {
         movingAverage[t] = windowMean(x, t - half, m);
       } else {
         // pandas' centred even window at t covers t−m/2 .. t+m/2−1; the 2×m average is its mean with the next one.

@@ -33,7 +33,7 @@ final class InputFiles {
 
   /** Whether the file is read through gzip: its name ends in {@code .gz}, any case. */
   static boolean isGzip(Path file) {
-    return file.getFileName().toString().toLowerCase(Locale.ROOT).endsWith(GZIP_SUFFIX);
+    return String.valueOf(file.getFileName()).toLowerCase(Locale.ROOT).endsWith(GZIP_SUFFIX);
   }
 
   /**

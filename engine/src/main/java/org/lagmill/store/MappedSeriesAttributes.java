@@ -61,7 +61,7 @@ final class MappedSeriesAttributes extends MappedStoreFile implements SeriesAttr
         region -> new MappedSeriesAttributes(file, region, expectedSeriesCount, maxValueCount));
   }
 
-  long heapBytes() {
+  synchronized long heapBytes() {
     return heapBytes + (seriesIndexById == null ? 0 : 80L * seriesCount);
   }
 
