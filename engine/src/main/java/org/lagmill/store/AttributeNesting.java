@@ -30,7 +30,6 @@ import java.util.Set;
  */
 public final class AttributeNesting {
   /** The attribute a store keeps for a series-id column: the bottom level when nothing else names each series. */
-  private static final String SERIES_ID_ATTRIBUTE = "series_id";
 
   private final SeriesAttributes attributes;
   private final int seriesCount;
@@ -223,9 +222,9 @@ public final class AttributeNesting {
     if (!leaves.isEmpty() && namesEachSeries(leaves)) {
       return distinguishing(leaves);
     }
-    int seriesId = names.indexOf(SERIES_ID_ATTRIBUTE);
+    int seriesId = names.indexOf(SeriesIdentity.SERIES_ID);
     if (seriesId >= 0 && identity[seriesId]) {
-      return List.of(SERIES_ID_ATTRIBUTE);
+      return List.of(SeriesIdentity.SERIES_ID);
     }
     for (int a = 0; a < names.size(); a++) {
       if (identity[a]) {
