@@ -44,7 +44,8 @@ public final class CsvSource implements AutoCloseable {
 
   /**
    * Opens a file as {@link InputFiles} says: a missing file is an {@link UncheckedIOException} around the
-   * {@link NoSuchFileException}; a {@code .gz} file (any case) that is not gzip data is an {@link InputFormatException}.
+   * {@link NoSuchFileException}; a {@code .gz} file (any case) that is not gzip data is an
+   * {@link InputFormatException}.
    */
   public static CsvSource open(Path file) {
     InputStream bytes = openBytes(file);

@@ -65,7 +65,8 @@ public final class ArraySalesHistory implements SalesHistory {
     for (int s = 0; s < unitsBySeries.length; s++) {
       codes[s][0] = "s" + s;
     }
-    return new ArraySalesHistory(firstDate, unitsBySeries, ArraySeriesAttributes.of(new String[] {SeriesIdentity.SERIES_ID}, codes),
+    return new ArraySalesHistory(firstDate, unitsBySeries,
+        ArraySeriesAttributes.of(new String[] {SeriesIdentity.SERIES_ID}, codes),
         PriceTable.EMPTY, DayCalendar.EMPTY);
   }
 
