@@ -32,7 +32,7 @@ class DependencyDirectionTest {
       Map.entry("io", Set.of()),
       Map.entry("memory", Set.of()),
       Map.entry("progress", Set.of()),
-      Map.entry("scenario", Set.of()),
+      Map.entry("scenario", Set.of("io")),
       Map.entry("store", Set.of("io", "memory")),
       Map.entry("ingest", Set.of("io", "memory", "store")),
       Map.entry("features", Set.of("io", "memory", "store")),
