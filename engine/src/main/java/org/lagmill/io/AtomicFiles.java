@@ -11,6 +11,7 @@ import java.nio.file.StandardCopyOption;
 import java.nio.file.StandardOpenOption;
 import java.security.SecureRandom;
 import java.util.HexFormat;
+import org.lagmill.io.PathNames;
 
 /**
  * The one way lagmill writes a whole file: into {@code .<name>.tmp-<pid>-<hex>} beside it, flushed to disk, then
@@ -55,7 +56,7 @@ public final class AtomicFiles {
    */
   public static Pending begin(Path file) throws IOException {
     Path target = file.toAbsolutePath().normalize();
-    Files.createDirectories(target.getParent());
+    Files.createDirectories(PathNames.parentOf(target));
     return new Pending(target, tempSibling(target));
   }
 

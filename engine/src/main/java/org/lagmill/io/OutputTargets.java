@@ -6,6 +6,7 @@ import java.nio.file.Files;
 import java.nio.file.LinkOption;
 import java.nio.file.Path;
 import java.util.Set;
+import org.lagmill.io.PathNames;
 
 /**
  * The one rule for output paths: lagmill replaces only what it wrote itself. A missing path or an empty folder may be
@@ -40,7 +41,7 @@ public final class OutputTargets {
     String example = null;
     try (DirectoryStream<Path> entries = Files.newDirectoryStream(dir)) {
       for (Path entry : entries) {
-        String name = entry.getFileName().toString();
+        String name = PathNames.nameOf(entry);
         if (!ignoredNames.contains(name)) {
           example = name;
           break;

@@ -17,6 +17,7 @@ import java.util.HexFormat;
 import java.util.List;
 import java.util.function.Consumer;
 import java.util.regex.Pattern;
+import org.lagmill.io.PathNames;
 
 /**
  * The commit protocol of a store directory: immutable generations plus a pointer file swapped atomically.
@@ -189,7 +190,7 @@ public final class StoreGenerations {
     }
     StoreManifest previousLayout = Files.isRegularFile(storeDir.resolve(StoreManifest.FILE_NAME))
         ? readPreviousLayoutManifest(storeDir) : null;
-    deleteUnnamed(storeDir, current.getFileName().toString(), previousLayout, notes);
+    deleteUnnamed(storeDir, PathNames.nameOf(current), previousLayout, notes);
     return notes;
   }
 
@@ -202,7 +203,7 @@ public final class StoreGenerations {
   }
 
   private static long sequenceOf(Path generation) {
-    var m = GENERATION_NAME.matcher(generation.getFileName().toString());
+    var m = GENERATION_NAME.matcher(PathNames.nameOf(generation));
     if (!m.matches()) {
       throw new AssertionError(generation);
     }
@@ -247,7 +248,7 @@ public final class StoreGenerations {
     }
     entries.sort(null);
     for (Path entry : entries) {
-      String name = entry.getFileName().toString();
+      String name = PathNames.nameOf(entry);
       if (name.startsWith(BUILDING_PREFIX)) {
         StoreDirectories.deleteRecursively(entry);
         notes.add("removed " + name + ", a store generation left unfinished by a writer that stopped");

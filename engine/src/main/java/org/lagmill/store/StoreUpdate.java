@@ -8,6 +8,7 @@ import java.util.List;
 import java.util.Set;
 import org.lagmill.io.OutputRefusedException;
 import org.lagmill.io.OutputTargets;
+import org.lagmill.io.PathNames;
 
 /**
  * One change of a store directory, from taking its lock to committing a new generation: every writer (ingest,
@@ -163,7 +164,7 @@ public final class StoreUpdate implements AutoCloseable {
         Path dir = lock.storeDir();
         try (var entries = Files.list(dir)) {
           List<Path> left = entries.toList();
-          if (left.size() == 1 && left.get(0).getFileName().toString().equals(StoreLock.FILE_NAME)) {
+          if (left.size() == 1 && PathNames.nameOf(left.get(0)).equals(StoreLock.FILE_NAME)) {
             Files.delete(left.get(0));
             Files.delete(dir);
           }
