@@ -41,7 +41,7 @@ class DemoCommandTest {
     // Every stage in order, each measured by its own Stage: ingest maps and buffers off-heap, the generator does not.
     List<String> stageNames = new ArrayList<>();
     record.path("stages").forEach(stage -> stageNames.add(stage.path("name").asText()));
-    assertEquals(List.of("generate", "ingest", "backtest", "train", "forecast"), stageNames);
+    assertEquals(List.of("generate", "ingest", "backtest", "train", "forecast", "explain"), stageNames);
     assertEquals(0, record.path("stages").path(0).path("offHeapBytes").asLong());
     assertTrue(record.path("stages").path(1).path("offHeapBytes").asLong() > 0, record.toString());
     String html = Files.readString(out.resolve("report/report.html"));
