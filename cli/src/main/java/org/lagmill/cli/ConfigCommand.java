@@ -5,6 +5,7 @@ import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import org.lagmill.features.FeatureSpecTemplate;
 import org.lagmill.features.FeatureSpecYaml;
+import org.lagmill.io.InvalidRequestException;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -29,7 +30,7 @@ final class ConfigCommand implements Callable<Integer> {
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
     if (template == (check != null)) {
-      throw new IllegalArgumentException("give either --template or --check FILE; e.g. lagmill config --template > "
+      throw new InvalidRequestException("give either --template or --check FILE; e.g. lagmill config --template > "
           + "features.yaml");
     }
     if (template) {

@@ -16,6 +16,7 @@ import org.lagmill.forecast.ForecastTable;
 import org.lagmill.forecast.Forecaster;
 import org.lagmill.ingest.IngestOptions;
 import org.lagmill.ingest.StoreIngest;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.learner.DatasetParameters;
 import org.lagmill.learner.Objective;
 import org.lagmill.learner.TrainParameters;
@@ -206,7 +207,7 @@ final class DemoCommand implements Callable<Integer> {
     try {
       return Size.valueOf(text.toUpperCase(Locale.ROOT));
     } catch (IllegalArgumentException e) {
-      throw new IllegalArgumentException("--size must be small, medium or large, got '" + text + "'");
+      throw new InvalidRequestException("--size must be small, medium or large, got '" + text + "'");
     }
   }
 

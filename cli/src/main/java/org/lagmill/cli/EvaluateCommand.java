@@ -15,6 +15,7 @@ import org.lagmill.eval.RollingOriginBacktest;
 import org.lagmill.eval.ScoringPart;
 import org.lagmill.forecast.ForecastFileReader;
 import org.lagmill.forecast.ForecastTable;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.report.ReportAssembler;
 import org.lagmill.report.ReportData;
 import org.lagmill.store.StoreSummary;
@@ -65,7 +66,7 @@ final class EvaluateCommand implements Callable<Integer> {
       int origin = table.firstDayIndex();
       int lastDay = origin + table.horizonDays() - 1;
       if (origin < 1 || lastDay >= opened.dayCount()) {
-        throw new IllegalArgumentException("the forecast covers " + opened.dateOf(origin) + " .. "
+        throw new InvalidRequestException("the forecast covers " + opened.dateOf(origin) + " .. "
             + opened.dateOf(lastDay) + " but the store holds actuals for " + opened.firstDate() + " .. "
             + opened.dateOf(opened.dayCount() - 1) + "; append the actuals first (lagmill append)");
       }

@@ -10,6 +10,7 @@ import org.lagmill.forecast.ForecastTable;
 import org.lagmill.forecast.Forecaster;
 import org.lagmill.forecast.HorizonCoverage;
 import org.lagmill.eval.Level;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.report.DriverChartBuilder;
 import org.lagmill.report.ReportAssembler;
 import org.lagmill.report.ReportData;
@@ -86,11 +87,11 @@ final class ForecastCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     if (wide && intervals) {
-      throw new IllegalArgumentException("--wide holds one point forecast per date and no quantiles; drop --wide to "
+      throw new InvalidRequestException("--wide holds one point forecast per date and no quantiles; drop --wide to "
           + "get the quantile columns, or drop --intervals");
     }
     if (backtestDir != null && reportDir == null) {
-      throw new IllegalArgumentException("--backtest adds a backtest's accuracy to the report; give --report DIR "
+      throw new InvalidRequestException("--backtest adds a backtest's accuracy to the report; give --report DIR "
           + "as well");
     }
     PrintWriter outText = commandSpec.commandLine().getOut();
@@ -110,11 +111,11 @@ final class ForecastCommand implements Callable<Integer> {
       }
       int[] chosen = SeriesSelection.select(opened, chosenSeriesIds, conditions);
       if (chosen != null && reportDir != null) {
-        throw new IllegalArgumentException("--report charts the aggregates of every level, which need every series;"
+        throw new InvalidRequestException("--report charts the aggregates of every level, which need every series;"
             + " drop --series/--where to get a report, or drop --report to forecast a subset");
       }
       if (chosen != null && chosen.length == 0) {
-        throw new IllegalArgumentException("no series meets every --where condition " + conditions
+        throw new InvalidRequestException("no series meets every --where condition " + conditions
             + "; list the store's series with lagmill series --store " + store);
       }
       opening.close();
@@ -158,7 +159,7 @@ final class ForecastCommand implements Callable<Integer> {
         if (backtestDir != null) {
           ReportData backtest = ReportJson.read(backtestDir.resolve(RunReport.JSON_FILE));
           if (backtest.accuracy() == null) {
-            throw new IllegalArgumentException("--backtest " + backtestDir + ": its report.json holds no accuracy; "
+            throw new InvalidRequestException("--backtest " + backtestDir + ": its report.json holds no accuracy; "
                 + "give the folder lagmill backtest --report wrote");
           }
           report.accuracy(backtest.accuracy()).horizon(backtest.horizon());

@@ -4,6 +4,7 @@ import java.nio.file.Path;
 import java.time.LocalDate;
 import java.util.Locale;
 import java.util.concurrent.Callable;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.scenario.ScenarioGenerator;
 import org.lagmill.scenario.ScenarioSpec;
 import org.lagmill.scenario.ScenarioSummary;
@@ -82,7 +83,7 @@ public final class GenerateCommand implements Callable<Integer> {
     return switch (period) {
       case "day" -> ScenarioSpec.DAILY;
       case "week" -> ScenarioSpec.WEEKLY;
-      default -> throw new IllegalArgumentException("--period must be day or week, got '" + period + "'");
+      default -> throw new InvalidRequestException("--period must be day or week, got '" + period + "'");
     };
   }
 }

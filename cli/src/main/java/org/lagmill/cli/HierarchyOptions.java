@@ -3,6 +3,7 @@ package org.lagmill.cli;
 import java.util.ArrayList;
 import java.util.List;
 import org.lagmill.eval.Hierarchy;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.store.SalesHistory;
 import picocli.CommandLine.Option;
 
@@ -23,7 +24,7 @@ final class HierarchyOptions {
   Hierarchy hierarchy(SalesHistory history) {
     if (levels != null && !levels.isEmpty()) {
       if (hierarchies != null && !hierarchies.isEmpty()) {
-        throw new IllegalArgumentException("give either --hierarchy or --level, not both");
+        throw new InvalidRequestException("give either --hierarchy or --level, not both");
       }
       List<List<String>> explicit = new ArrayList<>();
       for (String level : levels) {

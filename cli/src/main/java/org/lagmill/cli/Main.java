@@ -2,9 +2,11 @@ package org.lagmill.cli;
 
 import java.io.IOException;
 import java.io.UncheckedIOException;
+import java.nio.file.InvalidPathException;
 import java.nio.file.NoSuchFileException;
 import org.lagmill.ingest.InputFormatException;
 import org.lagmill.io.CorruptFileException;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.memory.MemoryBudgetExceededException;
 import org.lagmill.io.OutputRefusedException;
 import org.lagmill.store.StoreBusyException;
@@ -67,7 +69,7 @@ public final class Main {
     if (t instanceof OutOfMemoryError) {
       return ExitCodes.JVM_OUT_OF_MEMORY;
     }
-    if (t instanceof IllegalArgumentException) {
+    if (t instanceof InvalidRequestException || t instanceof InvalidPathException) {
       return ExitCodes.USAGE_ERROR;
     }
     if (t instanceof StoreBusyException) {
@@ -91,8 +93,8 @@ public final class Main {
           + " more heap with LAGMILL_HEAP (e.g. LAGMILL_HEAP=4g, the launcher's default is 1g) or run on fewer series";
     }
     if (t instanceof InputFormatException || t instanceof CorruptFileException
-        || t instanceof MemoryBudgetExceededException || t instanceof IllegalArgumentException
-        || t instanceof IOException) {
+        || t instanceof MemoryBudgetExceededException || t instanceof InvalidRequestException
+        || t instanceof InvalidPathException || t instanceof IOException) {
       return t.getMessage();
     }
     return "internal error: " + t + " (please report it with the command you ran)";

@@ -1,5 +1,6 @@
 package org.lagmill.cli;
 
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.memory.MemoryBudget;
 
 /** The run's off-heap limit from {@code --memory-limit}: absent means none. */
@@ -11,7 +12,7 @@ final class MemoryLimitOption {
       return MemoryBudget.UNLIMITED_BYTES;
     }
     if (memoryLimitBytes <= 0) {
-      throw new IllegalArgumentException("--memory-limit must be a positive number of bytes, got " + memoryLimitBytes
+      throw new InvalidRequestException("--memory-limit must be a positive number of bytes, got " + memoryLimitBytes
           + "; e.g. --memory-limit 2g");
     }
     return memoryLimitBytes;

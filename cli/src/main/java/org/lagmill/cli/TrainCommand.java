@@ -5,6 +5,7 @@ import java.nio.file.Path;
 import java.time.LocalDate;
 import java.util.concurrent.Callable;
 import org.lagmill.features.FeatureSpec;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.memory.ProcessMemory;
 import org.lagmill.store.Periods;
 import org.lagmill.run.Run;
@@ -61,7 +62,7 @@ final class TrainCommand implements Callable<Integer> {
           : (int) Math.max(-1, Math.min(Integer.MAX_VALUE, Periods.periodIndexOf(opened.firstDate(),
               opened.periodDays(), until.toEpochDay())));
       if (cut < 0 || cut >= opened.dayCount()) {
-        throw new IllegalArgumentException("--until " + until + " is outside the store's days " + opened.firstDate()
+        throw new InvalidRequestException("--until " + until + " is outside the store's days " + opened.firstDate()
             + " .. " + opened.dateOf(opened.dayCount() - 1));
       }
       TrainingPlan plan = training.plan(spec, cut);

@@ -5,6 +5,7 @@ import java.nio.file.Path;
 import java.util.Locale;
 import org.lagmill.features.FeatureSpec;
 import org.lagmill.features.FeatureSpecYaml;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.learner.DatasetParameters;
 import org.lagmill.learner.Objective;
 import org.lagmill.learner.TrainParameters;
@@ -112,7 +113,7 @@ final class TrainingOptions {
     boolean salesValue = switch (weights.toLowerCase(Locale.ROOT)) {
       case "none" -> false;
       case "sales-value" -> true;
-      default -> throw new IllegalArgumentException("--weights must be none or sales-value, got '" + weights + "'");
+      default -> throw new InvalidRequestException("--weights must be none or sales-value, got '" + weights + "'");
     };
     DatasetParameters dataset = DatasetParameters.defaults().withSampleRowCount(sampleRowCount).withSeed(seed)
         .withDeterministic(deterministic).withUseWeights(salesValue).withThreadCount(threads);
@@ -125,7 +126,7 @@ final class TrainingOptions {
       case "tweedie" -> Objective.TWEEDIE;
       case "poisson" -> Objective.POISSON;
       case "l2", "regression" -> Objective.REGRESSION;
-      default -> throw new IllegalArgumentException("--objective must be tweedie, poisson or l2, got '" + name + "'");
+      default -> throw new InvalidRequestException("--objective must be tweedie, poisson or l2, got '" + name + "'");
     };
   }
 }

@@ -2,7 +2,11 @@ package org.lagmill.cli;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
+import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
+import org.lagmill.eval.BacktestSettings;
+import org.lagmill.eval.Hierarchy;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.memory.MemoryBudgetExceededException;
 
 /** One exit code per kind of failure, and a JVM out-of-memory told apart from a budget refusal. */
@@ -16,5 +20,37 @@ class ExitCodeMappingTest {
         Main.message(heap));
     MemoryBudgetExceededException budget = new MemoryBudgetExceededException("lagmill/train", 10, 95, 100);
     assertEquals(ExitCodes.OUT_OF_MEMORY_BUDGET, Main.exitCodeOf(budget));
+  }
+
+  @Test
+  void shouldTellARequestThatCannotBeDoneFromABug() {
+    // A request the data cannot satisfy is the user's to change: usage exit code, the message as it is.
+    InvalidRequestException request = new InvalidRequestException("--origins must be >= 1, got 0");
+    assertEquals(ExitCodes.USAGE_ERROR, Main.exitCodeOf(request));
+    assertEquals("--origins must be >= 1, got 0", Main.message(request));
+    // A broken internal contract is a bug: internal-error exit code, said so.
+    IllegalArgumentException contract = new IllegalArgumentException("need 3 values, got 2");
+    assertEquals(ExitCodes.INTERNAL_ERROR, Main.exitCodeOf(contract));
+    assertEquals("internal error: java.lang.IllegalArgumentException: need 3 values, got 2 (please report it with the"
+        + " command you ran)", Main.message(contract));
+  }
+
+  @Test
+  void shouldReportEngineRequestErrorsAsUsageErrors() {
+    // Thrown by the engine on what the user asked for, not by the CLI.
+    assertEquals(ExitCodes.USAGE_ERROR, Main.exitCodeOf(catchThrown(() -> Hierarchy.parse(java.util.List.of(
+        "store>store")))));
+    assertEquals(ExitCodes.USAGE_ERROR, Main.exitCodeOf(catchThrown(() -> new BacktestSettings(0, 7, 7,
+        java.util.List.of(), Hierarchy.parse(java.util.List.of()), new double[0]))));
+    assertEquals(ExitCodes.USAGE_ERROR, Main.exitCodeOf(catchThrown(() -> Path.of("a\u0000b"))));
+  }
+
+  private static Throwable catchThrown(Runnable action) {
+    try {
+      action.run();
+    } catch (RuntimeException e) {
+      return e;
+    }
+    throw new AssertionError("expected a failure");
   }
 }

@@ -2,6 +2,7 @@ package org.lagmill.eval;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.store.Periods;
 import org.lagmill.store.SalesHistory;
 
@@ -127,7 +128,7 @@ public final class Evaluator {
     int origin = statistics.originDay();
     int horizon = forecasts.dayCount();
     if (horizon < 1 || origin + horizon > history.dayCount()) {
-      throw new IllegalArgumentException("horizon " + horizon + " from origin " + origin + " needs actuals up to day "
+      throw new InvalidRequestException("horizon " + horizon + " from origin " + origin + " needs actuals up to day "
           + (origin + horizon - 1) + ", history ends at day " + (history.dayCount() - 1));
     }
     if (quantiles != null && (quantiles.horizon() != horizon

@@ -6,6 +6,7 @@ import java.util.HashSet;
 import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Set;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.store.AttributeNesting;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SeriesAttributes;
@@ -69,11 +70,11 @@ public final class Hierarchy {
       for (String part : parts) {
         String name = part.trim();
         if (name.isEmpty()) {
-          throw new IllegalArgumentException("hierarchy '" + text + "' has an empty attribute name; expected names "
+          throw new InvalidRequestException("hierarchy '" + text + "' has an empty attribute name; expected names "
               + "joined by '>', e.g. 'region>store'");
         }
         if (chain.contains(name)) {
-          throw new IllegalArgumentException("hierarchy '" + text + "' names attribute '" + name + "' twice");
+          throw new InvalidRequestException("hierarchy '" + text + "' names attribute '" + name + "' twice");
         }
         chain.add(name);
       }
@@ -125,12 +126,12 @@ public final class Hierarchy {
   /** @param levels each a list of attribute names ({@code []} is the total), kept in the given order */
   public static Hierarchy ofLevels(List<List<String>> levels) {
     if (levels.isEmpty()) {
-      throw new IllegalArgumentException("need at least one level, got none; hint: [] is the total level");
+      throw new InvalidRequestException("need at least one level, got none; hint: [] is the total level");
     }
     List<List<String>> copy = new ArrayList<>();
     for (List<String> level : levels) {
       if (new HashSet<>(level).size() != level.size()) {
-        throw new IllegalArgumentException("level " + level + " names an attribute twice");
+        throw new InvalidRequestException("level " + level + " names an attribute twice");
       }
       copy.add(List.copyOf(level));
     }
@@ -215,7 +216,7 @@ public final class Hierarchy {
       for (int a = 0; a < indexes.length; a++) {
         indexes[a] = attributes.attributeIndex(names.get(a));
         if (indexes[a] < 0) {
-          throw new IllegalArgumentException("unknown attribute '" + names.get(a) + "' in level '"
+          throw new InvalidRequestException("unknown attribute '" + names.get(a) + "' in level '"
               + Level.nameOf(names) + "'; allowed: " + attributes.attributeNames());
         }
       }
@@ -241,7 +242,7 @@ public final class Hierarchy {
       if (seen < 0) {
         parentCodeByChildCode[childCode] = parentCode;
       } else if (seen != parentCode) {
-        throw new IllegalArgumentException("hierarchy '" + String.join(">", chain) + "': " + child + " '"
+        throw new InvalidRequestException("hierarchy '" + String.join(">", chain) + "': " + child + " '"
             + attributes.value(c, childCode) + "' lies under two " + parent + " values, '"
             + attributes.value(p, seen) + "' and '" + attributes.value(p, parentCode) + "'; expected each " + child
             + " under exactly one " + parent + " (drop the hierarchy to use the nesting found in the data)");

@@ -5,6 +5,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import org.lagmill.forecast.Forecaster;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.progress.ProgressListener;
 import org.lagmill.store.SalesHistory;
@@ -74,7 +75,7 @@ public final class RollingOriginBacktest {
     for (TrainingPlan plan : plans) {
       checkEarliestOrigin(history, plan, settings);
       if (plan.spec().horizonDays() != settings.horizonDays()) {
-        throw new IllegalArgumentException("every member must forecast the same horizon: a member's spec has "
+        throw new InvalidRequestException("every member must forecast the same horizon: a member's spec has "
             + plan.spec().horizonDays() + " days, the backtest " + settings.horizonDays() + "; give each member's "
             + "config the same horizonDays");
       }
@@ -117,7 +118,7 @@ public final class RollingOriginBacktest {
   private static void checkEarliestOrigin(SalesHistory history, TrainingPlan plan, BacktestSettings settings) {
     int firstOrigin = settings.originDayIndex(history.dayCount(), 0);
     if (firstOrigin - 1 - plan.validationDays() < plan.spec().launchSkipDays()) {
-      throw new IllegalArgumentException("the earliest origin (day " + firstOrigin + ", " + history.dateOf(
+      throw new InvalidRequestException("the earliest origin (day " + firstOrigin + ", " + history.dateOf(
           Math.max(0, firstOrigin)) + ") leaves too little history to train: it needs more than "
           + (plan.spec().launchSkipDays() + plan.validationDays()) + " days before it; use fewer origins or a "
           + "smaller step");

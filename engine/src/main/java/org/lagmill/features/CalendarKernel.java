@@ -3,6 +3,7 @@ package org.lagmill.features;
 import java.time.DayOfWeek;
 import java.time.LocalDate;
 import java.util.List;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.store.DayCalendar;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SeriesAttributes;
@@ -71,7 +72,7 @@ final class CalendarKernel implements FeatureKernel {
       String key = calendar.keyAttribute(c);
       keyAttributeIndexes[c] = key == null ? -1 : attributes.attributeIndex(key);
       if (key != null && keyAttributeIndexes[c] < 0) {
-        throw new IllegalArgumentException("calendar column '" + calendar.columnName(c) + "' is keyed by attribute '"
+        throw new InvalidRequestException("calendar column '" + calendar.columnName(c) + "' is keyed by attribute '"
             + key + "', which the series do not have; add that attribute to the series or drop the column");
       }
       int codeCount = key == null ? 1 : Math.max(1, attributes.cardinality(keyAttributeIndexes[c]));

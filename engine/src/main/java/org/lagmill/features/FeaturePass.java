@@ -5,6 +5,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.SplittableRandom;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.store.AttributeNesting;
 import org.lagmill.store.Periods;
 import org.lagmill.store.SalesHistory;
@@ -73,7 +74,7 @@ public final class FeaturePass implements RowStream {
     int dayCount = history.dayCount();
     for (int window : spec.rollingWindowDays()) {
       if (window > dayCount) {
-        throw new IllegalArgumentException("rolling window " + window + " days is longer than the history of "
+        throw new InvalidRequestException("rolling window " + window + " days is longer than the history of "
             + dayCount + " days; use windows of at most " + dayCount + " days");
       }
     }
@@ -106,7 +107,7 @@ public final class FeaturePass implements RowStream {
       kernels[k].describe(names, categorical);
     }
     if (names.isEmpty()) {
-      throw new IllegalArgumentException("the feature spec selects no feature for this history; enable lags, rolling"
+      throw new InvalidRequestException("the feature spec selects no feature for this history; enable lags, rolling"
           + " windows, calendar, price or series features");
     }
     this.schema = new FeatureSchema(names, categorical);
@@ -275,7 +276,7 @@ public final class FeaturePass implements RowStream {
     for (int i = 0; i < indexes.length; i++) {
       indexes[i] = attributes.attributeIndex(names.get(i));
       if (indexes[i] < 0) {
-        throw new IllegalArgumentException(what + " attribute '" + names.get(i) + "' does not exist; the series have: "
+        throw new InvalidRequestException(what + " attribute '" + names.get(i) + "' does not exist; the series have: "
             + String.join(", ", attributes.attributeNames()));
       }
     }

@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Objects;
 import java.util.stream.Collectors;
+import org.lagmill.io.InvalidRequestException;
 
 /**
  * What the feature pass computes: lags and rolling statistics of units, calendar, price and series features, and the
@@ -215,30 +216,30 @@ public final class FeatureSpec {
 
   private void validate() {
     if (horizonDays < 1) {
-      throw new IllegalArgumentException("horizonDays " + horizonDays + " is out of range: it must be >= 1 (days)");
+      throw new InvalidRequestException("horizonDays " + horizonDays + " is out of range: it must be >= 1 (days)");
     }
     checkDays("lag", lagDays);
     checkDays("rolling window", rollingWindowDays);
     int shift = rollingShiftDays();
     if (shift < 1) {
-      throw new IllegalArgumentException("rolling shift " + shift + " is out of range: it must be >= 1 (days)");
+      throw new InvalidRequestException("rolling shift " + shift + " is out of range: it must be >= 1 (days)");
     }
     if (strategy == Strategy.DIRECT) {
       for (int lag : lagDays) {
         if (lag < horizonDays) {
-          throw new IllegalArgumentException("lag " + lag + " is shorter than the horizon of " + horizonDays
+          throw new InvalidRequestException("lag " + lag + " is shorter than the horizon of " + horizonDays
               + " days: a direct model would read units it cannot know when forecasting day " + (lag + 1)
               + " onward (a leak); use lags >= " + horizonDays + " or set strategy: recursive");
         }
       }
       if (rollingWindowDays.length > 0 && shift < horizonDays) {
-        throw new IllegalArgumentException("rolling shift " + shift + " is shorter than the horizon of " + horizonDays
+        throw new InvalidRequestException("rolling shift " + shift + " is shorter than the horizon of " + horizonDays
             + " days: a direct model would read units it cannot know when forecasting day " + (shift + 1)
             + " onward (a leak); use rollingShiftDays >= " + horizonDays + " or set strategy: recursive");
       }
     }
     if (fromDate != null && untilDate != null && untilDate.isBefore(fromDate)) {
-      throw new IllegalArgumentException("untilDate " + untilDate + " is before fromDate " + fromDate
+      throw new InvalidRequestException("untilDate " + untilDate + " is before fromDate " + fromDate
           + ": the training window would be empty; swap them or drop one");
     }
     checkNoDuplicates("rolling statistic", rollingStats.stream().map(RollingStat::configName).toList());
@@ -250,11 +251,11 @@ public final class FeatureSpec {
   private static void checkDays(String what, int[] days) {
     for (int i = 0; i < days.length; i++) {
       if (days[i] < 1) {
-        throw new IllegalArgumentException(what + " " + days[i] + " is out of range: it must be >= 1 (days)");
+        throw new InvalidRequestException(what + " " + days[i] + " is out of range: it must be >= 1 (days)");
       }
       for (int j = 0; j < i; j++) {
         if (days[j] == days[i]) {
-          throw new IllegalArgumentException(what + " " + days[i] + " is listed twice; list each once");
+          throw new InvalidRequestException(what + " " + days[i] + " is listed twice; list each once");
         }
       }
     }
@@ -263,7 +264,7 @@ public final class FeatureSpec {
   private static void checkNoDuplicates(String what, List<String> names) {
     for (int i = 0; i < names.size(); i++) {
       if (names.indexOf(names.get(i)) != i) {
-        throw new IllegalArgumentException(what + " '" + names.get(i) + "' is listed twice; list each once");
+        throw new InvalidRequestException(what + " '" + names.get(i) + "' is listed twice; list each once");
       }
     }
   }
@@ -276,7 +277,7 @@ public final class FeatureSpec {
     }
     String allowed = Arrays.stream(type.getEnumConstants()).map(e -> e.name().toLowerCase(Locale.ROOT))
         .collect(Collectors.joining(", "));
-    throw new IllegalArgumentException("unknown " + what + " '" + name + "'; allowed: " + allowed);
+    throw new InvalidRequestException("unknown " + what + " '" + name + "'; allowed: " + allowed);
   }
 
   @Override

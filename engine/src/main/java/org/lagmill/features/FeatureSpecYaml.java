@@ -16,6 +16,7 @@ import java.nio.file.Path;
 import java.time.LocalDate;
 import java.time.format.DateTimeParseException;
 import java.util.List;
+import org.lagmill.io.InvalidRequestException;
 
 /**
  * Reads and writes a {@link FeatureSpec} as YAML (docs/configuration.md lists every key). Keys left out keep their
@@ -52,12 +53,12 @@ public final class FeatureSpecYaml {
     try {
       doc = MAPPER.readValue(yaml, Document.class);
     } catch (JsonProcessingException e) {
-      throw new IllegalArgumentException(FeatureSpecYamlErrors.message(source, e, KEYS), e);
+      throw new InvalidRequestException(FeatureSpecYamlErrors.message(source, e, KEYS), e);
     }
     try {
       return doc == null ? FeatureSpec.defaults() : doc.toSpec();
     } catch (IllegalArgumentException e) {
-      throw new IllegalArgumentException(source + ": " + e.getMessage(), e);
+      throw new InvalidRequestException(source + ": " + e.getMessage(), e);
     }
   }
 
@@ -169,8 +170,8 @@ public final class FeatureSpecYaml {
       try {
         return LocalDate.parse(text);
       } catch (DateTimeParseException e) {
-        throw new IllegalArgumentException(key + " '" + text + "' is not a date; write it as yyyy-mm-dd, e.g. 2024-01-31",
-            e);
+        throw new InvalidRequestException(key + " '" + text + "' is not a date; write it as yyyy-mm-dd, e.g. "
+            + "2024-01-31", e);
       }
     }
   }

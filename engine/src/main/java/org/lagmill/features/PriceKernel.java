@@ -3,6 +3,7 @@ package org.lagmill.features;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.store.PriceTable;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SeriesAttributes;
@@ -85,7 +86,7 @@ final class PriceKernel implements FeatureKernel {
     }
     long cellCount = (long) groupCount * dayCount;
     if (cellCount > Integer.MAX_VALUE - 8) {
-      throw new IllegalArgumentException("price groups × days = " + cellCount + " exceeds " + (Integer.MAX_VALUE - 8)
+      throw new InvalidRequestException("price groups × days = " + cellCount + " exceeds " + (Integer.MAX_VALUE - 8)
           + "; use coarser priceGroupAttributes or a shorter training window");
     }
     double[] sums = new double[(int) cellCount];

@@ -5,6 +5,7 @@ import java.util.BitSet;
 import org.lagmill.features.FeatureBatch;
 import org.lagmill.features.FeaturePass;
 import org.lagmill.features.FeatureSpec;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.learner.TrainedModel;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesHistory;
@@ -73,11 +74,11 @@ public final class Forecaster {
   public static void forecast(SalesHistory history, FeatureSpec spec, BatchPredictor predictor, int[] seriesIndexes,
       int horizonDays, MemoryBudget budget, double[][] out) {
     if (horizonDays < 1) {
-      throw new IllegalArgumentException("horizon must be >= 1 day, got " + horizonDays);
+      throw new InvalidRequestException("horizon must be >= 1 day, got " + horizonDays);
     }
     if (spec.strategy() == FeatureSpec.Strategy.DIRECT) {
       if (spec.shortestShiftDays() < horizonDays) {
-        throw new IllegalArgumentException("a direct forecast of " + horizonDays + " days needs every lag and rolling"
+        throw new InvalidRequestException("a direct forecast of " + horizonDays + " days needs every lag and rolling"
             + " shift >= " + horizonDays + ", the shortest is " + spec.shortestShiftDays()
             + "; use strategy: recursive or a shorter horizon");
       }

@@ -3,6 +3,7 @@ package org.lagmill.forecast;
 import java.util.ArrayList;
 import java.util.List;
 import org.lagmill.features.FeatureSpec;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.store.SalesHistory;
 
 /**
@@ -15,7 +16,7 @@ public record HorizonCoverage(int seriesWithoutPriceCount, int seriesWithStalePr
   public static HorizonCoverage check(SalesHistory history, FeatureSpec spec, int horizonDays) {
     int lastDay = history.dayCount() + horizonDays - 1;
     if (spec.calendarColumns() && history.calendar().columnCount() > 0 && history.calendar().dayCount() <= lastDay) {
-      throw new IllegalArgumentException("the calendar ends on " + history.dateOf(history.calendar().dayCount() - 1)
+      throw new InvalidRequestException("the calendar ends on " + history.dateOf(history.calendar().dayCount() - 1)
           + " but the forecast needs it through " + history.dateOf(lastDay) + "; append a calendar that covers the"
           + " horizon (lagmill append --store DIR --calendar FILE)");
     }

@@ -1,6 +1,7 @@
 package org.lagmill.ingest;
 
 import java.util.Objects;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.store.SeriesIdentity;
 
 /**
@@ -36,7 +37,7 @@ public record ColumnNames(String seriesIdColumn, String dateColumn, String units
   private static void requireName(String name, String option, String defaultName) {
     Objects.requireNonNull(name, option);
     if (name.isEmpty()) {
-      throw new IllegalArgumentException(option + " must name a column, got an empty name; the default is "
+      throw new InvalidRequestException(option + " must name a column, got an empty name; the default is "
           + defaultName);
     }
   }

@@ -2,6 +2,7 @@ package org.lagmill.ingest;
 
 import java.nio.file.Path;
 import java.time.LocalDate;
+import org.lagmill.io.InvalidRequestException;
 
 /**
  * The plausible dates of every date lagmill reads (sales, calendar, prices): 1900-01-01 to 2200-12-31 unless widened.
@@ -30,7 +31,7 @@ public final class DateWindow {
    */
   public static void set(LocalDate first, LocalDate last) {
     if (last.isBefore(first)) {
-      throw new IllegalArgumentException("date window " + first + ".." + last + ": the last date must not be before "
+      throw new InvalidRequestException("date window " + first + ".." + last + ": the last date must not be before "
           + "the first");
     }
     window = new Window(first.toEpochDay(), last.toEpochDay());

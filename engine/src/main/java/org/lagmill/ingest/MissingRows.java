@@ -1,6 +1,7 @@
 package org.lagmill.ingest;
 
 import java.util.Locale;
+import org.lagmill.io.InvalidRequestException;
 
 /**
  * What a day with no row means in long sales ({@code --missing-rows}); see docs/formats/sales-long.md. Applies from
@@ -23,7 +24,7 @@ public enum MissingRows {
         return policy;
       }
     }
-    throw new IllegalArgumentException("--missing-rows must be one of zero, unknown, got '" + name
+    throw new InvalidRequestException("--missing-rows must be one of zero, unknown, got '" + name
         + "'; zero (the default) reads a day with no row as no sale");
   }
 

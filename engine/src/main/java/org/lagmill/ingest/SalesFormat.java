@@ -5,6 +5,7 @@ import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.Arrays;
 import java.util.Locale;
+import org.lagmill.io.InvalidRequestException;
 
 /** Layout of a sales file ({@code --sales-format}); see docs/formats.md. */
 public enum SalesFormat {
@@ -22,7 +23,7 @@ public enum SalesFormat {
         return format;
       }
     }
-    throw new IllegalArgumentException("--sales-format must be one of wide, long, auto, got '" + name
+    throw new InvalidRequestException("--sales-format must be one of wide, long, auto, got '" + name
         + "'; auto (the default) decides from the header");
   }
 

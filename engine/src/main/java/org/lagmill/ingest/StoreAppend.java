@@ -8,6 +8,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.HashSet;
 import java.util.List;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.ClosureTable;
 import org.lagmill.store.Periods;
@@ -71,7 +72,7 @@ public final class StoreAppend {
     Path salesFile = options.salesFile();
     if (salesFile == null && options.calendarFile() == null && options.pricesFile() == null
         && options.closuresFile() == null && options.plan() == null) {
-      throw new IllegalArgumentException("nothing to append: give --sales, --calendar, --prices, --closures or "
+      throw new InvalidRequestException("nothing to append: give --sales, --calendar, --prices, --closures or "
           + "--plan");
     }
     try (StoreUpdate update = StoreUpdate.begin(storeDir, policy);

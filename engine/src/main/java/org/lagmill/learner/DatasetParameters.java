@@ -3,6 +3,7 @@ package org.lagmill.learner;
 import java.util.Arrays;
 import java.util.stream.Collectors;
 import org.lagmill.features.FeatureSchema;
+import org.lagmill.io.InvalidRequestException;
 
 /**
  * How a LightGBM Dataset is binned and built. LightGBM reads these only when the Dataset is created: given later to
@@ -113,14 +114,14 @@ public record DatasetParameters(
 
   static void requireRange(String name, long value, long min, long max, String hint) {
     if (value < min || value > max) {
-      throw new IllegalArgumentException(name + " must be in [" + min + ", " + max + "], got " + value + " (" + hint
+      throw new InvalidRequestException(name + " must be in [" + min + ", " + max + "], got " + value + " (" + hint
           + ")");
     }
   }
 
   static void requireRange(String name, double value, double min, double max, String hint) {
     if (!(value >= min && value <= max)) {
-      throw new IllegalArgumentException(name + " must be in [" + min + ", " + max + "], got " + value + " (" + hint
+      throw new InvalidRequestException(name + " must be in [" + min + ", " + max + "], got " + value + " (" + hint
           + ")");
     }
   }

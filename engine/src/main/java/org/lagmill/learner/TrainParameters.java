@@ -1,5 +1,7 @@
 package org.lagmill.learner;
 
+import org.lagmill.io.InvalidRequestException;
+
 import static org.lagmill.learner.DatasetParameters.requireRange;
 
 /**
@@ -36,7 +38,7 @@ public record TrainParameters(
 
   public TrainParameters {
     if (objective == null) {
-      throw new IllegalArgumentException("objective must be one of tweedie, poisson, regression, got null");
+      throw new InvalidRequestException("objective must be one of tweedie, poisson, regression, got null");
     }
     requireRange("tweedieVariancePower", tweedieVariancePower, 1.0, 1.999_999, "1.1 for sparse daily sales");
     requireRange("learningRate", learningRate, 1e-6, 1.0, "0.05 is a common choice");

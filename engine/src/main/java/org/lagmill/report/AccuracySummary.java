@@ -6,6 +6,7 @@ import java.util.Collections;
 import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import org.lagmill.io.InvalidRequestException;
 
 /**
  * Backtest scores of the model beside the baselines. RMSSE and WRMSSE are scaled errors: lower is better, 1 is the
@@ -60,7 +61,7 @@ public record AccuracySummary(
     origins = origins == null ? List.of() : List.copyOf(origins);
     worstAggregates = worstAggregates == null ? List.of() : List.copyOf(worstAggregates);
     if (referenceBaseline != null && !baselineWrmsse.containsKey(referenceBaseline)) {
-      throw new IllegalArgumentException("referenceBaseline \"" + referenceBaseline + "\" is not among the baselines "
+      throw new InvalidRequestException("referenceBaseline \"" + referenceBaseline + "\" is not among the baselines "
           + baselineWrmsse.keySet() + "; name one of them or pass null");
     }
   }

@@ -1,6 +1,7 @@
 package org.lagmill.scenario;
 
 import java.time.LocalDate;
+import org.lagmill.io.InvalidRequestException;
 
 /**
  * What to generate: {@code seriesCount} article-outlet series of {@code dayCount} sales days from {@code startDate},
@@ -31,32 +32,32 @@ public record ScenarioSpec(int seriesCount, int dayCount, LocalDate startDate, l
 
   public ScenarioSpec {
     if (seriesCount < 1 || seriesCount > MAX_SERIES_COUNT) {
-      throw new IllegalArgumentException("series count must be in [1, " + MAX_SERIES_COUNT + "], got " + seriesCount
+      throw new InvalidRequestException("series count must be in [1, " + MAX_SERIES_COUNT + "], got " + seriesCount
           + "; hint: --series 600 gives a small demo");
     }
     if (dayCount < 1 || dayCount > MAX_DAY_COUNT) {
-      throw new IllegalArgumentException("day count must be in [1, " + MAX_DAY_COUNT + "], got " + dayCount
+      throw new InvalidRequestException("day count must be in [1, " + MAX_DAY_COUNT + "], got " + dayCount
           + "; hint: --days 730 gives two years of history");
     }
     if (futureDayCount < 0 || futureDayCount > MAX_FUTURE_DAY_COUNT) {
-      throw new IllegalArgumentException("future day count must be in [0, " + MAX_FUTURE_DAY_COUNT + "], got "
+      throw new InvalidRequestException("future day count must be in [0, " + MAX_FUTURE_DAY_COUNT + "], got "
           + futureDayCount + "; hint: use the forecast horizon, e.g. --future-days 28");
     }
     if (startDate == null) {
-      throw new IllegalArgumentException("start date is missing; hint: e.g. --start " + DEFAULT_START_DATE);
+      throw new InvalidRequestException("start date is missing; hint: e.g. --start " + DEFAULT_START_DATE);
     }
     if (periodDays != DAILY && periodDays != WEEKLY) {
-      throw new IllegalArgumentException("period must be 1 (day) or 7 (week) days, got " + periodDays
+      throw new InvalidRequestException("period must be 1 (day) or 7 (week) days, got " + periodDays
           + "; hint: --period day or --period week");
     }
     if (periodDays == WEEKLY && (dayCount % WEEKLY != 0 || futureDayCount % WEEKLY != 0)) {
-      throw new IllegalArgumentException("weekly output needs whole weeks: --days and --future-days must be "
+      throw new InvalidRequestException("weekly output needs whole weeks: --days and --future-days must be "
           + "multiples of 7, got " + dayCount + " and " + futureDayCount + "; hint: --days "
           + Math.max(WEEKLY, dayCount / WEEKLY * WEEKLY) + " --future-days " + futureDayCount / WEEKLY * WEEKLY);
     }
     LocalDate lastDate = startDate.plusDays((long) dayCount + futureDayCount - 1);
     if (startDate.getYear() < MIN_YEAR || lastDate.getYear() > MAX_YEAR) {
-      throw new IllegalArgumentException("dates must lie in years [" + MIN_YEAR + ", " + MAX_YEAR + "], got "
+      throw new InvalidRequestException("dates must lie in years [" + MIN_YEAR + ", " + MAX_YEAR + "], got "
           + startDate + " .. " + lastDate + "; hint: pick a start date such as " + DEFAULT_START_DATE);
     }
   }

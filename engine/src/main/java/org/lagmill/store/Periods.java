@@ -1,6 +1,7 @@
 package org.lagmill.store;
 
 import java.time.LocalDate;
+import org.lagmill.io.InvalidRequestException;
 
 /**
  * The one place for what a store's period means: a store holds one value per series for every period of
@@ -39,7 +40,7 @@ public final class Periods {
   /** Throws {@link IllegalArgumentException} unless {@code periodDays} is in {@code [1, MAX_PERIOD_DAYS]}. */
   public static int requireValid(int periodDays) {
     if (periodDays < 1 || periodDays > MAX_PERIOD_DAYS) {
-      throw new IllegalArgumentException("period must be 1 to " + MAX_PERIOD_DAYS + " days, got " + periodDays);
+      throw new InvalidRequestException("period must be 1 to " + MAX_PERIOD_DAYS + " days, got " + periodDays);
     }
     return periodDays;
   }

@@ -21,6 +21,7 @@ import org.lagmill.features.FeatureSpec;
 import org.lagmill.features.FeatureSpecYaml;
 import org.lagmill.io.Crc32c;
 import org.lagmill.io.CsvCells;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.io.OutputTargets;
 import org.lagmill.io.SealedJson;
 import org.lagmill.learner.TrainedModel;
@@ -158,7 +159,7 @@ public final class ModelDirectory {
       for (Map.Entry<String, int[]> entry : seriesByPartition.entrySet()) {
         PartitionReport report = reports.get(entry.getKey());
         if (report == null) {
-          throw new IllegalArgumentException("the store has series with " + manifest.partitionAttribute() + " = "
+          throw new InvalidRequestException("the store has series with " + manifest.partitionAttribute() + " = "
               + entry.getKey() + " but the model directory " + dir + " has no model for it; train again");
         }
         Path file = dir.resolve(report.modelFile());

@@ -7,6 +7,7 @@ import java.util.Map;
 import org.lagmill.features.FeatureBatch;
 import org.lagmill.features.FeaturePass;
 import org.lagmill.features.FeatureSchema;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.learner.DatasetBuilder;
 import org.lagmill.learner.FeatureImportance;
 import org.lagmill.learner.TrainParameters;
@@ -56,12 +57,12 @@ public final class ModelTraining {
 
   private static void checkWindows(SalesHistory history, TrainingPlan plan) {
     if (plan.cutDayIndex() >= history.dayCount() || plan.cutDayIndex() < 0) {
-      throw new IllegalArgumentException("the training cut (day " + plan.cutDayIndex() + ") must lie within the "
+      throw new InvalidRequestException("the training cut (day " + plan.cutDayIndex() + ") must lie within the "
           + history.dayCount() + " days of history");
     }
     int minimumTrainingDays = plan.spec().launchSkipDays() + 1;
     if (plan.trainingLastDayIndex() < minimumTrainingDays) {
-      throw new IllegalArgumentException("the history before the validation window has " + (plan
+      throw new InvalidRequestException("the history before the validation window has " + (plan
           .trainingLastDayIndex() + 1) + " days, too few for the longest lag (" + plan.spec().launchSkipDays()
           + " days) plus at least one training day; use a longer history or shorter lags");
     }
@@ -79,7 +80,7 @@ public final class ModelTraining {
       validationRows = validationRows.withSeriesWeights(weights);
     }
     if (trainingRows.rowCount() == 0) {
-      throw new IllegalArgumentException("partition " + value + " has no training rows: its series have no known"
+      throw new InvalidRequestException("partition " + value + " has no training rows: its series have no known"
           + " sales after launch plus the longest lag before the validation window");
     }
     String stage = "all".equals(value) ? "" : " " + value;
@@ -237,7 +238,7 @@ public final class ModelTraining {
     SeriesAttributes attributes = history.attributes();
     int attribute = attributes.attributeIndex(partitionAttribute);
     if (attribute < 0) {
-      throw new IllegalArgumentException("unknown partition attribute '" + partitionAttribute + "'; the store has "
+      throw new InvalidRequestException("unknown partition attribute '" + partitionAttribute + "'; the store has "
           + attributes.attributeNames());
     }
     int[] counts = new int[attributes.cardinality(attribute)];

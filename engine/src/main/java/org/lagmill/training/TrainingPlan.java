@@ -1,6 +1,7 @@
 package org.lagmill.training;
 
 import org.lagmill.features.FeatureSpec;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.learner.DatasetParameters;
 import org.lagmill.learner.TrainParameters;
 
@@ -23,7 +24,7 @@ public record TrainingPlan(FeatureSpec spec, TrainParameters trainParameters, Da
 
   public TrainingPlan {
     if (validationDays < 1) {
-      throw new IllegalArgumentException("validationDays must be >= 1, got " + validationDays);
+      throw new InvalidRequestException("validationDays must be >= 1, got " + validationDays);
     }
   }
 
