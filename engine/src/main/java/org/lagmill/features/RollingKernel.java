@@ -10,12 +10,15 @@ import java.util.List;
  * the history); unknown and pre-launch days are left out rather than read as zero. With no readable day every
  * statistic is NaN; the standard deviation is the sample one (divisor n − 1) and NaN with fewer than two days.
  *
- * <p>Each window slides with the rows: a day entering or leaving updates a running count, sum and sum of squares
- * (exact in {@code long}) and monotonic deques of day indexes for min and max, so each row costs O(1) amortised.
- * A chunk of rows is done in two steps: the window slides over every row, keeping each row's count and sums in
- * scratch columns, then each statistic is computed over the whole column in a loop without branches the compiler can
- * vectorise (the divisions and square roots dominate). The formulas are the same double-precision expressions either
- * way, so the values are identical.
+ * <p>Window totals (readable days, sum, sum of squares, zero days) come from one algorithm: running totals of the
+ * series up to each day, computed once per series, so a window's total is one subtraction per row, O(1) for any
+ * window length and without branches the compiler can vectorise. The totals are {@code long}s: a difference of two
+ * running totals is exact whenever the window's own total fits in a long, even after the running total has wrapped
+ * around (two's-complement arithmetic is exact modulo 2^64), so the sum of squares is exact while a window of w days
+ * sells under sqrt(2^63 / w) units a day (159 million a day for a 364-day window). Min and max are not sums: a
+ * window that asks for them also slides monotonic deques of day indexes (O(1) amortised per row). Each statistic is
+ * then computed over the chunk's column in a loop the compiler can vectorise (the divisions and square roots
+ * dominate).
  */
 final class RollingKernel implements FeatureKernel {
   private static final int MEAN = 0;
@@ -38,15 +41,13 @@ final class RollingKernel implements FeatureKernel {
   private final int[] minUnits;
   private final int[] maxUnits;
   /**
-   * Running totals of the current series' readable units up to each padded day (entry {@code d} covers days before
-   * {@code d}), as doubles: a window's total is then one subtraction, exact while every total stays below 2^53
-   * ({@link #prefixExact}); a series past that slides its windows instead.
+   * Running totals of the current series' readable days, units, squared units and zero days up to each padded day
+   * (entry {@code d} covers days before {@code d}).
    */
-  private double[] prefixCounts = new double[0];
-  private double[] prefixSums = new double[0];
-  private double[] prefixSquares = new double[0];
+  private int[] prefixCounts = new int[0];
+  private long[] prefixSums = new long[0];
+  private long[] prefixSquares = new long[0];
   private int[] prefixZeros = new int[0];
-  private boolean prefixExact;
 
   RollingKernel(int[] windowDays, int shiftDays, List<FeatureSpec.RollingStat> stats) {
     this.shiftDays = shiftDays;
@@ -92,11 +93,11 @@ final class RollingKernel implements FeatureKernel {
     if (windows.length == 0) {
       return 0;
     }
-    prefixCounts = new double[paddedDayCount + 1];
-    prefixSums = new double[paddedDayCount + 1];
-    prefixSquares = new double[paddedDayCount + 1];
+    prefixCounts = new int[paddedDayCount + 1];
+    prefixSums = new long[paddedDayCount + 1];
+    prefixSquares = new long[paddedDayCount + 1];
     prefixZeros = new int[trackZeros ? paddedDayCount + 1 : 0];
-    return 28L * (paddedDayCount + 1) + 4L * prefixZeros.length;
+    return 20L * (paddedDayCount + 1) + 4L * prefixZeros.length;
   }
 
   @Override
@@ -104,19 +105,20 @@ final class RollingKernel implements FeatureKernel {
     for (Window window : windows) {
       window.started = false;
     }
-    prefixExact = windows.length > 0 && accumulate(series.readableUnits);
+    if (windows.length > 0) {
+      accumulate(series.readableUnits);
+    }
   }
 
-  /** Fills the prefix totals; false when a total reaches 2^53 (or the long sum of squares wraps). */
-  private boolean accumulate(int[] readable) {
-    long c = 0;
+  /** Fills the running totals; a day that is not readable (u = -1) adds 0 to every total, without a branch. */
+  private void accumulate(int[] readable) {
+    int c = 0;
     long s = 0;
     long q = 0;
-    long signs = 0;
     int z = 0;
-    double[] pc = prefixCounts;
-    double[] ps = prefixSums;
-    double[] pq = prefixSquares;
+    int[] pc = prefixCounts;
+    long[] ps = prefixSums;
+    long[] pq = prefixSquares;
     boolean zeros = trackZeros;
     int dayCount = Math.min(readable.length, pc.length - 1);
     for (int d = 0; d < dayCount; d++) {
@@ -126,7 +128,6 @@ final class RollingKernel implements FeatureKernel {
       c += valid;
       s += v;
       q += (long) v * v;
-      signs |= q;
       pc[d + 1] = c;
       ps[d + 1] = s;
       pq[d + 1] = q;
@@ -135,9 +136,6 @@ final class RollingKernel implements FeatureKernel {
         prefixZeros[d + 1] = z;
       }
     }
-    // terms are < 2^62, so a wrapped sum of squares passes through negative values first
-    long exactLimit = 1L << 53;
-    return signs >= 0 && q < exactLimit && s < exactLimit;
   }
 
   @Override
@@ -150,13 +148,9 @@ final class RollingKernel implements FeatureKernel {
     int endOffset = series.lookbackDays - shiftDays;
     for (int w = 0; w < windows.length; w++) {
       Window window = windows[w];
+      windowTotals(window.lengthDays, dayIndexes, dayOffset, rowCount, endOffset + 1);
       if (window.trackMin || window.trackMax) {
-        slideWithDeques(window, readable, dayIndexes, dayOffset, rowCount, endOffset);
-      } else if (prefixExact) {
-        windowTotals(window.lengthDays, dayIndexes, dayOffset, rowCount, endOffset + 1);
-      } else {
-        window.slideTotals(readable, dayIndexes, dayOffset, rowCount, endOffset, counts, sums, sumSquares,
-            trackZeros ? zeroCounts : null);
+        slideExtremes(window, readable, dayIndexes, dayOffset, rowCount, endOffset);
       }
       for (int k = 0; k < statCount; k++) {
         writeStatistic(statCodes[k], rows, rowStride, firstFeatureIndex + w * statCount + k, rowCount);
@@ -166,9 +160,9 @@ final class RollingKernel implements FeatureKernel {
 
   /** Totals of each row's window from the prefix totals; {@code endOffset} maps a day to its window's padded end. */
   private void windowTotals(int lengthDays, int[] dayIndexes, int dayOffset, int rowCount, int endOffset) {
-    double[] pc = prefixCounts;
-    double[] ps = prefixSums;
-    double[] pq = prefixSquares;
+    int[] pc = prefixCounts;
+    long[] ps = prefixSums;
+    long[] pq = prefixSquares;
     int firstEnd = dayIndexes[dayOffset] + endOffset;
     if (dayIndexes[dayOffset + rowCount - 1] + endOffset - firstEnd == rowCount - 1) {
       // consecutive days (ascending and distinct): contiguous reads the compiler can vectorise
@@ -197,21 +191,19 @@ final class RollingKernel implements FeatureKernel {
     }
   }
 
-  private void slideWithDeques(Window window, int[] readable, int[] dayIndexes, int dayOffset, int rowCount,
+  /** Each row's window minimum and maximum from the deques; rows whose window has no readable day keep stale values
+   * that the statistics never read (they are NaN for a count of 0). */
+  private void slideExtremes(Window window, int[] readable, int[] dayIndexes, int dayOffset, int rowCount,
       int endOffset) {
     for (int i = 0; i < rowCount; i++) {
       window.moveTo(readable, dayIndexes[dayOffset + i] + endOffset);
-      counts[i] = window.count;
-      sums[i] = window.sum;
-      sumSquares[i] = window.sumSquares;
-      if (trackZeros) {
-        zeroCounts[i] = window.zeroCount;
-      }
-      if (window.trackMin && window.count > 0) {
-        minUnits[i] = readable[window.minDeque[window.minHead & window.mask]];
-      }
-      if (window.trackMax && window.count > 0) {
-        maxUnits[i] = readable[window.maxDeque[window.maxHead & window.mask]];
+      if (counts[i] > 0) {
+        if (window.trackMin) {
+          minUnits[i] = readable[window.minDeque[window.minHead & window.mask]];
+        }
+        if (window.trackMax) {
+          maxUnits[i] = readable[window.maxDeque[window.maxHead & window.mask]];
+        }
       }
     }
   }
@@ -268,8 +260,9 @@ final class RollingKernel implements FeatureKernel {
   }
 
   /**
-   * Running state of one window length over a series' readable units (units, or −1 for a day that is not readable),
-   * by padded day index.
+   * Monotonic deques of one window length over a series' readable units (units, or −1 for a day that is not
+   * readable), by padded day index: the front of {@code minDeque} is the day of the window's minimum, of
+   * {@code maxDeque} its maximum.
    */
   private static final class Window {
     final int lengthDays;
@@ -281,10 +274,6 @@ final class RollingKernel implements FeatureKernel {
     boolean started;
     int firstDayIndex;
     int lastDayIndex;
-    int count;
-    long sum;
-    long sumSquares;
-    int zeroCount;
     int minHead;
     int minTail;
     int maxHead;
@@ -301,106 +290,16 @@ final class RollingKernel implements FeatureKernel {
       this.maxDeque = new int[trackMax ? capacity : 0];
     }
 
-    /**
-     * {@link #moveTo} for each row of a chunk when no deque is kept, recording each row's totals; the running totals
-     * stay in locals for the whole chunk. A day that is not readable (u = -1) adds 0 to every total, without a branch.
-     *
-     * @param zeroCountsOut null when zero days are not counted
-     */
-    void slideTotals(int[] readable, int[] dayIndexes, int dayOffset, int rowCount, int endOffset,
-        double[] countsOut, double[] sumsOut, double[] sumSquaresOut, int[] zeroCountsOut) {
-      int first = firstDayIndex;
-      int last = lastDayIndex;
-      int c = count;
-      long s = sum;
-      long q = sumSquares;
-      int z = zeroCount;
-      boolean moved = started;
-      for (int i = 0; i < rowCount; i++) {
-        int newLast = dayIndexes[dayOffset + i] + endOffset;
-        int newFirst = newLast - lengthDays + 1;
-        if (newLast == last + 1 && moved) {
-          // the common step, one day on: one day leaves, one enters, with no loop to set up
-          int out = readable[first];
-          int in = readable[newLast];
-          int validOut = ~out >>> 31;
-          int validIn = ~in >>> 31;
-          int vOut = out & ~(out >> 31);
-          int vIn = in & ~(in >> 31);
-          c += validIn - validOut;
-          s += vIn - vOut;
-          q += (long) vIn * vIn - (long) vOut * vOut;
-          z += (validIn & ((vIn - 1) >>> 31)) - (validOut & ((vOut - 1) >>> 31));
-          first = newFirst;
-          last = newLast;
-          countsOut[i] = c;
-          sumsOut[i] = s;
-          sumSquaresOut[i] = q;
-          if (zeroCountsOut != null) {
-            zeroCountsOut[i] = z;
-          }
-          continue;
-        }
-        int addFrom = last + 1;
-        if (!moved || newFirst > last || newLast < last) {
-          c = 0;
-          s = 0;
-          q = 0;
-          z = 0;
-          addFrom = newFirst;
-          moved = true;
-        } else {
-          for (int d = first; d < newFirst; d++) {
-            int u = readable[d];
-            int valid = ~u >>> 31;
-            int v = u & ~(u >> 31);
-            c -= valid;
-            s -= v;
-            q -= (long) v * v;
-            z -= valid & ((v - 1) >>> 31);
-          }
-        }
-        for (int d = addFrom; d <= newLast; d++) {
-          int u = readable[d];
-          int valid = ~u >>> 31;
-          int v = u & ~(u >> 31);
-          c += valid;
-          s += v;
-          q += (long) v * v;
-          z += valid & ((v - 1) >>> 31);
-        }
-        first = newFirst;
-        last = newLast;
-        countsOut[i] = c;
-        sumsOut[i] = s;
-        sumSquaresOut[i] = q;
-        if (zeroCountsOut != null) {
-          zeroCountsOut[i] = z;
-        }
-      }
-      firstDayIndex = first;
-      lastDayIndex = last;
-      count = c;
-      sum = s;
-      sumSquares = q;
-      zeroCount = z;
-      started = moved;
-    }
-
     void moveTo(int[] readable, int newLastDayIndex) {
       int newFirstDayIndex = newLastDayIndex - lengthDays + 1;
       if (!started || newFirstDayIndex > lastDayIndex || newLastDayIndex < lastDayIndex) {
-        count = 0;
-        sum = 0;
-        sumSquares = 0;
-        zeroCount = 0;
         minHead = minTail = maxHead = maxTail = 0;
         for (int d = newFirstDayIndex; d <= newLastDayIndex; d++) {
           add(readable, d);
         }
       } else {
         for (int d = firstDayIndex; d < newFirstDayIndex; d++) {
-          remove(readable, d);
+          remove(d);
         }
         for (int d = lastDayIndex + 1; d <= newLastDayIndex; d++) {
           add(readable, d);
@@ -413,20 +312,16 @@ final class RollingKernel implements FeatureKernel {
 
     private void add(int[] readable, int dayIndex) {
       int u = readable[dayIndex];
-      // without branches: a day that is not readable (u = -1) adds 0 to every running total
-      int valid = ~u >>> 31;
-      int v = u & ~(u >> 31);
-      count += valid;
-      sum += v;
-      sumSquares += (long) v * v;
-      zeroCount += valid & ((v - 1) >>> 31);
-      if (trackMin && valid != 0) {
+      if (u < 0) {
+        return;
+      }
+      if (trackMin) {
         while (minTail > minHead && readable[minDeque[(minTail - 1) & mask]] >= u) {
           minTail--;
         }
         minDeque[minTail++ & mask] = dayIndex;
       }
-      if (trackMax && valid != 0) {
+      if (trackMax) {
         while (maxTail > maxHead && readable[maxDeque[(maxTail - 1) & mask]] <= u) {
           maxTail--;
         }
@@ -434,14 +329,7 @@ final class RollingKernel implements FeatureKernel {
       }
     }
 
-    private void remove(int[] readable, int dayIndex) {
-      int u = readable[dayIndex];
-      int valid = ~u >>> 31;
-      int v = u & ~(u >> 31);
-      count -= valid;
-      sum -= v;
-      sumSquares -= (long) v * v;
-      zeroCount -= valid & ((v - 1) >>> 31);
+    private void remove(int dayIndex) {
       if (trackMin && minTail > minHead && minDeque[minHead & mask] == dayIndex) {
         minHead++;
       }
