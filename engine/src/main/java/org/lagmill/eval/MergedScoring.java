@@ -6,6 +6,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.TreeSet;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.store.StoreManifest;
 
 /**
@@ -25,7 +26,7 @@ public final class MergedScoring {
    */
   public static EvaluationResult merge(List<ScoringPart> parts) {
     if (parts.isEmpty()) {
-      throw new IllegalArgumentException("need at least one scoring part, got none");
+      throw new InvalidRequestException("need at least one scoring part, got none");
     }
     checkAgree(parts);
     ScoringPart first = parts.get(0);
@@ -54,7 +55,7 @@ public final class MergedScoring {
             partByIndex.put(names.size(), p);
             names.add(aggregate.name());
           } else if (whole) {
-            throw new IllegalArgumentException("aggregate '" + aggregate.name() + "' of level '"
+            throw new InvalidRequestException("aggregate '" + aggregate.name() + "' of level '"
                 + Level.nameOf(first.levels().get(l).attributeNames()) + "' appears in parts " + partByIndex.get(index)
                 + " and " + p + ", but its level was scored as lying whole in one shard; were the parts split by "
                 + "different attributes?");
@@ -78,7 +79,7 @@ public final class MergedScoring {
           addInto(levelActuals[g], aggregate.actuals());
           addInto(levelForecasts[g], aggregate.forecasts());
           if (aggregate.quantiles().length != quantileCount) {
-            throw new IllegalArgumentException("aggregate '" + aggregate.name() + "' holds "
+            throw new InvalidRequestException("aggregate '" + aggregate.name() + "' holds "
                 + aggregate.quantiles().length + " quantile rows, expected " + quantileCount);
           }
           for (int q = 0; q < quantileCount; q++) {
@@ -89,7 +90,7 @@ public final class MergedScoring {
           units[l][g] += aggregate.unitValue();
           if (whole) {
             if (aggregate.sumSquared() == null || aggregate.sumAbsolute() == null || aggregate.diffCount() == null) {
-              throw new IllegalArgumentException("aggregate '" + aggregate.name() + "' lacks its scale sums");
+              throw new InvalidRequestException("aggregate '" + aggregate.name() + "' lacks its scale sums");
             }
             sums[l].set(g, aggregate.sumSquared(), aggregate.sumAbsolute(), aggregate.diffCount());
           } else {
@@ -150,7 +151,7 @@ public final class MergedScoring {
 
   private static void checkLength(double[] values, int expected, String what, ScoringPart.AggregatePart aggregate) {
     if (values == null || values.length != expected) {
-      throw new IllegalArgumentException("aggregate '" + aggregate.name() + "' holds " + (values == null ? "no"
+      throw new InvalidRequestException("aggregate '" + aggregate.name() + "' holds " + (values == null ? "no"
           : values.length) + " " + what + " values, expected " + expected);
     }
   }
@@ -161,7 +162,7 @@ public final class MergedScoring {
     for (int p = 0; p < parts.size(); p++) {
       ScoringPart part = parts.get(p);
       if (!ScoringPart.KIND.equals(part.kind()) || part.formatVersion() != ScoringPart.FORMAT_VERSION) {
-        throw new IllegalArgumentException("part " + p + " is " + part.kind() + " version " + part.formatVersion()
+        throw new InvalidRequestException("part " + p + " is " + part.kind() + " version " + part.formatVersion()
             + ", expected " + ScoringPart.KIND + " version " + ScoringPart.FORMAT_VERSION);
       }
       agree(p, "origin period", first.originDay(), part.originDay());
@@ -173,7 +174,7 @@ public final class MergedScoring {
       List<List<String>> firstLevels = first.levels().stream().map(ScoringPart.LevelPart::attributeNames).toList();
       List<List<String>> levels = part.levels().stream().map(ScoringPart.LevelPart::attributeNames).toList();
       if (!firstLevels.equals(levels)) {
-        throw new IllegalArgumentException("part " + p + " scores levels " + levels + " but part 0 scores "
+        throw new InvalidRequestException("part " + p + " scores levels " + levels + " but part 0 scores "
             + firstLevels + "; shards can find different default levels, so give every shard the same --hierarchy");
       }
       for (int l = 0; l < levels.size(); l++) {
@@ -184,7 +185,7 @@ public final class MergedScoring {
     StoreManifest.Shard shard = first.shard();
     if (shard == null) {
       if (parts.size() > 1) {
-        throw new IllegalArgumentException("part 0 scores a whole store, not a shard; only shards of one split merge");
+        throw new InvalidRequestException("part 0 scores a whole store, not a shard; only shards of one split merge");
       }
       return;
     }
@@ -193,13 +194,13 @@ public final class MergedScoring {
       StoreManifest.Shard other = parts.get(p).shard();
       if (other == null || !other.sourceName().equals(shard.sourceName()) || other.partCount() != shard.partCount()
           || !other.attribute().equals(shard.attribute())) {
-        throw new IllegalArgumentException("part " + p + " comes from " + (other == null ? "a whole store"
+        throw new InvalidRequestException("part " + p + " comes from " + (other == null ? "a whole store"
             : other.sourceName() + " split in " + other.partCount() + " by " + other.attribute()) + ", part 0 from "
             + shard.sourceName() + " split in " + shard.partCount() + " by " + shard.attribute()
             + "; merge the parts of one split");
       }
       if (!seen.add(other.part())) {
-        throw new IllegalArgumentException("shard " + other.part() + " is given twice");
+        throw new InvalidRequestException("shard " + other.part() + " is given twice");
       }
     }
     if (seen.size() != shard.partCount()) {
@@ -209,14 +210,14 @@ public final class MergedScoring {
           missing.add(k);
         }
       }
-      throw new IllegalArgumentException("missing the scoring parts of shards " + missing + " of "
+      throw new InvalidRequestException("missing the scoring parts of shards " + missing + " of "
           + shard.partCount() + "; a hierarchy-wide score needs every shard");
     }
   }
 
   private static void agree(int part, String what, Object expected, Object actual) {
     if (!expected.equals(actual)) {
-      throw new IllegalArgumentException("part " + part + " has " + what + " " + actual + ", part 0 has " + expected
+      throw new InvalidRequestException("part " + part + " has " + what + " " + actual + ", part 0 has " + expected
           + "; merge parts of the same forecast origin and horizon");
     }
   }

@@ -4,6 +4,7 @@ import com.fasterxml.jackson.annotation.JsonInclude;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SeriesAttributes;
 import org.lagmill.store.StoreManifest;
@@ -112,7 +113,7 @@ public record ScoringPart(String kind, int formatVersion, String firstDate, int 
     List<Level> levels = aggregator.levels();
     int horizon = forecasts.dayCount();
     if (originDay < 1 || originDay + horizon > history.dayCount()) {
-      throw new IllegalArgumentException("horizon " + horizon + " from origin " + originDay + " needs actuals up to "
+      throw new InvalidRequestException("horizon " + horizon + " from origin " + originDay + " needs actuals up to "
           + "period " + (originDay + horizon - 1) + ", the store ends at period " + (history.dayCount() - 1));
     }
     // Periods before the origin in blocks: whole levels keep only their scale sums, spanning levels their history.
@@ -190,11 +191,11 @@ public record ScoringPart(String kind, int formatVersion, String firstDate, int 
     try {
       ScoringPart part = JSON.readValue(file.toFile(), ScoringPart.class);
       if (!KIND.equals(part.kind())) {
-        throw new IllegalArgumentException(file + ": kind " + part.kind() + ", expected " + KIND);
+        throw new InvalidRequestException(file + ": kind " + part.kind() + ", expected " + KIND);
       }
       return part;
     } catch (com.fasterxml.jackson.core.JsonProcessingException e) {
-      throw new IllegalArgumentException(file + ": not a scoring part (" + e.getOriginalMessage() + ")", e);
+      throw new InvalidRequestException(file + ": not a scoring part (" + e.getOriginalMessage() + ")", e);
     }
   }
 

@@ -2,6 +2,7 @@ package org.lagmill.ingest;
 
 import java.nio.file.Path;
 import java.util.Objects;
+import org.lagmill.io.InvalidRequestException;
 
 /**
  * A plan file and the names of its time columns ({@link PlanFileReader}).
@@ -16,7 +17,7 @@ public record PlanSource(Path file, String dateColumn, String fromColumn) {
     requireName(dateColumn, "--plan-date-column", PlanFileReader.DEFAULT_DATE_COLUMN);
     requireName(fromColumn, "--plan-from-column", PlanFileReader.DEFAULT_FROM_COLUMN);
     if (dateColumn.equals(fromColumn)) {
-      throw new IllegalArgumentException("--plan-date-column and --plan-from-column both name '" + dateColumn
+      throw new InvalidRequestException("--plan-date-column and --plan-from-column both name '" + dateColumn
           + "'; they must differ, since the column's name tells how long a row holds");
     }
   }
@@ -29,7 +30,7 @@ public record PlanSource(Path file, String dateColumn, String fromColumn) {
   private static void requireName(String name, String option, String defaultName) {
     Objects.requireNonNull(name, option);
     if (name.isEmpty()) {
-      throw new IllegalArgumentException(option + " must name a column, got an empty name; the default is "
+      throw new InvalidRequestException(option + " must name a column, got an empty name; the default is "
           + defaultName);
     }
   }

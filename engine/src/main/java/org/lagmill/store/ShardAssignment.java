@@ -1,6 +1,7 @@
 package org.lagmill.store;
 
 import java.nio.charset.StandardCharsets;
+import org.lagmill.io.InvalidRequestException;
 
 /**
  * The one rule that puts a series into a shard: the 64-bit FNV-1a hash of the UTF-8 bytes of the series' value of the
@@ -25,7 +26,7 @@ public final class ShardAssignment {
   /** @param partCount in {@code [1, MAX_PART_COUNT]} */
   public ShardAssignment(int partCount) {
     if (partCount < 1 || partCount > MAX_PART_COUNT) {
-      throw new IllegalArgumentException("part count must be in [1, " + MAX_PART_COUNT + "], got " + partCount);
+      throw new InvalidRequestException("part count must be in [1, " + MAX_PART_COUNT + "], got " + partCount);
     }
     this.partCount = partCount;
   }

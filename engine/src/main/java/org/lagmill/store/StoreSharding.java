@@ -5,6 +5,7 @@ import java.io.IOException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.memory.MemoryBudget;
 
 /**
@@ -40,14 +41,14 @@ public final class StoreSharding {
     Path source = storeDir.toAbsolutePath().normalize();
     Path out = outDir.toAbsolutePath().normalize();
     if (out.startsWith(source) || source.startsWith(out)) {
-      throw new IllegalArgumentException("output folder " + outDir + " overlaps the store " + storeDir
+      throw new InvalidRequestException("output folder " + outDir + " overlaps the store " + storeDir
           + "; write the shards to a folder outside the store");
     }
     try (MemoryBudget stage = budget.child("shard"); SalesStore store = SalesStore.open(storeDir, stage)) {
       SeriesAttributes attributes = store.attributes();
       int attributeIndex = attributes.attributeIndex(attribute);
       if (attributeIndex < 0) {
-        throw new IllegalArgumentException("unknown attribute '" + attribute + "' for --by; allowed: "
+        throw new InvalidRequestException("unknown attribute '" + attribute + "' for --by; allowed: "
             + attributeNames(attributes));
       }
       int[] partByCode = new int[attributes.cardinality(attributeIndex)];
@@ -77,7 +78,7 @@ public final class StoreSharding {
       SeriesAttributes attributes, int attributeIndex, SalesStore store) {
     for (int part = 0; part < seriesByPart.size(); part++) {
       if (seriesByPart.get(part).isEmpty()) {
-        throw new IllegalArgumentException("shard " + part + " of " + seriesByPart.size() + " would hold no series: "
+        throw new InvalidRequestException("shard " + part + " of " + seriesByPart.size() + " would hold no series: "
             + "the " + store.seriesCount() + " series take " + store.nesting().cardinality(attributeIndex)
             + " values of '" + attribute + "' and none of them hashes to shard " + part + "; nothing was written"
             + " (hint: use fewer parts, or shard by an attribute with more values such as "
