@@ -4,7 +4,12 @@ import org.lagmill.ingest.ColumnNames;
 import org.lagmill.store.SeriesIdentity;
 import picocli.CommandLine.Option;
 
-/** The column-name options shared by {@code ingest} and {@code append}; defaults as in docs/formats.md. */
+/**
+ * The column-name options of every input file, shared by {@code ingest} and {@code append}: the one place they are
+ * defined; defaults as in docs/formats.md. Each dated file has its own date columns ({@code --sales-date-column},
+ * {@code --calendar-date-column}, {@code --prices-from-column}, {@code --closures-from-column} and
+ * {@code --closures-until-column}); the plan file's are with its own options.
+ */
 final class ColumnOptions {
   @Option(names = "--series-id-column", paramLabel = "NAME", defaultValue = SeriesIdentity.SERIES_ID,
       description = "column naming each series (default: ${DEFAULT-VALUE}); without it a series is named by its "
@@ -23,17 +28,26 @@ final class ColumnOptions {
       description = "date column of the calendar only (default: --date-column)")
   String calendarDateColumn;
 
-  @Option(names = "--from-column", paramLabel = "NAME", defaultValue = "from",
-      description = "date column of prices (default: ${DEFAULT-VALUE})")
+  @Option(names = {"--prices-from-column", "--from-column"}, paramLabel = "NAME", defaultValue = "from",
+      description = "date column of prices: the price holds from it (default: ${DEFAULT-VALUE})")
   String fromColumn;
 
-  @Option(names = "--price-column", paramLabel = "NAME", defaultValue = "price",
+  @Option(names = {"--prices-price-column", "--price-column"}, paramLabel = "NAME", defaultValue = "price",
       description = "price column of prices (default: ${DEFAULT-VALUE})")
   String priceColumn;
 
+  @Option(names = "--closures-from-column", paramLabel = "NAME", defaultValue = "from",
+      description = "first closed date of closures (default: ${DEFAULT-VALUE})")
+  String closuresFromColumn;
+
+  @Option(names = "--closures-until-column", paramLabel = "NAME", defaultValue = "until",
+      description = "last closed date of closures, included (default: ${DEFAULT-VALUE})")
+  String closuresUntilColumn;
+
   ColumnNames names() {
     ColumnNames names = ColumnNames.DEFAULTS.withSeriesIdColumn(seriesIdColumn).withDateColumn(dateColumn)
-        .withFromColumn(fromColumn).withPriceColumn(priceColumn);
+        .withFromColumn(fromColumn).withPriceColumn(priceColumn)
+        .withClosuresColumns(closuresFromColumn, closuresUntilColumn);
     if (salesDateColumn != null) {
       names = names.withSalesDateColumn(salesDateColumn);
     }

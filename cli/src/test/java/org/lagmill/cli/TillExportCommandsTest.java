@@ -66,4 +66,25 @@ class TillExportCommandsTest {
     assertEquals(ExitCodes.USAGE_ERROR, bad.exitCode());
     assertTrue(bad.err().contains("--missing-rows must be one of zero, unknown, got 'none'"), bad.err());
   }
+
+  /** Closures and prices with their own date column names, given per file; a missing one named in the error. */
+  @Test
+  void shouldReadClosuresAndPricesWithTheirOwnDateColumns() throws Exception {
+    Path sales = Files.writeString(temp.resolve("till.csv"), SPARSE.replace(",date,", ",day,"));
+    Path closures = Files.writeString(temp.resolve("shut.csv"), "shop,first_day,last_day\ns1,2025-01-02,2025-01-03\n");
+    Path prices = Files.writeString(temp.resolve("prices.csv"), "sku,valid_from,eur\nA,2025-01-01,2.5\n");
+    Path store = temp.resolve("store");
+    MainRun ingest = MainRun.of("ingest", "--sales", sales.toString(), "--sales-date-column", "day", "--closures",
+        closures.toString(), "--closures-from-column", "first_day", "--closures-until-column", "last_day",
+        "--prices", prices.toString(), "--prices-from-column", "valid_from", "--prices-price-column", "eur",
+        "--store", store.toString());
+    assertEquals(0, ingest.exitCode(), ingest.err());
+    // A: days 2, 3 closed (no rows); B: day 2 closed (its row of 3 units is dropped as closed), day 3 closed.
+    assertTrue(ingest.out().contains("item-days filled with zero 0, unknown 1, closed 4\n"), ingest.out());
+    MainRun missing = MainRun.of("ingest", "--sales", sales.toString(), "--sales-date-column", "day", "--closures",
+        closures.toString(), "--store", temp.resolve("m").toString());
+    assertEquals(ExitCodes.BAD_INPUT, missing.exitCode(), missing.err());
+    assertTrue(missing.err().contains(closures + ", line 1: no column 'from' in header shop,first_day,last_day: "
+        + "expected one (or name it with --closures-from-column)"), missing.err());
+  }
 }

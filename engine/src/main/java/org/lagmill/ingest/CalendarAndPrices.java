@@ -24,10 +24,11 @@ final class CalendarAndPrices {
   }
 
   /** Reads and writes the closures file; call after the last series was added. Returns the closed periods. */
-  static ClosureTable writeClosures(StoreWriter writer, Path closuresFile, List<String> warnings) throws IOException {
+  static ClosureTable writeClosures(StoreWriter writer, Path closuresFile, ColumnNames columns, List<String> warnings)
+      throws IOException {
     ClosuresFileReader.ClosuresReadResult read = ClosuresFileReader.read(closuresFile, writer.firstDate(),
-        writer.periodDays(), writer.attributes(), writer.seriesCount(), ClosuresFileReader.DEFAULT_FROM_COLUMN,
-        ClosuresFileReader.DEFAULT_UNTIL_COLUMN);
+        writer.periodDays(), writer.attributes(), writer.seriesCount(), columns.closuresFromColumn(),
+        columns.closuresUntilColumn());
     warnings.addAll(read.warnings());
     writer.writeClosures(read.closures(), read.partlyClosedItemPeriods());
     return read.closures();

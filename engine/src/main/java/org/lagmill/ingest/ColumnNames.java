@@ -16,22 +16,34 @@ import org.lagmill.store.SeriesIdentity;
  * @param priceColumn the price column of prices ({@code --price-column})
  * @param calendarDateColumn the date column of the calendar ({@code --calendar-date-column}, or {@code --date-column}
  *     for both)
+ * @param closuresFromColumn the first closed date of closures ({@code --closures-from-column})
+ * @param closuresUntilColumn the last closed date of closures ({@code --closures-until-column})
  */
 public record ColumnNames(String seriesIdColumn, String dateColumn, String unitsColumn, String fromColumn,
-    String priceColumn, String calendarDateColumn) {
-  /** The documented defaults: series_id, date, units, from, price. */
+    String priceColumn, String calendarDateColumn, String closuresFromColumn, String closuresUntilColumn) {
+  /** The documented defaults: series_id, date, units, from, price, and from, until for closures. */
   public static final ColumnNames DEFAULTS = new ColumnNames(SeriesIdentity.SERIES_ID,
       CalendarFileReader.DEFAULT_DATE_COLUMN, LongSalesReader.DEFAULT_UNITS_COLUMN,
       PriceFileReader.DEFAULT_FROM_COLUMN, PriceFileReader.DEFAULT_PRICE_COLUMN,
-      CalendarFileReader.DEFAULT_DATE_COLUMN);
+      CalendarFileReader.DEFAULT_DATE_COLUMN, ClosuresFileReader.DEFAULT_FROM_COLUMN,
+      ClosuresFileReader.DEFAULT_UNTIL_COLUMN);
+
+  /** The six columns of sales, calendar and prices, with the closures' default columns. */
+  public ColumnNames(String seriesIdColumn, String dateColumn, String unitsColumn, String fromColumn,
+      String priceColumn, String calendarDateColumn) {
+    this(seriesIdColumn, dateColumn, unitsColumn, fromColumn, priceColumn, calendarDateColumn,
+        ClosuresFileReader.DEFAULT_FROM_COLUMN, ClosuresFileReader.DEFAULT_UNTIL_COLUMN);
+  }
 
   public ColumnNames {
     requireName(seriesIdColumn, "--series-id-column", SeriesIdentity.SERIES_ID);
     requireName(dateColumn, "--date-column", CalendarFileReader.DEFAULT_DATE_COLUMN);
     requireName(unitsColumn, "--units-column", LongSalesReader.DEFAULT_UNITS_COLUMN);
-    requireName(fromColumn, "--from-column", PriceFileReader.DEFAULT_FROM_COLUMN);
+    requireName(fromColumn, "--prices-from-column", PriceFileReader.DEFAULT_FROM_COLUMN);
     requireName(priceColumn, "--price-column", PriceFileReader.DEFAULT_PRICE_COLUMN);
     requireName(calendarDateColumn, "--calendar-date-column", CalendarFileReader.DEFAULT_DATE_COLUMN);
+    requireName(closuresFromColumn, "--closures-from-column", ClosuresFileReader.DEFAULT_FROM_COLUMN);
+    requireName(closuresUntilColumn, "--closures-until-column", ClosuresFileReader.DEFAULT_UNTIL_COLUMN);
   }
 
   private static void requireName(String name, String option, String defaultName) {
@@ -43,33 +55,46 @@ public record ColumnNames(String seriesIdColumn, String dateColumn, String units
   }
 
   public ColumnNames withSeriesIdColumn(String name) {
-    return new ColumnNames(name, dateColumn, unitsColumn, fromColumn, priceColumn, calendarDateColumn);
+    return new ColumnNames(name, dateColumn, unitsColumn, fromColumn, priceColumn, calendarDateColumn,
+        closuresFromColumn, closuresUntilColumn);
   }
 
   /** The date column of long sales and of the calendar at once ({@code --date-column}). */
   public ColumnNames withDateColumn(String name) {
-    return new ColumnNames(seriesIdColumn, name, unitsColumn, fromColumn, priceColumn, name);
+    return new ColumnNames(seriesIdColumn, name, unitsColumn, fromColumn, priceColumn, name,
+        closuresFromColumn, closuresUntilColumn);
   }
 
   /** The date column of long sales only. */
   public ColumnNames withSalesDateColumn(String name) {
-    return new ColumnNames(seriesIdColumn, name, unitsColumn, fromColumn, priceColumn, calendarDateColumn);
+    return new ColumnNames(seriesIdColumn, name, unitsColumn, fromColumn, priceColumn, calendarDateColumn,
+        closuresFromColumn, closuresUntilColumn);
   }
 
   /** The date column of the calendar only. */
   public ColumnNames withCalendarDateColumn(String name) {
-    return new ColumnNames(seriesIdColumn, dateColumn, unitsColumn, fromColumn, priceColumn, name);
+    return new ColumnNames(seriesIdColumn, dateColumn, unitsColumn, fromColumn, priceColumn, name,
+        closuresFromColumn, closuresUntilColumn);
   }
 
   public ColumnNames withUnitsColumn(String name) {
-    return new ColumnNames(seriesIdColumn, dateColumn, name, fromColumn, priceColumn, calendarDateColumn);
+    return new ColumnNames(seriesIdColumn, dateColumn, name, fromColumn, priceColumn, calendarDateColumn,
+        closuresFromColumn, closuresUntilColumn);
   }
 
   public ColumnNames withFromColumn(String name) {
-    return new ColumnNames(seriesIdColumn, dateColumn, unitsColumn, name, priceColumn, calendarDateColumn);
+    return new ColumnNames(seriesIdColumn, dateColumn, unitsColumn, name, priceColumn, calendarDateColumn,
+        closuresFromColumn, closuresUntilColumn);
   }
 
   public ColumnNames withPriceColumn(String name) {
-    return new ColumnNames(seriesIdColumn, dateColumn, unitsColumn, fromColumn, name, calendarDateColumn);
+    return new ColumnNames(seriesIdColumn, dateColumn, unitsColumn, fromColumn, name, calendarDateColumn,
+        closuresFromColumn, closuresUntilColumn);
+  }
+
+  /** The date columns of closures: first and last closed date. */
+  public ColumnNames withClosuresColumns(String fromName, String untilName) {
+    return new ColumnNames(seriesIdColumn, dateColumn, unitsColumn, fromColumn, priceColumn, calendarDateColumn,
+        fromName, untilName);
   }
 }

@@ -63,7 +63,7 @@ public final class PriceFileReader {
     try (CsvSource source = CsvSource.open(file)) {
       String[] header = source.readHeader();
       Cells.requireDistinct(file, header);
-      int fromIndex = Cells.requireColumn(file, header, fromColumn, "--from-column");
+      int fromIndex = Cells.requireColumn(file, header, fromColumn, "--prices-from-column");
       int priceIndex = Cells.requireColumn(file, header, priceColumn, "--price-column");
       SeriesKeys keys = SeriesKeys.allColumnsExcept(file, header, new int[] {fromIndex, priceIndex}, attributes,
           seriesCount, "price", true);

@@ -204,7 +204,7 @@ public final class StoreAppend {
         writer.writeCalendar(store.calendar());
       }
       if (options.closuresFile() != null) {
-        CalendarAndPrices.writeClosures(writer, options.closuresFile(), warnings);
+        CalendarAndPrices.writeClosures(writer, options.closuresFile(), options.columns(), warnings);
       } else {
         writer.writeClosures(extended(store.closures(), store.seriesCount()),
             oldFill == null ? 0 : oldFill.partlyClosedItemDays());

@@ -63,7 +63,7 @@ public final class StoreIngest {
           CalendarAndPrices.writeCalendar(writer, options.calendarFile(), columns, warnings);
         }
         ClosureTable closures = options.closuresFile() == null ? ClosureTable.EMPTY
-            : CalendarAndPrices.writeClosures(writer, options.closuresFile(), warnings);
+            : CalendarAndPrices.writeClosures(writer, options.closuresFile(), options.columns(), warnings);
         if (longRead[0] != null) {
           writer.addZeroFilledItemDays(longRead[0].zeroFilledItemDays()
               - longRead[0].zeroFilledClosedItemDays(closures));
