@@ -16,13 +16,17 @@ import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
-/** {@code lagmill append}: adds a store's next days from a wide sales file; may replace its calendar and prices. */
+/** {@code lagmill append}: adds a store's next days from a wide or long sales file; may replace the dated files. */
 @Command(name = "append", header = "Add new days (and a newer calendar and prices) to a store, atomically.", mixinStandardHelpOptions = true,
-    description = {"Add new days to a store from a wide sales CSV whose first date is the store's next day.",
-        "Series missing from the file get unknown units on the new days; new series get unknown units before them.",
+    description = {"Add new days to a store from a wide sales CSV whose first date is the store's next day, or from",
+        "a long one (a till export, sparse or dense) dated from the store's next day on. Wide: series missing from",
+        "the file get unknown units on the new days. Long: a day with no row follows --missing-rows (zero by",
+        "default, also for series the store lists that have no row). New series get unknown units before them.",
         "A --calendar, --prices, --closures or --plan file replaces the stored one; without it it is kept."},
     footer = {"", "Example:", "  lagmill append --store stores/chain --sales sales-next-week.csv \\",
         "      --calendar calendar.csv --prices prices.csv",
+        "  lagmill append --store stores/chain --sales till-week-12.csv \\",
+        "      --sales-date-column day",
         "  lagmill append --store stores/chain --plan plan-next-month.csv"})
 final class AppendCommand implements Callable<Integer> {
   @Spec CommandSpec spec;
@@ -30,7 +34,7 @@ final class AppendCommand implements Callable<Integer> {
   @Option(names = "--store", required = true, paramLabel = "DIR", description = "existing store directory")
   Path store;
 
-  @Option(names = "--sales", paramLabel = "FILE", description = {"wide sales CSV, optionally .gz; without it the",
+  @Option(names = "--sales", paramLabel = "FILE", description = {"wide or long sales CSV, optionally .gz; without it the",
       "calendar, prices, closures or plan given replace the stored ones and the days stay as they are"})
   Path sales;
 
@@ -45,6 +49,8 @@ final class AppendCommand implements Callable<Integer> {
   Path closures;
 
   @Mixin ColumnOptions columns;
+
+  @Mixin SalesShapeOptions shape;
 
   @Mixin PlanOptions plan;
 
@@ -63,11 +69,13 @@ final class AppendCommand implements Callable<Integer> {
   public Integer call() throws Exception {
     DateWindows.apply(dateWindow);
     AppendOptions options = AppendOptions.of(store, sales).withColumns(columns.names())
+        .withSalesFormat(shape.format()).withMissingRows(shape.missingRows())
         .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures)
         .withPlan(plan.source());
     try (Run run = Run.unlimited("append")) {
       run.record().configure("store", store.toString())
           .configure("sales", sales == null ? null : sales.toString())
+          .configure("missingRows", shape.missingRows().optionValue())
           .configure("plan", plan.file == null ? null : plan.file.toString());
       IngestResult result;
       try (Stage stage = run.stage("append")) {

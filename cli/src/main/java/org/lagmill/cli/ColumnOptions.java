@@ -28,6 +28,10 @@ final class ColumnOptions {
       description = "date column of the calendar only (default: --date-column)")
   String calendarDateColumn;
 
+  @Option(names = "--units-column", paramLabel = "NAME", defaultValue = "units",
+      description = "units column of long sales (default: ${DEFAULT-VALUE})")
+  String unitsColumn;
+
   @Option(names = {"--prices-from-column", "--from-column"}, paramLabel = "NAME", defaultValue = "from",
       description = "date column of prices: the price holds from it (default: ${DEFAULT-VALUE})")
   String fromColumn;
@@ -46,7 +50,7 @@ final class ColumnOptions {
 
   ColumnNames names() {
     ColumnNames names = ColumnNames.DEFAULTS.withSeriesIdColumn(seriesIdColumn).withDateColumn(dateColumn)
-        .withFromColumn(fromColumn).withPriceColumn(priceColumn)
+        .withFromColumn(fromColumn).withPriceColumn(priceColumn).withUnitsColumn(unitsColumn)
         .withClosuresColumns(closuresFromColumn, closuresUntilColumn);
     if (salesDateColumn != null) {
       names = names.withSalesDateColumn(salesDateColumn);

@@ -6,8 +6,6 @@ import java.util.List;
 import java.util.concurrent.Callable;
 import org.lagmill.ingest.IngestOptions;
 import org.lagmill.ingest.IngestResult;
-import org.lagmill.ingest.MissingRows;
-import org.lagmill.ingest.SalesFormat;
 import org.lagmill.ingest.StoreIngest;
 import org.lagmill.store.Periods;
 import org.lagmill.run.Run;
@@ -52,32 +50,19 @@ final class IngestCommand implements Callable<Integer> {
       + "instead of waiting for it")
   boolean noWait;
 
-  @Option(names = "--sales-format", paramLabel = "FORMAT", defaultValue = "auto",
-      description = "wide, long or auto: wide when a header is an ISO date, long when it has the date and units "
-          + "columns (default: ${DEFAULT-VALUE})")
-  String salesFormat;
-
   @Option(names = "--closures", paramLabel = "FILE", description = {"closures CSV: key columns, from, until (and",
       "an optional reason); a closed day reads as unknown and is forecast as 0"})
   Path closures;
 
   @Mixin ColumnOptions columns;
 
+  @Mixin SalesShapeOptions shape;
+
   @Mixin PlanOptions plan;
 
   @Option(names = "--date-window", paramLabel = "FROM..TO", description = "plausible dates: any date read outside "
       + "stops the run (default: 1900-01-01..2200-12-31)")
   String dateWindow;
-
-  @Option(names = "--missing-rows", paramLabel = "POLICY", defaultValue = "zero",
-      description = {"what a day with no row means in long sales, from each series' first row to the file's last",
-          "date: zero (till exports leave out days with no sale) or unknown (default: ${DEFAULT-VALUE}); empty",
-          "cells are unknown either way"})
-  String missingRows;
-
-  @Option(names = "--units-column", paramLabel = "NAME", defaultValue = "units",
-      description = "units column of long sales (default: ${DEFAULT-VALUE})")
-  String unitsColumn;
 
   @Option(names = "--memory-limit", paramLabel = "SIZE", converter = ByteSizeConverter.class,
       description = "off-heap budget: bytes, or with k, m, g (1024-based), e.g. 512m or 2g (default: none)")
@@ -90,8 +75,8 @@ final class IngestCommand implements Callable<Integer> {
   public Integer call() throws Exception {
     DateWindows.apply(dateWindow);
     IngestOptions options = IngestOptions.of(sales, store)
-        .withColumns(columns.names().withUnitsColumn(unitsColumn))
-        .withSalesFormat(SalesFormat.parse(salesFormat)).withMissingRows(MissingRows.parse(missingRows))
+        .withColumns(columns.names())
+        .withSalesFormat(shape.format()).withMissingRows(shape.missingRows())
         .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures)
         .withPlan(plan.source());
     try (Run run = Run.start("ingest", MemoryLimitOption.bytes(memoryLimitBytes))) {
@@ -99,7 +84,7 @@ final class IngestCommand implements Callable<Integer> {
           .configure("calendar", calendar == null ? null : calendar.toString())
           .configure("prices", prices == null ? null : prices.toString()).configure("store", store.toString())
           .configure("plan", plan.file == null ? null : plan.file.toString())
-          .configure("missingRows", MissingRows.parse(missingRows).optionValue());
+          .configure("missingRows", shape.missingRows().optionValue());
       IngestResult result;
       long peakOffHeapBytes;
       try (Stage stage = run.stage("ingest")) {

@@ -87,4 +87,36 @@ class TillExportCommandsTest {
     assertTrue(missing.err().contains(closures + ", line 1: no column 'from' in header shop,first_day,last_day: "
         + "expected one (or name it with --closures-from-column)"), missing.err());
   }
+
+  /** A week of a sparse till export appended as it comes: the same policy and counts as ingest. */
+  @Test
+  void shouldAppendASparseLongWeek() throws Exception {
+    Path sales = Files.writeString(temp.resolve("till.csv"), SPARSE);
+    Path store = temp.resolve("store");
+    assertEquals(0, MainRun.of("ingest", "--sales", sales.toString(), "--store", store.toString(), "--quiet")
+        .exitCode());
+    // 01-05 .. 01-07: A sold on 01-06 only, B nothing, a new sku C from 01-07.
+    Path week = Files.writeString(temp.resolve("week.csv"), "sku,shop,dept,day,qty\nA,s1,D1,2025-01-06,4\n"
+        + "C,s1,D1,2025-01-07,2\n");
+    MainRun append = MainRun.of("append", "--store", store.toString(), "--sales", week.toString(),
+        "--sales-date-column", "day", "--units-column", "qty");
+    assertEquals(0, append.exitCode(), append.err());
+    // A: 01-05, 01-07; B: 01-05 .. 01-07; C: none after its first row (01-05, 01-06 unknown, not a listed series).
+    assertEquals("warning: read 5 item-days with no row in the long sales as zero sales (--missing-rows zero, the "
+        + "default: till exports leave out days with no sale); give --missing-rows unknown if a missing row means "
+        + "not known\nwarning: 7 of 21 item-days (33.3 %) are unknown and are left out of training and scores; if they "
+        + "are days with no sale, give long sales with --missing-rows zero (the default) or write 0 in wide sales\n",
+        append.err());
+    // Ingest's 3 zero and 1 unknown, then 5 zero; C is unknown on the 4 old days and 01-05, 01-06.
+    assertTrue(append.out().contains("store " + store + " now holds 3 series x 7 days (2025-01-01 .. 2025-01-07)\n"
+        + "item-days filled with zero 8, unknown 7, closed 0\n"), append.out());
+    JsonNode run = new ObjectMapper().readTree(store.resolve("run.json").toFile());
+    assertEquals("zero", run.get("configuration").get("missingRows").asText());
+    assertEquals(8, run.get("results").get("fill").get("zeroFilledItemDays").asLong());
+    MainRun overlap = MainRun.of("append", "--store", store.toString(), "--sales", week.toString(),
+        "--sales-date-column", "day", "--units-column", "qty");
+    assertEquals(ExitCodes.BAD_INPUT, overlap.exitCode());
+    assertTrue(overlap.err().contains(week + ", line 2, column 4: day '2025-01-06' is before 2025-01-08: expected "
+        + "dates from 2025-01-08 on (the period after the store's last)"), overlap.err());
+  }
 }

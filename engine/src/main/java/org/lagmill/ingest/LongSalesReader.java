@@ -64,6 +64,24 @@ public final class LongSalesReader {
    */
   public static LongSalesRead read(Path file, String dateColumn, String unitsColumn, String seriesIdColumn,
       MissingRows missingRows, MemoryBudget budget, SeriesSink sink) {
+    return read(file, dateColumn, unitsColumn, seriesIdColumn, missingRows, null, budget, sink);
+  }
+
+  /**
+   * Where the days of a file read onto a store go: a fixed first date and step, as for an append, instead of the
+   * file's own earliest date and most common gap.
+   *
+   * @param firstDate the date of day index 0 (the store's next period); an earlier date in the file is an error
+   * @param periodDays the store's step in days
+   */
+  public record Frame(LocalDate firstDate, int periodDays) {}
+
+  /**
+   * As {@link #read(Path, String, String, String, MissingRows, MemoryBudget, SeriesSink)}, with day index 0 and the
+   * step fixed by {@code frame} (null: the file's earliest date and most common gap).
+   */
+  public static LongSalesRead read(Path file, String dateColumn, String unitsColumn, String seriesIdColumn,
+      MissingRows missingRows, Frame frame, MemoryBudget budget, SeriesSink sink) {
     Layout layout;
     List<String[]> valuesBySeries = new ArrayList<>();
     Object2IntOpenHashMap<String> seriesIndexByKey = new Object2IntOpenHashMap<>();
@@ -105,7 +123,17 @@ public final class LongSalesReader {
         throw new InputFormatException(file, 0, 0, "no sales rows: expected at least one row after the header");
       }
     }
-    int periodDays = periodDaysOf(distinctEpochDays);
+    int periodDays = frame == null ? periodDaysOf(distinctEpochDays) : frame.periodDays();
+    if (frame != null) {
+      long frameFirst = frame.firstDate().toEpochDay();
+      if (minEpochDay < frameFirst) {
+        LocalDate earliest = LocalDate.ofEpochDay(minEpochDay);
+        throw new InputFormatException(file, findLineOf(file, layout, minEpochDay), layout.dateIndex + 1,
+            dateColumn + " '" + earliest + "' is before " + frame.firstDate() + ": expected dates from "
+            + frame.firstDate() + " on (the period after the store's last)");
+      }
+      minEpochDay = frameFirst;
+    }
     firstDayIndexBySeries = new int[valuesBySeries.size()];
     for (int s = 0; s < firstDayIndexBySeries.length; s++) {
       // Bounded by the period count, which is checked to fit an int below; a date off the step fails in fill.
@@ -126,9 +154,8 @@ public final class LongSalesReader {
       fill(file, layout, dateColumn, seriesIndexByKey, minEpochDay, periodDays, dayCount, matrix);
       sink.begin(header);
       int[] units = new int[dayCount];
-      long zeroFilled = 0;
       int missingValue = missingRows == MissingRows.ZERO ? 0 : SalesHistory.UNKNOWN_UNITS;
-      long[] zeroFilledBits = new long[missingValue == 0 ? (int) (((long) seriesCount * dayCount + 63) >>> 6) : 0];
+      ZeroFills zeroFills = missingValue == 0 ? new ZeroFills(seriesCount, dayCount) : ZeroFills.NONE;
       for (int s = 0; s < seriesCount; s++) {
         matrix.read(s * dayCount, units, 0, dayCount);
         // Before the series' first row nothing was recorded: unknown whatever the policy.
@@ -136,9 +163,7 @@ public final class LongSalesReader {
           if (units[d] == SalesHistory.UNKNOWN_UNITS) {
             units[d] = missingValue;
             if (missingValue == 0) {
-              zeroFilled++;
-              long bit = (long) s * dayCount + d;
-              zeroFilledBits[(int) (bit >>> 6)] |= 1L << (bit & 63);
+              zeroFills.set(s, d);
             }
           }
         }
@@ -147,9 +172,9 @@ public final class LongSalesReader {
             units[d] = SalesHistory.UNKNOWN_UNITS;
           }
         }
-        sink.accept(valuesBySeries.get(s), units);
+        sink.accept(valuesBySeries.get(s), units, firstDayIndexBySeries[s]);
       }
-      return new LongSalesRead(header, zeroFilled, zeroFilledBits);
+      return new LongSalesRead(header, zeroFills);
     }
   }
 
@@ -199,6 +224,19 @@ public final class LongSalesReader {
         matrix.set(cell, unitsText.isEmpty() ? PRESENT_UNKNOWN : (int) Cells.units(unitsText));
       }
     }
+  }
+
+  /** Error path only: the first line dated {@code epochDay}. */
+  private static long findLineOf(Path file, Layout layout, long epochDay) {
+    try (CsvSource source = CsvSource.open(file)) {
+      source.readHeader();
+      for (CsvRecord record = source.next(); record != null; record = source.next()) {
+        if (Cells.epochDay(record.getField(layout.dateIndex)) == epochDay) {
+          return source.lineNumber();
+        }
+      }
+    }
+    throw new IllegalStateException("no line dated " + LocalDate.ofEpochDay(epochDay) + " in " + file);
   }
 
   /** Error path only: the earlier line holding the same series and date as {@code duplicate}. */

@@ -18,4 +18,13 @@ public interface SeriesSink {
    *     keep, and do not modify them.
    */
   void accept(String[] attributeValues, int[] units);
+
+  /**
+   * As {@link #accept(String[], int[])}, with the day index of the series' first row in the file: the days before it
+   * had no row and are unknown whatever the missing-rows policy (an append may fill them for a series the store
+   * already lists).
+   */
+  default void accept(String[] attributeValues, int[] units, int firstRowDayIndex) {
+    accept(attributeValues, units);
+  }
 }

@@ -80,28 +80,15 @@ public final class StoreAppend {
       Path temp = update.buildingDir();
       IngestResult result;
       // No sales file: the calendar, prices or closures alone replace the stored ones; the days stay as they are.
-      try (SalesStore store = SalesStore.open(storeDir, stage);
-          WideSalesReader reader = salesFile == null ? null
-              : WideSalesReader.open(salesFile, options.columns().seriesIdColumn())) {
-        NewDays newDays;
-        if (reader == null) {
-          newDays = new NewDays(0, new int[store.seriesCount()][], List.of(), List.of());
+      try (SalesStore store = SalesStore.open(storeDir, stage)) {
+        AppendedDays newDays;
+        if (salesFile == null) {
+          newDays = AppendedDays.none(store.seriesCount());
+        } else if (options.salesFormat().resolve(salesFile, options.columns().dateColumn(),
+            options.columns().unitsColumn()) == SalesFormat.LONG) {
+          newDays = LongAppendDays.read(store, options, stage);
         } else {
-          LocalDate expectedFirst = store.dateOf(store.dayCount());
-          int periodDays = store.periodDays();
-          if (!reader.firstDate().equals(expectedFirst)) {
-            throw new InputFormatException(salesFile, 1, 0, "expected the first date column to be " + expectedFirst
-                + " (the " + (periodDays == Periods.DAILY ? "day" : "period") + " after the store's last "
-                + (periodDays == Periods.DAILY ? "day " : "period, from ") + store.dateOf(store.dayCount() - 1)
-                + "), found " + reader.firstDate());
-          }
-          if (reader.dayCount() > 1 && reader.periodDays() != periodDays) {
-            throw new InputFormatException(salesFile, 1, 0, "date columns " + reader.periodDays() + " days apart: "
-                + "expected the store's step of " + periodDays + (periodDays == 1 ? " day" : " days") + " ("
-                + Periods.describe(periodDays) + ")");
-          }
-          int[] fileColumnOfAttribute = matchAttributes(store.attributes(), reader);
-          newDays = readNewDays(store, reader, fileColumnOfAttribute);
+          newDays = readWide(store, salesFile, options);
         }
         result = rewrite(store, temp, newDays, options, stage);
       }
@@ -110,9 +97,26 @@ public final class StoreAppend {
     }
   }
 
-  /** The appended file's rows: new days of known series by store index, then series new to the store. */
-  private record NewDays(int dayCount, int[][] unitsBySeries, List<String[]> newSeriesAttributes,
-      List<int[]> newSeriesUnits) {}
+  /** A wide file's days, which must start at the store's next period and keep its step. */
+  private static AppendedDays readWide(SalesStore store, Path salesFile, AppendOptions options) throws IOException {
+    try (WideSalesReader reader = WideSalesReader.open(salesFile, options.columns().seriesIdColumn())) {
+      LocalDate expectedFirst = store.dateOf(store.dayCount());
+      int periodDays = store.periodDays();
+      if (!reader.firstDate().equals(expectedFirst)) {
+        throw new InputFormatException(salesFile, 1, 0, "expected the first date column to be " + expectedFirst
+            + " (the " + (periodDays == Periods.DAILY ? "day" : "period") + " after the store's last "
+            + (periodDays == Periods.DAILY ? "day " : "period, from ") + store.dateOf(store.dayCount() - 1)
+            + "), found " + reader.firstDate());
+      }
+      if (reader.dayCount() > 1 && reader.periodDays() != periodDays) {
+        throw new InputFormatException(salesFile, 1, 0, "date columns " + reader.periodDays() + " days apart: "
+            + "expected the store's step of " + periodDays + (periodDays == 1 ? " day" : " days") + " ("
+            + Periods.describe(periodDays) + ")");
+      }
+      int[] fileColumnOfAttribute = matchAttributes(store.attributes(), reader);
+      return readNewDays(store, reader, fileColumnOfAttribute);
+    }
+  }
 
   private static int[] matchAttributes(SeriesAttributes attributes, WideSalesReader reader) {
     List<String> storeNames = attributes.attributeNames();
@@ -128,7 +132,7 @@ public final class StoreAppend {
     return fileColumn;
   }
 
-  private static NewDays readNewDays(SalesStore store, WideSalesReader reader, int[] fileColumnOfAttribute)
+  private static AppendedDays readNewDays(SalesStore store, WideSalesReader reader, int[] fileColumnOfAttribute)
       throws IOException {
     int dayCount = reader.dayCount();
     int[][] unitsBySeries = new int[store.seriesCount()][];
@@ -159,10 +163,10 @@ public final class StoreAppend {
         newUnits.add(row.clone());
       }
     }
-    return new NewDays(dayCount, unitsBySeries, newAttributes, newUnits);
+    return new AppendedDays(dayCount, unitsBySeries, newAttributes, newUnits, ZeroFills.NONE);
   }
 
-  private static IngestResult rewrite(SalesStore store, Path temp, NewDays newDays, AppendOptions options,
+  private static IngestResult rewrite(SalesStore store, Path temp, AppendedDays newDays, AppendOptions options,
       MemoryBudget budget) throws IOException {
     int oldDayCount = store.dayCount();
     int dayCount = oldDayCount + newDays.dayCount();
@@ -191,7 +195,6 @@ public final class StoreAppend {
         writer.addSeries(newDays.newSeriesAttributes().get(n), row);
       }
       StoreManifest.Fill oldFill = store.manifest().fill();
-      writer.addZeroFilledItemDays(oldFill == null ? 0 : oldFill.zeroFilledItemDays());
       List<String> warnings = new ArrayList<>();
       if (options.pricesFile() != null) {
         CalendarAndPrices.writePrices(writer, options.pricesFile(), options.columns(), warnings);
@@ -203,12 +206,16 @@ public final class StoreAppend {
       } else {
         writer.writeCalendar(store.calendar());
       }
+      ClosureTable closures;
       if (options.closuresFile() != null) {
-        CalendarAndPrices.writeClosures(writer, options.closuresFile(), options.columns(), warnings);
+        closures = CalendarAndPrices.writeClosures(writer, options.closuresFile(), options.columns(), warnings);
       } else {
-        writer.writeClosures(extended(store.closures(), store.seriesCount()),
-            oldFill == null ? 0 : oldFill.partlyClosedItemDays());
+        closures = extended(store.closures(), store.seriesCount());
+        writer.writeClosures(closures, oldFill == null ? 0 : oldFill.partlyClosedItemDays());
       }
+      // A day with no row that a closure covers counts as closed, as at ingest.
+      long zeroFilledNow = newDays.zeroFills().count() - newDays.zeroFills().closedCount(closures, oldDayCount);
+      writer.addZeroFilledItemDays((oldFill == null ? 0 : oldFill.zeroFilledItemDays()) + zeroFilledNow);
       if (options.plan() != null) {
         CalendarAndPrices.writePlan(writer, options.plan(), warnings);
       } else {
@@ -219,7 +226,7 @@ public final class StoreAppend {
       sources.addAll(StoreIngest.sourcesOf(options.salesFile(), options.calendarFile(), options.pricesFile(),
           options.closuresFile(), options.plan() == null ? null : options.plan().file()));
       StoreManifest manifest = writer.finish(sources);
-      FillWarnings.add(manifest, 0, warnings);
+      FillWarnings.add(manifest, zeroFilledNow, warnings);
       return new IngestResult(manifest, warnings);
     }
   }

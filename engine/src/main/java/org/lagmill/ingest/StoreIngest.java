@@ -66,7 +66,7 @@ public final class StoreIngest {
             : CalendarAndPrices.writeClosures(writer, options.closuresFile(), options.columns(), warnings);
         if (longRead[0] != null) {
           writer.addZeroFilledItemDays(longRead[0].zeroFilledItemDays()
-              - longRead[0].zeroFilledClosedItemDays(closures));
+              - longRead[0].zeroFills().closedCount(closures, 0));
         }
         if (options.plan() != null) {
           CalendarAndPrices.writePlan(writer, options.plan(), warnings);
