@@ -97,7 +97,7 @@ class CalendarPricesWiringTest {
           temp.resolve("store")).withPricesFile(renamed).withColumns(ColumnNames.DEFAULTS.withFromColumn("start")),
           budget));
       assertEquals(renamed + ", line 1: no column 'start' in header item,store,from,price: expected one (or name it "
-          + "with --from-column)", e.getMessage());
+          + "with --prices-from-column)", e.getMessage());
       assertSameContents(before, contents(temp.resolve("store")));
       assertEquals(List.of("calendar.csv", "gap.csv", "prices.csv", "sales.csv", "store", "zero.csv"),
           StoreIngestTest.listing(temp), "no temporary directory is left behind");
