@@ -13,6 +13,7 @@ import java.util.List;
 import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.TestSeeds;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.StoreManifest;
@@ -23,7 +24,7 @@ import org.lagmill.store.StoreManifest;
  * stores, series that appear or fall silent in the second part, and closed days with no row.
  */
 class LongAppendTest {
-  private static final long MASTER_SEED = Long.getLong("lagmill.seed", 20240611L);
+  private static final long MASTER_SEED = TestSeeds.master(20240611L);
 
   @TempDir Path temp;
 
