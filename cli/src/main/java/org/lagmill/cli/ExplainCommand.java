@@ -50,6 +50,10 @@ final class ExplainCommand implements Callable<Integer> {
       + "horizon)")
   Integer horizonDays;
 
+  @Option(names = "--plan-carry-forward", description = "when the plan ends before the horizon does, carry each "
+      + "key's last plan values forward (counted in a warning) instead of stopping")
+  boolean planCarryForward;
+
   @Option(names = "--json", description = "print every period's parts as JSON")
   boolean json;
 
@@ -64,7 +68,7 @@ final class ExplainCommand implements Callable<Integer> {
         ModelSet models = ModelDirectory.open(model, opened);
         Stage stage = run.stage("explain")) {
       int horizon = horizonDays == null ? models.spec().horizonDays() : horizonDays;
-      HorizonCoverage.check(opened, models.spec(), horizon).warnings()
+      HorizonCoverage.check(opened, models.spec(), horizon, planCarryForward).warnings()
           .forEach(w -> System.err.println("warning: " + w));
       charts = DriverChartBuilder.build(opened, hierarchyOptions.hierarchy(opened).bind(opened), models,
           horizon, seriesIds, SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, stage.budget());

@@ -79,6 +79,10 @@ final class ForecastCommand implements Callable<Integer> {
       "adds to --series (e.g. --where store=north-3 --where department=bakery)"})
   List<String> conditions = List.of();
 
+  @Option(names = "--plan-carry-forward", description = {"when the plan ends before the horizon does, carry each",
+      "key's last plan values forward (counted in a warning, run.json and the report) instead of stopping"})
+  boolean planCarryForward;
+
   @Option(names = "--quiet", description = "print nothing but errors")
   boolean quiet;
 
@@ -101,7 +105,8 @@ final class ForecastCommand implements Callable<Integer> {
         ModelSet models = ModelDirectory.open(model, opened)) {
       ModelManifest manifest = ModelDirectory.readManifest(model);
       int horizon = horizonDays == null ? models.spec().horizonDays() : horizonDays;
-      HorizonCoverage coverage = HorizonCoverage.check(opened, models.spec(), horizon);
+      HorizonCoverage coverage = HorizonCoverage.check(opened, models.spec(), horizon, planCarryForward);
+      run.record().result("planCarriedSeriesPeriods", coverage.planCarriedSeriesPeriods());
       if (!quiet) {
         coverage.warnings().forEach(w -> System.err.println("warning: " + w));
         if (!manifest.storeFingerprint().equals(opened.fingerprint())) {
@@ -147,6 +152,7 @@ final class ForecastCommand implements Callable<Integer> {
       }
       run.record().configure("store", store.toString()).configure("model", model.toString())
           .configure("horizonDays", horizon).configure("intervals", intervals)
+          .configure("planCarryForward", planCarryForward)
           .configure("series", chosenSeriesIds).configure("where", conditions)
           .result("seriesCount", forecastSeriesCount).result("forecastFile", out.toString())
           .result("firstDate", opened.dateOf(opened.dayCount()).toString())
@@ -154,6 +160,10 @@ final class ForecastCommand implements Callable<Integer> {
       if (reportDir != null) {
         ReportData.Builder report = RunReport.start("lagmill forecast", "lagmill forecast --store " + store
             + " --model " + model, store.toString());
+        if (coverage.planCarriedSeriesPeriods() > 0) {
+          report.caution(ReportData.DEFAULT_CAUTION + " The promotion plan ended before the horizon: its last values "
+              + "were carried forward for " + coverage.planCarriedSeriesPeriods() + " series-periods.");
+        }
         report.data(ReportAssembler.dataSummary(StoreSummary.of(opened)))
             .training(ReportAssembler.training(manifest.partitions()));
         if (backtestDir != null) {

@@ -16,15 +16,18 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.eval.BaselineForecaster;
 import org.lagmill.eval.BaselineKind;
+import org.lagmill.features.FeatureSpecYaml;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.TruncatedHistory;
 
 /**
  * A weekly data set shaped here on purpose unlike the demo chain (columns sku, shop, banner; week-start headers; a
- * weekly holiday calendar; a price file of one row per sku-shop-week with promotion weeks; a yearly demand cycle)
+ * weekly holiday calendar; a price file of one row per sku-shop-week with promotion weeks; a yearly demand cycle; a
+ * plan of end-cap displays and flyers per banner and week, dated Mondays in one banner and Wednesdays in the other)
  * goes ingest → backtest → train → forecast → evaluate → report, and the season length is checked by hand against
- * seasonal naive on the ingested store.
+ * seasonal naive on the ingested store. The plan's coverage of the horizon is checked: a plan appended alone that
+ * ends early stops the forecast unless carried forward, and a store without the model's plan columns is refused.
  */
 class WeeklyPipelineTest {
   private static final ObjectMapper JSON = new ObjectMapper();
@@ -46,7 +49,8 @@ class WeeklyPipelineTest {
     Path shortSales = dir.resolve("sales-short.csv");
     Path calendar = dir.resolve("calendar.csv");
     Path prices = dir.resolve("prices.csv");
-    writeData(units, full, shortSales, calendar, prices);
+    Path plan = dir.resolve("plan.csv");
+    writeData(units, full, shortSales, calendar, prices, plan);
     Path config = Files.writeString(dir.resolve("weekly.yaml"), """
         horizonDays: 8
         strategy: direct
@@ -58,12 +62,16 @@ class WeeklyPipelineTest {
     Path storeA = dir.resolve("A");
     Path storeB = dir.resolve("B");
     MainRun ingested = MainRun.of("ingest", "--sales", shortSales.toString(), "--calendar", calendar.toString(),
-        "--date-column", "week_start", "--prices", prices.toString(), "--store", storeA.toString());
+        "--date-column", "week_start", "--prices", prices.toString(), "--plan", plan.toString(),
+        "--plan-date-column", "week_of", "--store", storeA.toString());
     expectOk(ingested);
     assertTrue(ingested.out().startsWith("ingested 24 series x 142 weeks (2022-01-03 .. 2024-09-16, weekly)"),
         ingested.out());
+    assertTrue(ingested.err().contains("warning: " + (WEEKS + FUTURE_WEEKS) + " plan dates are not the first day of a "
+        + "week: each holds for the week containing it"), ingested.err());
     expectOk(MainRun.of("ingest", "--sales", full.toString(), "--calendar", calendar.toString(), "--date-column",
-        "week_start", "--prices", prices.toString(), "--store", storeB.toString(), "--quiet"));
+        "week_start", "--prices", prices.toString(), "--plan", plan.toString(), "--plan-date-column", "week_of",
+        "--store", storeB.toString(), "--quiet"));
 
     Path backtest = dir.resolve("BT");
     MainRun backtested = MainRun.of("backtest", "--store", storeB.toString(), "--config", config.toString(),
@@ -78,6 +86,9 @@ class WeeklyPipelineTest {
     Path model = dir.resolve("M");
     expectOk(MainRun.of("train", "--store", storeA.toString(), "--config", config.toString(), "--model",
         model.toString(), "--rounds", "20", "--deterministic", "--threads", "1", "--quiet"));
+    String specYaml = JSON.readTree(model.resolve("manifest.json").toFile()).get("featureSpecYaml").asText();
+    assertEquals(List.of("end_cap", "flyer"), FeatureSpecYaml.parse(specYaml, "manifest").planColumns(),
+        "the model records its plan columns: " + specYaml);
     Path forecast = dir.resolve("forecast.csv");
     Path report = dir.resolve("R");
     MainRun forecasted = MainRun.of("forecast", "--store", storeA.toString(), "--model", model.toString(), "--out",
@@ -107,6 +118,40 @@ class WeeklyPipelineTest {
     MainRun text = MainRun.of("evaluate", "--store", storeB.toString(), "--forecast", forecast.toString());
     expectOk(text);
     assertTrue(text.out().contains("2024-09-23 .. 2024-11-11, 8 weeks"), text.out());
+
+    // A plan appended alone that ends with the horizon's second week stops the forecast; carried forward, it runs.
+    Path shortPlan = Files.writeString(dir.resolve("plan-short.csv"), "banner,week_of,end_cap,flyer\n"
+        + "market," + FIRST_WEEK.plusWeeks(WEEKS - HORIZON) + ",1,0\n"
+        + "market," + FIRST_WEEK.plusWeeks(WEEKS - HORIZON + 1) + ",0,1\n");
+    MainRun appended = MainRun.of("append", "--store", storeA.toString(), "--plan", shortPlan.toString(),
+        "--plan-date-column", "week_of");
+    expectOk(appended);
+    assertTrue(appended.err().contains("warning: 8 of 24 series match no plan row: their plan features read 0 "
+        + "(nothing planned)"), appended.err());
+    MainRun uncovered = MainRun.of("forecast", "--store", storeA.toString(), "--model", model.toString(), "--out",
+        dir.resolve("uncovered.csv").toString());
+    assertEquals(2, uncovered.exitCode(), uncovered.err());
+    assertTrue(uncovered.err().contains("the plan ends with the week of 2024-09-30 but the forecast needs it through "
+        + "2024-11-11: banner=market has no plan from 2024-10-07 (nor has any other series with plan rows); append a "
+        + "plan that reaches the horizon's end (lagmill append --store DIR --plan FILE) or forecast with "
+        + "--plan-carry-forward to carry each key's last values forward"), uncovered.err());
+    Path carriedOut = dir.resolve("carried.csv");
+    MainRun carried = MainRun.of("forecast", "--store", storeA.toString(), "--model", model.toString(), "--out",
+        carriedOut.toString(), "--plan-carry-forward");
+    expectOk(carried);
+    assertTrue(carried.err().contains("warning: plan values carried forward for 96 series-weeks: the plan ends with "
+        + "the week of 2024-09-30, so 16 series with plan rows read their last plan values over the last 6 weeks of "
+        + "the horizon"), carried.err());
+    JsonNode carriedRun = JSON.readTree(dir.resolve("carried.csv.run.json").toFile());
+    assertEquals(96, carriedRun.get("results").get("planCarriedSeriesPeriods").asLong(), carriedRun.toString());
+    Path storeC = dir.resolve("C");
+    expectOk(MainRun.of("ingest", "--sales", shortSales.toString(), "--calendar", calendar.toString(),
+        "--date-column", "week_start", "--store", storeC.toString(), "--quiet"));
+    MainRun noPlan = MainRun.of("forecast", "--store", storeC.toString(), "--model", model.toString(), "--out",
+        dir.resolve("no-plan.csv").toString());
+    assertEquals(2, noPlan.exitCode(), noPlan.err());
+    assertTrue(noPlan.err().contains("the features read plan columns end_cap, flyer but the store holds no plan; "
+        + "ingest or append one with those columns (lagmill append --store DIR --plan FILE)"), noPlan.err());
 
     Files.delete(backtest.resolve("report.html"));
     expectOk(MainRun.of("report", "--run", backtest.toString()));
@@ -141,7 +186,7 @@ class WeeklyPipelineTest {
   }
 
   /** Weekly Poisson demand with a yearly cycle, promotion weeks and holiday weeks; every sku sells from week 0. */
-  private static void writeData(int[][] units, Path full, Path shortSales, Path calendar, Path prices)
+  private static void writeData(int[][] units, Path full, Path shortSales, Path calendar, Path prices, Path plan)
       throws Exception {
     SplittableRandom random = new SplittableRandom(MASTER_SEED);
     StringBuilder header = new StringBuilder("sku,shop,banner");
@@ -154,6 +199,17 @@ class WeeklyPipelineTest {
       int weekOfYear = w % 52;
       holiday[w] = weekOfYear == 51 || weekOfYear == 0 || weekOfYear == 14;
       cal.append(FIRST_WEEK.plusWeeks(w)).append(',').append(holiday[w] ? 1 : 0).append('\n');
+    }
+    // End caps and flyers per banner and week, known ahead: a dense weekly grid, the corner banner's dated Wednesdays.
+    boolean[][] endCap = new boolean[2][WEEKS + FUTURE_WEEKS];
+    StringBuilder planFile = new StringBuilder("banner,week_of,end_cap,flyer\n");
+    for (int b = 0; b < 2; b++) {
+      for (int w = 0; w < WEEKS + FUTURE_WEEKS; w++) {
+        endCap[b][w] = random.nextInt(6) == 0;
+        boolean flyer = random.nextInt(8) == 0;
+        planFile.append(b == 0 ? "market" : "corner").append(',').append(FIRST_WEEK.plusWeeks(w).plusDays(2L * b))
+            .append(',').append(endCap[b][w] ? 1 : 0).append(',').append(flyer ? 1 : 0).append('\n');
+      }
     }
     StringBuilder priceFile = new StringBuilder("sku,shop,from,price\n");
     StringBuilder rowsFull = new StringBuilder();
@@ -174,7 +230,8 @@ class WeeklyPipelineTest {
             continue;
           }
           double season = 1 + 0.8 * Math.sin(2 * Math.PI * (w % 52) / 52.0);
-          double mean = level * season * (promo ? 1.6 : 1.0) * (holiday[w] ? 1.4 : 1.0);
+          double mean = level * season * (promo ? 1.6 : 1.0) * (holiday[w] ? 1.4 : 1.0)
+              * (endCap[shop == 2 ? 1 : 0][w] ? 1.5 : 1.0);
           units[s][w] = poisson(random, mean);
           row.append(',').append(units[s][w]);
           if (w == WEEKS - HORIZON - 1) {
@@ -192,6 +249,7 @@ class WeeklyPipelineTest {
     Files.writeString(shortSales, header.substring(0, cut) + "\n" + rowsShort);
     Files.writeString(calendar, cal);
     Files.writeString(prices, priceFile);
+    Files.writeString(plan, planFile);
   }
 
   private static int poisson(SplittableRandom random, double mean) {

@@ -95,6 +95,9 @@ public final class FeaturePass implements RowStream {
       addKernel(price);
       tables += price.heapBytes();
     }
+    PlanKernel plan = new PlanKernel(history.plan(), spec.planColumns());
+    addKernel(plan);
+    tables += plan.heapBytes();
     SeriesKernel series = new SeriesKernel(attributes, categoricalAttributes(spec, attributes), spec.seriesFeatures(),
         spec.shortestShiftDays());
     addKernel(series);
@@ -108,7 +111,7 @@ public final class FeaturePass implements RowStream {
     }
     if (names.isEmpty()) {
       throw new InvalidRequestException("the feature spec selects no feature for this history; enable lags, rolling"
-          + " windows, calendar, price or series features");
+          + " windows, calendar, price, plan or series features");
     }
     this.schema = new FeatureSchema(names, categorical);
     int lookbackDays = Math.max(lags.lookbackDays(), Math.max(rolling.lookbackDays(), series.lookbackDays()));

@@ -88,6 +88,7 @@ public final class FeatureSpec {
   private final List<String> priceGroupAttributesOrNull;
   private final List<String> categoricalAttributesOrNull;
   private final List<SeriesFeature> seriesFeatures;
+  private final List<String> planColumnsOrNull;
   private final LocalDate fromDate;
   private final LocalDate untilDate;
   private final boolean skipPreLaunch;
@@ -105,6 +106,7 @@ public final class FeatureSpec {
     priceGroupAttributesOrNull = b.priceGroupAttributes == null ? null : List.copyOf(b.priceGroupAttributes);
     categoricalAttributesOrNull = b.categoricalAttributes == null ? null : List.copyOf(b.categoricalAttributes);
     seriesFeatures = List.copyOf(b.seriesFeatures);
+    planColumnsOrNull = b.planColumns == null ? null : List.copyOf(b.planColumns);
     fromDate = b.fromDate;
     untilDate = b.untilDate;
     skipPreLaunch = b.skipPreLaunch;
@@ -134,6 +136,7 @@ public final class FeatureSpec {
     b.priceGroupAttributes = priceGroupAttributesOrNull;
     b.categoricalAttributes = categoricalAttributesOrNull;
     b.seriesFeatures = seriesFeatures;
+    b.planColumns = planColumnsOrNull;
     b.fromDate = fromDate;
     b.untilDate = untilDate;
     b.skipPreLaunch = skipPreLaunch;
@@ -176,6 +179,21 @@ public final class FeatureSpec {
   public List<String> categoricalAttributes() { return categoricalAttributesOrNull; }
 
   public List<SeriesFeature> seriesFeatures() { return seriesFeatures; }
+
+  /**
+   * Columns of the history's plan that become features {@code plan_<column>}, in this order, or null for every column
+   * the history's plan has. Training records the columns it used here, so a model reads the same columns at
+   * forecast time whatever else a later plan holds.
+   */
+  public List<String> planColumns() { return planColumnsOrNull; }
+
+  /**
+   * This spec with {@link #planColumns()} fixed to the columns of {@code planColumnNames} when it is unset (what
+   * training records); unchanged when already set.
+   */
+  public FeatureSpec withPlanColumnsResolved(List<String> planColumnNames) {
+    return planColumnsOrNull != null ? this : toBuilder().planColumns(planColumnNames).build();
+  }
 
   /** First date of training rows, or null for the start of the history. */
   public LocalDate fromDate() { return fromDate; }
@@ -246,6 +264,9 @@ public final class FeatureSpec {
     checkNoDuplicates("calendar feature", calendarFeatures.stream().map(CalendarFeature::configName).toList());
     checkNoDuplicates("price feature", priceFeatures.stream().map(PriceFeature::configName).toList());
     checkNoDuplicates("series feature", seriesFeatures.stream().map(SeriesFeature::configName).toList());
+    if (planColumnsOrNull != null) {
+      checkNoDuplicates("plan column", planColumnsOrNull);
+    }
   }
 
   private static void checkDays(String what, int[] days) {
@@ -292,7 +313,8 @@ public final class FeatureSpec {
         && calendarColumns == other.calendarColumns && priceFeatures.equals(other.priceFeatures)
         && Objects.equals(priceGroupAttributesOrNull, other.priceGroupAttributesOrNull)
         && Objects.equals(categoricalAttributesOrNull, other.categoricalAttributesOrNull)
-        && seriesFeatures.equals(other.seriesFeatures) && Objects.equals(fromDate, other.fromDate)
+        && seriesFeatures.equals(other.seriesFeatures) && Objects.equals(planColumnsOrNull, other.planColumnsOrNull)
+        && Objects.equals(fromDate, other.fromDate)
         && Objects.equals(untilDate, other.untilDate) && skipPreLaunch == other.skipPreLaunch;
   }
 
@@ -323,6 +345,7 @@ public final class FeatureSpec {
     private List<String> priceGroupAttributes;
     private List<String> categoricalAttributes;
     private List<SeriesFeature> seriesFeatures = List.of(SeriesFeature.values());
+    private List<String> planColumns;
     private LocalDate fromDate;
     private LocalDate untilDate;
     private boolean skipPreLaunch = true;
@@ -377,6 +400,12 @@ public final class FeatureSpec {
 
     public Builder seriesFeatureNames(List<String> names) {
       return seriesFeatures(names.stream().map(SeriesFeature::parse).toList());
+    }
+
+    /** Null restores the default (every column of the history's plan); an empty list takes none. */
+    public Builder planColumns(List<String> names) {
+      planColumns = names == null ? null : new ArrayList<>(names);
+      return this;
     }
 
     public Builder fromDate(LocalDate date) { fromDate = date; return this; }

@@ -32,6 +32,8 @@ public final class FeatureSpecTemplate {
       new Key("categoricalAttributes", "attributes whose codes become categorical columns attr_<name>; unset: every"
           + " attribute except series_id"),
       new Key("seriesFeatures", "features of the series' own history: days_since_first_sale, zero_run"),
+      new Key("planColumns", "columns of the store's plan that become features plan_<name>; [] takes none; unset:"
+          + " every column the plan has (training records the list in the model)"),
       new Key("fromDate", "first date of training rows (yyyy-mm-dd); unset: the start of the history"),
       new Key("untilDate", "last date of training rows (yyyy-mm-dd); unset: the end of the history"),
       new Key("skipPreLaunch", "true: a series' training rows start at its first sale plus the longest lag"));

@@ -26,7 +26,8 @@ import org.lagmill.io.InvalidRequestException;
 public final class FeatureSpecYaml {
   static final List<String> KEYS = List.of("horizonDays", "strategy", "lagDays", "rollingWindowDays",
       "rollingShiftDays", "rollingStats", "calendarFeatures", "calendarColumns", "priceFeatures",
-      "priceGroupAttributes", "categoricalAttributes", "seriesFeatures", "fromDate", "untilDate", "skipPreLaunch");
+      "priceGroupAttributes", "categoricalAttributes", "seriesFeatures", "planColumns", "fromDate", "untilDate",
+      "skipPreLaunch");
 
   private static final YAMLMapper MAPPER = YAMLMapper.builder(
           YAMLFactory.builder().disable(YAMLGenerator.Feature.WRITE_DOC_START_MARKER).build())
@@ -85,7 +86,7 @@ public final class FeatureSpecYaml {
   @JsonAutoDetect(fieldVisibility = JsonAutoDetect.Visibility.ANY)
   @JsonPropertyOrder({"horizonDays", "strategy", "lagDays", "rollingWindowDays", "rollingShiftDays", "rollingStats",
       "calendarFeatures", "calendarColumns", "priceFeatures", "priceGroupAttributes", "categoricalAttributes",
-      "seriesFeatures", "fromDate", "untilDate", "skipPreLaunch"})
+      "seriesFeatures", "planColumns", "fromDate", "untilDate", "skipPreLaunch"})
   static final class Document {
     Integer horizonDays;
     String strategy;
@@ -99,6 +100,7 @@ public final class FeatureSpecYaml {
     List<String> priceGroupAttributes;
     List<String> categoricalAttributes;
     List<String> seriesFeatures;
+    List<String> planColumns;
     String fromDate;
     String untilDate;
     Boolean skipPreLaunch;
@@ -117,6 +119,7 @@ public final class FeatureSpecYaml {
       d.priceGroupAttributes = spec.priceGroupAttributes();
       d.categoricalAttributes = spec.categoricalAttributes();
       d.seriesFeatures = spec.seriesFeatures().stream().map(FeatureSpec.SeriesFeature::configName).toList();
+      d.planColumns = spec.planColumns();
       d.fromDate = spec.fromDate() == null ? null : spec.fromDate().toString();
       d.untilDate = spec.untilDate() == null ? null : spec.untilDate().toString();
       d.skipPreLaunch = spec.skipPreLaunch();
@@ -155,6 +158,7 @@ public final class FeatureSpecYaml {
       if (seriesFeatures != null) {
         b.seriesFeatureNames(seriesFeatures);
       }
+      b.planColumns(planColumns);
       b.fromDate(date("fromDate", fromDate));
       b.untilDate(date("untilDate", untilDate));
       if (skipPreLaunch != null) {

@@ -73,13 +73,10 @@ public interface PlanTable {
   }
 
   /** Largest number of change points of any key: what a reader sizes its per-key buffers by. */
-  default int maxChangeCount(int seriesCount) {
+  default int maxChangeCount() {
     int max = 0;
-    for (int s = 0; s < seriesCount; s++) {
-      int key = keyOf(s);
-      if (key != NO_KEY) {
-        max = Math.max(max, changeCount(key));
-      }
+    for (int k = 0; k < keyCount(); k++) {
+      max = Math.max(max, changeCount(k));
     }
     return max;
   }

@@ -31,6 +31,8 @@ public final class ModelTraining {
 
   public static ModelSet train(SalesHistory history, TrainingPlan plan, MemoryBudget budget,
       ProgressListener progress) {
+    // The plan columns trained on are fixed in the models' spec, so a forecast reads exactly these.
+    plan = plan.withSpec(plan.spec().withPlanColumnsResolved(history.plan().columnNames()));
     checkWindows(history, plan);
     Map<String, int[]> partitionSeries = partitionSeries(history, plan.partitionAttribute());
     float[] weights = plan.salesValueWeights()

@@ -43,6 +43,11 @@ public record TrainingPlan(FeatureSpec spec, TrainParameters trainParameters, Da
         salesValueWeights, refit);
   }
 
+  public TrainingPlan withSpec(FeatureSpec value) {
+    return new TrainingPlan(value, trainParameters, datasetParameters, cutDayIndex, validationDays, partitionAttribute,
+        salesValueWeights, refit);
+  }
+
   public TrainingPlan withRefit(boolean value) {
     return new TrainingPlan(spec, trainParameters, datasetParameters, cutDayIndex, validationDays, partitionAttribute,
         salesValueWeights, value);

@@ -61,7 +61,7 @@ class FeatureSpecYamlTest {
         () -> FeatureSpecYaml.parse("horizonDays: 28\nlags: [28]\n", "features.yaml"));
     assertEquals("features.yaml line 2: unknown key 'lags'; allowed: horizonDays, strategy, lagDays,"
         + " rollingWindowDays, rollingShiftDays, rollingStats, calendarFeatures, calendarColumns, priceFeatures,"
-        + " priceGroupAttributes, categoricalAttributes, seriesFeatures, fromDate, untilDate, skipPreLaunch",
+        + " priceGroupAttributes, categoricalAttributes, seriesFeatures, planColumns, fromDate, untilDate, skipPreLaunch",
         e.getMessage());
   }
 

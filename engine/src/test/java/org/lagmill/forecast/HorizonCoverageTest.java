@@ -13,6 +13,8 @@ import org.lagmill.store.ArraySalesHistory;
 import org.lagmill.store.ArraySeriesAttributes;
 import org.lagmill.store.DayCalendar;
 import org.lagmill.store.PriceTable;
+import org.lagmill.store.ArrayPlanTable;
+import org.lagmill.store.PlanTable;
 
 class HorizonCoverageTest {
   private static final FeatureSpec SPEC = FeatureSpec.builder().horizonDays(7).lagDays(7).rollingWindowDays(7).build();
@@ -41,6 +43,37 @@ class HorizonCoverageTest {
     assertEquals(List.of("2 series have no price at all: their price features are missing",
         "2 series have no price set in the last week or the horizon: their last price is carried forward over the"
             + " horizon"), coverage.warnings());
+  }
+
+  /**
+   * Hand-worked: 30 sales days from 2024-01-01; a plan keyed by series_id for s1 and s3 only, reaching day 33
+   * (2024-02-03). A 4-day horizon (through day 33) is covered; 7 days (through 02-06) are not: s1 is the first series
+   * with plan rows and has none from 02-04. Carrying forward counts 2 series × 3 days.
+   */
+  @Test
+  void shouldRequireThePlanToReachTheHorizonOrCountWhatIsCarried() {
+    int[] keyBySeries = {PlanTable.NO_KEY, 0, PlanTable.NO_KEY, 1, PlanTable.NO_KEY, PlanTable.NO_KEY};
+    PlanTable plan = new ArrayPlanTable(List.of("series_id"), List.of("promo"), keyBySeries,
+        new int[][] {{3, 33}, {10}}, new float[][] {{1f, 0f}, {1f}}, 33);
+    ArraySalesHistory history = history(60, PriceTable.EMPTY).withPlan(plan);
+    assertEquals(0, HorizonCoverage.check(history, SPEC, 4).planCarriedSeriesPeriods());
+    IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> HorizonCoverage.check(history,
+        SPEC, 7));
+    assertEquals("the plan ends on 2024-02-03 but the forecast needs it through 2024-02-06: series_id=s1 has no plan"
+        + " from 2024-02-04 (nor has any other series with plan rows); append a plan that reaches the horizon's end"
+        + " (lagmill append --store DIR --plan FILE) or forecast with --plan-carry-forward to carry each key's last"
+        + " values forward", e.getMessage());
+    HorizonCoverage carried = HorizonCoverage.check(history, SPEC, 7, true);
+    assertEquals(6, carried.planCarriedSeriesPeriods());
+    assertEquals(List.of("plan values carried forward for 6 series-days: the plan ends on 2024-02-03, so 2 series "
+        + "with plan rows read their last plan values over the last 3 days of the horizon"), carried.warnings());
+    assertEquals(0, HorizonCoverage.check(history, SPEC.toBuilder().planColumns(List.of()).build(), 7)
+        .planCarriedSeriesPeriods(), "a model that reads no plan column needs no plan");
+    e = assertThrows(IllegalArgumentException.class, () -> HorizonCoverage.check(history, SPEC.toBuilder()
+        .planColumns(List.of("display")).build(), 4));
+    assertEquals("the features read plan column 'display', which the store's plan does not have (its columns: "
+        + "promo); append a plan with that column (lagmill append --store DIR --plan FILE) or train again",
+        e.getMessage());
   }
 
   private static ArraySalesHistory history(int calendarDays, PriceTable prices) {

@@ -2,42 +2,26 @@ package org.lagmill.ingest;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
-import java.nio.file.Files;
 import java.nio.file.Path;
-import java.time.LocalDate;
-import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.HashSet;
 import java.util.List;
-import java.util.Set;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import org.lagmill.store.ArraySeriesAttributes;
 import org.lagmill.store.PlanTable;
 
-/**
- * The plan reader against a slow obvious reference on seeded random plans shaped differently on purpose: attributes
- * named sku, shop and dept (sku under dept), keys at every level (none, sku, shop, dept×shop, sku×shop), both forms,
- * daily and weekly stores with dates off the week's first day, rows before the first period and past the last, keys no
- * series has, series with no plan row, value columns of any name. The reference reads the raw rows for every series
- * and period with no sorting and no change points.
- */
+/** The plan reader against {@link RandomPlans}' slow reference on seeded random plans of every shape. */
 class PlanFileReaderReferenceTest {
   private static final long MASTER_SEED = Long.getLong("lagmill.seed", 20240611L);
-  private static final LocalDate FIRST = LocalDate.of(2024, 1, 1);
 
   @TempDir Path temp;
-
-  /** One raw plan row as written to the file. */
-  private record Row(String[] keyValues, long epochDay, float[] values, boolean known) {}
 
   @Test
   void shouldMatchTheSlowReferenceOnRandomPlans() throws Exception {
     for (int round = 0; round < 40; round++) {
       long seed = MASTER_SEED * 31 + round;
       try {
-        checkOne(new SplittableRandom(seed), round);
+        checkOne(RandomPlans.generate(new SplittableRandom(seed), round, 0, temp));
       } catch (AssertionError | RuntimeException e) {
         throw new AssertionError("seed " + seed + " (round " + round + ", -Dlagmill.seed=" + MASTER_SEED + "): "
             + e.getMessage(), e);
@@ -45,176 +29,31 @@ class PlanFileReaderReferenceTest {
     }
   }
 
-  private void checkOne(SplittableRandom random, int round) throws Exception {
-    int periodDays = random.nextBoolean() ? 1 : 7;
-    int dayCount = 10 + random.nextInt(30);
-    int deptCount = 1 + random.nextInt(3);
-    int skuCount = 2 + random.nextInt(6);
-    int shopCount = 1 + random.nextInt(4);
-    String[] names = {"sku", "dept", "shop"};
-    List<String[]> series = new ArrayList<>();
-    for (int sku = 0; sku < skuCount; sku++) {
-      for (int shop = 0; shop < shopCount; shop++) {
-        // Not every sku sells in every shop: a long export leaves such pairs out.
-        if (random.nextInt(5) > 0 || series.isEmpty()) {
-          series.add(new String[] {"k" + sku, "d" + (sku % deptCount), "shop-" + shop});
-        }
-      }
-    }
-    ArraySeriesAttributes attributes = ArraySeriesAttributes.of(names, series.toArray(new String[0][]));
-    int[][] keyChoices = {{}, {0}, {2}, {1, 2}, {0, 2}};
-    int[] keyAttributes = keyChoices[random.nextInt(keyChoices.length)];
-    boolean dateForm = random.nextBoolean();
-    int columnCount = 1 + random.nextInt(3);
-    String[] columns = new String[columnCount];
-    for (int c = 0; c < columnCount; c++) {
-      columns[c] = List.of("promo", "depth", "end_cap", "flyer", "tv.spot").get((round + c) % 5);
-    }
-    String timeColumn = dateForm ? "day" : "valid_from";
-
-    // Distinct key values from the series, plus one no series has.
-    List<String[]> keyValues = new ArrayList<>();
-    Set<String> seen = new HashSet<>();
-    for (String[] values : series) {
-      String[] key = new String[keyAttributes.length];
-      for (int k = 0; k < key.length; k++) {
-        key[k] = values[keyAttributes[k]];
-      }
-      // Leave some keys without any row: their series read 0.
-      if (seen.add(String.join("/", key)) && random.nextInt(6) > 0) {
-        keyValues.add(key);
-      }
-    }
-    if (keyAttributes.length > 0) {
-      String[] unknown = new String[keyAttributes.length];
-      Arrays.fill(unknown, "nowhere");
-      keyValues.add(unknown);
-    }
-    List<Row> rows = new ArrayList<>();
-    int periodsSpan = dayCount + 8;
-    for (String[] key : keyValues) {
-      boolean known = key.length == 0 || !key[0].equals("nowhere");
-      Set<Integer> usedPeriods = new HashSet<>();
-      int rowCount = random.nextInt(7);
-      for (int i = 0; i < rowCount; i++) {
-        // From three periods before the store's first to past its last.
-        int period = random.nextInt(periodsSpan) - 3;
-        if (!usedPeriods.add(period)) {
-          continue;
-        }
-        int offset = periodDays == 1 ? 0 : (random.nextInt(3) == 0 ? 1 + random.nextInt(6) : 0);
-        long epochDay = FIRST.toEpochDay() + (long) period * periodDays + offset;
-        float[] values = new float[columnCount];
-        for (int c = 0; c < columnCount; c++) {
-          values[c] = random.nextInt(3) == 0 ? 0f : random.nextInt(4) * 0.25f;
-        }
-        rows.add(new Row(key, epochDay, values, known));
-      }
-    }
-    java.util.Collections.shuffle(rows, new java.util.Random(random.nextLong()));
-
-    StringBuilder csv = new StringBuilder();
-    List<String> header = new ArrayList<>();
-    for (int c = 0; c < columnCount; c++) {
-      header.add(columns[c]);
-    }
-    header.add(random.nextInt(header.size() + 1), timeColumn);
-    List<String> keyNames = new ArrayList<>();
-    for (int a : keyAttributes) {
-      keyNames.add(names[a]);
-    }
-    List<String> fullHeader = new ArrayList<>(keyNames);
-    fullHeader.addAll(header);
-    csv.append(String.join(",", fullHeader)).append('\n');
-    for (Row row : rows) {
-      List<String> cells = new ArrayList<>(Arrays.asList(row.keyValues()));
-      for (String column : header) {
-        if (column.equals(timeColumn)) {
-          cells.add(LocalDate.ofEpochDay(row.epochDay()).toString());
-        } else {
-          cells.add(Float.toString(row.values()[Arrays.asList(columns).indexOf(column)]));
-        }
-      }
-      csv.append(String.join(",", cells)).append('\n');
-    }
-    Path file = Files.writeString(temp.resolve("plan-" + round + ".csv"), csv);
-
-    PlanFileReader.PlanReadResult read = PlanFileReader.read(file, FIRST, periodDays, dayCount, attributes,
-        series.size(), dateForm ? "day" : "date", dateForm ? "from" : "valid_from");
+  private static void checkOne(RandomPlans random) {
+    PlanFileReader.PlanReadResult read = random.read();
     PlanTable plan = read.plan();
-    assertEquals(dateForm ? PlanFileReader.Form.DATE : PlanFileReader.Form.FROM, read.form());
-    assertEquals(List.of(columns), plan.columnNames());
-    assertEquals(keyNames, plan.keyAttributeNames());
-
-    long expectedUnknown = rows.stream().filter(r -> !r.known()).count();
-    long expectedOffBoundary = rows.stream().filter(r -> r.known()
-        && Math.floorMod(r.epochDay() - FIRST.toEpochDay(), periodDays) != 0).count();
-    int expectedReach = -1;
-    for (Row r : rows) {
-      if (r.known()) {
-        expectedReach = Math.max(expectedReach, periodOf(r.epochDay(), periodDays));
-      }
-    }
+    assertEquals(random.dateForm ? PlanFileReader.Form.DATE : PlanFileReader.Form.FROM, read.form());
+    assertEquals(List.of(random.columns), plan.columnNames());
+    assertEquals(random.keyNames, plan.keyAttributeNames());
+    long expectedUnknown = random.rows.stream().filter(r -> !r.known()).count();
+    long expectedOffBoundary = random.rows.stream().filter(r -> r.known()
+        && Math.floorMod(r.epochDay() - RandomPlans.FIRST.toEpochDay(), random.periodDays) != 0).count();
     assertEquals(expectedUnknown, read.unknownKeyRowCount());
     assertEquals(expectedOffBoundary, read.offBoundaryRowCount());
-    assertEquals(expectedReach, plan.reachDayIndex());
+    assertEquals(random.reach(), plan.reachDayIndex());
     int withoutPlan = 0;
-    for (int s = 0; s < series.size(); s++) {
-      List<Row> own = rowsOf(rows, series.get(s), keyAttributes);
-      if (own.isEmpty()) {
+    for (int s = 0; s < random.series.size(); s++) {
+      if (random.rowsOf(s).isEmpty()) {
         withoutPlan++;
         assertEquals(PlanTable.NO_KEY, plan.keyOf(s), "series " + s);
       }
-      for (int p = 0; p < periodsSpan + 4; p++) {
-        for (int c = 0; c < columnCount; c++) {
-          float expected = dateForm ? slowDateValue(own, p, c, periodDays, expectedReach)
-              : slowFromValue(own, p, c, periodDays);
-          assertEquals(expected, plan.valueAt(s, c, p), "series " + s + " " + Arrays.toString(series.get(s))
-              + " period " + p + " column " + columns[c]);
+      for (int p = 0; p < random.periodsSpan + 4; p++) {
+        for (int c = 0; c < random.columns.length; c++) {
+          assertEquals(random.slowValue(s, p, c), plan.valueAt(s, c, p), "series " + s + " "
+              + Arrays.toString(random.series.get(s)) + " period " + p + " column " + random.columns[c]);
         }
       }
     }
     assertEquals(withoutPlan, read.seriesWithoutPlanCount());
-  }
-
-  private static int periodOf(long epochDay, int periodDays) {
-    return (int) Math.floorDiv(epochDay - FIRST.toEpochDay(), periodDays);
-  }
-
-  private static List<Row> rowsOf(List<Row> rows, String[] seriesValues, int[] keyAttributes) {
-    List<Row> own = new ArrayList<>();
-    for (Row row : rows) {
-      boolean match = true;
-      for (int k = 0; k < keyAttributes.length; k++) {
-        match &= row.keyValues()[k].equals(seriesValues[keyAttributes[k]]);
-      }
-      if (match) {
-        own.add(row);
-      }
-    }
-    return own;
-  }
-
-  /** From-form: the row with the latest date on or before the period's last day; 0 when there is none. */
-  private static float slowFromValue(List<Row> own, int period, int column, int periodDays) {
-    long lastDay = FIRST.toEpochDay() + (long) (period + 1) * periodDays - 1;
-    Row best = null;
-    for (Row row : own) {
-      if (row.epochDay() <= lastDay && (best == null || row.epochDay() > best.epochDay())) {
-        best = row;
-      }
-    }
-    return best == null ? 0f : best.values()[column];
-  }
-
-  /** Date-form: the row dated within the period, else 0; past the reach the values of the reach's period carry on. */
-  private static float slowDateValue(List<Row> own, int period, int column, int periodDays, int reach) {
-    int at = period > reach ? reach : period;
-    for (Row row : own) {
-      if (periodOf(row.epochDay(), periodDays) == at) {
-        return row.values()[column];
-      }
-    }
-    return 0f;
   }
 }
