@@ -220,7 +220,9 @@ public final class StoreAppend {
         CalendarAndPrices.writePlan(writer, options.plan(), warnings);
       } else {
         // Kept as stored; series new to the store have no plan row until a plan file is appended.
-        writer.writePlan(extended(store.plan(), store.seriesCount()));
+        PlanTable plan = store.plan();
+        int oldSeriesCount = store.seriesCount();
+        writer.writePlan(PlanTable.withSeriesKeys(plan, s -> s < oldSeriesCount ? plan.keyOf(s) : PlanTable.NO_KEY));
       }
       List<StoreManifest.SourceFile> sources = new ArrayList<>(store.manifest().sources());
       sources.addAll(StoreIngest.sourcesOf(options.salesFile(), options.calendarFile(), options.pricesFile(),
@@ -238,21 +240,6 @@ public final class StoreAppend {
       @Override public int rangeCount(int s) { return s < oldSeriesCount ? closures.rangeCount(s) : 0; }
       @Override public int firstDayIndex(int s, int k) { return closures.firstDayIndex(s, k); }
       @Override public int lastDayIndex(int s, int k) { return closures.lastDayIndex(s, k); }
-    };
-  }
-
-  /** The old plan, with no plan key for series added by the append. */
-  private static PlanTable extended(PlanTable plan, int oldSeriesCount) {
-    return new PlanTable() {
-      @Override public int columnCount() { return plan.columnCount(); }
-      @Override public String columnName(int c) { return plan.columnName(c); }
-      @Override public List<String> keyAttributeNames() { return plan.keyAttributeNames(); }
-      @Override public int keyOf(int s) { return s < oldSeriesCount ? plan.keyOf(s) : NO_KEY; }
-      @Override public int keyCount() { return plan.keyCount(); }
-      @Override public int changeCount(int k) { return plan.changeCount(k); }
-      @Override public int changeDayIndex(int k, int i) { return plan.changeDayIndex(k, i); }
-      @Override public float changeValue(int k, int i, int c) { return plan.changeValue(k, i, c); }
-      @Override public int reachDayIndex() { return plan.reachDayIndex(); }
     };
   }
 

@@ -48,6 +48,25 @@ public interface PlanTable {
   /** Last period index the plan speaks for: the period of its file's latest date; -1 for no plan. */
   int reachDayIndex();
 
+  /**
+   * A view of {@code plan} with the same keys and change points whose series get their keys from
+   * {@code keyOfSeries}: what a writer stores when it keeps the plan while the series change (an append adding
+   * series, a shard taking some of them).
+   */
+  static PlanTable withSeriesKeys(PlanTable plan, java.util.function.IntUnaryOperator keyOfSeries) {
+    return new PlanTable() {
+      @Override public int columnCount() { return plan.columnCount(); }
+      @Override public String columnName(int c) { return plan.columnName(c); }
+      @Override public List<String> keyAttributeNames() { return plan.keyAttributeNames(); }
+      @Override public int keyOf(int s) { return keyOfSeries.applyAsInt(s); }
+      @Override public int keyCount() { return plan.keyCount(); }
+      @Override public int changeCount(int k) { return plan.changeCount(k); }
+      @Override public int changeDayIndex(int k, int i) { return plan.changeDayIndex(k, i); }
+      @Override public float changeValue(int k, int i, int c) { return plan.changeValue(k, i, c); }
+      @Override public int reachDayIndex() { return plan.reachDayIndex(); }
+    };
+  }
+
   /** True when the store holds no plan. */
   default boolean isEmpty() {
     return columnCount() == 0;
