@@ -60,6 +60,11 @@ final class IngestCommand implements Callable<Integer> {
 
   @Mixin PlanOptions plan;
 
+  @Option(names = "--period", paramLabel = "PERIOD", description = {"the store's period: day, week or a number of",
+      "days; checked against the sales dates (default: detected, from the most common gap between long sales'",
+      "dates or the step of wide date columns)"})
+  String period;
+
   @Option(names = "--date-window", paramLabel = "FROM..TO", description = "plausible dates: any date read outside "
       + "stops the run (default: 1900-01-01..2200-12-31)")
   String dateWindow;
@@ -78,7 +83,7 @@ final class IngestCommand implements Callable<Integer> {
         .withColumns(columns.names())
         .withSalesFormat(shape.format()).withMissingRows(shape.missingRows())
         .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures)
-        .withPlan(plan.source());
+        .withPlan(plan.source()).withPeriodDays(period == null ? null : Periods.parse("--period", period));
     try (Run run = Run.start("ingest", MemoryLimitOption.bytes(memoryLimitBytes))) {
       run.record().configure("sales", sales.toString())
           .configure("calendar", calendar == null ? null : calendar.toString())
@@ -106,6 +111,9 @@ final class IngestCommand implements Callable<Integer> {
             manifest.firstDate(), manifest.lastLocalDate(), manifest.periodDaysOrDaily() == Periods.DAILY ? ""
             : ", " + Periods.describe(manifest.periodDaysOrDaily()), store, manifest.binaryBytes(),
             peakOffHeapBytes);
+        if (result.periodNote() != null) {
+          spec.commandLine().getOut().println(result.periodNote());
+        }
         printFill(spec.commandLine().getOut(), manifest);
       }
     }

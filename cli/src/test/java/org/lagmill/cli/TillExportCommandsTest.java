@@ -119,4 +119,23 @@ class TillExportCommandsTest {
     assertTrue(overlap.err().contains(week + ", line 2, column 4: day '2025-01-06' is before 2025-01-08: expected "
         + "dates from 2025-01-08 on (the period after the store's last)"), overlap.err());
   }
+
+  /** The console says which period the store got and from what; --period overrides detection. */
+  @Test
+  void shouldSayWhichPeriodAndTakeAGivenOne() throws Exception {
+    Path sales = Files.writeString(temp.resolve("till.csv"), SPARSE);
+    MainRun detected = MainRun.of("ingest", "--sales", sales.toString(), "--store", temp.resolve("a").toString());
+    assertEquals(0, detected.exitCode(), detected.err());
+    // Dates 01-01, 01-02, 01-04: gaps 1 and 2, the smaller wins the tie.
+    assertTrue(detected.out().contains("\nperiod daily: detected from the sales dates, the most common gap between "
+        + "consecutive dates (1 of 2 gaps)\n"), detected.out());
+    MainRun given = MainRun.of("ingest", "--sales", sales.toString(), "--store", temp.resolve("b").toString(),
+        "--period", "day");
+    assertTrue(given.out().contains("\nperiod daily: given with --period\n"), given.out());
+    MainRun bad = MainRun.of("ingest", "--sales", sales.toString(), "--store", temp.resolve("c").toString(),
+        "--period", "fortnight");
+    assertEquals(ExitCodes.USAGE_ERROR, bad.exitCode());
+    assertTrue(bad.err().contains("--period must be day, week or a number of days 1 to 366, got 'fortnight'"),
+        bad.err());
+  }
 }

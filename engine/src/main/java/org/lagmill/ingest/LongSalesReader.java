@@ -71,10 +71,16 @@ public final class LongSalesReader {
    * Where the days of a file read onto a store go: a fixed first date and step, as for an append, instead of the
    * file's own earliest date and most common gap.
    *
-   * @param firstDate the date of day index 0 (the store's next period); an earlier date in the file is an error
-   * @param periodDays the store's step in days
+   * @param firstDate the date of day index 0 (the store's next period), an earlier date in the file being an error;
+   *     null for the file's earliest date (a period given with {@code --period} at ingest)
+   * @param periodDays the step in days
    */
-  public record Frame(LocalDate firstDate, int periodDays) {}
+  public record Frame(LocalDate firstDate, int periodDays) {
+    /** The file's own first date, a given step. */
+    public static Frame ofPeriod(int periodDays) {
+      return new Frame(null, Periods.requireValid(periodDays));
+    }
+  }
 
   /**
    * As {@link #read(Path, String, String, String, MissingRows, MemoryBudget, SeriesSink)}, with day index 0 and the
@@ -123,8 +129,11 @@ public final class LongSalesReader {
         throw new InputFormatException(file, 0, 0, "no sales rows: expected at least one row after the header");
       }
     }
-    int periodDays = frame == null ? periodDaysOf(distinctEpochDays) : frame.periodDays();
-    if (frame != null) {
+    DetectedPeriod detected = frame == null ? periodDaysOf(distinctEpochDays) : null;
+    int periodDays = frame == null ? detected.periodDays() : frame.periodDays();
+    String stepSource = frame == null ? "the most common gap between its dates" : frame.firstDate() == null
+        ? "given with --period" : "the store's step";
+    if (frame != null && frame.firstDate() != null) {
       long frameFirst = frame.firstDate().toEpochDay();
       if (minEpochDay < frameFirst) {
         LocalDate earliest = LocalDate.ofEpochDay(minEpochDay);
@@ -151,7 +160,7 @@ public final class LongSalesReader {
         periodDays, dayCount, seriesCount);
     try (NativeIntArray matrix = new NativeIntArray(budget, (long) seriesCount * dayCount)) {
       matrix.fill(0, (int) matrix.length(), SalesHistory.UNKNOWN_UNITS);
-      fill(file, layout, dateColumn, seriesIndexByKey, minEpochDay, periodDays, dayCount, matrix);
+      fill(file, layout, dateColumn, seriesIndexByKey, minEpochDay, periodDays, stepSource, dayCount, matrix);
       sink.begin(header);
       int[] units = new int[dayCount];
       int missingValue = missingRows == MissingRows.ZERO ? 0 : SalesHistory.UNKNOWN_UNITS;
@@ -174,12 +183,22 @@ public final class LongSalesReader {
         }
         sink.accept(valuesBySeries.get(s), units, firstDayIndexBySeries[s]);
       }
-      return new LongSalesRead(header, zeroFills);
+      String periodNote = detected == null ? "period " + Periods.describe(periodDays) + ": " + stepSource
+          : "period " + Periods.describe(periodDays) + ": detected from the sales dates, the most common gap between "
+          + "consecutive dates (" + detected.gapCount() + " of " + detected.allGapCount() + " gaps)";
+      return new LongSalesRead(header, zeroFills, periodNote, detected != null && detected.allGapCount() > 0
+          && periodDays != Periods.DAILY && periodDays != Periods.WEEKLY);
     }
   }
 
+  /**
+   * A period read from the dates: the most common gap, how many consecutive date pairs have it, and how many pairs
+   * there are (0 for a single date).
+   */
+  record DetectedPeriod(int periodDays, int gapCount, int allGapCount) {}
+
   /** The most common gap between consecutive distinct dates, the smaller on a tie; 1 for a single date. */
-  static int periodDaysOf(LongOpenHashSet distinctEpochDays) {
+  static DetectedPeriod periodDaysOf(LongOpenHashSet distinctEpochDays) {
     long[] days = distinctEpochDays.toLongArray();
     Arrays.sort(days);
     Long2IntOpenHashMap countByGap = new Long2IntOpenHashMap();
@@ -193,12 +212,13 @@ public final class LongSalesReader {
         bestCount = count;
       }
     }
-    return (int) Math.min(bestGap, Periods.MAX_PERIOD_DAYS);
+    return new DetectedPeriod((int) Math.min(bestGap, Periods.MAX_PERIOD_DAYS), bestCount,
+        Math.max(0, days.length - 1));
   }
 
   private static void fill(Path file, Layout layout, String dateColumn,
-      Object2IntOpenHashMap<String> seriesIndexByKey, long minEpochDay, int periodDays, int dayCount,
-      NativeIntArray matrix) {
+      Object2IntOpenHashMap<String> seriesIndexByKey, long minEpochDay, int periodDays, String stepSource,
+      int dayCount, NativeIntArray matrix) {
     try (CsvSource source = CsvSource.open(file)) {
       source.readHeader();
       for (CsvRecord record = source.next(); record != null; record = source.next()) {
@@ -209,8 +229,8 @@ public final class LongSalesReader {
           LocalDate first = LocalDate.ofEpochDay(minEpochDay);
           LocalDate before = first.plusDays(daysAfterFirst / periodDays * periodDays);
           throw new InputFormatException(file, source.lineNumber(), layout.dateIndex + 1, dateColumn + " '" + dateText
-              + "' is off the file's step of " + periodDays + " days (the most common gap between its dates, from "
-              + first + "): expected " + before + " or " + before.plusDays(periodDays));
+              + "' is off the file's step of " + periodDays + " days (" + stepSource + ", from " + first
+              + "): expected " + before + " or " + before.plusDays(periodDays));
         }
         int dayIndex = (int) (daysAfterFirst / periodDays);
         String unitsText = record.getField(layout.unitsIndex);

@@ -8,6 +8,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.ClosureTable;
+import org.lagmill.store.Periods;
 import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreUpdate;
 import org.lagmill.store.StoreWriter;
@@ -50,8 +51,18 @@ public final class StoreIngest {
       List<String> warnings = new ArrayList<>();
       StoreManifest manifest;
       LongSalesRead[] longRead = new LongSalesRead[1];
+      String[] periodNote = new String[1];
       try (StoreWriter writer = format == SalesFormat.LONG ? writeLong(options, temp, stage, longRead)
-          : writeWide(options, temp, stage)) {
+          : writeWide(options, temp, stage, periodNote)) {
+        if (longRead[0] != null) {
+          periodNote[0] = longRead[0].periodNote();
+          if (longRead[0].unusualPeriod()) {
+            int days = longRead[0].header().periodDays();
+            warnings.add("the sales dates lie " + days + " days apart most often, so the store holds one value per "
+                + days + " days; if these are daily (or weekly) sales with some days missing, give --period day (or "
+                + "--period week)");
+          }
+        }
         if (options.pricesSource() != null) {
           writer.writePrices(options.pricesSource().apply(writer.attributes()));
         } else if (options.pricesFile() != null) {
@@ -76,14 +87,24 @@ public final class StoreIngest {
       // A new store's zero fills are all this run's.
       FillWarnings.add(manifest, manifest.fill().zeroFilledItemDays(), warnings);
       update.commit();
-      return new IngestResult(manifest, warnings);
+      return new IngestResult(manifest, warnings, periodNote[0]);
     }
   }
 
   /** Streams a wide file into a new writer; the writer is closed when this fails. */
-  private static StoreWriter writeWide(IngestOptions options, Path dir, MemoryBudget budget) throws IOException {
+  private static StoreWriter writeWide(IngestOptions options, Path dir, MemoryBudget budget, String[] periodNote)
+      throws IOException {
     try (WideSalesReader reader = WideSalesReader.open(options.salesFile(), options.seriesIdColumn())) {
-      StoreWriter writer = new StoreWriter(dir, reader.firstDate(), reader.periodDays(), reader.dayCount(),
+      Integer given = options.periodDays();
+      if (given != null && reader.dayCount() > 1 && reader.periodDays() != given) {
+        throw new InputFormatException(options.salesFile(), 1, 0, "date columns " + reader.periodDays() + " days "
+            + "apart: expected the step given with --period, " + given + (given == 1 ? " day" : " days"));
+      }
+      int periodDays = given != null ? given : reader.periodDays();
+      periodNote[0] = "period " + Periods.describe(periodDays) + ": " + (given != null ? "given with --period"
+          : reader.dayCount() > 1 ? "detected from the step between the date columns" : "daily, the default for a "
+          + "single date column");
+      StoreWriter writer = new StoreWriter(dir, reader.firstDate(), periodDays, reader.dayCount(),
           reader.attributeNames(), budget);
       try {
         copyRows(reader, writer);
@@ -109,7 +130,8 @@ public final class StoreIngest {
     StoreWriterSink sink = new StoreWriterSink(options.salesFile(), dir, columns.seriesIdColumn(), budget);
     try {
       LongSalesRead read = LongSalesReader.read(options.salesFile(), columns.dateColumn(), columns.unitsColumn(),
-          columns.seriesIdColumn(), options.missingRows(), budget, sink);
+          columns.seriesIdColumn(), options.missingRows(), options.periodDays() == null ? null
+          : LongSalesReader.Frame.ofPeriod(options.periodDays()), budget, sink);
       readOut[0] = read;
       return sink.writer();
     } catch (UncheckedIOException e) {

@@ -67,4 +67,29 @@ public final class Periods {
   public static long periodIndexOf(LocalDate firstDate, int periodDays, long epochDay) {
     return Math.floorDiv(epochDay - firstDate.toEpochDay(), (long) periodDays);
   }
+
+  /**
+   * The period an option names: {@code day} (1), {@code week} (7), or a number of days in
+   * {@code [1, MAX_PERIOD_DAYS]}.
+   *
+   * @throws InvalidRequestException naming the option, the value and what is allowed
+   */
+  public static int parse(String option, String text) {
+    if (text.equalsIgnoreCase("day")) {
+      return DAILY;
+    }
+    if (text.equalsIgnoreCase("week")) {
+      return WEEKLY;
+    }
+    try {
+      int days = Integer.parseInt(text.trim());
+      if (days >= 1 && days <= MAX_PERIOD_DAYS) {
+        return days;
+      }
+    } catch (NumberFormatException e) {
+      // the message below says what is allowed
+    }
+    throw new InvalidRequestException(option + " must be day, week or a number of days 1 to " + MAX_PERIOD_DAYS
+        + ", got '" + text + "'");
+  }
 }
