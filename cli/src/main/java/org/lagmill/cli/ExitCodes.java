@@ -19,6 +19,8 @@ public final class ExitCodes {
   public static final int STORE_BUSY = 7;
   /** The Java heap (or the JVM's native memory) ran out: not a budget refusal, the process itself hit its limit. */
   public static final int JVM_OUT_OF_MEMORY = 8;
+  /** A distributed training stopped: another rank failed, was killed, did not connect in time, or disagreed. */
+  public static final int RANK_FAILED = 9;
 
   private ExitCodes() {}
 }

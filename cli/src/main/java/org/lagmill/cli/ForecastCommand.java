@@ -22,6 +22,7 @@ import org.lagmill.run.RunReport;
 import org.lagmill.run.Stage;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.SeriesSelection;
+import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreSummary;
 import org.lagmill.training.ModelDirectory;
 import org.lagmill.training.ModelManifest;
@@ -109,7 +110,11 @@ final class ForecastCommand implements Callable<Integer> {
       run.record().result("planCarriedSeriesPeriods", coverage.planCarriedSeriesPeriods());
       if (!quiet) {
         coverage.warnings().forEach(w -> System.err.println("warning: " + w));
-        if (!manifest.storeFingerprint().equals(opened.fingerprint())) {
+        StoreManifest.Shard shard = opened.manifest().shard();
+        // A model trained over every shard records the fingerprint of the store they were split from.
+        boolean sameStore = manifest.storeFingerprint().equals(opened.fingerprint())
+            || shard != null && manifest.storeFingerprint().equals(shard.sourceFingerprint());
+        if (!sameStore) {
           System.err.println("warning: the model was trained on another version of the store (fingerprint "
               + manifest.storeFingerprint() + ", this store " + opened.fingerprint() + "); retrain after a refresh");
         }

@@ -11,6 +11,7 @@ import org.lagmill.memory.MemoryBudgetExceededException;
 import org.lagmill.io.OutputRefusedException;
 import org.lagmill.store.StoreBusyException;
 import org.lagmill.store.StoreNotices;
+import org.lagmill.training.RankFailureException;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 
@@ -72,6 +73,9 @@ public final class Main {
     if (t instanceof InvalidRequestException || t instanceof InvalidPathException) {
       return ExitCodes.USAGE_ERROR;
     }
+    if (t instanceof RankFailureException) {
+      return ExitCodes.RANK_FAILED;
+    }
     if (t instanceof StoreBusyException) {
       return ExitCodes.STORE_BUSY;
     }
@@ -94,7 +98,8 @@ public final class Main {
     }
     if (t instanceof InputFormatException || t instanceof CorruptFileException
         || t instanceof MemoryBudgetExceededException || t instanceof InvalidRequestException
-        || t instanceof InvalidPathException || t instanceof IOException) {
+        || t instanceof InvalidPathException || t instanceof IOException
+        || t instanceof RankFailureException) {
       return t.getMessage();
     }
     return "internal error: " + t + " (please report it with the command you ran)";

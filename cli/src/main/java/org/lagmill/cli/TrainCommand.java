@@ -51,6 +51,25 @@ final class TrainCommand implements Callable<Integer> {
 
   @Mixin TrainingOptions training;
 
+  @Option(names = "--machines", paramLabel = "HOST:PORT,…", description = {"train one model over several machines,",
+      "each holding one shard (lagmill shard), on LightGBM's distributed learner: every rank's host:port in rank",
+      "order; rank 0 also uses its port + 1 (docs/distributed.md)"})
+  String machines;
+
+  @Option(names = "--rank", paramLabel = "K", description = "this machine's position in --machines, from 0; rank 0 "
+      + "writes the model directory")
+  Integer rank;
+
+  @Option(names = "--tree-learner", paramLabel = "NAME", defaultValue = "data", description = {"with --machines:",
+      "data (histograms reduced over all ranks) or voting (top features voted, less traffic)",
+      "(default: ${DEFAULT-VALUE})"})
+  String treeLearner;
+
+  @Option(names = "--rank-timeout", paramLabel = "SECONDS", defaultValue = "600", description = {"with --machines:",
+      "longest wait for another rank (to connect, or at a step every rank takes together) before this one stops;",
+      "LightGBM's own socket time-out is this in whole minutes, at least 1 (default: ${DEFAULT-VALUE})"})
+  int rankTimeoutSeconds;
+
   @Override
   public Integer call() throws Exception {
     FeatureSpec spec = training.featureSpec();
@@ -66,6 +85,9 @@ final class TrainCommand implements Callable<Integer> {
             + " .. " + opened.dateOf(opened.dayCount() - 1));
       }
       TrainingPlan plan = training.plan(spec, cut);
+      if (machines != null || rank != null) {
+        return DistributedTrainRun.run(this, opened, plan, run);
+      }
       run.record().configure("store", store.toString()).configure("model", model.toString())
           .configure("cutDate", opened.dateOf(cut).toString()).configure("plan", plan.toString());
       Stage trainStage = run.stage("train");

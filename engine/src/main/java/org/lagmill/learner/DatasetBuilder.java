@@ -60,6 +60,27 @@ public final class DatasetBuilder {
    * @throws IllegalArgumentException when the stream is empty, holds 2^31 rows or more, or has a NaN/infinite label
    */
   public TrainingDataset build(RowStream rows) {
+    return build(rows, rows.rowCount());
+  }
+
+  /**
+   * Builds this rank's share of a distributed training Dataset over an open {@link LearnerNetwork}: only
+   * {@code rows} (this rank's rows) are pushed, and LightGBM is told the row count over all ranks. Each rank draws
+   * its bin sample from its own rows; LightGBM bins a slice of the features on each rank from that rank's sample and
+   * exchanges the bin mappers, so every rank ends with the same bins (which therefore depend on how rows are split).
+   * Every rank must call this at the same point, with the same schema and parameters.
+   *
+   * @param distributedRowCount training rows over every rank, at least {@code rows.rowCount()}
+   */
+  public TrainingDataset buildDistributed(RowStream rows, long distributedRowCount) {
+    if (distributedRowCount < rows.rowCount()) {
+      throw new IllegalArgumentException("rows over all ranks (" + distributedRowCount + ") cannot be fewer than "
+          + "this rank's " + rows.rowCount());
+    }
+    return build(rows, distributedRowCount);
+  }
+
+  private TrainingDataset build(RowStream rows, long distributedRowCount) {
     FeatureSchema schema = rows.schema();
     int rowCount = checkedRowCount(rows);
     int sampleRowCount = Math.min(parameters.sampleRowCount(), rowCount);
@@ -73,16 +94,17 @@ public final class DatasetBuilder {
         throw new IllegalStateException("sample source promised " + sourceRowCount + " rows but produced "
             + sample.rowsSeen() + "; a RowStream must report its exact rowCount()");
       }
-      SWIGTYPE_p_void handle = createFromSample(sample, schema, sampleRowCount, rowCount);
+      SWIGTYPE_p_void handle = createFromSample(sample, schema, sampleRowCount, rowCount, distributedRowCount);
+      double weightSum;
       try {
-        pushRowsAndFinish(handle, rows, batch, rowCount);
+        weightSum = pushRowsAndFinish(handle, rows, batch, rowCount);
       } catch (RuntimeException | Error e) {
         lightgbmlib.LGBM_DatasetFree(handle);
         throw e;
       }
       DatasetStats stats = new DatasetStats(rowCount, schema.featureCount(), sampleRowCount,
           sample.keptValueCount(), residentBefore, ProcessMemory.residentBytes());
-      return new TrainingDataset(handle, schema, stats, false);
+      return new TrainingDataset(handle, schema, stats, false, weightSum);
     }
   }
 
@@ -135,15 +157,16 @@ public final class DatasetBuilder {
     int returnCode = lightgbmlib.LGBM_DatasetCreateByReference(reference.handle(), rowCount, out);
     SWIGTYPE_p_void handle = Native.takeHandle(out);
     Native.check(returnCode, "LGBM_DatasetCreateByReference");
+    double weightSum;
     try (FeatureBatch batch = newBatch(schema, rowCount)) {
-      pushRowsAndFinish(handle, rows, batch, rowCount);
+      weightSum = pushRowsAndFinish(handle, rows, batch, rowCount);
     } catch (RuntimeException | Error e) {
       lightgbmlib.LGBM_DatasetFree(handle);
       throw e;
     }
     DatasetStats stats = new DatasetStats(rowCount, schema.featureCount(), 0, 0, residentBefore,
         ProcessMemory.residentBytes());
-    return new TrainingDataset(handle, schema, stats, true);
+    return new TrainingDataset(handle, schema, stats, true, weightSum);
   }
 
   /**
@@ -185,7 +208,7 @@ public final class DatasetBuilder {
     int sampledRowCount = Math.min(parameters.sampleRowCount(), rowCount);
     DatasetStats stats = new DatasetStats(rowCount, featureCount, sampledRowCount, 0, residentBefore,
         ProcessMemory.residentBytes());
-    return new TrainingDataset(handle, schema, stats, false);
+    return new TrainingDataset(handle, schema, stats, false, rowCount);
   }
 
   /** The Dataset parameter string a stream of {@code schema} with {@code rowCount} rows is built with. */
@@ -210,7 +233,8 @@ public final class DatasetBuilder {
    * Copies the kept sample into LightGBM's {@code double**}/{@code int**} column arrays and creates the empty
    * Dataset. The copies are transient: LightGBM reads them only inside the call.
    */
-  private SWIGTYPE_p_void createFromSample(RowSample sample, FeatureSchema schema, int sampleRowCount, int rowCount) {
+  private SWIGTYPE_p_void createFromSample(RowSample sample, FeatureSchema schema, int sampleRowCount, int rowCount,
+      long distributedRowCount) {
     int featureCount = schema.featureCount();
     long sampleBytes = sample.keptValueCount() * (Double.BYTES + Integer.BYTES)
         + (long) featureCount * (2L * Long.BYTES + Integer.BYTES);
@@ -235,9 +259,9 @@ public final class DatasetBuilder {
         lightgbmlib.intArray_setitem(keptCounts, column, kept);
       }
       SWIGTYPE_p_p_void out = lightgbmlib.new_voidpp();
-      // single machine: the local row count and the distributed row count are both the full row count
+      // one machine: the local and the distributed row count are the same; several: the sum over every rank
       int returnCode = lightgbmlib.LGBM_DatasetCreateFromSampledColumn(columnValues, columnPositions, featureCount,
-          keptCounts, sampleRowCount, rowCount, rowCount, parameterString(schema, rowCount), out);
+          keptCounts, sampleRowCount, rowCount, distributedRowCount, parameterString(schema, rowCount), out);
       SWIGTYPE_p_void handle = Native.takeHandle(out);
       Native.check(returnCode, "LGBM_DatasetCreateFromSampledColumn");
       return handle;
@@ -262,7 +286,8 @@ public final class DatasetBuilder {
    * fields. Manual finish matters: left to itself, LightGBM finishes the Dataset as soon as a push ends at the last
    * row, and would silently ignore any push after that.
    */
-  private void pushRowsAndFinish(SWIGTYPE_p_void handle, RowStream rows, FeatureBatch batch, int rowCount) {
+  /** @return the sum of the rows' weights, or the row count without weights (what LightGBM's metrics divide by) */
+  private double pushRowsAndFinish(SWIGTYPE_p_void handle, RowStream rows, FeatureBatch batch, int rowCount) {
     int featureCount = rows.schema().featureCount();
     Native.check(lightgbmlib.LGBM_DatasetSetWaitForManualFinish(handle, 1), "LGBM_DatasetSetWaitForManualFinish");
     try (NativeFloatArray labels = new NativeFloatArray(budget, rowCount);
@@ -291,7 +316,13 @@ public final class DatasetBuilder {
       if (parameters.useWeights()) {
         Native.check(lightgbmlib.LGBM_DatasetSetField(handle, "weight", Native.voidPointer(weights.address()),
             rowCount, lightgbmlibConstants.C_API_DTYPE_FLOAT32), "LGBM_DatasetSetField(weight)");
+        double weightSum = 0;
+        for (int row = 0; row < rowCount; row++) {
+          weightSum += weights.get(row);
+        }
+        return weightSum;
       }
+      return rowCount;
     }
   }
 

@@ -200,6 +200,24 @@ public final class TrainedModel implements AutoCloseable {
   }
 
   /**
+   * The model as LightGBM text, exactly what {@link #saveTo} writes: ranks of a distributed training compare it to
+   * prove they hold the same model.
+   */
+  public String modelText() {
+    SWIGTYPE_p_long_long textLength = lightgbmlib.new_int64_tp();
+    try {
+      String text = lightgbmlib.LGBM_BoosterSaveModelToStringSWIG(handle(), 0, 0,
+          lightgbmlibConstants.C_API_FEATURE_IMPORTANCE_SPLIT, MODEL_TEXT_INITIAL_BYTES, textLength);
+      if (text == null) {
+        throw new LearnerException("LightGBM LGBM_BoosterSaveModelToString failed: " + lightgbmlib.LGBM_GetLastError());
+      }
+      return text;
+    } finally {
+      lightgbmlib.delete_int64_tp(textLength);
+    }
+  }
+
+  /**
    * The objective the model was trained for, read from the model's own text ({@code objective=…}), so a model loaded
    * from a file knows it too; tells how a raw score becomes a prediction ({@link Objective#hasLogLink()}).
    *
@@ -207,18 +225,7 @@ public final class TrainedModel implements AutoCloseable {
    */
   public Objective objective() {
     if (objective == null) {
-      SWIGTYPE_p_long_long textLength = lightgbmlib.new_int64_tp();
-      try {
-        String text = lightgbmlib.LGBM_BoosterSaveModelToStringSWIG(handle(), 0, 0,
-            lightgbmlibConstants.C_API_FEATURE_IMPORTANCE_SPLIT, MODEL_TEXT_INITIAL_BYTES, textLength);
-        if (text == null) {
-          throw new LearnerException("LightGBM LGBM_BoosterSaveModelToString failed: "
-              + lightgbmlib.LGBM_GetLastError());
-        }
-        objective = Objective.ofModelText(text);
-      } finally {
-        lightgbmlib.delete_int64_tp(textLength);
-      }
+      objective = Objective.ofModelText(modelText());
     }
     return objective;
   }

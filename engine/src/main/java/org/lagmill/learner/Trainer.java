@@ -42,6 +42,36 @@ public final class Trainer {
    * @param validation validation rows binned like {@code training}, or null
    */
   public TrainedModel train(TrainingDataset training, TrainingDataset validation, TrainingListener listener) {
+    return train(training, validation, validation != null, null, parameters.toLightGbmString(), listener);
+  }
+
+  /**
+   * Trains one rank's share of a distributed model over an open {@link LearnerNetwork}: the Booster grows every tree
+   * with {@code learner} over all ranks' rows, and after each iteration {@code reducer} turns this rank's validation
+   * loss into the loss over every rank's validation rows, so that every rank stops (and rolls back) at the same
+   * iteration. Every rank must call this with the same parameters and the same {@code validatingAnywhere}.
+   *
+   * @param validation this rank's validation rows, or null when it holds none
+   * @param validatingAnywhere whether any rank holds validation rows (then early stopping runs on every rank)
+   * @param machineCount ranks in the network, at least 2
+   */
+  public TrainedModel trainDistributed(TrainingDataset training, TrainingDataset validation,
+      boolean validatingAnywhere, TreeLearner learner, int machineCount, ValidationReducer reducer,
+      TrainingListener listener) {
+    if (learner == TreeLearner.SERIAL || machineCount < 2) {
+      throw new IllegalArgumentException("a distributed training needs the data or voting learner and at least 2 "
+          + "machines, got " + learner.lightGbmName() + " on " + machineCount);
+    }
+    if (validation != null && !validatingAnywhere) {
+      throw new IllegalArgumentException("this rank holds validation rows, so validatingAnywhere must be true");
+    }
+    String parameterText = parameters.toLightGbmString() + " tree_learner=" + learner.lightGbmName()
+        + " num_machines=" + machineCount;
+    return train(training, validation, validatingAnywhere, reducer, parameterText, listener);
+  }
+
+  private TrainedModel train(TrainingDataset training, TrainingDataset validation, boolean validating,
+      ValidationReducer reducer, String parameterText, TrainingListener listener) {
     if (training.isValidation()) {
       throw new IllegalArgumentException("training data must be a training Dataset, got a validation Dataset");
     }
@@ -50,7 +80,7 @@ public final class Trainer {
           + "shares the training Dataset's bins");
     }
     SWIGTYPE_p_p_void out = lightgbmlib.new_voidpp();
-    int returnCode = lightgbmlib.LGBM_BoosterCreate(training.handle(), parameters.toLightGbmString(), out);
+    int returnCode = lightgbmlib.LGBM_BoosterCreate(training.handle(), parameterText, out);
     SWIGTYPE_p_void booster = Native.takeHandle(out);
     Native.check(returnCode, "LGBM_BoosterCreate");
     TrainedModel model;
@@ -58,7 +88,7 @@ public final class Trainer {
       if (validation != null) {
         Native.check(lightgbmlib.LGBM_BoosterAddValidData(booster, validation.handle()), "LGBM_BoosterAddValidData");
       }
-      model = boost(booster, validation != null, listener);
+      model = boost(booster, validating, validation == null ? -1 : validation.weightSum(), reducer, listener);
     } catch (RuntimeException | Error e) {
       lightgbmlib.LGBM_BoosterFree(booster);
       throw e;
@@ -73,7 +103,12 @@ public final class Trainer {
     return model;
   }
 
-  private TrainedModel boost(SWIGTYPE_p_void booster, boolean validating, TrainingListener listener) {
+  /**
+   * @param localWeightSum this rank's validation weight sum, or -1 when it holds no validation rows
+   * @param reducer null on one machine
+   */
+  private TrainedModel boost(SWIGTYPE_p_void booster, boolean validating, double localWeightSum,
+      ValidationReducer reducer, TrainingListener listener) {
     int maxRounds = parameters.maxRounds();
     int patience = validating && parameters.earlyStoppingRounds() > 0
         ? parameters.earlyStoppingRounds() : Integer.MAX_VALUE;
@@ -96,15 +131,28 @@ public final class Trainer {
         trainedCount = iteration;
         double loss = Double.NaN;
         if (validating) {
-          Native.check(lightgbmlib.LGBM_BoosterGetEval(booster, VALIDATION_DATA_INDEX, evalCount, evals),
-              "LGBM_BoosterGetEval");
-          if (lightgbmlib.intp_value(evalCount) != METRIC_COUNT) {
-            throw new LearnerException("LightGBM evaluated " + lightgbmlib.intp_value(evalCount)
-                + " metrics, expected " + METRIC_COUNT + " (" + parameters.objective().metricName() + ", rmse)");
+          double rmse = Double.NaN;
+          if (localWeightSum >= 0) {
+            Native.check(lightgbmlib.LGBM_BoosterGetEval(booster, VALIDATION_DATA_INDEX, evalCount, evals),
+                "LGBM_BoosterGetEval");
+            if (lightgbmlib.intp_value(evalCount) != METRIC_COUNT) {
+              throw new LearnerException("LightGBM evaluated " + lightgbmlib.intp_value(evalCount)
+                  + " metrics, expected " + METRIC_COUNT + " (" + parameters.objective().metricName() + ", rmse)");
+            }
+            loss = lightgbmlib.doubleArray_getitem(evals, 0);
+            rmse = lightgbmlib.doubleArray_getitem(evals, 1);
           }
-          loss = lightgbmlib.doubleArray_getitem(evals, 0);
+          if (reducer != null) {
+            // LightGBM's metrics are weighted means over this rank's rows (rmse the root of one): weighted by each
+            // rank's weight sum they add up to the metric over every rank's rows.
+            double weight = Math.max(0, localWeightSum);
+            double[] global = reducer.reduce(iteration, weight == 0 ? 0 : loss * weight,
+                weight == 0 ? 0 : rmse * rmse * weight, weight);
+            loss = global[1] > 0 ? global[0] / global[1] : Double.NaN;
+            rmse = global[1] > 0 ? Math.sqrt(global[2] / global[1]) : Double.NaN;
+          }
           curve[iteration - 1] = loss;
-          rmseCurve[iteration - 1] = lightgbmlib.doubleArray_getitem(evals, 1);
+          rmseCurve[iteration - 1] = rmse;
           if (loss < bestLoss || patience == Integer.MAX_VALUE) {
             // with early stopping disabled every trained iteration is kept: the validation rows only report
             bestLoss = Math.min(loss, bestLoss);

@@ -16,10 +16,13 @@ public final class TrainingDataset implements AutoCloseable {
   private final FeatureSchema schema;
   private final DatasetStats stats;
   private final boolean validation;
+  private final double weightSum;
   private SWIGTYPE_p_void handle;
 
-  TrainingDataset(SWIGTYPE_p_void handle, FeatureSchema schema, DatasetStats stats, boolean validation) {
+  TrainingDataset(SWIGTYPE_p_void handle, FeatureSchema schema, DatasetStats stats, boolean validation,
+      double weightSum) {
     this.handle = handle;
+    this.weightSum = weightSum;
     this.schema = schema;
     this.stats = stats;
     this.validation = validation;
@@ -31,6 +34,11 @@ public final class TrainingDataset implements AutoCloseable {
 
   public long rowCount() {
     return stats.rowCount();
+  }
+
+  /** Sum of the rows' weights, or the row count when the rows carry none: what LightGBM's metrics divide by. */
+  public double weightSum() {
+    return weightSum;
   }
 
   public int featureCount() {

@@ -102,7 +102,15 @@ public record StoreManifest(int formatVersion, String firstDate, int dayCount,
    * @param sourceSeriesCount series in the whole store (the sum over every shard)
    */
   public record Shard(int part, int partCount, String attribute, String hash, String sourceName,
-      int sourceSeriesCount) {}
+      int sourceSeriesCount) {
+    /** Text {@link #sourceName} starts with when the shards were split from a store. */
+    public static final String STORE_SOURCE_PREFIX = "store ";
+
+    /** The fingerprint of the store the shards were split from, or null when they were not split from a store. */
+    public String sourceFingerprint() {
+      return sourceName.startsWith(STORE_SOURCE_PREFIX) ? sourceName.substring(STORE_SOURCE_PREFIX.length()) : null;
+    }
+  }
 
   public StoreManifest {
     attributeNames = List.copyOf(attributeNames);

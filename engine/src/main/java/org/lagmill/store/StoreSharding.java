@@ -66,7 +66,7 @@ public final class StoreSharding {
       List<StoreManifest> manifests = new ArrayList<>();
       for (int part = 0; part < partCount; part++) {
         StoreManifest.Shard record = new StoreManifest.Shard(part, partCount, attribute, ShardAssignment.HASH_NAME,
-            "store " + store.fingerprint(), store.seriesCount());
+            StoreManifest.Shard.STORE_SOURCE_PREFIX + store.fingerprint(), store.seriesCount());
         manifests.add(writeShard(store, seriesByPart.get(part).toIntArray(), record,
             out.resolve(shardDirectoryName(part)), stage));
       }

@@ -44,9 +44,23 @@ public final class DispersionEstimator {
     return clamp(pooledMeanSquare > 0 ? pooledExcess / pooledMeanSquare : 0);
   }
 
+  /** The pooled sums {@code {Σ excess, Σ mu²}}: additive over shards. */
+  public double[] pooledSums() {
+    return new double[] {pooledExcess, pooledMeanSquare};
+  }
+
+  /** The pooled dispersion of pooled sums (e.g. added over every shard), clamped to {@code [0, MAX_ALPHA]}. */
+  public static double pooledAlpha(double[] pooledSums) {
+    return clamp(pooledSums[1] > 0 ? pooledSums[0] / pooledSums[1] : 0);
+  }
+
   /** Per-series dispersions shrunk toward the pooled one. */
   public float[] alphas() {
-    double pooled = pooledAlpha();
+    return alphas(pooledAlpha());
+  }
+
+  /** Per-series dispersions shrunk toward {@code pooled} (in a distributed run, the pooled estimate of all shards). */
+  public float[] alphas(double pooled) {
     float[] alphas = new float[excessVarianceSum.length];
     for (int s = 0; s < alphas.length; s++) {
       alphas[s] = (float) clamp((excessVarianceSum[s] + PRIOR_MASS * pooled) / (meanSquareSum[s] + PRIOR_MASS));

@@ -41,9 +41,26 @@ public final class ModelDirectory {
 
   private ModelDirectory() {}
 
+  /** One series' negative binomial dispersion, as {@code dispersion.csv} holds it. */
+  public record SeriesDispersion(String seriesId, float dispersion) {}
+
   /** Writes the model set; {@code trainingFirstDate} etc. describe the windows the models learned from. */
   public static ModelManifest save(ModelSet models, Path dir, SalesHistory history, TrainingPlan plan,
       String storeFingerprint) throws IOException {
+    List<SeriesDispersion> rows = new ArrayList<>();
+    float[] dispersion = models.dispersionBySeries();
+    for (int s = 0; s < dispersion.length; s++) {
+      rows.add(new SeriesDispersion(history.attributes().seriesId(s), dispersion[s]));
+    }
+    return save(models, dir, history, plan, storeFingerprint, rows);
+  }
+
+  /**
+   * As {@link #save(ModelSet, Path, SalesHistory, TrainingPlan, String)} with the dispersion rows given: a distributed
+   * training's rank 0 writes every rank's series, so each shard finds its own when it forecasts.
+   */
+  public static ModelManifest save(ModelSet models, Path dir, SalesHistory history, TrainingPlan plan,
+      String storeFingerprint, List<SeriesDispersion> dispersionRows) throws IOException {
     StoreDirectories.recoverSiblings(dir);
     OutputTargets.checkFolder(dir.toAbsolutePath().normalize(), "model directory", ModelDirectory::looksLikeModel,
         Set.of());
@@ -58,7 +75,7 @@ public final class ModelDirectory {
         reports.add(partition.report());
       }
       Path dispersionFile = temp.resolve(ModelManifest.DISPERSION_FILE_NAME);
-      writeDispersion(dispersionFile, history, models.dispersionBySeries());
+      writeDispersion(dispersionFile, dispersionRows);
       ModelManifest manifest = new ModelManifest(ModelManifest.FORMAT_VERSION_CURRENT, Instant.now().toString(),
           storeFingerprint, FeatureSpecYaml.format(models.spec()), parameters(plan.trainParameters()),
           parameters(plan.datasetParameters()), history.dateOf(0).toString(),
@@ -178,11 +195,11 @@ public final class ModelDirectory {
     return new ModelSet(spec, manifest.partitionAttribute(), partitions, dispersion);
   }
 
-  private static void writeDispersion(Path file, SalesHistory history, float[] dispersion) throws IOException {
+  private static void writeDispersion(Path file, List<SeriesDispersion> rows) throws IOException {
     try (BufferedWriter out = Files.newBufferedWriter(file, StandardCharsets.UTF_8)) {
       out.write(SeriesIdentity.SERIES_ID + ",dispersion\n");
-      for (int s = 0; s < dispersion.length; s++) {
-        out.write(CsvCells.cell(history.attributes().seriesId(s)) + "," + dispersion[s] + "\n");
+      for (SeriesDispersion row : rows) {
+        out.write(CsvCells.cell(row.seriesId()) + "," + row.dispersion() + "\n");
       }
     }
   }

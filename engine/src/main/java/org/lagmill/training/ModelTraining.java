@@ -57,7 +57,7 @@ public final class ModelTraining {
     return new ModelSet(plan.spec(), plan.partitionAttribute(), partitions, dispersion.alphas());
   }
 
-  private static void checkWindows(SalesHistory history, TrainingPlan plan) {
+  static void checkWindows(SalesHistory history, TrainingPlan plan) {
     if (plan.cutDayIndex() >= history.dayCount() || plan.cutDayIndex() < 0) {
       throw new InvalidRequestException("the training cut (day " + plan.cutDayIndex() + ") must lie within the "
           + history.dayCount() + " days of history");
@@ -185,7 +185,7 @@ public final class ModelTraining {
   }
 
   /** Predicts the validation rows and feeds their errors to the dispersion estimate; returns the pooled estimate. */
-  private static double estimateDispersion(FeaturePass validationRows, TrainedModel model,
+  static double estimateDispersion(FeaturePass validationRows, TrainedModel model,
       DispersionEstimator dispersion, MemoryBudget budget, TrainingPlan plan) {
     if (validationRows.rowCount() == 0) {
       return 0;
@@ -206,7 +206,7 @@ public final class ModelTraining {
     return partitionOnly.pooledAlpha();
   }
 
-  private static List<PartitionReport.FeatureImportanceRow> importance(FeatureSchema schema, TrainedModel model) {
+  static List<PartitionReport.FeatureImportanceRow> importance(FeatureSchema schema, TrainedModel model) {
     double[] gain = model.featureImportance(FeatureImportance.GAIN);
     double[] split = model.featureImportance(FeatureImportance.SPLIT);
     List<PartitionReport.FeatureImportanceRow> rows = new ArrayList<>();

@@ -20,12 +20,33 @@ final class SalesValueWeights {
    * @return one weight per series with mean 1 before flooring; all 1 when nothing sold in the window
    */
   static float[] compute(SalesHistory history, int endDayIndex) {
+    double[] value = values(history, endDayIndex);
+    double total = 0;
+    for (double v : value) {
+      total += v;
+    }
+    return weights(value, total / Math.max(1, value.length));
+  }
+
+  /**
+   * Weights from sales values and the mean over every series (a shard passes the mean over all shards, so its weights
+   * are the ones the whole store would give).
+   */
+  static float[] weights(double[] value, double mean) {
+    float[] weights = new float[value.length];
+    for (int s = 0; s < weights.length; s++) {
+      weights[s] = mean > 0 ? Math.max(FLOOR_RELATIVE_TO_MEAN, (float) (value[s] / mean)) : 1f;
+    }
+    return weights;
+  }
+
+  /** Each series' units × price over the window before {@code endDayIndex} (units alone without prices). */
+  static double[] values(SalesHistory history, int endDayIndex) {
     int firstDay = Math.max(0, endDayIndex - WINDOW_DAYS);
     int dayCount = endDayIndex - firstDay;
     int[] units = new int[Math.max(0, dayCount)];
     float[] prices = new float[units.length];
     double[] value = new double[history.seriesCount()];
-    double total = 0;
     for (int s = 0; s < value.length; s++) {
       history.readUnits(s, firstDay, units, 0, dayCount);
       boolean priced = !history.prices().isEmpty();
@@ -38,13 +59,7 @@ final class SalesValueWeights {
           value[s] += units[d] * (Float.isNaN(price) ? 0 : price);
         }
       }
-      total += value[s];
     }
-    float[] weights = new float[value.length];
-    double mean = total / Math.max(1, value.length);
-    for (int s = 0; s < weights.length; s++) {
-      weights[s] = mean > 0 ? Math.max(FLOOR_RELATIVE_TO_MEAN, (float) (value[s] / mean)) : 1f;
-    }
-    return weights;
+    return value;
   }
 }

@@ -6,5 +6,10 @@
  *
  * <p>Sits between {@code learner} and {@code forecast}: may depend on {@code memory}, {@code store}, {@code features},
  * {@code learner} and {@code progress}; never on {@code ingest}, {@code forecast}, {@code eval} or {@code report}.
+ *
+ * <p>Over several machines: {@link org.lagmill.training.DistributedTraining} trains one rank's share on LightGBM's
+ * distributed learner; {@link org.lagmill.training.ClusterSpec} is the machine list and
+ * {@link org.lagmill.training.RankExchange} lagmill's own channel between ranks (rendezvous, identity check, sums and
+ * gathers over ranks, a rank that dies reported at once), beside LightGBM's network, which {@code learner} owns.
  */
 package org.lagmill.training;

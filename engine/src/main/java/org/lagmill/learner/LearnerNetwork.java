@@ -1,0 +1,59 @@
+package org.lagmill.learner;
+
+import com.microsoft.ml.lightgbm.lightgbmlib;
+
+/**
+ * LightGBM's own socket network between the ranks of one distributed training ({@code LGBM_NetworkInit}): while it is
+ * open, Datasets built here agree their bin boundaries with every rank and Boosters with a distributed tree learner
+ * ({@link TreeLearner}) reduce their histograms over it. LightGBM keeps one network per process, so at most one
+ * instance is open at a time.
+ *
+ * <p>Lifetime: open before building the Datasets, close ({@code LGBM_NetworkFree}) after the last Booster is done;
+ * idempotent. Not thread-safe.
+ */
+public final class LearnerNetwork implements AutoCloseable {
+  private static boolean anyOpen;
+  private boolean closed;
+
+  private LearnerNetwork() {}
+
+  /**
+   * Joins the network; returns once every listed machine is connected (LightGBM retries for up to
+   * {@code timeoutMinutes}).
+   *
+   * @param machines {@code host:port,host:port,…} of every rank, in rank order; LightGBM finds this process's own
+   *     entry by its local address and {@code localPort}
+   * @param localPort the port this rank listens on (its own entry's port)
+   * @param timeoutMinutes LightGBM's socket time-out in minutes (at least 1), for connecting and for every receive
+   * @param machineCount the number of entries, at least 2
+   * @throws LearnerException when LightGBM cannot bind the port or reach the others
+   */
+  public static synchronized LearnerNetwork join(String machines, int localPort, int timeoutMinutes,
+      int machineCount) {
+    if (machineCount < 2) {
+      throw new IllegalArgumentException("a network needs at least 2 machines, got " + machineCount);
+    }
+    if (timeoutMinutes < 1) {
+      throw new IllegalArgumentException("timeoutMinutes must be >= 1, got " + timeoutMinutes);
+    }
+    if (anyOpen) {
+      throw new IllegalStateException("LightGBM keeps one network per process and one is open already");
+    }
+    NativeLibrary.load();
+    Native.check(lightgbmlib.LGBM_NetworkInit(machines, localPort, timeoutMinutes, machineCount),
+        "LGBM_NetworkInit(" + machines + ", local port " + localPort + ")");
+    anyOpen = true;
+    return new LearnerNetwork();
+  }
+
+  @Override
+  public synchronized void close() {
+    if (!closed) {
+      closed = true;
+      synchronized (LearnerNetwork.class) {
+        anyOpen = false;
+      }
+      Native.check(lightgbmlib.LGBM_NetworkFree(), "LGBM_NetworkFree");
+    }
+  }
+}
