@@ -26,6 +26,9 @@ import org.lagmill.training.TrainingPlan;
  * the process at once with {@link ExitCodes#RANK_FAILED}.
  */
 final class DistributedTrainRun {
+  /** How long a rank whose LightGBM call failed waits for the exchange to report a dead rank first. */
+  private static final long PEER_REPORT_GRACE_MILLIS = 3_000;
+
   private DistributedTrainRun() {}
 
   static int run(TrainCommand command, SalesStore shard, TrainingPlan plan, Run run) throws Exception {
@@ -80,7 +83,16 @@ final class DistributedTrainRun {
         trainStage.close();
         throw e;
       } catch (RuntimeException | Error e) {
-        exchange.fail(e.toString());
+        // A dead rank often shows here first as LightGBM's socket error; give the exchange's reader a moment to name
+        // the rank that died (it ends the process with that message), else report this failure to the others.
+        if (e instanceof org.lagmill.learner.LearnerException) {
+          try {
+            Thread.sleep(PEER_REPORT_GRACE_MILLIS);
+          } catch (InterruptedException interrupted) {
+            Thread.currentThread().interrupt();
+          }
+        }
+        exchange.fail(e.getMessage());
         throw e;
       }
       try {
