@@ -24,7 +24,7 @@ import org.junit.jupiter.api.io.TempDir;
 /**
  * Three ranks on loopback, each a JVM of its own on one shard, train one model with LightGBM's data-parallel learner:
  * every rank ends with the same model, the validation loss is within 1 % of one process on the unsplit store, the
- * shards' forecasts cover every series; a killed rank and a rank that never comes end the others with exit 8 and a
+ * shards' forecasts cover every series; a killed rank and a rank that never comes end the others with exit 9 and a
  * message naming the cause, within a bounded time. Every process started here is killed in a finally block.
  */
 class DistributedTrainingTest {
