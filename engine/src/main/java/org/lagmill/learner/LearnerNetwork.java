@@ -12,7 +12,8 @@ import com.microsoft.ml.lightgbm.lightgbmlib;
  * idempotent. Not thread-safe.
  */
 public final class LearnerNetwork implements AutoCloseable {
-  private static boolean anyOpen;
+  private static final java.util.concurrent.atomic.AtomicBoolean ANY_OPEN =
+      new java.util.concurrent.atomic.AtomicBoolean();
   private boolean closed;
 
   private LearnerNetwork() {}
@@ -28,7 +29,7 @@ public final class LearnerNetwork implements AutoCloseable {
    * @param machineCount the number of entries, at least 2
    * @throws LearnerException when LightGBM cannot bind the port or reach the others
    */
-  public static synchronized LearnerNetwork join(String machines, int localPort, int timeoutMinutes,
+  public static LearnerNetwork join(String machines, int localPort, int timeoutMinutes,
       int machineCount) {
     if (machineCount < 2) {
       throw new IllegalArgumentException("a network needs at least 2 machines, got " + machineCount);
@@ -36,13 +37,17 @@ public final class LearnerNetwork implements AutoCloseable {
     if (timeoutMinutes < 1) {
       throw new IllegalArgumentException("timeoutMinutes must be >= 1, got " + timeoutMinutes);
     }
-    if (anyOpen) {
+    if (!ANY_OPEN.compareAndSet(false, true)) {
       throw new IllegalStateException("LightGBM keeps one network per process and one is open already");
     }
-    NativeLibrary.load();
-    Native.check(lightgbmlib.LGBM_NetworkInit(machines, localPort, timeoutMinutes, machineCount),
-        "LGBM_NetworkInit(" + machines + ", local port " + localPort + ")");
-    anyOpen = true;
+    try {
+      NativeLibrary.load();
+      Native.check(lightgbmlib.LGBM_NetworkInit(machines, localPort, timeoutMinutes, machineCount),
+          "LGBM_NetworkInit(" + machines + ", local port " + localPort + ")");
+    } catch (RuntimeException | Error e) {
+      ANY_OPEN.set(false);
+      throw e;
+    }
     return new LearnerNetwork();
   }
 
@@ -50,10 +55,11 @@ public final class LearnerNetwork implements AutoCloseable {
   public synchronized void close() {
     if (!closed) {
       closed = true;
-      synchronized (LearnerNetwork.class) {
-        anyOpen = false;
+      try {
+        Native.check(lightgbmlib.LGBM_NetworkFree(), "LGBM_NetworkFree");
+      } finally {
+        ANY_OPEN.set(false);
       }
-      Native.check(lightgbmlib.LGBM_NetworkFree(), "LGBM_NetworkFree");
     }
   }
 }

@@ -227,7 +227,7 @@ public final class DistributedTraining {
       try {
         double[] sums = exchange.sum(new double[] {lossSum, weightSum, squaredErrorSum, iteration},
             "the validation loss of iteration " + iteration);
-        if (sums[3] != (double) iteration * exchange.rankCount()) {
+        if (Math.round(sums[3]) != (long) iteration * exchange.rankCount()) {
           throw new RankFailureException("ranks report different iterations (sum " + sums[3] + " at iteration "
               + iteration + "); the ranks are out of step");
         }
