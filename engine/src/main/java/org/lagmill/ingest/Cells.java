@@ -4,6 +4,7 @@ import java.nio.file.Path;
 import java.time.DateTimeException;
 import java.time.LocalDate;
 import java.util.Arrays;
+import org.lagmill.io.Excerpts;
 
 /** Strict parsing of single CSV cells shared by the parsers; each failure message says what was found and expected. */
 final class Cells {
@@ -129,6 +130,26 @@ final class Cells {
       value = Math.min(value * 10 + (c - '0'), Integer.MAX_VALUE + 1L);
     }
     return value;
+  }
+
+  /**
+   * The series id of a sales row must not be empty: the {@code series_id} cell when the file has one ({@code column}
+   * its 1-based column), else the attribute cells together ({@code column} 0). An empty id cannot be told apart or
+   * matched by a later append, forecast or evaluation.
+   */
+  static void requireSeriesId(Path file, long line, int column, String columnName, String seriesId) {
+    if (seriesId.isEmpty()) {
+      throw new InputFormatException(file, line, column, column > 0 ? columnName + " is empty: expected a value"
+          + " naming the series" : "every attribute cell is empty: expected at least one value naming the series");
+    }
+  }
+
+  /** A text cell holding a NUL character, a sign of a UTF-16 or binary file, is refused wherever it is read. */
+  static void requireNoNul(Path file, long line, int column, String columnName, String value) {
+    if (value.indexOf('\0') >= 0) {
+      throw new InputFormatException(file, line, column, columnName + " '" + Excerpts.of(value) + "' holds a NUL"
+          + " character: expected text (is the file UTF-16 or binary?)");
+    }
   }
 
   /** 0-based index of a header column, or an {@link InputFormatException} naming the option that renames it. */

@@ -97,6 +97,7 @@ public final class LongSalesReader {
     int[] firstDayIndexBySeries;
     LongOpenHashSet distinctEpochDays = new LongOpenHashSet();
     LongArrayList firstEpochDayBySeries = new LongArrayList();
+    DateSpanCheck span = new DateSpanCheck();
     try (CsvSource source = CsvSource.open(file)) {
       layout = Layout.of(file, source.readHeader(), dateColumn, unitsColumn, seriesIdColumn);
       LongArrayList firstLineBySeries = new LongArrayList();
@@ -106,11 +107,13 @@ public final class LongSalesReader {
             record.getField(layout.dateIndex));
         checkUnits(file, line, layout, unitsColumn, record.getField(layout.unitsIndex));
         distinctEpochDays.add(epochDay);
+        span.add(epochDay, line);
         minEpochDay = Math.min(minEpochDay, epochDay);
         maxEpochDay = Math.max(maxEpochDay, epochDay);
         String key = layout.seriesKey(record);
         int seriesIndex = seriesIndexByKey.getInt(key);
         if (seriesIndex < 0) {
+          layout.checkNamesSeries(file, line, record);
           seriesIndexByKey.put(key, valuesBySeries.size());
           valuesBySeries.add(layout.attributeValues(record));
           firstLineBySeries.add(line);
@@ -183,11 +186,13 @@ public final class LongSalesReader {
         }
         sink.accept(valuesBySeries.get(s), units, firstDayIndexBySeries[s]);
       }
+      String spanWarning = span.warning(file, dateColumn, periodDays);
       String periodNote = detected == null ? "period " + Periods.describe(periodDays) + ": " + stepSource
           : "period " + Periods.describe(periodDays) + ": detected from the sales dates, the most common gap between "
           + "consecutive dates (" + detected.gapCount() + " of " + detected.allGapCount() + " gaps)";
       return new LongSalesRead(header, zeroFills, periodNote, detected != null && detected.allGapCount() > 0
-          && periodDays != Periods.DAILY && periodDays != Periods.WEEKLY);
+          && periodDays != Periods.DAILY && periodDays != Periods.WEEKLY,
+          spanWarning == null ? List.of() : List.of(spanWarning));
     }
   }
 
@@ -349,6 +354,20 @@ public final class LongSalesReader {
         b.append(record.getField(attributeColumns[k]));
       }
       return b.toString();
+    }
+
+    /** A new series' attribute cells are text without NUL characters and its id is not empty. */
+    void checkNamesSeries(Path file, long line, CsvRecord record) {
+      boolean allEmpty = true;
+      for (int c : attributeColumns) {
+        Cells.requireNoNul(file, line, c + 1, header[c], record.getField(c));
+        allEmpty &= record.getField(c).isEmpty();
+      }
+      if (seriesIdIndex >= 0) {
+        Cells.requireSeriesId(file, line, seriesIdIndex + 1, header[seriesIdIndex], record.getField(seriesIdIndex));
+      } else {
+        Cells.requireSeriesId(file, line, 0, null, allEmpty ? "" : "named");
+      }
     }
 
     String[] attributeValues(CsvRecord record) {

@@ -8,6 +8,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.HashSet;
 import java.util.List;
+import org.lagmill.io.Excerpts;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.ClosureTable;
@@ -156,6 +157,7 @@ public final class StoreAppend {
             + "\": each series may appear once");
       }
       if (seriesIndex >= 0) {
+        requireSameAttributes(store.attributes(), seriesIndex, values, reader, fileColumnOfAttribute);
         unitsBySeries[seriesIndex] = row.clone();
       } else {
         newIndexById.put(seriesId, newAttributes.size());
@@ -164,6 +166,25 @@ public final class StoreAppend {
       }
     }
     return new AppendedDays(dayCount, unitsBySeries, newAttributes, newUnits, ZeroFills.NONE);
+  }
+
+  /**
+   * A known series must keep its attributes: an append that moved it to another department or store would silently
+   * rewrite its history's grouping, so it is refused as ingest refuses a series whose rows disagree.
+   */
+  private static void requireSameAttributes(SeriesAttributes attributes, int seriesIndex, String[] values,
+      WideSalesReader reader, int[] fileColumnOfAttribute) {
+    for (int a = 0; a < values.length; a++) {
+      String stored = attributes.value(a, attributes.code(seriesIndex, a));
+      if (!stored.equals(values[a])) {
+        String name = attributes.attributeName(a);
+        throw new InputFormatException(reader.file(), reader.lineNumber(),
+            reader.attributeColumnNumber(fileColumnOfAttribute[a]), "series '" + Excerpts.of(attributes.seriesId(
+                seriesIndex)) + "' has " + name + "=" + Excerpts.of(values[a]) + ": expected " + name + "="
+                + Excerpts.of(stored) + " as in the store (a series keeps its attributes; give a changed one a new"
+                + " series id)");
+      }
+    }
   }
 
   private static IngestResult rewrite(SalesStore store, Path temp, AppendedDays newDays, AppendOptions options,

@@ -76,6 +76,7 @@ public final class StoreIngest {
         ClosureTable closures = options.closuresFile() == null ? ClosureTable.EMPTY
             : CalendarAndPrices.writeClosures(writer, options.closuresFile(), options.columns(), warnings);
         if (longRead[0] != null) {
+          warnings.addAll(longRead[0].warnings());
           writer.addZeroFilledItemDays(longRead[0].zeroFilledItemDays()
               - longRead[0].zeroFills().closedCount(closures, 0));
         }

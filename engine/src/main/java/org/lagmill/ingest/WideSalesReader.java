@@ -1,5 +1,6 @@
 package org.lagmill.ingest;
 
+import it.unimi.dsi.fastutil.objects.Object2IntOpenHashMap;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
@@ -8,6 +9,7 @@ import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.Collections;
 import java.util.List;
+import org.lagmill.io.Excerpts;
 import org.lagmill.store.Periods;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SeriesIdentity;
@@ -41,6 +43,8 @@ public final class WideSalesReader implements AutoCloseable {
   private int columnCount;
   private int dateStart;
   private final List<String> attributeNames = new ArrayList<>();
+  /** The header cell of every column, for messages. */
+  private String[] columnNames = new String[0];
   private long lineNumber;
   private long rowCount;
 
@@ -91,6 +95,11 @@ public final class WideSalesReader implements AutoCloseable {
     return Collections.unmodifiableList(attributeNames);
   }
 
+  /** 1-based column of the {@code attributeIndex}-th attribute ({@link #attributeNames()} order), for messages. */
+  public int attributeColumnNumber(int attributeIndex) {
+    return attributeIndex < dateStart ? attributeIndex + 1 : attributeIndex + dayCount + 1;
+  }
+
   /** 1-based line of the row last returned by {@link #next}. */
   public long lineNumber() {
     return lineNumber;
@@ -120,6 +129,10 @@ public final class WideSalesReader implements AutoCloseable {
       ending = endCell(names.size() - 1);
     } while (ending == COMMA);
     columnCount = names.size();
+    columnNames = names.toArray(new String[0]);
+    // a map, not a scan of the earlier names: a file of 100,000 day columns would take billions of comparisons
+    Object2IntOpenHashMap<String> firstColumnByName = new Object2IntOpenHashMap<>(columnCount);
+    firstColumnByName.defaultReturnValue(-1);
     int firstDateColumn = -1;
     int lastDateColumn = -1;
     LocalDate previous = null;
@@ -135,7 +148,7 @@ public final class WideSalesReader implements AutoCloseable {
           throw error(c, "column \"series_id\" clashes with the series id column \"" + seriesIdColumn
               + "\": expected one of them, found both; rename one");
         }
-        int earlier = names.subList(0, c).indexOf(name);
+        int earlier = firstColumnByName.putIfAbsent(name, c);
         if (earlier >= 0) {
           throw error(c, "duplicate column name \"" + name + "\" (first at column " + (earlier + 1) + ")");
         }
@@ -145,15 +158,15 @@ public final class WideSalesReader implements AutoCloseable {
       if (firstDateColumn < 0) {
         firstDateColumn = c;
         firstDate = date;
+        firstColumnByName.put(name, c);
       } else {
         if (lastDateColumn != c - 1) {
           throw error(c, "expected the date columns in one contiguous run, found date \"" + name
               + "\" after the non-date column \"" + names.get(c - 1) + "\"");
         }
-        int earlier = names.subList(firstDateColumn, c).indexOf(name);
+        int earlier = firstColumnByName.putIfAbsent(name, c);
         if (earlier >= 0) {
-          throw error(c, "duplicate date column \"" + name + "\" (first at column " + (firstDateColumn + earlier + 1)
-              + ")");
+          throw error(c, "duplicate date column \"" + name + "\" (first at column " + (earlier + 1) + ")");
         }
         if (c == firstDateColumn + 1) {
           long stepDays = date.toEpochDay() - previous.toEpochDay();
@@ -234,6 +247,7 @@ public final class WideSalesReader implements AutoCloseable {
         throw raggedRow(c + 2 + countRemainingCells());
       }
     }
+    checkSeriesId(attributeValues);
     rowCount++;
     return true;
   }
@@ -290,14 +304,30 @@ public final class WideSalesReader implements AutoCloseable {
     in.position = p;
   }
 
-  /** Text of a cell from {@code start} up to its delimiter, for messages; cut at 40 bytes. */
+  /** Text of a cell from {@code start} up to its delimiter, for messages; cut at 40 bytes, then as an excerpt. */
   private String cellText(int start) {
     int end = start;
     byte[] b = source.buffer;
     while (end < source.limit && end - start < 40 && b[end] != ',' && b[end] != '\n' && b[end] != '\r') {
       end++;
     }
-    return new String(b, start, end - start, StandardCharsets.UTF_8);
+    return Excerpts.of(new String(b, start, end - start, StandardCharsets.UTF_8));
+  }
+
+  /** The series id of the row just read is not empty (see {@link Cells#requireSeriesId}). */
+  private void checkSeriesId(String[] attributeValues) {
+    int idIndex = attributeNames.indexOf(DEFAULT_SERIES_ID_COLUMN);
+    if (idIndex >= 0) {
+      Cells.requireSeriesId(file, lineNumber, attributeColumnNumber(idIndex), columnNames[attributeColumnNumber(
+          idIndex) - 1], attributeValues[idIndex]);
+      return;
+    }
+    for (int a = 0; a < attributeNames.size(); a++) {
+      if (!attributeValues[a].isEmpty()) {
+        return;
+      }
+    }
+    Cells.requireSeriesId(file, lineNumber, 0, null, "");
   }
 
   private boolean skipEmptyLines() throws IOException {
@@ -359,6 +389,12 @@ public final class WideSalesReader implements AutoCloseable {
     if (invalid >= 0) {
       throw error(column, String.format("expected UTF-8 text, found the invalid byte 0x%02X at byte %d of the cell",
           scratch[invalid] & 0xFF, invalid + 1));
+    }
+    for (int i = 0; i < scratchLength; i++) {
+      if (scratch[i] == 0) {
+        throw error(column, "found a NUL character at byte " + (i + 1) + " of the cell: expected text (is the file"
+            + " UTF-16 or binary?)");
+      }
     }
     return new String(scratch, 0, scratchLength, StandardCharsets.UTF_8);
   }

@@ -193,4 +193,38 @@ class LongSalesReaderTest {
       assertEquals(seriesWithRows, c.begun.seriesCount(), message);
     }
   }
+
+  @Test
+  void shouldRefuseEmptySeriesIdsAndNulAttributeCells() {
+    assertEquals("F, line 3: every attribute cell is empty: expected at least one value naming the series",
+        error("item,store,date,units\noat_bar,north_1,2024-03-01,1\n,,2024-03-01,2\n"));
+    assertEquals("F, line 2, column 1: series_id is empty: expected a value naming the series",
+        error("series_id,item,date,units\n,oat_bar,2024-03-01,1\n"));
+    assertEquals("F, line 2, column 1: item 'oat\\0bar' holds a NUL character: expected text (is the file UTF-16 or"
+        + " binary?)", error("item,date,units\noat\0bar,2024-03-01,1\n"));
+  }
+
+  @Test
+  void shouldWarnWhenOneDateStretchesTheSpanTenfold() {
+    StringBuilder csv = new StringBuilder("sku,date,units\n");
+    for (int d = 1; d <= 20; d++) {
+      csv.append("A,2024-03-").append(String.format("%02d", d)).append(",1\n");
+    }
+    csv.append("B,2024-03-05,1\n");
+    Path plain = IngestFiles.write(dir, "plain.csv", csv.toString());
+    Path typo = IngestFiles.write(dir, "typo.csv", csv + "B,2042-03-05,2\n");
+    Path early = IngestFiles.write(dir, "early.csv", "sku,date,units\nB,2004-03-05,2\n" + csv.substring(15));
+    try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
+      assertEquals(List.of(), LongSalesReader.read(plain, "date", "units", MissingRows.ZERO, budget, new Collected())
+          .warnings());
+      assertEquals(List.of(typo + ", line 23: date 2042-03-05 stretches the dates to 6579 days, more than 10 times"
+          + " the 20 days of the other rows (1 row on that date); the store holds every day in between: check it for"
+          + " a typo, or narrow --date-window to refuse such dates"),
+          LongSalesReader.read(typo, "date", "units", MissingRows.UNKNOWN, budget, new Collected()).warnings());
+      assertEquals(List.of(early + ", line 2: date 2004-03-05 stretches the dates to 7321 days, more than 10 times"
+          + " the 20 days of the other rows (1 row on that date); the store holds every day in between: check it for"
+          + " a typo, or narrow --date-window to refuse such dates"),
+          LongSalesReader.read(early, "date", "units", MissingRows.UNKNOWN, budget, new Collected()).warnings());
+    }
+  }
 }

@@ -116,4 +116,22 @@ class StoreAppendTest {
     }
     assertEquals(List.of("first.csv", "gap.csv", "store"), StoreIngestTest.listing(temp));
   }
+
+  @Test
+  void shouldRefuseAKnownSeriesWhoseAttributesChanged() throws Exception {
+    Path first = temp.resolve("first.csv");
+    Files.writeString(first, "series_id,sku,dept,2024-01-01,2024-01-02\nk1,A,frozen,1,2\nk2,B,dry,3,4\n");
+    Path moved = temp.resolve("moved.csv");
+    Files.writeString(moved, "dept,series_id,sku,2024-01-03\ndry,k2,B,5\nchilled,k1,A,6\n");
+    try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
+      StoreIngest.ingest(IngestOptions.of(first, temp.resolve("store")), budget);
+      List<String> before = StoreIngestTest.listing(temp.resolve("store"));
+      InputFormatException e = assertThrows(InputFormatException.class,
+          () -> StoreAppend.append(temp.resolve("store"), moved, "series_id", budget));
+      assertEquals(moved + ", line 3, column 1: series 'k1' has dept=chilled: expected dept=frozen as in the store"
+          + " (a series keeps its attributes; give a changed one a new series id)", e.getMessage());
+      assertEquals(before, StoreIngestTest.listing(temp.resolve("store")));
+      assertEquals(0, budget.heldBytes());
+    }
+  }
 }

@@ -35,8 +35,12 @@ class WideSalesReaderTest {
   }
 
   private String failure(Path file) {
+    return failure(file, "series_id");
+  }
+
+  private String failure(Path file, String seriesIdColumn) {
     InputFormatException e = assertThrows(InputFormatException.class, () -> {
-      try (WideSalesReader reader = WideSalesReader.open(file, "series_id")) {
+      try (WideSalesReader reader = WideSalesReader.open(file, seriesIdColumn)) {
         String[] values = new String[reader.attributeNames().size()];
         int[] units = new int[reader.dayCount()];
         while (reader.next(values, units)) {
@@ -214,5 +218,39 @@ class WideSalesReaderTest {
       }
       assertFalse(reader.next(values, units));
     }
+  }
+
+  @Test
+  void shouldRefuseEmptySeriesIdsAndNulCharacters() throws IOException {
+    assertEquals("w.csv, line 3: every attribute cell is empty: expected at least one value naming the series",
+        failure(write("w.csv", "item,2024-03-01,store\na,1,s1\n,2,\n")));
+    assertEquals("w.csv, line 2, column 1: series_id is empty: expected a value naming the series",
+        failure(write("w.csv", "series_id,item,2024-03-01\n,a,1\n")));
+    assertEquals("w.csv, line 2, column 3: key is empty: expected a value naming the series",
+        failure(write("w.csv", "item,2024-03-01,key\na,1,\n"), "key"));
+    assertEquals("w.csv, line 2, column 1: found a NUL character at byte 2 of the cell: expected text (is the file"
+        + " UTF-16 or binary?)", failure(write("w.csv", "item,2024-03-01\na\0b,1\n")));
+    assertEquals("w.csv, line 2, column 2: expected a non-negative integer number of units, found \"\\02\"",
+        failure(write("w.csv", "item,2024-03-01\na,\0002\n")));
+  }
+
+  @Test
+  void shouldReadAHeaderOfOneHundredThousandDayColumns() throws IOException {
+    int dayCount = 100_000;
+    StringBuilder csv = new StringBuilder("item");
+    java.time.LocalDate first = java.time.LocalDate.of(1901, 1, 1);
+    for (int d = 0; d < dayCount; d++) {
+      csv.append(',').append(first.plusDays(d));
+    }
+    csv.append("\na").append(",1".repeat(dayCount)).append('\n');
+    try (WideSalesReader reader = WideSalesReader.open(write("long.csv", csv.toString()), "series_id")) {
+      assertEquals(dayCount, reader.dayCount());
+      int[] units = new int[dayCount];
+      assertTrue(reader.next(new String[1], units));
+      assertEquals(1, units[dayCount - 1]);
+    }
+    // the duplicate check still names the first column of a repeated name
+    assertEquals("w.csv, line 1, column 4: duplicate column name \"item\" (first at column 1)",
+        failure(write("w.csv", "item,2024-03-01,2024-03-02,item\na,1,2,b\n")));
   }
 }

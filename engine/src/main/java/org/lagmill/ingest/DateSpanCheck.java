@@ -1,0 +1,78 @@
+package org.lagmill.ingest;
+
+import java.nio.file.Path;
+import java.time.LocalDate;
+
+/**
+ * Notices a date far outside the others in a file of dated rows (a typo such as 2199 for 2019): the store spans
+ * every period from the first date to the last, so one such row can multiply its size. Keeps the two smallest and
+ * two largest distinct dates seen, with the row count and first line of the extreme ones; constant work per row and
+ * no allocation. A date stretches the file's span when the span with it is more than {@link #STRETCH_FACTOR} times
+ * the span without the rows of that date (common practice, no source: a factor that no regular export reaches, since
+ * a history's last years never span ten times its first ones).
+ */
+final class DateSpanCheck {
+  static final int STRETCH_FACTOR = 10;
+
+  private long min = Long.MAX_VALUE;
+  private long secondMin = Long.MAX_VALUE;
+  private long minRowCount;
+  private long minLine;
+  private long max = Long.MIN_VALUE;
+  private long secondMax = Long.MIN_VALUE;
+  private long maxRowCount;
+  private long maxLine;
+
+  /** Takes one row's date (days since 1970-01-01) and its 1-based line. */
+  void add(long epochDay, long line) {
+    if (epochDay < min) {
+      secondMin = min;
+      min = epochDay;
+      minRowCount = 1;
+      minLine = line;
+    } else if (epochDay == min) {
+      minRowCount++;
+    } else if (epochDay < secondMin) {
+      secondMin = epochDay;
+    }
+    if (epochDay > max) {
+      secondMax = max;
+      max = epochDay;
+      maxRowCount = 1;
+      maxLine = line;
+    } else if (epochDay == max) {
+      maxRowCount++;
+    } else if (epochDay > secondMax) {
+      secondMax = epochDay;
+    }
+  }
+
+  /**
+   * The warning for the date that stretches the span, or null when none does.
+   *
+   * @param minSpanDays the span below which nothing is compared (the file's period: two adjacent dates never warn)
+   */
+  String warning(Path file, String dateColumn, long minSpanDays) {
+    if (secondMin == Long.MAX_VALUE) {
+      return null;
+    }
+    long spanDays = max - min;
+    long withoutLast = Math.max(minSpanDays, secondMax - min);
+    long withoutFirst = Math.max(minSpanDays, max - secondMin);
+    if (spanDays > STRETCH_FACTOR * withoutLast && withoutLast <= withoutFirst) {
+      return message(file, dateColumn, maxLine, max, maxRowCount, spanDays, secondMax - min);
+    }
+    if (spanDays > STRETCH_FACTOR * withoutFirst) {
+      return message(file, dateColumn, minLine, min, minRowCount, spanDays, max - secondMin);
+    }
+    return null;
+  }
+
+  private static String message(Path file, String dateColumn, long line, long epochDay, long rowCount, long spanDays,
+      long otherSpanDays) {
+    return file + ", line " + line + ": " + dateColumn + " " + LocalDate.ofEpochDay(epochDay) + " stretches the"
+        + " dates to " + (spanDays + 1) + " days, more than " + STRETCH_FACTOR + " times the " + (otherSpanDays + 1)
+        + " days of the other rows (" + rowCount + (rowCount == 1 ? " row" : " rows") + " on that date); the store"
+        + " holds every day in between: check it for a typo, or narrow --date-window to refuse such dates";
+  }
+}
