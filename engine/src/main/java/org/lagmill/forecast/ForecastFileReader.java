@@ -45,6 +45,9 @@ public final class ForecastFileReader {
           levels.add(Double.parseDouble(header[c].substring(1)));
         }
       }
+      // the columns by rising level: a quantile file may list them in any order
+      int[] levelOrder = java.util.stream.IntStream.range(0, levels.size()).boxed()
+          .sorted((a, b) -> Double.compare(levels.get(a), levels.get(b))).mapToInt(Integer::intValue).toArray();
       List<long[]> cells = new ArrayList<>();
       List<double[]> values = new ArrayList<>();
       int firstDay = Integer.MAX_VALUE;
@@ -70,6 +73,7 @@ public final class ForecastFileReader {
         for (int q = 0; q < quantileColumns.size(); q++) {
           row[1 + q] = number(file, line, quantileColumns.get(q), record.getField(quantileColumns.get(q)));
         }
+        requireOrderedQuantiles(file, line, header, quantileColumns, levelOrder, row);
         cells.add(new long[] {series, day, line});
         values.add(row);
         firstDay = Math.min(firstDay, day);
@@ -107,6 +111,24 @@ public final class ForecastFileReader {
       }
       return new ForecastTable(firstDay, point, levels.stream().mapToDouble(Double::doubleValue).toArray(),
           quantiles);
+    }
+  }
+
+  /**
+   * Quantiles of one row must not decrease as their level rises: crossing quantiles are no distribution, and the
+   * pinball loss of a crossed pair would reward the error.
+   */
+  private static void requireOrderedQuantiles(Path file, long line, String[] header, List<Integer> quantileColumns,
+      int[] levelOrder, double[] row) {
+    for (int k = 1; k < levelOrder.length; k++) {
+      int lower = levelOrder[k - 1];
+      int upper = levelOrder[k];
+      if (row[1 + lower] > row[1 + upper]) {
+        int column = quantileColumns.get(upper);
+        throw new InputFormatException(file, line, column + 1, header[quantileColumns.get(lower)] + " is "
+            + row[1 + lower] + " but " + header[column] + " is " + row[1 + upper] + ": expected quantiles that do"
+            + " not decrease as the level rises");
+      }
     }
   }
 
