@@ -5,6 +5,7 @@ import java.nio.channels.FileChannel;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.DirectoryStream;
+import java.nio.file.FileSystemException;
 import java.nio.file.Files;
 import java.nio.file.LinkOption;
 import java.nio.file.NoSuchFileException;
@@ -98,6 +99,23 @@ public final class StoreGenerations {
    * @throws NoSuchFileException when {@code storeDir} holds neither a pointer nor a manifest
    * @throws CorruptStoreException when the pointer is malformed
    */
+  /**
+   * A folder with a manifest but neither a pointer nor units is a model directory given where a store belongs; the
+   * user hears that in those words instead of a manifest parse error. A model's manifest lists its files under
+   * {@code modelFileChecksums} (the forecast package's model manifest, which this package cannot import).
+   */
+  private static void requireNotAModel(Path storeDir) throws IOException {
+    if (Files.exists(storeDir.resolve("units.bin"))) {
+      return;
+    }
+    String manifest = new String(Files.readAllBytes(storeDir.resolve(StoreManifest.FILE_NAME)),
+        StandardCharsets.UTF_8);
+    if (manifest.contains("\"modelFileChecksums\"")) {
+      throw new FileSystemException(storeDir.toString(), null, "not a store: it holds a trained model; give the"
+          + " folder ingest wrote (a model folder goes to --model)");
+    }
+  }
+
   public static Path readableDir(Path storeDir) throws IOException {
     Path pointer = storeDir.resolve(POINTER_FILE_NAME);
     String name;
@@ -106,6 +124,7 @@ public final class StoreGenerations {
       name = new String(Files.readAllBytes(pointer), StandardCharsets.ISO_8859_1);
     } catch (NoSuchFileException e) {
       if (Files.isRegularFile(storeDir.resolve(StoreManifest.FILE_NAME))) {
+        requireNotAModel(storeDir);
         return storeDir;
       }
       if (!Files.exists(storeDir)) {

@@ -27,4 +27,20 @@ class ModelPathTest {
     assertEquals("not a model directory: it holds a sales store; give the folder a model was trained into",
         e.getReason());
   }
+
+  @Test
+  void shouldSayInPlainWordsThatAModelIsNotAStore(@TempDir Path temp) throws Exception {
+    Path model = temp.resolve("model");
+    org.lagmill.store.ArraySalesHistory history = SmallHistories.history(5L, 3, 60, 7);
+    TrainingPlan plan = SmallHistories.plan(SmallHistories.spec(7), 2, 59, 7, null);
+    try (MemoryBudget budget = MemoryBudget.unlimited("test");
+        ModelSet trained = ModelTraining.train(history, plan, budget, org.lagmill.progress.ProgressListener.SILENT)) {
+      ModelDirectory.save(trained, model, history, plan, "fp");
+      java.nio.file.FileSystemException e = assertThrows(java.nio.file.FileSystemException.class,
+          () -> org.lagmill.store.SalesStore.open(model, budget));
+      assertEquals(model + ": not a store: it holds a trained model; give the folder ingest wrote (a model folder"
+          + " goes to --model)", e.getMessage());
+      assertEquals(0, budget.heldBytes());
+    }
+  }
 }
