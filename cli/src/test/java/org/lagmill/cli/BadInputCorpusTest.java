@@ -102,6 +102,16 @@ class BadInputCorpusTest {
     c.add(text("sales wide", "empty file", "w.csv", "", ingest, 3, "w.csv: empty file"));
     c.add(text("sales wide", "duplicate series", "w.csv", "item,2024-03-01\na,1\na,2\n", ingest, 3,
         "duplicate series"));
+    c.add(text("sales wide", "an empty series id", "w.csv", "series_id,item,2024-03-01\n,a,1\n", ingest, 3,
+        "w.csv, line 2, column 1: series_id is empty: expected a value naming the series"));
+    c.add(text("sales wide", "a NUL character", "w.csv", "item,2024-03-01\na\0b,1\n", ingest, 3,
+        "w.csv, line 2, column 1: found a NUL character at byte 2 of the cell"));
+    c.add(text("sales wide", "a 100,000-character cell quoted as an excerpt", "w.csv", "item,2024-03-01\na,"
+        + "9".repeat(100_000) + "\n", ingest, 3, "w.csv, line 2, column 2: expected a number of units of at most"));
+    c.add(text("sales wide", "append moves a known series", "w.csv", TINY_HEADER + ",2026-01-19\n"
+        + "PNT-D1-0001@NV-01,PNT-D1-0001,PNT-D1,Pantry,NV-02,Northvale,1\n", "append --store COPY --sales FILE", 3,
+        "w.csv, line 2, column 5: series 'PNT-D1-0001@NV-01' has store=NV-02: expected store=NV-01 as in the"
+            + " store"));
     c.add(text("sales wide", "units past the int range", "w.csv", "item,2024-03-01\na,99999999999\n", ingest, 3,
         "line 2, column 2"));
     // sales, long
@@ -117,6 +127,10 @@ class BadInputCorpusTest {
     c.add(text("sales long", "a series whose attribute changes", "l.csv",
         "sku,shop,date,units\nA,s1,2024-03-01,1\nA,s2,2024-03-02,1\n", "ingest --sales FILE --store OUT"
             + " --sales-format long --series-id-column sku", 3, "line 3"));
+    c.add(text("sales long", "an empty series id", "l.csv", "series_id,sku,date,units\n,A,2024-03-01,1\n",
+        ingestLong, 3, "l.csv, line 2, column 1: series_id is empty: expected a value naming the series"));
+    c.add(text("sales long", "a NUL character", "l.csv", "sku,date,units\nA\0,2024-03-01,1\n", ingestLong, 3,
+        "l.csv, line 2, column 1: sku 'A\\0' holds a NUL character"));
     // gzip
     byte[] plainSales = tinySales(s -> s).getBytes(StandardCharsets.UTF_8);
     c.add(bytes("sales gzip", "not gzip data", "w.csv.gz", plainSales, ingest, 3, "not gzip data"));
@@ -168,6 +182,9 @@ class BadInputCorpusTest {
         evaluate, 3, "fc.csv, line 2, column 3: expected a non-negative number of units, found \"NaN\""));
     c.add(text("forecast", "infinite forecast", "fc.csv", forecastHeader
         + "PNT-D1-0001@NV-01,2026-01-18,Infinity\n", evaluate, 3, "found \"Infinity\""));
+    c.add(text("forecast", "crossing quantiles", "fc.csv", "series_id,date,forecast,q0.25,q0.75\n"
+        + "PNT-D1-0001@NV-01,2026-01-18,2,3,1\n", evaluate, 3,
+        "fc.csv, line 2, column 5: q0.25 is 3.0 but q0.75 is 1.0: expected quantiles that do not decrease"));
     c.add(text("forecast", "unknown series", "fc.csv", forecastHeader + "nobody,2026-01-18,1\n", evaluate, 3,
         "expected a series of the store, found 'nobody'"));
     c.add(text("forecast", "no date column", "fc.csv", "series_id,forecast\nx,1\n", evaluate, 3,
@@ -177,6 +194,8 @@ class BadInputCorpusTest {
         + " --out OUT", 6, "not a model directory: it holds a sales store"));
     c.add(text("model folder", "an empty folder as the model", "unused.txt", "", "forecast --store STORE --model"
         + " CASEDIR --out OUT", 6, "CASEDIR"));
+    c.add(text("store folder", "a model given as the store", "unused.txt", "", "forecast --store MODEL --model"
+        + " MODEL --out OUT", 6, "not a store: it holds a trained model"));
     c.add(text("store folder", "an empty folder as the store", "unused.txt", "", "inspect --store CASEDIR", 6,
         "CASEDIR"));
     c.add(text("store folder", "a replace of something not a store", "notes.txt", "mine",
@@ -205,10 +224,13 @@ class BadInputCorpusTest {
     Path caseDir = Files.createDirectories(shared.resolve("case-" + Integer.toHexString(c.toString().hashCode())));
     Path file = caseDir.resolve(c.fileName());
     Files.write(file, c.content());
+    if (c.command().contains("COPY")) {
+      copyTree(store, caseDir.resolve("copy"));
+    }
     List<String> args = new ArrayList<>();
     for (String word : c.command().split(" ")) {
       args.add(word.replace("FILE", file.toString()).replace("STORE", store.toString())
-          .replace("MODEL", model.toString()).replace("OUT", caseDir.resolve("out").toString())
+          .replace("MODEL", model.toString()).replace("COPY", caseDir.resolve("copy").toString()).replace("OUT", caseDir.resolve("out").toString())
           .replace("TINY", TINY.toString()).replace("CASEDIR", caseDir.toString()));
     }
     MainRun run = MainRun.of(args.toArray(new String[0]));
@@ -223,6 +245,14 @@ class BadInputCorpusTest {
     assertTrue(message.length() < 600, "a bounded message: " + message.length() + " characters");
     assertEquals(storeListing, listing(store), "the shared store is unchanged");
     assertEquals(modelListing, listing(model), "the shared model is unchanged");
+  }
+
+  private static void copyTree(Path from, Path to) throws IOException {
+    try (Stream<Path> paths = Files.walk(from)) {
+      for (Path p : paths.sorted().toList()) {
+        Files.copy(p, to.resolve(from.relativize(p).toString()));
+      }
+    }
   }
 
   /** Every file under a folder with its size and CRC32, in name order. */
