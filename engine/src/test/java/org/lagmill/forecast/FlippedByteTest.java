@@ -16,6 +16,7 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
 import org.lagmill.ingest.IngestOptions;
+import org.lagmill.ingest.PlanSource;
 import org.lagmill.ingest.StoreIngest;
 import org.lagmill.io.CorruptFileException;
 import org.lagmill.memory.MemoryBudget;
@@ -24,6 +25,7 @@ import org.lagmill.report.ReportData;
 import org.lagmill.report.ReportJson;
 import org.lagmill.store.ArraySalesHistory;
 import org.lagmill.store.SalesStore;
+import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreGenerations;
 import org.lagmill.training.SmallHistories;
 import org.lagmill.training.ModelDirectory;
@@ -32,10 +34,11 @@ import org.lagmill.training.ModelTraining;
 import org.lagmill.training.TrainingPlan;
 
 /**
- * A byte flipped anywhere in any file lagmill writes and later reads is caught on open: every store file (the five
- * binary files, the manifest, the pointer), every model file (the LightGBM text, the manifest, the dispersion table)
- * and a run's report.json. Each file is tried at its first, middle and last byte and at seeded random positions.
+ * A byte flipped anywhere in any file lagmill writes and later reads is caught on open: every store file (each file
+ * its manifest lists, closures and plan included, the manifest, the pointer), every model file (the LightGBM text,
+ * the manifest, the dispersion table) and a run's report.json. Each file is tried at its first, middle and last byte and at seeded random positions.
  */
+@org.junit.jupiter.api.Tag("reliability")
 class FlippedByteTest {
   private static final Path TINY = Path.of("..", "testdata", "tiny");
   private static final long SEED = Long.getLong("lagmill.seed", 9_107L);
@@ -55,8 +58,13 @@ class FlippedByteTest {
     history = SmallHistories.history(SEED, 6, 90, 7);
     TrainingPlan plan = SmallHistories.plan(SmallHistories.spec(7), 2, 89, 7, null);
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
+      // closures and a plan too, so the store holds a file of every kind
+      Path closures = Files.writeString(fixture.resolve("closures.csv"), "store,from,until\nNV-01,2026-01-10,"
+          + "2026-01-11\n");
+      Path planFile = Files.writeString(fixture.resolve("plan.csv"), "item,from,promo\nPNT-D1-0001,2026-01-05,1\n");
       StoreIngest.ingest(IngestOptions.of(TINY.resolve("sales.csv"), store).withCalendarFile(TINY.resolve(
-          "calendar.csv")).withPricesFile(TINY.resolve("prices.csv")), budget);
+          "calendar.csv")).withPricesFile(TINY.resolve("prices.csv")).withClosuresFile(closures)
+          .withPlan(PlanSource.of(planFile)), budget);
       try (ModelSet trained = ModelTraining.train(history, plan, budget, ProgressListener.SILENT)) {
         ModelDirectory.save(trained, model, history, plan, "fp");
       }
@@ -67,8 +75,14 @@ class FlippedByteTest {
   static Stream<Arguments> files() throws IOException {
     Path generation = StoreGenerations.readableDir(store);
     List<Arguments> cases = new ArrayList<>();
-    for (String name : List.of("units.bin", "series.bin", "attributes.bin", "prices.bin", "calendar.bin",
-        "manifest.json")) {
+    List<String> names = new ArrayList<>();
+    for (StoreManifest.StoreFile file : StoreManifest.read(generation).files()) {
+      names.add(file.name());
+    }
+    assertTrue(names.containsAll(List.of("units.bin", "series.bin", "attributes.bin", "prices.bin", "calendar.bin",
+        "closures.bin", "plan.bin")), "the fixture store holds every kind of file: " + names);
+    names.add(StoreManifest.FILE_NAME);
+    for (String name : names) {
       cases.add(Arguments.of("store " + name, generation.resolve(name), (Opener) () -> openStore()));
     }
     cases.add(Arguments.of("store pointer", store.resolve(StoreGenerations.POINTER_FILE_NAME),
