@@ -23,6 +23,12 @@ import java.util.function.Consumer;
  * <p>Whoever holds the lock may change the store directory (build, commit, recover); readers never take it to read
  * (they read an immutable generation, see {@link StoreGenerations}) and take it only with {@link #tryAcquire} to tidy
  * up after a dead writer. The holder's process id is written into the file so a waiting writer can name it.
+ *
+ * <p>The OS lock is a POSIX record lock on Linux, and closing any descriptor of the lock file in the holding process
+ * releases it, whichever channel took it. So nothing in a process may open the lock file except through the one
+ * channel kept here: the holder's id is read through the waiting process's own channel, and a second request inside
+ * the holding process is answered from the semaphore without touching the file. {@code ConcurrentProcessesTest}
+ * (cli) runs writers as separate processes to keep this true.
  */
 public final class StoreLock implements AutoCloseable {
   /** Name of the lock file inside a store directory. */
@@ -54,10 +60,13 @@ public final class StoreLock implements AutoCloseable {
     Semaphore inProcess = IN_PROCESS.computeIfAbsent(dir, d -> new Semaphore(1));
     boolean noticed = false;
     if (!inProcess.tryAcquire()) {
+      // This process holds the lock: the owner is known without opening the lock file, and opening it would be
+      // fatal (closing any descriptor of a file drops every POSIX lock the process holds on it, see the class note).
+      String self = String.valueOf(ProcessHandle.current().pid());
       if (!wait) {
-        throw busy(dir);
+        throw busy(dir, self);
       }
-      notices.accept(waitingNotice(dir));
+      notices.accept(waitingNotice(dir, self));
       noticed = true;
       inProcess.acquireUninterruptibly();
     }
@@ -69,11 +78,12 @@ public final class StoreLock implements AutoCloseable {
           Object keyAtOpen = fileKey(dir);
           FileLock lock = channel.tryLock();
           if (lock == null) {
+            String owner = ownerOf(channel);
             if (!wait) {
-              throw busy(dir);
+              throw busy(dir, owner);
             }
             if (!noticed) {
-              notices.accept(waitingNotice(dir));
+              notices.accept(waitingNotice(dir, owner));
               noticed = true;
             }
             lock = channel.lock();
@@ -135,20 +145,24 @@ public final class StoreLock implements AutoCloseable {
     channel.write(ByteBuffer.wrap(pid), 0);
   }
 
-  private static String waitingNotice(Path dir) {
-    String owner = ownerOf(dir);
+  private static String waitingNotice(Path dir, String owner) {
     return "waiting for another writer to finish with store " + dir + (owner.isEmpty() ? "" : " (process " + owner
         + ")") + "; use --no-wait to fail at once instead";
   }
 
-  private static StoreBusyException busy(Path dir) {
-    String owner = ownerOf(dir);
+  private static StoreBusyException busy(Path dir, String owner) {
     return new StoreBusyException(dir, owner.isEmpty() ? "another writer" : "process " + owner);
   }
 
-  private static String ownerOf(Path dir) {
+  /**
+   * The process id the holder wrote, read through the channel this process already has open on the lock file (it
+   * holds no lock, so nothing is lost when that channel closes); empty when unreadable.
+   */
+  private static String ownerOf(FileChannel channel) {
     try {
-      return Files.readString(dir.resolve(FILE_NAME), StandardCharsets.US_ASCII).strip();
+      ByteBuffer bytes = ByteBuffer.allocate(32);
+      channel.read(bytes, 0);
+      return new String(bytes.array(), 0, bytes.position(), StandardCharsets.US_ASCII).strip();
     } catch (IOException e) {
       return "";
     }
