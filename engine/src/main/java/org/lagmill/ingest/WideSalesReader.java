@@ -316,7 +316,7 @@ public final class WideSalesReader implements AutoCloseable {
 
   /** The series id of the row just read is not empty (see {@link Cells#requireSeriesId}). */
   private void checkSeriesId(String[] attributeValues) {
-    int idIndex = attributeNames.indexOf(DEFAULT_SERIES_ID_COLUMN);
+    int idIndex = attributeNames.indexOf(SeriesIdentity.SERIES_ID);
     if (idIndex >= 0) {
       Cells.requireSeriesId(file, lineNumber, attributeColumnNumber(idIndex), columnNames[attributeColumnNumber(
           idIndex) - 1], attributeValues[idIndex]);

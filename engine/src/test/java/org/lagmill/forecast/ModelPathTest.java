@@ -12,6 +12,10 @@ import org.lagmill.ingest.IngestOptions;
 import org.lagmill.ingest.StoreIngest;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.training.ModelDirectory;
+import org.lagmill.training.ModelSet;
+import org.lagmill.training.ModelTraining;
+import org.lagmill.training.SmallHistories;
+import org.lagmill.training.TrainingPlan;
 
 /** A store given where a model is expected is named as such, not reported as a broken model. */
 class ModelPathTest {
