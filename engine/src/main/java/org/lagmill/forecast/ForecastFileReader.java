@@ -9,6 +9,7 @@ import java.util.Arrays;
 import java.util.List;
 import org.lagmill.ingest.CsvSource;
 import org.lagmill.ingest.InputFormatException;
+import org.lagmill.io.Excerpts;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SeriesAttributes;
 import org.lagmill.store.SeriesIdentity;
@@ -136,7 +137,7 @@ public final class ForecastFileReader {
     int index = Arrays.asList(header).indexOf(name);
     if (index < 0) {
       throw new InputFormatException(file, 1, 0, "expected a '" + name + "' column in the header, found "
-          + Arrays.toString(header));
+          + Excerpts.of(Arrays.toString(header)));
     }
     return index;
   }
@@ -148,13 +149,13 @@ public final class ForecastFileReader {
       if (Math.floorMod(daysAfterFirst, (long) history.periodDays()) != 0) {
         LocalDate before = history.firstDate().plusDays(Math.floorDiv(daysAfterFirst, (long) history.periodDays())
             * history.periodDays());
-        throw new InputFormatException(file, line, column + 1, "date " + text + " is off the store's step of "
+        throw new InputFormatException(file, line, column + 1, "date " + Excerpts.of(text) + " is off the store's step of "
             + history.periodDays() + " days: expected a period's first date such as " + before + " or "
             + before.plusDays(history.periodDays()));
       }
       return (int) (daysAfterFirst / history.periodDays());
     } catch (DateTimeParseException e) {
-      throw new InputFormatException(file, line, column + 1, "expected an ISO date (YYYY-MM-DD), found \"" + text
+      throw new InputFormatException(file, line, column + 1, "expected an ISO date (YYYY-MM-DD), found \"" + Excerpts.of(text)
           + "\"");
     }
   }
@@ -168,7 +169,7 @@ public final class ForecastFileReader {
       return value;
     } catch (NumberFormatException e) {
       throw new InputFormatException(file, line, column + 1, "expected a non-negative number of units, found \""
-          + text + "\"");
+          + Excerpts.of(text) + "\"");
     }
   }
 }

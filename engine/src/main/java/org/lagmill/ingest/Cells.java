@@ -38,7 +38,7 @@ final class Cells {
     long epochDay = epochDay(text);
     if (epochDay == NOT_A_DATE) {
       throw new InputFormatException(file, line, column,
-          columnName + " '" + text + "': expected an ISO date like 2024-03-05");
+          columnName + " '" + Excerpts.of(text) + "': expected an ISO date like 2024-03-05");
     }
     DateWindow.check(file, line, column, columnName, epochDay);
     return epochDay;
@@ -156,7 +156,8 @@ final class Cells {
   static int requireColumn(Path file, String[] header, String name, String option) {
     int index = Arrays.asList(header).indexOf(name);
     if (index < 0) {
-      throw new InputFormatException(file, 1, 0, "no column '" + name + "' in header " + String.join(",", header)
+      throw new InputFormatException(file, 1, 0, "no column '" + name + "' in header " + Excerpts.of(String.join(",",
+          header))
           + ": expected one (or name it with " + option + ")");
     }
     return index;

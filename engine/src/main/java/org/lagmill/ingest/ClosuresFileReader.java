@@ -8,6 +8,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
+import org.lagmill.io.Excerpts;
 import org.lagmill.store.ArrayClosureTable;
 import org.lagmill.store.ClosureTable;
 import org.lagmill.store.Periods;
@@ -74,8 +75,8 @@ public final class ClosuresFileReader {
         long from = Cells.requireDate(file, line, fromIndex + 1, fromColumn, record.getField(fromIndex));
         long until = Cells.requireDate(file, line, untilIndex + 1, untilColumn, record.getField(untilIndex));
         if (until < from) {
-          throw new InputFormatException(file, line, untilIndex + 1, untilColumn + " '" + record.getField(untilIndex)
-              + "' is before " + fromColumn + " '" + record.getField(fromIndex) + "': expected a date on or after it");
+          throw new InputFormatException(file, line, untilIndex + 1, untilColumn + " '" + Excerpts.of(record.getField(untilIndex))
+              + "' is before " + fromColumn + " '" + Excerpts.of(record.getField(fromIndex)) + "': expected a date on or after it");
         }
         int keyId = keys.keyIdOf(record);
         if (keyId < 0) {

@@ -10,6 +10,7 @@ import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import org.lagmill.io.Excerpts;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.memory.NativeIntArray;
 import org.lagmill.store.Periods;
@@ -233,7 +234,8 @@ public final class LongSalesReader {
         if (daysAfterFirst % periodDays != 0) {
           LocalDate first = LocalDate.ofEpochDay(minEpochDay);
           LocalDate before = first.plusDays(daysAfterFirst / periodDays * periodDays);
-          throw new InputFormatException(file, source.lineNumber(), layout.dateIndex + 1, dateColumn + " '" + dateText
+          throw new InputFormatException(file, source.lineNumber(), layout.dateIndex + 1, dateColumn + " '"
+              + Excerpts.of(dateText)
               + "' is off the file's step of " + periodDays + " days (" + stepSource + ", from " + first
               + "): expected " + before + " or " + before.plusDays(periodDays));
         }
@@ -287,12 +289,12 @@ public final class LongSalesReader {
     long units = Cells.units(text);
     if (units == Cells.NOT_UNITS) {
       throw new InputFormatException(file, line, layout.unitsIndex + 1,
-          unitsColumn + " '" + text + "': expected a non-negative integer or an empty cell");
+          unitsColumn + " '" + Excerpts.of(text) + "': expected a non-negative integer or an empty cell");
     }
     // The store keeps the all-ones value of each width for unknown days, so the largest storable count is one less.
     if (units > Integer.MAX_VALUE - 1) {
       throw new InputFormatException(file, line, layout.unitsIndex + 1,
-          unitsColumn + " '" + text + "': expected an integer at most " + (Integer.MAX_VALUE - 1));
+          unitsColumn + " '" + Excerpts.of(text) + "': expected an integer at most " + (Integer.MAX_VALUE - 1));
     }
   }
 
@@ -390,7 +392,8 @@ public final class LongSalesReader {
         if (!value.equals(firstValues[k])) {
           String name = header[attributeColumns[k]];
           throw new InputFormatException(file, line, attributeColumns[k] + 1, "series "
-              + record.getField(seriesIdIndex) + " has " + name + "=" + value + ": expected " + name + "="
+              + Excerpts.of(record.getField(seriesIdIndex)) + " has " + name + "=" + Excerpts.of(value)
+              + ": expected " + name + "="
               + firstValues[k] + " as on line " + firstLine);
         }
       }

@@ -10,6 +10,7 @@ import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
+import org.lagmill.io.Excerpts;
 import org.lagmill.store.ArrayPlanTable;
 import org.lagmill.store.Periods;
 import org.lagmill.store.PlanTable;
@@ -90,7 +91,7 @@ public final class PlanFileReader {
       }
       if (dateIndex < 0 && fromIndex < 0) {
         throw new InputFormatException(file, 1, 0, "no column '" + dateColumn + "' or '" + fromColumn + "' in header "
-            + String.join(",", header) + ": expected one (or name it with --plan-date-column or --plan-from-column)");
+            + Excerpts.of(String.join(",", header)) + ": expected one (or name it with --plan-date-column or --plan-from-column)");
       }
       Form form = dateIndex >= 0 ? Form.DATE : Form.FROM;
       int timeIndex = form == Form.DATE ? dateIndex : fromIndex;
@@ -186,12 +187,12 @@ public final class PlanFileReader {
 
   private static float number(Path file, long line, int column, String columnName, String text) {
     if (!Cells.isDecimal(text)) {
-      throw new InputFormatException(file, line, column + 1, "plan column '" + columnName + "' holds '" + text
+      throw new InputFormatException(file, line, column + 1, "plan column '" + columnName + "' holds '" + Excerpts.of(text)
           + "': expected a number such as 1, 0 or 0.25");
     }
     float value = Float.parseFloat(text);
     if (Float.isInfinite(value)) {
-      throw new InputFormatException(file, line, column + 1, "plan column '" + columnName + "' holds '" + text
+      throw new InputFormatException(file, line, column + 1, "plan column '" + columnName + "' holds '" + Excerpts.of(text)
           + "': expected a number within float range (magnitude below 3.4e38)");
     }
     return value;

@@ -5,6 +5,7 @@ import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.Arrays;
 import java.util.Locale;
+import org.lagmill.io.Excerpts;
 import org.lagmill.io.InvalidRequestException;
 
 /** Layout of a sales file ({@code --sales-format}); see docs/formats.md. */
@@ -53,7 +54,7 @@ public enum SalesFormat {
     if (Arrays.asList(header).contains(dateColumn) && Arrays.asList(header).contains(unitsColumn)) {
       return LONG;
     }
-    throw new InputFormatException(salesFile, 1, 0, "header " + String.join(",", header) + " is neither wide nor "
+    throw new InputFormatException(salesFile, 1, 0, "header " + Excerpts.of(String.join(",", header)) + " is neither wide nor "
         + "long sales: expected ISO date column headers (wide) or the columns '" + dateColumn + "' and '"
         + unitsColumn + "' (long; rename with --date-column, --units-column)");
   }

@@ -150,7 +150,7 @@ public final class WideSalesReader implements AutoCloseable {
         }
         int earlier = firstColumnByName.putIfAbsent(name, c);
         if (earlier >= 0) {
-          throw error(c, "duplicate column name \"" + name + "\" (first at column " + (earlier + 1) + ")");
+          throw error(c, "duplicate column name \"" + Excerpts.of(name) + "\" (first at column " + (earlier + 1) + ")");
         }
         attributeNames.add(storedName);
         continue;
@@ -172,12 +172,12 @@ public final class WideSalesReader implements AutoCloseable {
           long stepDays = date.toEpochDay() - previous.toEpochDay();
           if (stepDays < 1 || stepDays > Periods.MAX_PERIOD_DAYS) {
             throw error(c, "expected the second date column 1 to " + Periods.MAX_PERIOD_DAYS + " days after the first ("
-                + previous + "), found \"" + name + "\"");
+                + previous + "), found \"" + Excerpts.of(name) + "\"");
           }
           periodDays = (int) stepDays;
         } else if (!date.equals(previous.plusDays(periodDays))) {
           throw error(c, "expected date " + previous.plusDays(periodDays) + " (" + stepText()
-              + " after the previous date column), found \"" + name + "\"");
+              + " after the previous date column), found \"" + Excerpts.of(name) + "\"");
         }
       }
       previous = date;
@@ -209,7 +209,7 @@ public final class WideSalesReader implements AutoCloseable {
     try {
       date = LocalDate.parse(name);
     } catch (DateTimeException e) {
-      throw error(column, "expected a valid date (yyyy-MM-dd), found \"" + name + "\"");
+      throw error(column, "expected a valid date (yyyy-MM-dd), found \"" + Excerpts.of(name) + "\"");
     }
     DateWindow.check(file, lineNumber, column + 1, "date column", date.toEpochDay());
     return date;
