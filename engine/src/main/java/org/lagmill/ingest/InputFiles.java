@@ -5,6 +5,8 @@ import java.io.EOFException;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.UncheckedIOException;
+import java.nio.file.AccessDeniedException;
+import java.nio.file.FileSystemException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Locale;
@@ -40,11 +42,20 @@ final class InputFiles {
   /**
    * Opens a file's (decompressed) bytes, buffered.
    *
-   * @throws IOException when the file cannot be opened ({@code NoSuchFileException} when missing)
+   * @throws IOException when the file cannot be opened ({@code NoSuchFileException} when missing; a
+   *     {@code FileSystemException} whose reason names a folder or a denied permission)
    * @throws InputFormatException when a {@code .gz} file does not start with a gzip header
    */
   static InputStream open(Path file) throws IOException {
-    InputStream raw = Files.newInputStream(file);
+    if (Files.isDirectory(file)) {
+      throw new FileSystemException(file.toString(), null, "is a folder: expected a file");
+    }
+    InputStream raw;
+    try {
+      raw = Files.newInputStream(file);
+    } catch (AccessDeniedException e) {
+      throw new FileSystemException(file.toString(), null, "cannot be read: permission denied");
+    }
     try {
       return isGzip(file) ? new GZIPInputStream(raw, BUFFER_BYTES) : new BufferedInputStream(raw, BUFFER_BYTES);
     } catch (IOException e) {
