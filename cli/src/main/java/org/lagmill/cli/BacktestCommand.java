@@ -36,10 +36,12 @@ final class BacktestCommand implements Callable<Integer> {
   @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory")
   Path store;
 
-  @Option(names = "--origins", required = true, paramLabel = "K", description = "number of forecast origins")
+  @Option(names = "--origins", converter = Counts.Positive.class,
+      required = true, paramLabel = "K", description = "number of forecast origins")
   int originCount;
 
-  @Option(names = "--step", paramLabel = "PERIODS", description = "periods (days, or weeks of a weekly store) between "
+  @Option(names = "--step", converter = Counts.Positive.class,
+      paramLabel = "PERIODS", description = "periods (days, or weeks of a weekly store) between "
       + "origins (default: the horizon)")
   Integer stepDays;
 

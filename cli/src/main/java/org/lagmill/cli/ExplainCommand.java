@@ -46,7 +46,8 @@ final class ExplainCommand implements Callable<Integer> {
       + "largest aggregate of each level")
   List<String> seriesIds = List.of();
 
-  @Option(names = "--horizon", paramLabel = "PERIODS", description = "periods to forecast (default: the model's "
+  @Option(names = "--horizon", converter = Counts.Positive.class,
+      paramLabel = "PERIODS", description = "periods to forecast (default: the model's "
       + "horizon)")
   Integer horizonDays;
 

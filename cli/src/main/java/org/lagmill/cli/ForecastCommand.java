@@ -48,7 +48,8 @@ final class ForecastCommand implements Callable<Integer> {
   @Option(names = "--model", required = true, paramLabel = "DIR", description = "model directory from train")
   Path model;
 
-  @Option(names = "--horizon", paramLabel = "DAYS", description = "days to forecast (default: the model's horizon)")
+  @Option(names = "--horizon", converter = Counts.Positive.class,
+      paramLabel = "DAYS", description = "days to forecast (default: the model's horizon)")
   Integer horizonDays;
 
   @Option(names = "--out", required = true, paramLabel = "FILE", description = "forecast CSV (.gz compresses)")

@@ -17,23 +17,28 @@ final class TrainingOptions {
   @Option(names = "--config", paramLabel = "FILE", description = "feature spec YAML (see docs/configuration.md)")
   Path config;
 
-  @Option(names = "--horizon", paramLabel = "PERIODS", description = "forecast horizon and validation window in "
+  @Option(names = "--horizon", converter = Counts.Positive.class,
+      paramLabel = "PERIODS", description = "forecast horizon and validation window in "
       + "periods of the store: days, or weeks of a weekly store (default: the config's horizonDays, 28)")
   Integer horizonDays;
 
-  @Option(names = "--lags", split = ",", paramLabel = "PERIODS", description = "lags of units in periods, e.g. "
+  @Option(names = "--lags", converter = Counts.Positive.class,
+      split = ",", paramLabel = "PERIODS", description = "lags of units in periods, e.g. "
       + "28,35,42")
   int[] lagDays;
 
-  @Option(names = "--windows", split = ",", paramLabel = "PERIODS", description = "rolling windows in periods, "
+  @Option(names = "--windows", converter = Counts.Positive.class,
+      split = ",", paramLabel = "PERIODS", description = "rolling windows in periods, "
       + "e.g. 7,28,56")
   int[] windowDays;
 
-  @Option(names = "--rounds", paramLabel = "N", defaultValue = "1000", description = "most boosting rounds "
+  @Option(names = "--rounds", converter = Counts.Positive.class,
+      paramLabel = "N", defaultValue = "1000", description = "most boosting rounds "
       + "(default: ${DEFAULT-VALUE})")
   int rounds;
 
-  @Option(names = "--early-stopping", paramLabel = "N", defaultValue = "50",
+  @Option(names = "--early-stopping", converter = Counts.NonNegative.class,
+      paramLabel = "N", defaultValue = "50",
       description = "stop after N rounds without validation gain; 0 disables (default: ${DEFAULT-VALUE})")
   int earlyStoppingRounds;
 
@@ -49,7 +54,8 @@ final class TrainingOptions {
       description = "shrinkage per round (default: ${DEFAULT-VALUE})")
   double learningRate;
 
-  @Option(names = "--leaves", paramLabel = "N", defaultValue = "127", description = "leaves per tree "
+  @Option(names = "--leaves", converter = Counts.Positive.class,
+      paramLabel = "N", defaultValue = "127", description = "leaves per tree "
       + "(default: ${DEFAULT-VALUE})")
   int leafCount;
 
@@ -61,7 +67,8 @@ final class TrainingOptions {
       description = "share of rows each tree is grown on; 1 disables bagging (default: ${DEFAULT-VALUE})")
   double baggingFraction;
 
-  @Option(names = "--threads", paramLabel = "N", description = "threads (default: all processors)")
+  @Option(names = "--threads", converter = Counts.Positive.class,
+      paramLabel = "N", description = "threads (default: all processors)")
   Integer threadCount;
 
   @Option(names = "--seed", paramLabel = "N", defaultValue = "1", description = "random seed (default: "
@@ -83,7 +90,8 @@ final class TrainingOptions {
       description = "row weights: none or sales-value (the error metric's weights) (default: ${DEFAULT-VALUE})")
   String weights;
 
-  @Option(names = "--sample-rows", paramLabel = "N", defaultValue = "200000",
+  @Option(names = "--sample-rows", converter = Counts.Positive.class,
+      paramLabel = "N", defaultValue = "200000",
       description = "rows sampled to fix LightGBM's bin boundaries (default: ${DEFAULT-VALUE})")
   int sampleRowCount;
 

@@ -200,6 +200,23 @@ class BadInputCorpusTest {
         "CASEDIR"));
     c.add(text("store folder", "a replace of something not a store", "notes.txt", "mine",
         "ingest --sales TINY/sales.csv --store CASEDIR --replace", 6, "CASEDIR"));
+    // counts on the command line and paths that are not what they should be
+    c.add(text("options", "a negative horizon", "unused.txt", "", "forecast --store STORE --model MODEL --out OUT"
+        + " --horizon -5", 2, "Invalid value for option '--horizon': expected a whole number of at least 1, found -5"));
+    c.add(text("options", "a zero horizon to train", "unused.txt", "", "train --store STORE --model OUT --horizon 0",
+        2, "Invalid value for option '--horizon': expected a whole number of at least 1, found 0"));
+    c.add(text("options", "a negative lag", "unused.txt", "", "train --store STORE --model OUT --lags 2,-3", 2,
+        "Invalid value for option '--lags'"));
+    c.add(text("options", "zero rounds", "unused.txt", "", "train --store STORE --model OUT --rounds 0", 2,
+        "Invalid value for option '--rounds'"));
+    c.add(text("options", "negative origins", "unused.txt", "", "backtest --store STORE --origins -1 --out OUT",
+        2, "Invalid value for option '--origins'"));
+    c.add(text("options", "negative series to generate", "unused.txt", "", "generate --out OUT --series -3"
+        + " --days 10", 2, "Invalid value for option '--series'"));
+    c.add(text("sales wide", "a folder given as the sales file", "unused.txt", "", "ingest --sales CASEDIR"
+        + " --sales-format wide --store OUT", 6, "CASEDIR: is a folder: expected a file"));
+    c.add(text("calendar", "a folder given as the calendar", "unused.txt", "", "ingest --sales TINY/sales.csv"
+        + " --calendar CASEDIR --store OUT", 6, "CASEDIR: is a folder: expected a file"));
     return c.stream();
   }
 
@@ -238,7 +255,9 @@ class BadInputCorpusTest {
     assertEquals(c.exitCode(), run.exitCode(), c + "\n" + run.err());
     assertTrue(run.err().contains(fragment), c + ": expected the message to contain\n  " + fragment + "\nfound\n  "
         + run.err());
-    String message = run.err().lines().filter(l -> l.startsWith("lagmill: ")).findFirst().orElse("");
+    // picocli reports a bad option value itself, without the "lagmill: " prefix
+    String message = run.err().lines().filter(l -> l.startsWith("lagmill: ") || l.startsWith("Invalid value"))
+        .findFirst().orElse("");
     assertFalse(message.isEmpty(), "one 'lagmill: ' line: " + run.err());
     assertFalse(run.err().contains("\tat "), "no stack trace: " + run.err());
     assertFalse(message.contains("internal error"), message);
