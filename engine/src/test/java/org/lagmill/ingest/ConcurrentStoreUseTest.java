@@ -13,6 +13,7 @@ import java.util.List;
 import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.concurrent.atomic.AtomicInteger;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.memory.MemoryBudget;
@@ -22,6 +23,7 @@ import org.lagmill.store.SalesStore;
  * Writers and readers of one store at the same time: two appends of the same next day never both land (the second
  * waits for the first, then finds the day taken), and a reader opened during appends sees one whole generation.
  */
+@Tag("reliability")
 class ConcurrentStoreUseTest {
   private static final LocalDate FIRST = LocalDate.of(2025, 1, 1);
   private static final int SERIES = 40;

@@ -8,6 +8,7 @@ import java.nio.file.Path;
 import java.util.List;
 import java.util.Random;
 import java.util.stream.Stream;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.memory.MemoryBudget;
@@ -21,6 +22,7 @@ import org.lagmill.store.StoreManifest;
  * a manifest without its own checksum). It must open as the same history a fresh ingest gives, and its first append
  * must move it to the generation layout without losing a day.
  */
+@Tag("reliability")
 class PreviousFormatFixtureTest {
   private static final Path TINY = Path.of("..", "testdata", "tiny");
   private static final Path STORE_V1 = Path.of("..", "testdata", "store-v1");

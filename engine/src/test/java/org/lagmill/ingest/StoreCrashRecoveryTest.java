@@ -15,6 +15,7 @@ import java.util.function.Consumer;
 import java.util.stream.Stream;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.BeforeEach;
+import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.memory.MemoryBudget;
@@ -30,6 +31,7 @@ import org.lagmill.store.StoreWriter;
  * as the old or the new store, never anything else, tidy itself up on that first open and say so, and take the next
  * append.
  */
+@Tag("reliability")
 class StoreCrashRecoveryTest {
   private static final LocalDate FIRST = LocalDate.of(2025, 6, 2);
 
