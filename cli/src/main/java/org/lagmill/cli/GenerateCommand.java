@@ -37,12 +37,10 @@ public final class GenerateCommand implements Callable<Integer> {
   @Option(names = "--out", required = true, paramLabel = "DIR", description = "Folder to write into (created if missing).")
   Path outDir;
 
-  @Option(names = "--series", converter = Counts.Positive.class,
-      required = true, paramLabel = "N", description = "Number of article-outlet series.")
+  @Option(names = "--series", required = true, paramLabel = "N", description = "Number of article-outlet series.")
   int seriesCount;
 
-  @Option(names = "--days", converter = Counts.Positive.class,
-      required = true, paramLabel = "D", description = "Number of sales days.")
+  @Option(names = "--days", required = true, paramLabel = "D", description = "Number of sales days.")
   int dayCount;
 
   @Option(names = "--start", paramLabel = "DATE", description = "First sales day, YYYY-MM-DD (default: ${DEFAULT-VALUE}).",
@@ -53,8 +51,7 @@ public final class GenerateCommand implements Callable<Integer> {
       defaultValue = "42")
   long seed;
 
-  @Option(names = "--future-days", converter = Counts.NonNegative.class,
-      paramLabel = "F",
+  @Option(names = "--future-days", paramLabel = "F",
       description = "Calendar and price days past the last sales day (default: ${DEFAULT-VALUE}).", defaultValue = "28")
   int futureDayCount;
 

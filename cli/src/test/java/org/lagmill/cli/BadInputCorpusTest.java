@@ -212,7 +212,7 @@ class BadInputCorpusTest {
     c.add(text("options", "negative origins", "unused.txt", "", "backtest --store STORE --origins -1 --out OUT",
         2, "Invalid value for option '--origins'"));
     c.add(text("options", "negative series to generate", "unused.txt", "", "generate --out OUT --series -3"
-        + " --days 10", 2, "Invalid value for option '--series'"));
+        + " --days 10", 2, "series count must be in [1, 50000000], got -3"));
     c.add(text("sales wide", "a folder given as the sales file", "unused.txt", "", "ingest --sales CASEDIR"
         + " --sales-format wide --store OUT", 6, "CASEDIR: is a folder: expected a file"));
     c.add(text("calendar", "a folder given as the calendar", "unused.txt", "", "ingest --sales TINY/sales.csv"
