@@ -14,7 +14,9 @@ import org.lagmill.forecast.CountQuantiles;
 import org.lagmill.forecast.ForecastFileWriter;
 import org.lagmill.forecast.ForecastTable;
 import org.lagmill.forecast.Forecaster;
+import org.lagmill.forecast.HorizonCoverage;
 import org.lagmill.ingest.IngestOptions;
+import org.lagmill.ingest.PlanSource;
 import org.lagmill.ingest.StoreIngest;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.learner.DatasetParameters;
@@ -107,14 +109,14 @@ final class DemoCommand implements Callable<Integer> {
       try (Stage stage = run.stage("ingest")) {
         StoreIngest.ingest(IngestOptions.of(data.resolve(ScenarioGenerator.SALES_FILE), storeDir)
             .withCalendarFile(data.resolve(ScenarioGenerator.CALENDAR_FILE))
-            .withPricesFile(data.resolve(ScenarioGenerator.PRICES_FILE)), stage.budget());
+            .withPricesFile(data.resolve(ScenarioGenerator.PRICES_FILE))
+            .withPlan(PlanSource.of(data.resolve(ScenarioGenerator.PLAN_FILE))), stage.budget());
         stage.addRows(itemDays);
       }
-      // The engine does not read closures or plans yet: the demo scores closed outlet days as zero sales and the model
-      // learns promotions from prices alone. Say so rather than drop the files silently.
+      // The demo does not ingest closures yet: it scores closed outlet days as zero sales. Say so rather than drop the
+      // file silently. The promotion plan is ingested: its columns become plan_<column> features.
       commandSpec.commandLine().getErr().println("warning: the demo data's " + ScenarioGenerator.CLOSURES_FILE
-          + " and " + ScenarioGenerator.PLAN_FILE + " are not ingested by this version; closed outlet days count as"
-          + " zero sales");
+          + " is not ingested by the demo; closed outlet days count as zero sales");
       ReportData.Builder report = RunReport.start("lagmill demo: Marrowgate & Tillbox, " + chosen.name()
           .toLowerCase(Locale.ROOT) + " scenario", "lagmill demo --size " + size, storeDir.toString());
       BacktestRun backtest;
@@ -143,6 +145,9 @@ final class DemoCommand implements Callable<Integer> {
               .close();
           report.training(ReportAssembler.training(models.partitions().stream().map(p -> p.report()).toList()));
           try (Stage stage = run.stage("forecast")) {
+            // The generated plan reaches the last future day, so it covers the horizon; the check says so if not.
+            HorizonCoverage.check(store, models.spec(), HORIZON_DAYS).warnings()
+                .forEach(w -> commandSpec.commandLine().getErr().println("warning: " + w));
             point = Forecaster.forecast(models, store, HORIZON_DAYS, stage.budget());
             dispersion = models.dispersionBySeries();
             ForecastTable table = new ForecastTable(store.dayCount(), point, ForecastTable.PUBLISHED_QUANTILES,

@@ -12,6 +12,7 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.features.FeatureSpecYaml;
 import org.lagmill.run.RunRecord;
 
 /** The README's first command, at its small size: every artefact it promises, and a model that beats the baselines. */
@@ -44,6 +45,11 @@ class DemoCommandTest {
     assertEquals(List.of("generate", "ingest", "backtest", "train", "forecast", "explain"), stageNames);
     assertEquals(0, record.path("stages").path(0).path("offHeapBytes").asLong());
     assertTrue(record.path("stages").path(1).path("offHeapBytes").asLong() > 0, record.toString());
+    // The promotion plan is ingested and read: the model records its plan columns.
+    assertTrue(!run.err().contains("plan.csv"), run.err());
+    JsonNode modelManifest = RunRecord.JSON.readTree(out.resolve("model/manifest.json").toFile());
+    assertEquals(List.of("promo", "discount", "display", "leaflet"), FeatureSpecYaml.parse(modelManifest
+        .get("featureSpecYaml").asText(), "manifest").planColumns());
     String html = Files.readString(out.resolve("report/report.html"));
     assertTrue(html.contains("id=\"accuracy\"") && html.contains("id=\"series\""), "report sections");
   }

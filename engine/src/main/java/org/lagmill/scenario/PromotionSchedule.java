@@ -164,35 +164,44 @@ final class PromotionSchedule {
 
   /**
    * Writes the promotion plan of the article in the banner as change points: a row of zeros on the first calendar day,
-   * then a row whenever the promotion flag, discount, display or leaflet changes. Each row holds until the next.
+   * then a row whenever the promotion flag, discount, display or leaflet changes. Each row holds until the next. A
+   * last row on {@code lastPlanDay} repeats the values holding then, so the file says how far the plan reaches (a
+   * plan whose last change lies weeks back would otherwise look stale).
+   *
+   * @param lastPlanDay the day the plan reaches: the first day of the last period
    */
-  void writePlan(AsciiWriter out, HolidayCalendar calendar, int articleIndex, int bannerIndex) throws IOException {
+  void writePlan(AsciiWriter out, HolidayCalendar calendar, int articleIndex, int bannerIndex, int lastPlanDay)
+      throws IOException {
     for (int day = 0; day < dayCount; day++) {
       boolean changed = day == 0 || discountPercent[day] != discountPercent[day - 1]
           || display[day] != display[day - 1] || leaflet[day] != leaflet[day - 1];
-      if (!changed) {
-        continue;
+      if (changed || day == lastPlanDay) {
+        writePlanRow(out, calendar, articleIndex, bannerIndex, day);
       }
-      ChainLayout.writeArticleCode(out, articleIndex);
-      out.writeByte(',');
-      out.writeAscii(ChainLayout.BANNER_NAMES[bannerIndex]);
-      out.writeByte(',');
-      out.writeBytes(calendar.isoDate(day));
-      int depth = discountPercent[day];
-      out.writeByte(',');
-      out.writeByte(depth > 0 ? '1' : '0');
-      out.writeByte(',');
-      if (depth > 0) {
-        out.writeCents(depth);
-      } else {
-        out.writeByte('0');
-      }
-      out.writeByte(',');
-      out.writeByte(display[day] ? '1' : '0');
-      out.writeByte(',');
-      out.writeByte(leaflet[day] ? '1' : '0');
-      out.writeByte('\n');
     }
+  }
+
+  private void writePlanRow(AsciiWriter out, HolidayCalendar calendar, int articleIndex, int bannerIndex, int day)
+      throws IOException {
+    ChainLayout.writeArticleCode(out, articleIndex);
+    out.writeByte(',');
+    out.writeAscii(ChainLayout.BANNER_NAMES[bannerIndex]);
+    out.writeByte(',');
+    out.writeBytes(calendar.isoDate(day));
+    int depth = discountPercent[day];
+    out.writeByte(',');
+    out.writeByte(depth > 0 ? '1' : '0');
+    out.writeByte(',');
+    if (depth > 0) {
+      out.writeCents(depth);
+    } else {
+      out.writeByte('0');
+    }
+    out.writeByte(',');
+    out.writeByte(display[day] ? '1' : '0');
+    out.writeByte(',');
+    out.writeByte(leaflet[day] ? '1' : '0');
+    out.writeByte('\n');
   }
 
   static int endInNine(double cents) {

@@ -106,6 +106,9 @@ public final class ScenarioGenerator {
 
     DemandModel demand = new DemandModel(spec.seed(), dayCount, layout, calendar, closures);
     ItemProfile item = new ItemProfile();
+    // The plan states how far it reaches with a row on the first day of the last period (weekly: the last week's
+    // Monday), so a forecast over the future days finds it covered.
+    int lastPlanDay = (calendar.dayCount() - 1) / periodDays * periodDays;
     PromotionSchedule[] promotionsByBanner = new PromotionSchedule[ChainLayout.BANNER_NAMES.length];
     for (int banner = 0; banner < promotionsByBanner.length; banner++) {
       promotionsByBanner[banner] = new PromotionSchedule(calendar.dayCount());
@@ -123,7 +126,7 @@ public final class ScenarioGenerator {
             continue;
           }
           promotionsByBanner[banner].load(spec.seed(), item, banner);
-          promotionsByBanner[banner].writePlan(planOut, calendar, articleIndex, banner);
+          promotionsByBanner[banner].writePlan(planOut, calendar, articleIndex, banner, lastPlanDay);
           if (!weekly) {
             promotionsByBanner[banner].writeChangePoints(pricesOut, calendar, articleIndex, banner);
           }

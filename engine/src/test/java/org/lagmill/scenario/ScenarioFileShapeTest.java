@@ -139,6 +139,9 @@ class ScenarioFileShapeTest {
     for (Map.Entry<String, List<String[]>> entry : files.planByKey().entrySet()) {
       List<String[]> plan = entry.getValue();
       assertEquals(START.toString(), plan.get(0)[0], "the plan starts on the first day: " + entry.getKey());
+      // 600 sales days and 28 future days: the last row, on the last calendar day, states the plan's reach.
+      assertEquals(START.plusDays(627).toString(), plan.get(plan.size() - 1)[0], "the plan's reach: "
+          + entry.getKey());
       for (String[] row : plan) {
         assertTrue(row[1].matches("[01]") && row[3].matches("[01]") && row[4].matches("[01]"), entry.getKey());
         assertTrue(row[1].equals("0") ? row[2].equals("0") && row[3].equals("0") && row[4].equals("0")
