@@ -84,7 +84,7 @@ final class AppendCommand implements Callable<Integer> {
       }
       StoreManifest appended = result.manifest();
       run.record().result("seriesCount", appended.seriesCount()).result("dayCount", appended.dayCount())
-          .result("fill", appended.fill()).result("warnings", result.warnings());
+          .result("fill", appended.fill()).result("warnings", FlagNames.render(result.warnings()));
       run.record().write(store);
       if (!quiet) {
         IngestCommand.printWarnings(spec.commandLine().getErr(), result.warnings());

@@ -70,7 +70,7 @@ final class ExplainCommand implements Callable<Integer> {
         Stage stage = run.stage("explain")) {
       int horizon = horizonDays == null ? models.spec().horizonDays() : horizonDays;
       HorizonCoverage.check(opened, models.spec(), horizon, planCarryForward).warnings()
-          .forEach(w -> System.err.println("warning: " + w));
+          .forEach(w -> System.err.println("warning: " + FlagNames.render(w)));
       charts = DriverChartBuilder.build(opened, hierarchyOptions.hierarchy(opened).bind(opened), models,
           horizon, seriesIds, SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, stage.budget());
     }

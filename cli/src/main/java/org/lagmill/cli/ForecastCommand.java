@@ -110,7 +110,7 @@ final class ForecastCommand implements Callable<Integer> {
       HorizonCoverage coverage = HorizonCoverage.check(opened, models.spec(), horizon, planCarryForward);
       run.record().result("planCarriedSeriesPeriods", coverage.planCarriedSeriesPeriods());
       if (!quiet) {
-        coverage.warnings().forEach(w -> System.err.println("warning: " + w));
+        coverage.warnings().forEach(w -> System.err.println("warning: " + FlagNames.render(w)));
         StoreManifest.Shard shard = opened.manifest().shard();
         // A model trained over every shard records the fingerprint of the store they were split from.
         boolean sameStore = manifest.storeFingerprint().equals(opened.fingerprint())
@@ -181,7 +181,7 @@ final class ForecastCommand implements Callable<Integer> {
           report.accuracy(backtest.accuracy()).horizon(backtest.horizon());
           BacktestMatch.warnings(backtest, opened, models.spec().horizonDays()).forEach(w -> {
             if (!quiet) {
-              System.err.println("warning: " + w);
+              System.err.println("warning: " + FlagNames.render(w));
             }
           });
           run.record().configure("backtest", backtestDir.toString());

@@ -101,7 +101,7 @@ final class IngestCommand implements Callable<Integer> {
       StoreManifest ingested = result.manifest();
       run.record().result("seriesCount", ingested.seriesCount()).result("dayCount", ingested.dayCount())
           .result("storeBytes", ingested.binaryBytes()).result("fill", ingested.fill())
-          .result("warnings", result.warnings());
+          .result("warnings", FlagNames.render(result.warnings()));
       run.record().write(store);
       if (!quiet) {
         printWarnings(spec.commandLine().getErr(), result.warnings());
@@ -137,7 +137,7 @@ final class IngestCommand implements Callable<Integer> {
 
   static void printWarnings(PrintWriter err, List<String> warnings) {
     for (String warning : warnings) {
-      err.println("warning: " + warning);
+      err.println("warning: " + FlagNames.render(warning));
     }
     err.flush();
   }

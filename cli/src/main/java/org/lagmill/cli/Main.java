@@ -42,7 +42,7 @@ public final class Main {
   static CommandLine commandLine() {
     CommandLine cli = new CommandLine(new Main());
     StoreNotices.setSink(text -> {
-      cli.getErr().println("note: " + text);
+      cli.getErr().println("note: " + FlagNames.render(text));
       cli.getErr().flush();
     });
     for (Object sub : Subcommands.all()) {
@@ -51,7 +51,7 @@ public final class Main {
     HelpLayout.apply(cli);
     cli.setExecutionExceptionHandler((e, commandLine, parseResult) -> {
       Throwable t = e instanceof UncheckedIOException u ? u.getCause() : e;
-      commandLine.getErr().println("lagmill: " + message(t));
+      commandLine.getErr().println("lagmill: " + FlagNames.render(message(t)));
       return exitCodeOf(t);
     });
     return cli;

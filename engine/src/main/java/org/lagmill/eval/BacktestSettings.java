@@ -2,6 +2,7 @@ package org.lagmill.eval;
 
 import java.util.List;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.Setting;
 
 /**
  * Where a rolling-origin backtest puts its origins and what it compares the model with.
@@ -16,13 +17,13 @@ public record BacktestSettings(int originCount, int stepDays, int horizonDays, L
 
   public BacktestSettings {
     if (originCount < 1) {
-      throw new InvalidRequestException("--origins must be >= 1, got " + originCount);
+      throw new InvalidRequestException(Setting.ORIGINS + " must be >= 1, got " + originCount);
     }
     if (stepDays < 1) {
-      throw new InvalidRequestException("--step must be >= 1 day, got " + stepDays);
+      throw new InvalidRequestException(Setting.STEP + " must be >= 1 day, got " + stepDays);
     }
     if (horizonDays < 1) {
-      throw new InvalidRequestException("--horizon must be >= 1 day, got " + horizonDays);
+      throw new InvalidRequestException(Setting.HORIZON + " must be >= 1 day, got " + horizonDays);
     }
     baselines = List.copyOf(baselines);
   }

@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.Map;
 import java.util.TreeSet;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.Setting;
 import org.lagmill.store.StoreManifest;
 
 /**
@@ -175,7 +176,8 @@ public final class MergedScoring {
       List<List<String>> levels = part.levels().stream().map(ScoringPart.LevelPart::attributeNames).toList();
       if (!firstLevels.equals(levels)) {
         throw new InvalidRequestException("part " + p + " scores levels " + levels + " but part 0 scores "
-            + firstLevels + "; shards can find different default levels, so give every shard the same --hierarchy");
+            + firstLevels + "; shards can find different default levels, so give every shard the same "
+            + Setting.HIERARCHY);
       }
       for (int l = 0; l < levels.size(); l++) {
         agree(p, "level " + levels.get(l) + " lying whole in one shard", first.levels().get(l).wholeInOneShard(),

@@ -13,6 +13,7 @@ import java.util.Map;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.lagmill.io.Excerpts;
+import org.lagmill.io.Setting;
 import org.lagmill.store.ArrayDayCalendar;
 import org.lagmill.store.Periods;
 import org.lagmill.store.DayCalendar.ColumnKind;
@@ -75,7 +76,7 @@ public final class CalendarFileReader {
     try (CsvSource source = CsvSource.open(file)) {
       String[] header = source.readHeader();
       Cells.requireDistinct(file, header);
-      int dateIndex = Cells.requireColumn(file, header, dateColumn, "--date-column");
+      int dateIndex = Cells.requireColumn(file, header, dateColumn, Setting.DATE_COLUMN.toString());
       List<Group> groups = groupColumns(file, header, dateIndex, attributes, warnings);
 
       long firstEpochDay = storeFirstDate.toEpochDay();

@@ -9,6 +9,7 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import org.lagmill.io.Excerpts;
+import org.lagmill.io.Setting;
 import org.lagmill.store.ArrayClosureTable;
 import org.lagmill.store.ClosureTable;
 import org.lagmill.store.Periods;
@@ -59,8 +60,8 @@ public final class ClosuresFileReader {
     try (CsvSource source = CsvSource.open(file)) {
       String[] header = source.readHeader();
       Cells.requireDistinct(file, header);
-      int fromIndex = Cells.requireColumn(file, header, fromColumn, "--closures-from-column");
-      int untilIndex = Cells.requireColumn(file, header, untilColumn, "--closures-until-column");
+      int fromIndex = Cells.requireColumn(file, header, fromColumn, Setting.CLOSURES_FROM_COLUMN.toString());
+      int untilIndex = Cells.requireColumn(file, header, untilColumn, Setting.CLOSURES_UNTIL_COLUMN.toString());
       int reasonIndex = Arrays.asList(header).indexOf(REASON_COLUMN);
       int[] valueColumns = reasonIndex < 0 ? new int[] {fromIndex, untilIndex}
           : new int[] {fromIndex, untilIndex, reasonIndex};

@@ -2,6 +2,7 @@ package org.lagmill.ingest;
 
 import java.util.Objects;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.Setting;
 import org.lagmill.store.SeriesIdentity;
 
 /**
@@ -36,14 +37,14 @@ public record ColumnNames(String seriesIdColumn, String dateColumn, String units
   }
 
   public ColumnNames {
-    requireName(seriesIdColumn, "--series-id-column", SeriesIdentity.SERIES_ID);
-    requireName(dateColumn, "--date-column", CalendarFileReader.DEFAULT_DATE_COLUMN);
-    requireName(unitsColumn, "--units-column", LongSalesReader.DEFAULT_UNITS_COLUMN);
-    requireName(fromColumn, "--prices-from-column", PriceFileReader.DEFAULT_FROM_COLUMN);
-    requireName(priceColumn, "--price-column", PriceFileReader.DEFAULT_PRICE_COLUMN);
-    requireName(calendarDateColumn, "--calendar-date-column", CalendarFileReader.DEFAULT_DATE_COLUMN);
-    requireName(closuresFromColumn, "--closures-from-column", ClosuresFileReader.DEFAULT_FROM_COLUMN);
-    requireName(closuresUntilColumn, "--closures-until-column", ClosuresFileReader.DEFAULT_UNTIL_COLUMN);
+    requireName(seriesIdColumn, Setting.SERIES_ID_COLUMN.toString(), SeriesIdentity.SERIES_ID);
+    requireName(dateColumn, Setting.DATE_COLUMN.toString(), CalendarFileReader.DEFAULT_DATE_COLUMN);
+    requireName(unitsColumn, Setting.UNITS_COLUMN.toString(), LongSalesReader.DEFAULT_UNITS_COLUMN);
+    requireName(fromColumn, Setting.PRICES_FROM_COLUMN.toString(), PriceFileReader.DEFAULT_FROM_COLUMN);
+    requireName(priceColumn, Setting.PRICES_PRICE_COLUMN.toString(), PriceFileReader.DEFAULT_PRICE_COLUMN);
+    requireName(calendarDateColumn, Setting.CALENDAR_DATE_COLUMN.toString(), CalendarFileReader.DEFAULT_DATE_COLUMN);
+    requireName(closuresFromColumn, Setting.CLOSURES_FROM_COLUMN.toString(), ClosuresFileReader.DEFAULT_FROM_COLUMN);
+    requireName(closuresUntilColumn, Setting.CLOSURES_UNTIL_COLUMN.toString(), ClosuresFileReader.DEFAULT_UNTIL_COLUMN);
   }
 
   private static void requireName(String name, String option, String defaultName) {

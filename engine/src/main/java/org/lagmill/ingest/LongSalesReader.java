@@ -11,6 +11,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import org.lagmill.io.Excerpts;
+import org.lagmill.io.Setting;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.memory.NativeIntArray;
 import org.lagmill.store.Periods;
@@ -316,8 +317,8 @@ public final class LongSalesReader {
 
     static Layout of(Path file, String[] header, String dateColumn, String unitsColumn, String seriesIdColumn) {
       Cells.requireDistinct(file, header);
-      int dateIndex = Cells.requireColumn(file, header, dateColumn, "--date-column");
-      int unitsIndex = Cells.requireColumn(file, header, unitsColumn, "--units-column");
+      int dateIndex = Cells.requireColumn(file, header, dateColumn, Setting.DATE_COLUMN.toString());
+      int unitsIndex = Cells.requireColumn(file, header, unitsColumn, Setting.UNITS_COLUMN.toString());
       int[] attributeColumns = new int[header.length - 2];
       int k = 0;
       for (int c = 0; c < header.length; c++) {

@@ -2,6 +2,7 @@ package org.lagmill.ingest;
 
 import java.util.Locale;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.Setting;
 
 /**
  * What a day with no row means in long sales ({@code --missing-rows}); see docs/formats/sales-long.md. Applies from
@@ -24,7 +25,7 @@ public enum MissingRows {
         return policy;
       }
     }
-    throw new InvalidRequestException("--missing-rows must be one of zero, unknown, got '" + name
+    throw new InvalidRequestException(Setting.MISSING_ROWS + " must be one of zero, unknown, got '" + name
         + "'; zero (the default) reads a day with no row as no sale");
   }
 

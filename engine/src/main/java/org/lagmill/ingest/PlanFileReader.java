@@ -11,6 +11,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import org.lagmill.io.Excerpts;
+import org.lagmill.io.Setting;
 import org.lagmill.store.ArrayPlanTable;
 import org.lagmill.store.Periods;
 import org.lagmill.store.PlanTable;
@@ -91,7 +92,8 @@ public final class PlanFileReader {
       }
       if (dateIndex < 0 && fromIndex < 0) {
         throw new InputFormatException(file, 1, 0, "no column '" + dateColumn + "' or '" + fromColumn + "' in header "
-            + Excerpts.of(String.join(",", header)) + ": expected one (or name it with --plan-date-column or --plan-from-column)");
+            + Excerpts.of(String.join(",", header)) + ": expected one (or name it with " + Setting.PLAN_DATE_COLUMN
+            + " or " + Setting.PLAN_FROM_COLUMN + ")");
       }
       Form form = dateIndex >= 0 ? Form.DATE : Form.FROM;
       int timeIndex = form == Form.DATE ? dateIndex : fromIndex;

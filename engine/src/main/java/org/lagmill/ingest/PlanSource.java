@@ -3,6 +3,7 @@ package org.lagmill.ingest;
 import java.nio.file.Path;
 import java.util.Objects;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.Setting;
 
 /**
  * A plan file and the names of its time columns ({@link PlanFileReader}).
@@ -14,10 +15,11 @@ import org.lagmill.io.InvalidRequestException;
 public record PlanSource(Path file, String dateColumn, String fromColumn) {
   public PlanSource {
     Objects.requireNonNull(file, "file");
-    requireName(dateColumn, "--plan-date-column", PlanFileReader.DEFAULT_DATE_COLUMN);
-    requireName(fromColumn, "--plan-from-column", PlanFileReader.DEFAULT_FROM_COLUMN);
+    requireName(dateColumn, Setting.PLAN_DATE_COLUMN.toString(), PlanFileReader.DEFAULT_DATE_COLUMN);
+    requireName(fromColumn, Setting.PLAN_FROM_COLUMN.toString(), PlanFileReader.DEFAULT_FROM_COLUMN);
     if (dateColumn.equals(fromColumn)) {
-      throw new InvalidRequestException("--plan-date-column and --plan-from-column both name '" + dateColumn
+      throw new InvalidRequestException(Setting.PLAN_DATE_COLUMN + " and " + Setting.PLAN_FROM_COLUMN
+          + " both name '" + dateColumn
           + "'; they must differ, since the column's name tells how long a row holds");
     }
   }

@@ -9,6 +9,7 @@ import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.List;
 import org.lagmill.io.Excerpts;
+import org.lagmill.io.Setting;
 import org.lagmill.store.ArrayPriceTable;
 import org.lagmill.store.Periods;
 import org.lagmill.store.SeriesAttributes;
@@ -63,8 +64,8 @@ public final class PriceFileReader {
     try (CsvSource source = CsvSource.open(file)) {
       String[] header = source.readHeader();
       Cells.requireDistinct(file, header);
-      int fromIndex = Cells.requireColumn(file, header, fromColumn, "--prices-from-column");
-      int priceIndex = Cells.requireColumn(file, header, priceColumn, "--price-column");
+      int fromIndex = Cells.requireColumn(file, header, fromColumn, Setting.PRICES_FROM_COLUMN.toString());
+      int priceIndex = Cells.requireColumn(file, header, priceColumn, Setting.PRICES_PRICE_COLUMN.toString());
       SeriesKeys keys = SeriesKeys.allColumnsExcept(file, header, new int[] {fromIndex, priceIndex}, attributes,
           seriesCount, "price", true);
 

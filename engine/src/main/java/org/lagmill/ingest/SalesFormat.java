@@ -7,6 +7,7 @@ import java.util.Arrays;
 import java.util.Locale;
 import org.lagmill.io.Excerpts;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.Setting;
 
 /** Layout of a sales file ({@code --sales-format}); see docs/formats.md. */
 public enum SalesFormat {
@@ -24,7 +25,7 @@ public enum SalesFormat {
         return format;
       }
     }
-    throw new InvalidRequestException("--sales-format must be one of wide, long, auto, got '" + name
+    throw new InvalidRequestException(Setting.SALES_FORMAT + " must be one of wide, long, auto, got '" + name
         + "'; auto (the default) decides from the header");
   }
 
@@ -56,7 +57,7 @@ public enum SalesFormat {
     }
     throw new InputFormatException(salesFile, 1, 0, "header " + Excerpts.of(String.join(",", header)) + " is neither wide nor "
         + "long sales: expected ISO date column headers (wide) or the columns '" + dateColumn + "' and '"
-        + unitsColumn + "' (long; rename with --date-column, --units-column)");
+        + unitsColumn + "' (long; rename with " + Setting.DATE_COLUMN + ", " + Setting.UNITS_COLUMN + ")");
   }
 
   /** The option value: {@code wide}, {@code long} or {@code auto}. */

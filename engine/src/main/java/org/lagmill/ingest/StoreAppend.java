@@ -10,6 +10,7 @@ import java.util.HashSet;
 import java.util.List;
 import org.lagmill.io.Excerpts;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.Setting;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.ClosureTable;
 import org.lagmill.store.Periods;
@@ -73,8 +74,9 @@ public final class StoreAppend {
     Path salesFile = options.salesFile();
     if (salesFile == null && options.calendarFile() == null && options.pricesFile() == null
         && options.closuresFile() == null && options.plan() == null) {
-      throw new InvalidRequestException("nothing to append: give --sales, --calendar, --prices, --closures or "
-          + "--plan");
+      throw new InvalidRequestException("nothing to append: give " + Setting.SALES + ", " + Setting.CALENDAR + ", "
+          + Setting.PRICES + ", " + Setting.CLOSURES + " or "
+          + Setting.PLAN.toString());
     }
     try (StoreUpdate update = StoreUpdate.begin(storeDir, policy);
         MemoryBudget stage = budget.child("append")) {

@@ -9,6 +9,7 @@ import org.lagmill.eval.Level;
 import org.lagmill.features.FeatureFamily;
 import org.lagmill.forecast.ForecastExplainer;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.Setting;
 import org.lagmill.training.ModelSet;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesHistory;
@@ -53,7 +54,8 @@ public final class DriverChartBuilder {
     for (String id : shownSeriesIds) {
       int series = history.attributes().seriesIndexOf(id);
       if (series < 0) {
-        throw new InvalidRequestException("--series " + id + ": no such series in the store; list them with "
+        throw new InvalidRequestException(Setting.CHOSEN_SERIES + " " + id
+            + ": no such series in the store; list them with "
             + "lagmill series --store DIR --match TEXT");
       }
       targets.add(new ForecastExplainer.Target("series " + id, new int[] {series}));

@@ -9,6 +9,7 @@ import org.lagmill.eval.Aggregator;
 import org.lagmill.eval.IntervalAggregation;
 import org.lagmill.eval.Level;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.Setting;
 import org.lagmill.store.SalesHistory;
 
 /**
@@ -54,7 +55,7 @@ public final class SeriesChartBuilder {
     for (String id : shownSeriesIds) {
       int series = history.attributes().seriesIndexOf(id);
       if (series < 0) {
-        throw new InvalidRequestException("--show " + id + ": no such series in the store");
+        throw new InvalidRequestException(Setting.SHOWN_SERIES + " " + id + ": no such series in the store");
       }
       if (bottom.isBottom()) {
         int aggregate = bottom.aggregateIndexOf(series);

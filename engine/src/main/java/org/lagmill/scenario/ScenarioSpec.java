@@ -2,6 +2,7 @@ package org.lagmill.scenario;
 
 import java.time.LocalDate;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.Setting;
 
 /**
  * What to generate: {@code seriesCount} article-outlet series of {@code dayCount} sales days from {@code startDate},
@@ -33,27 +34,30 @@ public record ScenarioSpec(int seriesCount, int dayCount, LocalDate startDate, l
   public ScenarioSpec {
     if (seriesCount < 1 || seriesCount > MAX_SERIES_COUNT) {
       throw new InvalidRequestException("series count must be in [1, " + MAX_SERIES_COUNT + "], got " + seriesCount
-          + "; hint: --series 600 gives a small demo");
+          + "; hint: " + Setting.SCENARIO_SERIES + " 600 gives a small demo");
     }
     if (dayCount < 1 || dayCount > MAX_DAY_COUNT) {
       throw new InvalidRequestException("day count must be in [1, " + MAX_DAY_COUNT + "], got " + dayCount
-          + "; hint: --days 730 gives two years of history");
+          + "; hint: " + Setting.SCENARIO_DAYS + " 730 gives two years of history");
     }
     if (futureDayCount < 0 || futureDayCount > MAX_FUTURE_DAY_COUNT) {
       throw new InvalidRequestException("future day count must be in [0, " + MAX_FUTURE_DAY_COUNT + "], got "
-          + futureDayCount + "; hint: use the forecast horizon, e.g. --future-days 28");
+          + futureDayCount + "; hint: use the forecast horizon, e.g. " + Setting.SCENARIO_FUTURE_DAYS + " 28");
     }
     if (startDate == null) {
-      throw new InvalidRequestException("start date is missing; hint: e.g. --start " + DEFAULT_START_DATE);
+      throw new InvalidRequestException("start date is missing; hint: e.g. " + Setting.SCENARIO_START + " "
+          + DEFAULT_START_DATE);
     }
     if (periodDays != DAILY && periodDays != WEEKLY) {
       throw new InvalidRequestException("period must be 1 (day) or 7 (week) days, got " + periodDays
-          + "; hint: --period day or --period week");
+          + "; hint: " + Setting.SCENARIO_PERIOD + " day or " + Setting.SCENARIO_PERIOD + " week");
     }
     if (periodDays == WEEKLY && (dayCount % WEEKLY != 0 || futureDayCount % WEEKLY != 0)) {
-      throw new InvalidRequestException("weekly output needs whole weeks: --days and --future-days must be "
-          + "multiples of 7, got " + dayCount + " and " + futureDayCount + "; hint: --days "
-          + Math.max(WEEKLY, dayCount / WEEKLY * WEEKLY) + " --future-days " + futureDayCount / WEEKLY * WEEKLY);
+      throw new InvalidRequestException("weekly output needs whole weeks: " + Setting.SCENARIO_DAYS + " and "
+          + Setting.SCENARIO_FUTURE_DAYS + " must be "
+          + "multiples of 7, got " + dayCount + " and " + futureDayCount + "; hint: " + Setting.SCENARIO_DAYS + " "
+          + Math.max(WEEKLY, dayCount / WEEKLY * WEEKLY) + " " + Setting.SCENARIO_FUTURE_DAYS + " "
+          + futureDayCount / WEEKLY * WEEKLY);
     }
     LocalDate lastDate = startDate.plusDays((long) dayCount + futureDayCount - 1);
     if (startDate.getYear() < MIN_YEAR || lastDate.getYear() > MAX_YEAR) {

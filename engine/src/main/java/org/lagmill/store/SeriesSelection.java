@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.Setting;
 
 /**
  * Picks series of a store by name or attribute value, for commands that work on a subset ({@code forecast --series},
@@ -37,7 +38,8 @@ public final class SeriesSelection {
       for (String id : seriesIds) {
         int series = attributes.seriesIndexOf(id);
         if (series < 0) {
-          throw new InvalidRequestException("--series " + id + ": no such series in the store; list them with "
+          throw new InvalidRequestException(Setting.CHOSEN_SERIES + " " + id
+              + ": no such series in the store; list them with "
               + "lagmill series --store DIR --match TEXT");
         }
         chosen.set(series);
@@ -55,19 +57,22 @@ public final class SeriesSelection {
     for (String condition : conditions) {
       int equals = condition.indexOf('=');
       if (equals <= 0 || equals == condition.length() - 1) {
-        throw new InvalidRequestException("--where '" + condition + "': expected ATTRIBUTE=VALUE, e.g. --where "
+        throw new InvalidRequestException(Setting.SERIES_CONDITION + " '" + condition
+            + "': expected ATTRIBUTE=VALUE, e.g. " + Setting.SERIES_CONDITION + " "
             + exampleCondition(attributes));
       }
       String name = condition.substring(0, equals).strip();
       String value = condition.substring(equals + 1).strip();
       int attribute = attributes.attributeIndex(name);
       if (attribute < 0) {
-        throw new InvalidRequestException("--where '" + condition + "': the store has no attribute '" + name
+        throw new InvalidRequestException(Setting.SERIES_CONDITION + " '" + condition
+            + "': the store has no attribute '" + name
             + "'; its attributes: " + String.join(", ", attributes.attributeNames()));
       }
       int code = attributes.codeOf(attribute, value);
       if (code < 0) {
-        throw new InvalidRequestException("--where '" + condition + "': no series has " + name + " = " + value
+        throw new InvalidRequestException(Setting.SERIES_CONDITION + " '" + condition + "': no series has " + name
+            + " = " + value
             + "; values of " + name + ": " + someValues(attributes, attribute));
       }
       codesByAttribute.computeIfAbsent(attribute, a -> new BitSet()).set(code);

@@ -13,6 +13,7 @@ import java.nio.file.attribute.BasicFileAttributes;
 import java.util.concurrent.ConcurrentHashMap;
 import java.util.concurrent.Semaphore;
 import java.util.function.Consumer;
+import org.lagmill.io.Setting;
 
 /**
  * The one-writer-at-a-time lock of a store: an exclusive OS lock ({@link FileChannel#lock}) on the store's
@@ -147,7 +148,7 @@ public final class StoreLock implements AutoCloseable {
 
   private static String waitingNotice(Path dir, String owner) {
     return "waiting for another writer to finish with store " + dir + (owner.isEmpty() ? "" : " (process " + owner
-        + ")") + "; use --no-wait to fail at once instead";
+        + ")") + "; use " + Setting.NO_WAIT + " to fail at once instead";
   }
 
   private static StoreBusyException busy(Path dir, String owner) {

@@ -6,6 +6,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.Setting;
 import org.lagmill.memory.MemoryBudget;
 
 /**
@@ -48,7 +49,8 @@ public final class StoreSharding {
       SeriesAttributes attributes = store.attributes();
       int attributeIndex = attributes.attributeIndex(attribute);
       if (attributeIndex < 0) {
-        throw new InvalidRequestException("unknown attribute '" + attribute + "' for --by; allowed: "
+        throw new InvalidRequestException("unknown attribute '" + attribute + "' for " + Setting.SHARD_ATTRIBUTE
+            + "; allowed: "
             + attributeNames(attributes));
       }
       int[] partByCode = new int[attributes.cardinality(attributeIndex)];

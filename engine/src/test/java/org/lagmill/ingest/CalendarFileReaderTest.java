@@ -154,7 +154,7 @@ class CalendarFileReaderTest {
         error("date,x\n03/01/2024,1\n"));
     assertEquals("F, line 2, column 1: date '2024-02-30': expected an ISO date like 2024-03-05",
         error("date,x\n2024-02-30,1\n"));
-    assertEquals("F, line 1: no column 'date' in header day,x: expected one (or name it with --date-column)",
+    assertEquals("F, line 1: no column 'date' in header day,x: expected one (or name it with ‹date-column›)",
         error("day,x\n2024-03-01,1\n"));
     assertEquals("F, line 1, column 2: column 'p[color=red]' is keyed by 'color', which is not a series attribute:"
         + " expected one of item, store, region", error("date,p[color=red]\n2024-03-01,1\n"));

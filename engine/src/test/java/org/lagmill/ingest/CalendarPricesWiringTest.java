@@ -97,7 +97,7 @@ class CalendarPricesWiringTest {
           temp.resolve("store")).withPricesFile(renamed).withColumns(ColumnNames.DEFAULTS.withFromColumn("start")),
           budget));
       assertEquals(renamed + ", line 1: no column 'start' in header item,store,from,price: expected one (or name it "
-          + "with --prices-from-column)", e.getMessage());
+          + "with ‹prices-from-column›)", e.getMessage());
       assertSameContents(before, contents(temp.resolve("store")));
       assertEquals(List.of("calendar.csv", "gap.csv", "prices.csv", "sales.csv", "store", "zero.csv"),
           StoreIngestTest.listing(temp), "no temporary directory is left behind");
@@ -134,7 +134,7 @@ class CalendarPricesWiringTest {
       // Unknown: oat_bar 03-03; tea_tin, not in the file, its 2 new days; jam_jar, new, its 3 earlier days and 03-05.
       assertEquals(List.of("2 price rows for unknown keys skipped (first: item=fig_pot, store=south_1)",
           "7 of 15 item-days (46.7 %) are unknown and are left out of training and scores; if they are days with no "
-          + "sale, give long sales with --missing-rows zero (the default) or write 0 in wide sales"),
+          + "sale, give long sales with ‹missing-rows› zero (the default) or write 0 in wide sales"),
           result.warnings());
       try (SalesStore store = SalesStore.open(temp.resolve("store"), budget)) {
         assertEquals(3, store.seriesCount());
@@ -157,7 +157,7 @@ class CalendarPricesWiringTest {
       Path third = write("third.csv", "item,store,region,2024-03-06\noat_bar,north_1,Northvale,5\n");
       // The 7 unknown item-days above plus tea_tin's and jam_jar's 03-06: 9 of 18.
       assertEquals(List.of("9 of 18 item-days (50.0 %) are unknown and are left out of training and scores; if they "
-          + "are days with no sale, give long sales with --missing-rows zero (the default) or write 0 in wide sales"),
+          + "are days with no sale, give long sales with ‹missing-rows› zero (the default) or write 0 in wide sales"),
           StoreAppend.append(AppendOptions.of(temp.resolve("store"), third), budget).warnings());
       try (SalesStore store = SalesStore.open(temp.resolve("store"), budget)) {
         int jam = store.attributes().seriesIndexOf("jam_jar/north_1/Northvale");

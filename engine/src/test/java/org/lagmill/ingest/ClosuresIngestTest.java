@@ -112,13 +112,13 @@ class ClosuresIngestTest {
       }
       IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> StoreAppend.append(
           new AppendOptions(temp.resolve("store"), null, null, null, ColumnNames.DEFAULTS, null, null), budget));
-      assertEquals("nothing to append: give --sales, --calendar, --prices, --closures or --plan", e.getMessage());
+      assertEquals("nothing to append: give ‹sales›, ‹calendar›, ‹prices›, ‹closures› or ‹plan›", e.getMessage());
       assertEquals(0, budget.heldBytes());
     }
   }
 
   /**
-   * A till export writes no row on a day a shop is shut, so under {@code --missing-rows zero} those days would be
+   * A till export writes no row on a day a shop is shut, so under {@code ‹missing-rows› zero} those days would be
    * counted as zero-filled and as closed at once. Hand-worked: without closures A/s1 has 3 days with no row
    * (03-02 .. 03-04), B/s1 3 (03-02, 03-04, 03-05), A/s2 2 (03-03, 03-04; 03-01 lies before its first row). Shop s1
    * shut 03-03 .. 03-04 takes 2 of A/s1's and 1 of B/s1's (B/s1 has a row on 03-03): 8 - 3 = 5 zero-filled. Shop s2

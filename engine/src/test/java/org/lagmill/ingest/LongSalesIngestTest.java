@@ -69,13 +69,13 @@ class LongSalesIngestTest {
           () -> StoreIngest.ingest(IngestOptions.of(longFile, temp.resolve("bad")), budget));
       assertEquals(longFile + ", line 1: header sku,item,store,region,day,qty is neither wide nor long sales: "
           + "expected ISO date column headers (wide) or the columns 'date' and 'units' (long; rename with "
-          + "--date-column, --units-column)", e.getMessage());
+          + "‹date-column›, ‹units-column›)", e.getMessage());
       InputFormatException forced = assertThrows(InputFormatException.class, () -> StoreIngest.ingest(
           IngestOptions.of(wide, temp.resolve("bad")).withSalesFormat(SalesFormat.LONG), budget));
       // a long header is quoted as a bounded excerpt
       String header = Files.readAllLines(wide).get(0);
       assertEquals(wide + ", line 1: no column 'date' in header " + header.substring(0, 60) + "… (" + header.length()
-          + " characters): expected one (or name it with --date-column)", forced.getMessage());
+          + " characters): expected one (or name it with ‹date-column›)", forced.getMessage());
       StoreIngest.ingest(IngestOptions.of(longFile, temp.resolve("l")).withColumns(names)
           .withMissingRows(MissingRows.UNKNOWN), budget);
       StoreIngest.ingest(IngestOptions.of(wide, temp.resolve("w")), budget);
@@ -93,7 +93,7 @@ class LongSalesIngestTest {
     assertEquals(SalesFormat.LONG, SalesFormat.parse("long"));
     assertEquals(SalesFormat.WIDE, SalesFormat.parse("WIDE"));
     IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> SalesFormat.parse("tall"));
-    assertEquals("--sales-format must be one of wide, long, auto, got 'tall'; auto (the default) decides from the "
+    assertEquals("‹sales-format› must be one of wide, long, auto, got 'tall'; auto (the default) decides from the "
         + "header", e.getMessage());
   }
 

@@ -87,7 +87,7 @@ class LongSalesReaderTest {
   void shouldNameTheMissingRowsPolicies() {
     assertEquals(MissingRows.ZERO, MissingRows.parse("Zero"));
     assertEquals(MissingRows.UNKNOWN, MissingRows.parse("unknown"));
-    assertEquals("--missing-rows must be one of zero, unknown, got 'none'; zero (the default) reads a day with no "
+    assertEquals("‹missing-rows› must be one of zero, unknown, got 'none'; zero (the default) reads a day with no "
         + "row as no sale", assertThrows(IllegalArgumentException.class, () -> MissingRows.parse("none"))
         .getMessage());
   }
@@ -128,9 +128,9 @@ class LongSalesReaderTest {
     assertEquals("F, line 2, column 3: units '2147483647': expected an integer at most 2147483646",
         error("item,date,units\noat_bar,2024-03-01,2147483647\n"));
     assertEquals("F, line 1: no column 'date' in header item,day,units: expected one (or name it with"
-        + " --date-column)", error("item,day,units\n"));
+        + " ‹date-column›)", error("item,day,units\n"));
     assertEquals("F, line 1: no column 'units' in header item,date,qty: expected one (or name it with"
-        + " --units-column)", error("item,date,qty\n"));
+        + " ‹units-column›)", error("item,date,qty\n"));
     assertEquals("F: empty file: expected a header line", error(""));
     assertEquals("F: no sales rows: expected at least one row after the header", error("item,date,units\n"));
     assertEquals("F, line 2, column 2: date '20240301': expected an ISO date like 2024-03-05",

@@ -19,7 +19,7 @@ import org.lagmill.store.SalesStore;
 import org.lagmill.store.StoreManifest;
 
 /**
- * A till export writes a row only when something sold. Read with the default {@code --missing-rows zero}, it must give
+ * A till export writes a row only when something sold. Read with the default {@code ‹missing-rows› zero}, it must give
  * the same store as the same sales written densely (a row for every day from each series' first row), whatever the
  * column names. Shaped unlike our generator on purpose: columns sku, shop, dept, no series_id, series launching on
  * different days, some rows with an empty units cell.
@@ -66,7 +66,7 @@ class MissingRowsIngestTest {
         }
         if (table.zeroRowCount() > 0) {
           assertEquals(String.format("read %,d item-days with no row in the long sales as zero sales "
-              + "(--missing-rows zero, the default: till exports leave out days with no sale); give --missing-rows "
+              + "(‹missing-rows› zero, the default: till exports leave out days with no sale); give ‹missing-rows› "
               + "unknown if a missing row means not known", table.zeroRowCount()), s.warnings().get(0), where);
         }
       }
@@ -85,7 +85,7 @@ class MissingRowsIngestTest {
       // A: days 2..4 unknown (3); B: days 1, 3, 4, 5 unknown (4): 7 of 10.
       assertEquals(new StoreManifest.Fill(0, 7, 0), result.manifest().fill());
       assertEquals(List.of("7 of 10 item-days (70.0 %) are unknown and are left out of training and scores; if "
-          + "they are days with no sale, give long sales with --missing-rows zero (the default) or write 0 in wide "
+          + "they are days with no sale, give long sales with ‹missing-rows› zero (the default) or write 0 in wide "
           + "sales"), result.warnings());
       IngestResult zero = StoreIngest.ingest(IngestOptions.of(sparse, temp.resolve("z")), budget);
       // A: days 2..4 zero (3); B: days 3..5 zero (3), day 1 before its first row stays unknown.
@@ -110,7 +110,7 @@ class MissingRowsIngestTest {
         assertEquals(3, store.calendar().dayCount());
       }
       assertEquals("day", ColumnNames.DEFAULTS.withDateColumn("day").calendarDateColumn(),
-          "--date-column still names both");
+          "‹date-column› still names both");
     }
   }
 

@@ -149,7 +149,7 @@ class PlanIngestTest {
     assertError(sales, "sku,date,from,promo\nA,2025-03-03,2025-03-03,1\n", "line 1, column 3: both a 'date' column "
         + "(a row holds for its period) and a 'from' column (a row holds until the next): expected one of them");
     assertError(sales, "sku,week,promo\nA,2025-03-03,1\n", "line 1: no column 'date' or 'from' in header "
-        + "sku,week,promo: expected one (or name it with --plan-date-column or --plan-from-column)");
+        + "sku,week,promo: expected one (or name it with ‹plan-date-column› or ‹plan-from-column›)");
     assertError(sales, "sku,shop,from\nA,s1,2025-03-03\n", "line 1: no plan value columns: expected at least one "
         + "numeric column besides the key columns (series attributes: sku, shop) and 'from'");
     assertError(sales, "sku,from,promo\nA,2025-03-03,\n", "line 2, column 3: plan column 'promo' holds '': expected "
@@ -181,7 +181,7 @@ class PlanIngestTest {
   void shouldRefuseOneNameForBothTimeColumns() {
     IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
         () -> new PlanSource(Path.of("plan.csv"), "when", "when"));
-    assertEquals("--plan-date-column and --plan-from-column both name 'when'; they must differ, since the column's "
+    assertEquals("‹plan-date-column› and ‹plan-from-column› both name 'when'; they must differ, since the column's "
         + "name tells how long a row holds", e.getMessage());
   }
 }

@@ -109,9 +109,9 @@ class PriceFileReaderTest {
     assertEquals("F, line 1: no key columns: expected at least one series attribute column (item, store, region)"
         + " besides 'from' and 'price'", error("from,price\n2024-03-01,1\n"));
     assertEquals("F, line 1: no column 'from' in header item,start,price: expected one (or name it with"
-        + " --prices-from-column)", error("item,start,price\n"));
+        + " ‹prices-from-column›)", error("item,start,price\n"));
     assertEquals("F, line 1: no column 'price' in header item,from: expected one (or name it with"
-        + " --price-column)", error("item,from\n"));
+        + " ‹prices-price-column›)", error("item,from\n"));
     assertEquals("F, line 2, column 2: from '2024-3-1': expected an ISO date like 2024-03-05",
         error("item,from,price\ntea_tin,2024-3-1,1\n"));
     assertEquals("F: empty file: expected a header line", error(""));

@@ -13,7 +13,7 @@ class ScenarioSpecTest {
   void shouldRejectSeriesCountOutsideRange() {
     IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
         () -> new ScenarioSpec(0, 10, START, 1, 28, false));
-    assertEquals("series count must be in [1, 50000000], got 0; hint: --series 600 gives a small demo",
+    assertEquals("series count must be in [1, 50000000], got 0; hint: ‹series› 600 gives a small demo",
         e.getMessage());
   }
 
@@ -21,7 +21,7 @@ class ScenarioSpecTest {
   void shouldRejectDayCountOutsideRange() {
     IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
         () -> new ScenarioSpec(5, 0, START, 1, 28, false));
-    assertEquals("day count must be in [1, 36600], got 0; hint: --days 730 gives two years of history",
+    assertEquals("day count must be in [1, 36600], got 0; hint: ‹days› 730 gives two years of history",
         e.getMessage());
   }
 
@@ -29,7 +29,7 @@ class ScenarioSpecTest {
   void shouldRejectNegativeFutureDays() {
     IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
         () -> new ScenarioSpec(5, 10, START, 1, -1, false));
-    assertEquals("future day count must be in [0, 3660], got -1; hint: use the forecast horizon, e.g. --future-days 28",
+    assertEquals("future day count must be in [0, 3660], got -1; hint: use the forecast horizon, e.g. ‹future-days› 28",
         e.getMessage());
   }
 
@@ -45,11 +45,11 @@ class ScenarioSpecTest {
   void shouldRejectWeeklyOutputOfPartWeeks() {
     IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
         () -> new ScenarioSpec(5, 730, START, 1, 28, false, 7));
-    assertEquals("weekly output needs whole weeks: --days and --future-days must be multiples of 7, got 730 and 28; "
-        + "hint: --days 728 --future-days 28", e.getMessage());
+    assertEquals("weekly output needs whole weeks: ‹days› and ‹future-days› must be multiples of 7, got 730 and 28; "
+        + "hint: ‹days› 728 ‹future-days› 28", e.getMessage());
     IllegalArgumentException period = assertThrows(IllegalArgumentException.class,
         () -> new ScenarioSpec(5, 730, START, 1, 28, false, 30));
-    assertEquals("period must be 1 (day) or 7 (week) days, got 30; hint: --period day or --period week",
+    assertEquals("period must be 1 (day) or 7 (week) days, got 30; hint: ‹period› day or ‹period› week",
         period.getMessage());
     assertEquals(104, new ScenarioSpec(5, 728, START, 1, 28, false, 7).periodCount());
   }

@@ -99,16 +99,16 @@ class SeriesSelectionTest {
   @Test
   void shouldNameWhatIsWrongInABadSelection() {
     SalesHistory history = history(new String[][] {{"a", "s1", "d1"}, {"b", "s2", "d1"}});
-    assertEquals("--where 'shop': expected ATTRIBUTE=VALUE, e.g. --where dept=d1",
+    assertEquals("‹where› 'shop': expected ATTRIBUTE=VALUE, e.g. ‹where› dept=d1",
         assertThrows(IllegalArgumentException.class, () -> SeriesSelection.select(history, null, List.of("shop")))
             .getMessage());
-    assertEquals("--where 'store=s1': the store has no attribute 'store'; its attributes: sku, shop, dept",
+    assertEquals("‹where› 'store=s1': the store has no attribute 'store'; its attributes: sku, shop, dept",
         assertThrows(IllegalArgumentException.class,
             () -> SeriesSelection.select(history, null, List.of("store=s1"))).getMessage());
-    assertEquals("--where 'shop=s9': no series has shop = s9; values of shop: s1, s2",
+    assertEquals("‹where› 'shop=s9': no series has shop = s9; values of shop: s1, s2",
         assertThrows(IllegalArgumentException.class,
             () -> SeriesSelection.select(history, null, List.of("shop=s9"))).getMessage());
-    assertEquals("--series a/s9/d1: no such series in the store; list them with lagmill series --store DIR --match "
+    assertEquals("‹series› a/s9/d1: no such series in the store; list them with lagmill series --store DIR --match "
         + "TEXT", assertThrows(IllegalArgumentException.class,
             () -> SeriesSelection.select(history, List.of("a/s9/d1"), null)).getMessage());
   }

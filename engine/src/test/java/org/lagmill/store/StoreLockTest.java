@@ -56,7 +56,7 @@ class StoreLockTest {
     first.close();
     second.join(10_000);
     assertEquals(List.of("waiting for another writer to finish with store " + dir.toAbsolutePath() + " (process "
-        + ProcessHandle.current().pid() + "); use --no-wait to fail at once instead", "acquired"), notices);
+        + ProcessHandle.current().pid() + "); use ‹no-wait› to fail at once instead", "acquired"), notices);
   }
 
   @Test

@@ -98,7 +98,7 @@ class StoreShardingTest {
       writeStore(source, new String[][] {{"d1", "s1", "north"}}, new int[][] {{1}}, null, null, budget);
       IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
           () -> StoreSharding.shard(source, 1, "item", temp.resolve("x"), budget));
-      assertEquals("unknown attribute 'item' for --by; allowed: [dept, sku, shop]", e.getMessage());
+      assertEquals("unknown attribute 'item' for ‹by›; allowed: [dept, sku, shop]", e.getMessage());
     }
   }
 

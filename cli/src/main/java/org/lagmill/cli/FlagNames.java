@@ -1,0 +1,26 @@
+package org.lagmill.cli;
+
+import java.util.List;
+import org.lagmill.io.Setting;
+
+/**
+ * How the command line spells the settings engine messages mention: the engine says which setting a message is about
+ * ({@link Setting}), the CLI shows it as its flag. Every setting is the flag of the same key today; a flag renamed in
+ * the CLI changes here and nowhere in the engine.
+ */
+final class FlagNames {
+  private FlagNames() {}
+
+  static String flagOf(Setting setting) {
+    return "--" + setting.key();
+  }
+
+  /** Engine text as the command line shows it: each setting mention replaced by its flag. */
+  static String render(String engineText) {
+    return Setting.render(engineText, FlagNames::flagOf);
+  }
+
+  static List<String> render(List<String> engineTexts) {
+    return engineTexts.stream().map(FlagNames::render).toList();
+  }
+}

@@ -1,0 +1,94 @@
+package org.lagmill.io;
+
+import java.util.function.Function;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+
+/**
+ * A setting the user chooses, named in engine messages by what it is, not by how a front end spells it. The engine
+ * says which setting a message is about ({@code Setting.ORIGINS + " must be >= 1"}); a front end shows each mention in
+ * its own words with {@link #render} (the command line as its flag, {@code --origins}). Without rendering a mention
+ * reads {@code ‹origins›}.
+ */
+public enum Setting {
+  ORIGINS("origins"),
+  STEP("step"),
+  HORIZON("horizon"),
+  MISSING_ROWS("missing-rows"),
+  SALES_FORMAT("sales-format"),
+  SERIES_ID_COLUMN("series-id-column"),
+  DATE_COLUMN("date-column"),
+  UNITS_COLUMN("units-column"),
+  PRICES_FROM_COLUMN("prices-from-column"),
+  PRICES_PRICE_COLUMN("prices-price-column"),
+  CALENDAR_DATE_COLUMN("calendar-date-column"),
+  CLOSURES_FROM_COLUMN("closures-from-column"),
+  CLOSURES_UNTIL_COLUMN("closures-until-column"),
+  PLAN_DATE_COLUMN("plan-date-column"),
+  PLAN_FROM_COLUMN("plan-from-column"),
+  SALES("sales"),
+  CALENDAR("calendar"),
+  PRICES("prices"),
+  CLOSURES("closures"),
+  PLAN("plan"),
+  SHOWN_SERIES("show"),
+  CHOSEN_SERIES("series"),
+  SERIES_CONDITION("where"),
+  HIERARCHY("hierarchy"),
+  LEVELS("level"),
+  SHARD_ATTRIBUTE("by"),
+  NO_WAIT("no-wait"),
+  MEMORY_LIMIT("memory-limit"),
+  SCENARIO_SERIES("series"),
+  SCENARIO_DAYS("days"),
+  SCENARIO_FUTURE_DAYS("future-days"),
+  SCENARIO_START("start"),
+  SCENARIO_PERIOD("period");
+
+  private static final Pattern MENTION = Pattern.compile("\u2039([a-z-]+)\u203a");
+
+  private final String key;
+
+  Setting(String key) {
+    this.key = key;
+  }
+
+  /** The neutral name, e.g. {@code missing-rows}. */
+  public String key() {
+    return key;
+  }
+
+  /** The mention that engine messages carry: the key between single angle quotes, e.g. {@code ‹origins›}. */
+  @Override
+  public String toString() {
+    return "\u2039" + key + "\u203a";
+  }
+
+  /**
+   * The text with every mention replaced by {@code names} of its setting; a mention of an unknown key is left as it is.
+   * Settings that share a key (the generator's series count and a series choice) are told apart by the command, so
+   * a front end names them alike.
+   */
+  public static String render(String text, Function<Setting, String> names) {
+    if (text == null || text.indexOf('\u2039') < 0) {
+      return text;
+    }
+    Matcher m = MENTION.matcher(text);
+    StringBuilder out = new StringBuilder();
+    while (m.find()) {
+      Setting setting = byKey(m.group(1));
+      m.appendReplacement(out, Matcher.quoteReplacement(setting == null ? m.group() : names.apply(setting)));
+    }
+    m.appendTail(out);
+    return out.toString();
+  }
+
+  private static Setting byKey(String key) {
+    for (Setting s : values()) {
+      if (s.key.equals(key)) {
+        return s;
+      }
+    }
+    return null;
+  }
+}
