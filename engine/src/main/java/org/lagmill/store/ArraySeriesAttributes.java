@@ -51,16 +51,6 @@ public final class ArraySeriesAttributes implements SeriesAttributes {
   @Override public String attributeName(int attributeIndex) { return names[attributeIndex]; }
   @Override public List<String> attributeNames() { return List.of(names); }
 
-  @Override
-  public int attributeIndex(String attributeName) {
-    for (int a = 0; a < names.length; a++) {
-      if (names[a].equals(attributeName)) {
-        return a;
-      }
-    }
-    return -1;
-  }
-
   @Override public int cardinality(int attributeIndex) { return valuesByAttribute.get(attributeIndex).size(); }
   @Override public int code(int seriesIndex, int attributeIndex) { return codesBySeries[seriesIndex][attributeIndex]; }
   @Override public String value(int attributeIndex, int code) { return valuesByAttribute.get(attributeIndex).get(code); }

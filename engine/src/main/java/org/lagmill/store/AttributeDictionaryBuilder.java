@@ -141,16 +141,6 @@ final class AttributeDictionaryBuilder implements SeriesAttributes {
   @Override public String attributeName(int attributeIndex) { return names[attributeIndex]; }
   @Override public List<String> attributeNames() { return List.of(names); }
 
-  @Override
-  public int attributeIndex(String attributeName) {
-    for (int a = 0; a < names.length; a++) {
-      if (names[a].equals(attributeName)) {
-        return a;
-      }
-    }
-    return -1;
-  }
-
   @Override public int cardinality(int attributeIndex) { return values[attributeIndex].size(); }
   @Override public int code(int seriesIndex, int attributeIndex) { return codes[attributeIndex].getInt(seriesIndex); }
   @Override public String value(int attributeIndex, int code) { return values[attributeIndex].get(code); }

@@ -21,7 +21,14 @@ public interface SeriesAttributes {
   String attributeName(int attributeIndex);
 
   /** Index of the attribute with this name, or -1. */
-  int attributeIndex(String attributeName);
+  default int attributeIndex(String attributeName) {
+    for (int a = 0; a < attributeCount(); a++) {
+      if (attributeName(a).equals(attributeName)) {
+        return a;
+      }
+    }
+    return -1;
+  }
 
   /** Number of distinct values of one attribute. */
   int cardinality(int attributeIndex);
