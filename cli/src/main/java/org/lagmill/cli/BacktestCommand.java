@@ -2,20 +2,13 @@ package org.lagmill.cli;
 
 import java.io.PrintWriter;
 import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
-import org.lagmill.eval.CombinedBacktestResult;
 import org.lagmill.features.FeatureSpec;
-import org.lagmill.io.AtomicFiles;
-import org.lagmill.report.ReportAssembler;
-import org.lagmill.report.ReportData;
-import org.lagmill.run.Run;
+import org.lagmill.features.FeatureSpecYaml;
+import org.lagmill.run.BacktestJob;
 import org.lagmill.run.RunRecord;
-import org.lagmill.run.RunReport;
-import org.lagmill.run.Stage;
-import org.lagmill.store.SalesStore;
-import org.lagmill.store.StoreManifest;
-import org.lagmill.store.StoreSummary;
 import org.lagmill.training.TrainingPlan;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -72,70 +65,47 @@ final class BacktestCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
-    // Refused before the (long) backtest runs, not after it.
-    RunReport.checkTarget(reportDir);
-    Path html;
     FeatureSpec spec = training.featureSpec();
-    ReportData.Builder report = RunReport.start("lagmill backtest", "lagmill backtest --store " + store
-        + " --origins " + originCount, store.toString());
-    BacktestRun backtest;
-    CombinedBacktestResult[] combined = new CombinedBacktestResult[1];
-    StoreManifest[] fill = new StoreManifest[1];
-    Object written;
-    try (Run run = Run.start("backtest", MemoryLimitOption.bytes(memoryLimitBytes));
-        Stage opening = run.stage("open store");
-        SalesStore opened = SalesStore.open(store, run.budget().child("store"))) {
-      opening.close();
-      report.data(ReportAssembler.dataSummary(StoreSummary.of(opened)));
-      fill[0] = opened.manifest();
-      TrainingPlan plan = training.plan(spec, opened.dayCount() - 1);
-      run.record().configure("store", store.toString()).configure("origins", originCount)
-          .configure("stepDays", stepDays == null ? Integer.valueOf(spec.horizonDays()) : stepDays)
-          .configure("plan", plan.toString());
-      try (Stage stage = run.stage("backtest")) {
-        if (!members.isEmpty()) {
-          List<String> names = new java.util.ArrayList<>();
-          List<TrainingPlan> plans = new java.util.ArrayList<>();
-          for (String member : members) {
-            int at = member.lastIndexOf('@');
-            Path file = Path.of(at < 0 ? member : member.substring(0, at));
-            TrainingPlan base = training.plan(org.lagmill.features.FeatureSpecYaml.read(file), opened.dayCount() - 1);
-            plans.add(new TrainingPlan(base.spec(), base.trainParameters(), base.datasetParameters(),
-                base.cutDayIndex(), base.validationDays(), at < 0 ? base.partitionAttribute()
-                : member.substring(at + 1), base.salesValueWeights(), base.refit()));
-            names.add(member);
-          }
-          run.record().configure("members", names);
-          backtest = BacktestRun.runMembers(opened, names, plans, originCount,
-              stepDays == null ? plans.get(0).spec().horizonDays() : stepDays,
-              hierarchyOptions.hierarchy(opened), stage.budget(), ConsoleProgress.forCommand(quiet), combined);
-        } else {
-          backtest = BacktestRun.run(opened, plan, originCount, stepDays == null ? spec.horizonDays() : stepDays,
-              hierarchyOptions.hierarchy(opened), stage.budget(), ConsoleProgress.forCommand(quiet));
-        }
-        stage.addRows(backtest.result.origins().stream().flatMap(o -> o.partitions().stream())
-            .mapToLong(p -> p.trainingRowCount()).sum());
-      }
-      backtest.addTo(report, opened, shownSeries);
-      RunReport.addStages(report, run.record(), backtest.lastPartitions().get(0).datasetBytesPerRow());
-      written = combined[0] != null ? combined[0] : backtest.result;
-      AtomicFiles.write(reportDir.resolve(RunReport.BACKTEST_FILE), RunRecord.JSON.writeValueAsBytes(written));
-      html = RunReport.write(report.build(), reportDir);
-      run.record().result("backtest", written).result("levelsScored", ScoredLevels.describe(backtest.result.origins()
-          .get(0).model())).result("fill", fill[0].fill());
-      run.record().write(reportDir);
+    List<FeatureSpec> memberSpecs = new ArrayList<>();
+    for (String member : members) {
+      int at = member.lastIndexOf('@');
+      memberSpecs.add(FeatureSpecYaml.read(Path.of(at < 0 ? member : member.substring(0, at))));
     }
+    BacktestJob.Outcome outcome = BacktestJob.run(new BacktestJob.Request(store, originCount, stepDays,
+        MemoryLimitOption.bytes(memoryLimitBytes), reportDir, shownSeries, cut -> members(spec, memberSpecs, cut),
+        hierarchyOptions::hierarchy,
+        "lagmill backtest --store " + store + " --origins " + originCount), ConsoleProgress.forCommand(quiet));
     PrintWriter out = commandSpec.commandLine().getOut();
     if (json) {
-      out.println(RunRecord.JSON.writeValueAsString(written));
+      out.println(RunRecord.JSON.writeValueAsString(outcome.written()));
     } else if (!quiet) {
-      if (combined[0] != null) {
-        BacktestRun.printMembers(out, combined[0]);
+      if (outcome.combined() != null) {
+        BacktestPrinter.printMembers(out, outcome.combined());
       }
-      backtest.print(out);
-      ScoredLevels.print(out, backtest.result.origins().get(0).model(), fill[0]);
-      out.println("report written to " + html);
+      BacktestPrinter.print(out, outcome.backtest().result());
+      ScoredLevels.print(out, outcome.firstOriginScores(), outcome.manifest());
+      out.println("report written to " + outcome.reportHtml());
     }
     return ExitCodes.OK;
+  }
+
+  /**
+   * The plans to score for a store whose last period is {@code cutIndex}: the training options' spec, or one plan
+   * per {@code --member SPEC[@ATTRIBUTE]} (the spec file's features, partitioned by the attribute when given).
+   */
+  private List<BacktestJob.Member> members(FeatureSpec spec, List<FeatureSpec> memberSpecs, int cutIndex) {
+    if (members.isEmpty()) {
+      return List.of(new BacktestJob.Member(null, training.plan(spec, cutIndex)));
+    }
+    List<BacktestJob.Member> plans = new ArrayList<>();
+    for (int m = 0; m < members.size(); m++) {
+      String member = members.get(m);
+      int at = member.lastIndexOf('@');
+      TrainingPlan base = training.plan(memberSpecs.get(m), cutIndex);
+      plans.add(new BacktestJob.Member(member, new TrainingPlan(base.spec(), base.trainParameters(),
+          base.datasetParameters(), base.cutDayIndex(), base.validationDays(), at < 0 ? base.partitionAttribute()
+          : member.substring(at + 1), base.salesValueWeights(), base.refit())));
+    }
+    return plans;
   }
 }

@@ -28,6 +28,7 @@ import org.lagmill.report.DriverChartBuilder;
 import org.lagmill.report.ReportAssembler;
 import org.lagmill.report.ReportData;
 import org.lagmill.report.SeriesChartBuilder;
+import org.lagmill.run.BacktestRun;
 import org.lagmill.run.Run;
 import org.lagmill.run.RunRecord;
 import org.lagmill.run.RunReport;
@@ -169,9 +170,9 @@ final class DemoCommand implements Callable<Integer> {
       }
       RunReport.addStages(report, run.record(), backtest.lastPartitions().get(0).datasetBytesPerRow());
       Path html = RunReport.write(report.build(), reportDir);
-      run.record().result("backtest", backtest.result);
+      run.record().result("backtest", backtest.result());
       run.record().write(outDir);
-      printSummary(out, backtest.result, html, forecastFile, run.record());
+      printSummary(out, backtest.result(), html, forecastFile, run.record());
     }
     return ExitCodes.OK;
   }
@@ -204,7 +205,7 @@ final class DemoCommand implements Callable<Integer> {
   }
 
   private static long rowCount(BacktestRun backtest) {
-    return backtest.result.origins().stream().flatMap(o -> o.partitions().stream())
+    return backtest.result().origins().stream().flatMap(o -> o.partitions().stream())
         .mapToLong(p -> p.trainingRowCount()).sum();
   }
 

@@ -20,6 +20,7 @@ import org.lagmill.report.ReportAssembler;
 import org.lagmill.report.ReportData;
 import org.lagmill.store.StoreSummary;
 import org.lagmill.store.Periods;
+import org.lagmill.run.BacktestRun;
 import org.lagmill.run.Run;
 import org.lagmill.run.RunRecord;
 import org.lagmill.run.RunReport;

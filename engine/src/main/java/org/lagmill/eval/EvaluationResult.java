@@ -27,6 +27,15 @@ public record EvaluationResult(int originDay, int horizon, String weightBasis, d
     horizonDays = List.copyOf(horizonDays);
   }
 
+  /** "levels scored (8): total, dept, …; detected from how the attributes nest (the default): dept > grp > sku; shop". */
+  public String scoredLevelsLine() {
+    String from = "detected".equals(levelSource)
+        ? "detected from how the attributes nest (the default): " + levelBasis
+        : "declared with " + levelBasis;
+    return "levels scored (" + levels.size() + "): " + String.join(", ", levels.stream().map(LevelResult::name)
+        .toList()) + "; " + from;
+  }
+
   /**
    * One level's scores.
    *

@@ -1,9 +1,6 @@
-package org.lagmill.cli;
+package org.lagmill.run;
 
-import java.io.PrintWriter;
-import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
 import java.util.Map;
 import org.lagmill.eval.BacktestResult;
 import org.lagmill.eval.BacktestSettings;
@@ -21,16 +18,20 @@ import org.lagmill.store.SalesHistory;
 import org.lagmill.training.PartitionReport;
 import org.lagmill.training.TrainingPlan;
 
-/** Runs a backtest and turns it into console lines and report sections; shared by {@code backtest} and {@code demo}. */
-final class BacktestRun {
-  static final List<BaselineKind> DEFAULT_BASELINES = List.of(BaselineKind.NAIVE, BaselineKind.SEASONAL_NAIVE,
+/**
+ * A rolling-origin backtest with what its report needs: the result and the last origin's forecasts for the charts.
+ * Shared by the backtest job and the demo.
+ */
+public final class BacktestRun {
+  /** The baselines every backtest scores beside the model. */
+  public static final List<BaselineKind> DEFAULT_BASELINES = List.of(BaselineKind.NAIVE, BaselineKind.SEASONAL_NAIVE,
       BaselineKind.MOVING_AVERAGE, BaselineKind.SES, BaselineKind.CROSTON, BaselineKind.SBA, BaselineKind.ETS);
 
-  final BacktestResult result;
-  final int lastOriginDayIndex;
-  final double[][] lastOriginForecasts;
-  final float[] lastOriginDispersion;
-  final Hierarchy hierarchy;
+  private final BacktestResult result;
+  private final int lastOriginDayIndex;
+  private final double[][] lastOriginForecasts;
+  private final float[] lastOriginDispersion;
+  private final Hierarchy hierarchy;
 
   private BacktestRun(BacktestResult result, int lastOrigin, double[][] forecasts, float[] dispersion,
       Hierarchy hierarchy) {
@@ -41,7 +42,7 @@ final class BacktestRun {
     this.hierarchy = hierarchy;
   }
 
-  static BacktestRun run(SalesHistory history, TrainingPlan plan, int originCount, int stepDays, Hierarchy hierarchy,
+  public static BacktestRun run(SalesHistory history, TrainingPlan plan, int originCount, int stepDays, Hierarchy hierarchy,
       MemoryBudget budget, ProgressListener progress) {
     BacktestSettings settings = new BacktestSettings(originCount, stepDays, plan.spec().horizonDays(),
         DEFAULT_BASELINES, hierarchy, ForecastTable.PUBLISHED_QUANTILES);
@@ -61,7 +62,7 @@ final class BacktestRun {
    * Backtests several members on the same origins and their average; the report and summary follow the one with the
    * lowest mean WRMSSE ({@link CombinedBacktestResult#chosenName()}).
    */
-  static BacktestRun runMembers(SalesHistory history, List<String> names, List<TrainingPlan> plans, int originCount,
+  public static BacktestRun runMembers(SalesHistory history, List<String> names, List<TrainingPlan> plans, int originCount,
       int stepDays, Hierarchy hierarchy, MemoryBudget budget, ProgressListener progress, CombinedBacktestResult[] out) {
     BacktestSettings settings = new BacktestSettings(originCount, stepDays, plans.get(0).spec().horizonDays(),
         DEFAULT_BASELINES, hierarchy, ForecastTable.PUBLISHED_QUANTILES);
@@ -81,25 +82,18 @@ final class BacktestRun {
         lastDispersions.get(chosenIndex), hierarchy);
   }
 
-  /** One line per member and the combination: mean WRMSSE and the skill ratios; then which one was chosen. */
-  static void printMembers(PrintWriter out, CombinedBacktestResult combined) {
-    out.println("members and their average on the same origins (WRMSSE, lower is better)");
-    out.printf(Locale.ROOT, "%-40s %9s %9s %16s %9s%n", "member", "WRMSSE", "±", "/ seasonal naive", "/ ETS");
-    for (int m = 0; m <= combined.members().size(); m++) {
-      BacktestResult r = m < combined.members().size() ? combined.members().get(m) : combined.combination();
-      String name = m < combined.members().size() ? combined.memberNames().get(m)
-          : CombinedBacktestResult.COMBINATION_NAME;
-      out.printf(Locale.ROOT, "%-40s %9.4f %9.4f %16.3f %9.3f%n", name, r.meanModelWrmsse(), r.stdModelWrmsse(),
-          r.skillRatioAgainstSeasonalNaive(), r.skillRatioAgainst(BaselineKind.ETS));
-    }
-    out.println("chosen: " + combined.chosenName() + " (the report and the lines below describe it)");
+  /** The result: one row per origin, the model's and every baseline's scores. */
+  public BacktestResult result() {
+    return result;
   }
 
-  List<PartitionReport> lastPartitions() {
+  /** The partitions trained at the last origin (their reports describe the model in the report). */
+  public List<PartitionReport> lastPartitions() {
     return result.origins().get(result.origins().size() - 1).partitions();
   }
 
-  void addTo(ReportData.Builder report, SalesHistory history, List<String> shownSeries) {
+  /** Adds the accuracy, horizon, training (unless set) and series chart sections to the report. */
+  public void addTo(ReportData.Builder report, SalesHistory history, List<String> shownSeries) {
     report.accuracy(ReportAssembler.accuracy(result)).horizon(ReportAssembler.horizon(result));
     if (report.build().training() == null) {
       report.training(ReportAssembler.training(lastPartitions()));
@@ -107,35 +101,5 @@ final class BacktestRun {
     SeriesChartBuilder.build(history, hierarchy.bind(history), lastOriginDayIndex, lastOriginForecasts,
         lastOriginDispersion, SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, shownSeries).forEach(chart ->
         report.series(chart));
-  }
-
-  void print(PrintWriter out) {
-    List<String> names = new ArrayList<>(result.meanBaselineWrmsse().keySet());
-    StringBuilder header = new StringBuilder(String.format(Locale.ROOT, "%-12s %9s", "origin", "model"));
-    for (String name : names) {
-      header.append(String.format(Locale.ROOT, " %22s", ReportAssembler.label(name)));
-    }
-    out.println("WRMSSE by origin (lower is better)");
-    out.println(header);
-    for (BacktestResult.OriginResult origin : result.origins()) {
-      StringBuilder line = new StringBuilder(String.format(Locale.ROOT, "%-12s %9.4f", origin.originDate(),
-          origin.model().wrmsse()));
-      for (String name : names) {
-        line.append(String.format(Locale.ROOT, " %22.4f", origin.baselines().get(name).wrmsse()));
-      }
-      out.println(line);
-    }
-    StringBuilder mean = new StringBuilder(String.format(Locale.ROOT, "%-12s %9.4f", "mean", result.meanModelWrmsse()));
-    for (Map.Entry<String, Double> baseline : result.meanBaselineWrmsse().entrySet()) {
-      mean.append(String.format(Locale.ROOT, " %22.4f", baseline.getValue()));
-    }
-    out.println(mean);
-    out.printf(Locale.ROOT, "model WRMSSE %.4f ± %.4f over %d origins; skill against seasonal naive %.3f, against "
-        + "ETS %.3f (model / baseline, lower is better)%n", result.meanModelWrmsse(), result.stdModelWrmsse(),
-        result.origins().size(), result.skillRatioAgainstSeasonalNaive(), result.skillRatioAgainst(BaselineKind.ETS));
-    if (result.meanModelWspl() != null) {
-      out.printf(Locale.ROOT, "interval WSPL %.4f (negative binomial, estimated dispersion) vs %.4f (Poisson)%n",
-          result.meanModelWspl(), result.meanPoissonWspl());
-    }
   }
 }

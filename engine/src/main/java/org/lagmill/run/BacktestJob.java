@@ -1,0 +1,111 @@
+package org.lagmill.run;
+
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.function.Function;
+import java.util.function.IntFunction;
+import org.lagmill.eval.CombinedBacktestResult;
+import org.lagmill.eval.EvaluationResult;
+import org.lagmill.eval.Hierarchy;
+import org.lagmill.io.AtomicFiles;
+import org.lagmill.progress.ProgressListener;
+import org.lagmill.report.ReportAssembler;
+import org.lagmill.report.ReportData;
+import org.lagmill.store.SalesHistory;
+import org.lagmill.store.SalesStore;
+import org.lagmill.store.StoreManifest;
+import org.lagmill.store.StoreSummary;
+import org.lagmill.training.TrainingPlan;
+
+/**
+ * The whole backtest of a store, as the {@code backtest} command runs it: open the store, score the model (or several
+ * members and their average) against the baselines over rolling origins, and write {@code backtest.json},
+ * {@code report.json}, {@code report.html} and {@code run.json} into the report folder, which is checked before
+ * anything runs. Stage figures in the run record come from the run's stages.
+ */
+public final class BacktestJob {
+  private BacktestJob() {}
+
+  /** One training plan to score, named as the user gave it (null for a single plan). */
+  public record Member(String name, TrainingPlan plan) {}
+
+  /**
+   * What to backtest.
+   *
+   * @param stepPeriods periods between origins, or null for the horizon
+   * @param memoryLimitBytes off-heap limit of the run, or null for none
+   * @param membersByCutIndex the plans to score, given the training cut (the store's last period index): one
+   *     member without a name for a plain backtest, or the members of a combination
+   * @param hierarchyOf the levels to score, once the store is open
+   * @param commandLine shown in the report
+   */
+  public record Request(Path storeDir, int originCount, Integer stepPeriods, Long memoryLimitBytes, Path reportDir,
+      List<String> shownSeries, IntFunction<List<Member>> membersByCutIndex,
+      Function<SalesHistory, Hierarchy> hierarchyOf, String commandLine) {}
+
+  /**
+   * What the backtest found.
+   *
+   * @param combined the members and their average, or null for a single plan
+   * @param written what backtest.json and run.json hold: the combined result, else the backtest's
+   */
+  public record Outcome(BacktestRun backtest, CombinedBacktestResult combined, StoreManifest manifest, Path reportHtml,
+      Object written) {
+    /** The scores of the first origin, whose levels every origin shares. */
+    public EvaluationResult firstOriginScores() {
+      return backtest.result().origins().get(0).model();
+    }
+  }
+
+  public static Outcome run(Request request, ProgressListener progress) throws IOException {
+    // Refused before the (long) backtest runs, not after it.
+    RunReport.checkTarget(request.reportDir());
+    ReportData.Builder report = RunReport.start("lagmill backtest", request.commandLine(),
+        request.storeDir().toString());
+    try (Run run = Run.start("backtest", request.memoryLimitBytes());
+        Stage opening = run.stage("open store");
+        SalesStore opened = SalesStore.open(request.storeDir(), run.budget().child("store"))) {
+      opening.close();
+      report.data(ReportAssembler.dataSummary(StoreSummary.of(opened)));
+      List<Member> members = request.membersByCutIndex().apply(opened.dayCount() - 1);
+      TrainingPlan first = members.get(0).plan();
+      int stepPeriods = request.stepPeriods() == null ? first.spec().horizonDays() : request.stepPeriods();
+      run.record().configure("store", request.storeDir().toString()).configure("origins", request.originCount())
+          .configure("stepDays", stepPeriods).configure("plan", first.toString());
+      Hierarchy hierarchy = request.hierarchyOf().apply(opened);
+      BacktestRun backtest;
+      CombinedBacktestResult[] combined = new CombinedBacktestResult[1];
+      try (Stage stage = run.stage("backtest")) {
+        if (members.size() > 1 || members.get(0).name() != null) {
+          List<String> names = new ArrayList<>();
+          List<TrainingPlan> plans = new ArrayList<>();
+          members.forEach(m -> {
+            names.add(m.name());
+            plans.add(m.plan());
+          });
+          run.record().configure("members", names);
+          backtest = BacktestRun.runMembers(opened, names, plans, request.originCount(), stepPeriods, hierarchy,
+              stage.budget(), progress, combined);
+        } else {
+          backtest = BacktestRun.run(opened, first, request.originCount(), stepPeriods, hierarchy, stage.budget(),
+              progress);
+        }
+        stage.addRows(backtest.result().origins().stream().flatMap(o -> o.partitions().stream())
+            .mapToLong(p -> p.trainingRowCount()).sum());
+      }
+      backtest.addTo(report, opened, request.shownSeries());
+      RunReport.addStages(report, run.record(), backtest.lastPartitions().get(0).datasetBytesPerRow());
+      Object written = combined[0] != null ? combined[0] : backtest.result();
+      AtomicFiles.write(request.reportDir().resolve(RunReport.BACKTEST_FILE), RunRecord.JSON.writeValueAsBytes(
+          written));
+      Path html = RunReport.write(report.build(), request.reportDir());
+      EvaluationResult scores = backtest.result().origins().get(0).model();
+      run.record().result("backtest", written).result("levelsScored", scores.scoredLevelsLine())
+          .result("fill", opened.manifest().fill());
+      run.record().write(request.reportDir());
+      return new Outcome(backtest, combined[0], opened.manifest(), html, written);
+    }
+  }
+}
