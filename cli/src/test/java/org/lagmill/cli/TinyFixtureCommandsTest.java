@@ -52,7 +52,7 @@ class TinyFixtureCommandsTest {
         TINY.resolve("prices.csv").toString(), "--price-column", "amount", "--store", temp.resolve("s").toString());
     assertEquals(ExitCodes.BAD_INPUT, column.exitCode());
     assertEquals("lagmill: " + TINY.resolve("prices.csv") + ", line 1: no column 'amount' in header "
-        + "item,store,from,price: expected one (or name it with --price-column)\n", column.err());
+        + "item,store,from,price: expected one (or name it with --prices-price-column)\n", column.err());
     try (Stream<Path> left = Files.list(temp)) {
       assertEquals(List.of(), left.toList(), "no store and no temporary directory");
     }
