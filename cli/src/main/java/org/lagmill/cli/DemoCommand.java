@@ -151,8 +151,8 @@ final class DemoCommand implements Callable<Integer> {
                 .forEach(w -> commandSpec.commandLine().getErr().println("warning: " + w));
             point = Forecaster.forecast(models, store, HORIZON_DAYS, stage.budget());
             dispersion = models.dispersionBySeries();
-            ForecastTable table = new ForecastTable(store.dayCount(), point, ForecastTable.PUBLISHED_QUANTILES,
-                CountQuantiles.quantiles(point, dispersion, ForecastTable.PUBLISHED_QUANTILES));
+            ForecastTable table = new ForecastTable(store.dayCount(), point, ForecastTable.publishedQuantiles(),
+                CountQuantiles.quantiles(point, dispersion, ForecastTable.publishedQuantiles()));
             ForecastFileWriter.writeLong(table, store, forecastFile);
             stage.addRows((long) point.length * HORIZON_DAYS);
           }

@@ -136,7 +136,7 @@ final class ForecastCommand implements Callable<Integer> {
       try (Stage stage = run.stage("forecast")) {
         point = Forecaster.forecast(models, opened, horizon, stage.budget(), chosen);
         forecastSeriesCount = chosen == null ? point.length : chosen.length;
-        double[] levels = intervals ? ForecastTable.PUBLISHED_QUANTILES : new double[0];
+        double[] levels = intervals ? ForecastTable.publishedQuantiles() : new double[0];
         table = new ForecastTable(opened.dayCount(), point, levels,
             intervals ? CountQuantiles.quantiles(point, models.dispersionBySeries(), levels) : new double[0][][]);
         stage.addRows((long) forecastSeriesCount * horizon);

@@ -1,19 +1,18 @@
 package org.lagmill.eval;
 
+import org.lagmill.forecast.ForecastTable;
+
 /**
  * Per-series error formulas of docs/metrics.md on plain arrays (day 0 = the first day of the array). The streaming
  * {@link Evaluator} computes the same quantities over aggregates; these are the reference forms and the public
  * helpers. All methods are pure and thread-safe.
  */
 public final class SeriesMetrics {
-  /** The nine quantile levels of the published M5 uncertainty evaluation. */
-  private static final double[] PUBLISHED_QUANTILES = {0.005, 0.025, 0.165, 0.25, 0.5, 0.75, 0.835, 0.975, 0.995};
-
   private SeriesMetrics() {}
 
   /** A copy of the nine published quantile levels 0.005 … 0.995. */
   public static double[] publishedQuantiles() {
-    return PUBLISHED_QUANTILES.clone();
+    return ForecastTable.publishedQuantiles();
   }
 
   /** First day index in {@code [0, originDay)} with a value above 0, or -1. */

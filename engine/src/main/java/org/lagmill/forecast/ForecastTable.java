@@ -12,8 +12,12 @@ import org.lagmill.store.SalesHistory;
  * @param quantiles {@code [quantileIndex][seriesIndex][dayOffset]}
  */
 public record ForecastTable(int firstDayIndex, double[][] point, double[] quantileLevels, double[][][] quantiles) {
-  /** The nine quantiles the weighted scaled pinball loss is published with. */
-  public static final double[] PUBLISHED_QUANTILES = {0.005, 0.025, 0.165, 0.25, 0.5, 0.75, 0.835, 0.975, 0.995};
+  private static final double[] PUBLISHED_QUANTILES = {0.005, 0.025, 0.165, 0.25, 0.5, 0.75, 0.835, 0.975, 0.995};
+
+  /** The nine quantiles the weighted scaled pinball loss is published with (a fresh copy). */
+  public static double[] publishedQuantiles() {
+    return PUBLISHED_QUANTILES.clone();
+  }
 
   public int horizonDays() {
     return point.length == 0 ? 0 : point[0].length;

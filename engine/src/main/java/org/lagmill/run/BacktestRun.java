@@ -45,7 +45,7 @@ public final class BacktestRun {
   public static BacktestRun run(SalesHistory history, TrainingPlan plan, int originCount, int stepDays, Hierarchy hierarchy,
       MemoryBudget budget, ProgressListener progress) {
     BacktestSettings settings = new BacktestSettings(originCount, stepDays, plan.spec().horizonDays(),
-        DEFAULT_BASELINES, hierarchy, ForecastTable.PUBLISHED_QUANTILES);
+        DEFAULT_BASELINES, hierarchy, ForecastTable.publishedQuantiles());
     int[] lastOrigin = {-1};
     double[][][] lastForecasts = new double[1][][];
     float[][] lastDispersion = new float[1][];
@@ -65,7 +65,7 @@ public final class BacktestRun {
   public static BacktestRun runMembers(SalesHistory history, List<String> names, List<TrainingPlan> plans, int originCount,
       int stepDays, Hierarchy hierarchy, MemoryBudget budget, ProgressListener progress, CombinedBacktestResult[] out) {
     BacktestSettings settings = new BacktestSettings(originCount, stepDays, plans.get(0).spec().horizonDays(),
-        DEFAULT_BASELINES, hierarchy, ForecastTable.PUBLISHED_QUANTILES);
+        DEFAULT_BASELINES, hierarchy, ForecastTable.publishedQuantiles());
     Map<Integer, double[][]> lastPoints = new java.util.HashMap<>();
     Map<Integer, float[]> lastDispersions = new java.util.HashMap<>();
     int[] lastOrigin = {-1};

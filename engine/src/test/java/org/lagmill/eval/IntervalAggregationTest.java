@@ -15,7 +15,7 @@ import org.lagmill.store.ArraySalesHistory;
 
 class IntervalAggregationTest {
   private static final long SEED = TestSeeds.master(61_403L);
-  private static final double[] LEVELS = ForecastTable.PUBLISHED_QUANTILES;
+  private static final double[] LEVELS = ForecastTable.publishedQuantiles();
 
   @Test
   void shouldMatchASlowReferenceOnEveryAggregate() {

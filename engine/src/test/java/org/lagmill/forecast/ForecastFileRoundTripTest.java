@@ -21,7 +21,7 @@ import org.lagmill.training.SmallHistories;
 
 class ForecastFileRoundTripTest {
   private static final long SEED = TestSeeds.master(88_123L);
-  private static final double[] LEVELS = ForecastTable.PUBLISHED_QUANTILES;
+  private static final double[] LEVELS = ForecastTable.publishedQuantiles();
 
   @Test
   void shouldReadBackWhatItWroteToFourDecimals(@TempDir Path dir) throws IOException {
