@@ -112,7 +112,7 @@ final class IngestCommand implements Callable<Integer> {
             : ", " + Periods.describe(manifest.periodDaysOrDaily()), store, manifest.binaryBytes(),
             peakOffHeapBytes);
         if (result.periodNote() != null) {
-          spec.commandLine().getOut().println(result.periodNote());
+          spec.commandLine().getOut().println(FlagNames.render(result.periodNote()));
         }
         printFill(spec.commandLine().getOut(), manifest);
       }

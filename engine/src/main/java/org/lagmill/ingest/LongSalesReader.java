@@ -137,7 +137,7 @@ public final class LongSalesReader {
     DetectedPeriod detected = frame == null ? periodDaysOf(distinctEpochDays) : null;
     int periodDays = frame == null ? detected.periodDays() : frame.periodDays();
     String stepSource = frame == null ? "the most common gap between its dates" : frame.firstDate() == null
-        ? "given with --period" : "the store's step";
+        ? "given with " + Setting.PERIOD : "the store's step";
     if (frame != null && frame.firstDate() != null) {
       long frameFirst = frame.firstDate().toEpochDay();
       if (minEpochDay < frameFirst) {

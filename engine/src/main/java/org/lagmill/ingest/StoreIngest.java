@@ -6,6 +6,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import org.lagmill.io.Setting;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.ClosureTable;
 import org.lagmill.store.Periods;
@@ -59,8 +60,8 @@ public final class StoreIngest {
           if (longRead[0].unusualPeriod()) {
             int days = longRead[0].header().periodDays();
             warnings.add("the sales dates lie " + days + " days apart most often, so the store holds one value per "
-                + days + " days; if these are daily (or weekly) sales with some days missing, give --period day (or "
-                + "--period week)");
+                + days + " days; if these are daily (or weekly) sales with some days missing, give " + Setting.PERIOD
+                + " day (or " + Setting.PERIOD + " week)");
           }
         }
         if (options.pricesSource() != null) {
@@ -99,10 +100,10 @@ public final class StoreIngest {
       Integer given = options.periodDays();
       if (given != null && reader.dayCount() > 1 && reader.periodDays() != given) {
         throw new InputFormatException(options.salesFile(), 1, 0, "date columns " + reader.periodDays() + " days "
-            + "apart: expected the step given with --period, " + given + (given == 1 ? " day" : " days"));
+            + "apart: expected the step given with " + Setting.PERIOD + ", " + given + (given == 1 ? " day" : " days"));
       }
       int periodDays = given != null ? given : reader.periodDays();
-      periodNote[0] = "period " + Periods.describe(periodDays) + ": " + (given != null ? "given with --period"
+      periodNote[0] = "period " + Periods.describe(periodDays) + ": " + (given != null ? "given with " + Setting.PERIOD
           : reader.dayCount() > 1 ? "detected from the step between the date columns" : "daily, the default for a "
           + "single date column");
       StoreWriter writer = new StoreWriter(dir, reader.firstDate(), periodDays, reader.dayCount(),

@@ -39,6 +39,7 @@ public enum Setting {
   SHARD_ATTRIBUTE("by"),
   NO_WAIT("no-wait"),
   MEMORY_LIMIT("memory-limit"),
+  PERIOD("period"),
   SCENARIO_SERIES("series"),
   SCENARIO_DAYS("days"),
   SCENARIO_FUTURE_DAYS("future-days"),

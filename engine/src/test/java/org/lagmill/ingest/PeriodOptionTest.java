@@ -44,12 +44,12 @@ class PeriodOptionTest {
       assertEquals(2, detected.manifest().periodDaysOrDaily());
       assertEquals(5, detected.manifest().dayCount());
       assertEquals("the sales dates lie 2 days apart most often, so the store holds one value per 2 days; if these "
-          + "are daily (or weekly) sales with some days missing, give --period day (or --period week)",
+          + "are daily (or weekly) sales with some days missing, give ‹period› day (or ‹period› week)",
           detected.warnings().get(0));
 
       IngestResult daily = StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("b")).withColumns(columns)
           .withPeriodDays(1), budget);
-      assertEquals("period daily: given with --period", daily.periodNote());
+      assertEquals("period daily: given with ‹period›", daily.periodNote());
       assertEquals(9, daily.manifest().dayCount());
       // A: 03-02 .. 03-04, 03-06 .. 03-08 zero (6); B: 03-04, 03-06 .. 03-09 zero (5), 03-01, 03-02 unknown.
       assertEquals(11, daily.manifest().fill().zeroFilledItemDays());
@@ -72,10 +72,10 @@ class PeriodOptionTest {
       InputFormatException e = assertThrows(InputFormatException.class, () -> StoreIngest.ingest(
           IngestOptions.of(sales, temp.resolve("a")).withColumns(columns).withPeriodDays(7), budget));
       assertEquals(sales + ", line 3, column 3: day '2025-03-03' is off the file's step of 7 days (given with "
-          + "--period, from 2025-03-01): expected 2025-03-01 or 2025-03-08", e.getMessage());
+          + "‹period›, from 2025-03-01): expected 2025-03-01 or 2025-03-08", e.getMessage());
       e = assertThrows(InputFormatException.class, () -> StoreIngest.ingest(IngestOptions.of(wide, temp.resolve("b"))
           .withPeriodDays(1), budget));
-      assertEquals(wide + ", line 1: date columns 7 days apart: expected the step given with --period, 1 day",
+      assertEquals(wide + ", line 1: date columns 7 days apart: expected the step given with ‹period›, 1 day",
           e.getMessage());
       IngestResult weekly = StoreIngest.ingest(IngestOptions.of(wide, temp.resolve("c")), budget);
       assertEquals("period weekly: detected from the step between the date columns", weekly.periodNote());
