@@ -2,6 +2,7 @@ package org.lagmill.ingest;
 
 import java.nio.file.Path;
 import java.time.LocalDate;
+import org.lagmill.io.Setting;
 
 /**
  * Notices a date far outside the others in a file of dated rows (a typo such as 2199 for 2019): the store spans
@@ -73,6 +74,6 @@ final class DateSpanCheck {
     return file + ", line " + line + ": " + dateColumn + " " + LocalDate.ofEpochDay(epochDay) + " stretches the"
         + " dates to " + (spanDays + 1) + " days, more than " + STRETCH_FACTOR + " times the " + (otherSpanDays + 1)
         + " days of the other rows (" + rowCount + (rowCount == 1 ? " row" : " rows") + " on that date); the store"
-        + " holds every day in between: check it for a typo, or narrow --date-window to refuse such dates";
+        + " holds every day in between: check it for a typo, or narrow " + Setting.DATE_WINDOW + " to refuse such dates";
   }
 }

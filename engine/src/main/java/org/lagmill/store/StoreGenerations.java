@@ -19,6 +19,7 @@ import java.util.List;
 import java.util.function.Consumer;
 import java.util.regex.Pattern;
 import org.lagmill.io.PathNames;
+import org.lagmill.io.Setting;
 
 /**
  * The commit protocol of a store directory: immutable generations plus a pointer file swapped atomically.
@@ -112,7 +113,7 @@ public final class StoreGenerations {
         StandardCharsets.UTF_8);
     if (manifest.contains("\"modelFileChecksums\"")) {
       throw new FileSystemException(storeDir.toString(), null, "not a store: it holds a trained model; give the"
-          + " folder ingest wrote (a model folder goes to --model)");
+          + " folder ingest wrote (a model folder goes to " + Setting.MODEL + ")");
     }
   }
 

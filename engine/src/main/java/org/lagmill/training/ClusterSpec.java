@@ -3,6 +3,7 @@ package org.lagmill.training;
 import java.util.ArrayList;
 import java.util.List;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.Setting;
 
 /**
  * The machines of a distributed training, in rank order, as {@code --machines host:port,host:port,…} gives them:
@@ -32,24 +33,24 @@ public final class ClusterSpec {
       String text = entry.strip();
       int colon = text.lastIndexOf(':');
       if (colon <= 0 || colon == text.length() - 1) {
-        throw new InvalidRequestException("--machines entry '" + text + "' is not host:port; expected e.g. "
+        throw new InvalidRequestException(Setting.MACHINES + " entry '" + text + "' is not host:port; expected e.g. "
             + "10.0.0.5:12400,10.0.0.6:12400");
       }
       int port;
       try {
         port = Integer.parseInt(text.substring(colon + 1));
       } catch (NumberFormatException e) {
-        throw new InvalidRequestException("--machines entry '" + text + "' has port '" + text.substring(colon + 1)
+        throw new InvalidRequestException(Setting.MACHINES + " entry '" + text + "' has port '" + text.substring(colon + 1)
             + "'; expected a number in [1024, 65534]");
       }
       if (port < 1024 || port > 65534) {
-        throw new InvalidRequestException("--machines entry '" + text + "' has port " + port + "; expected "
+        throw new InvalidRequestException(Setting.MACHINES + " entry '" + text + "' has port " + port + "; expected "
             + "[1024, 65534] (rank 0 also uses the next port)");
       }
       String host = text.substring(0, colon);
       for (int i = 0; i < hosts.size(); i++) {
         if (hosts.get(i).equals(host) && (ports.get(i) == port || ports.get(i) + 1 == port && i == 0)) {
-          throw new InvalidRequestException("--machines entry '" + text + "' repeats the port of rank " + i
+          throw new InvalidRequestException(Setting.MACHINES + " entry '" + text + "' repeats the port of rank " + i
               + (ports.get(i) == port ? "" : " + 1 (rank 0's exchange port)") + "; give each rank its own port");
         }
       }
@@ -57,8 +58,8 @@ public final class ClusterSpec {
       ports.add(port);
     }
     if (hosts.size() < 2 || hosts.size() > MAX_RANK_COUNT) {
-      throw new InvalidRequestException("--machines lists " + hosts.size() + " machines; expected 2 to "
-          + MAX_RANK_COUNT + " (one machine trains without --machines)");
+      throw new InvalidRequestException(Setting.MACHINES + " lists " + hosts.size() + " machines; expected 2 to "
+          + MAX_RANK_COUNT + " (one machine trains without " + Setting.MACHINES + ")");
     }
     return new ClusterSpec(List.copyOf(hosts), ports.stream().mapToInt(Integer::intValue).toArray());
   }
@@ -93,7 +94,7 @@ public final class ClusterSpec {
   /** @throws InvalidRequestException when {@code rank} is outside the list */
   public void checkRank(int rank) {
     if (rank < 0 || rank >= hosts.size()) {
-      throw new InvalidRequestException("--rank " + rank + " is outside 0.." + (hosts.size() - 1) + " of the "
+      throw new InvalidRequestException(Setting.RANK + " " + rank + " is outside 0.." + (hosts.size() - 1) + " of the "
           + hosts.size() + " machines listed");
     }
   }

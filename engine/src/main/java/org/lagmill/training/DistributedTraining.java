@@ -11,6 +11,7 @@ import java.util.Locale;
 import org.lagmill.features.FeatureBatch;
 import org.lagmill.features.FeaturePass;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.Setting;
 import org.lagmill.learner.DatasetBuilder;
 import org.lagmill.learner.LearnerNetwork;
 import org.lagmill.learner.TrainParameters;
@@ -54,7 +55,7 @@ public final class DistributedTraining {
       TreeLearner learner, int networkTimeoutMinutes, MemoryBudget budget, ProgressListener progress)
       throws IOException {
     if (plan.partitionAttribute() != null) {
-      throw new InvalidRequestException("--partition-by cannot be combined with --machines: a distributed training "
+      throw new InvalidRequestException(Setting.PARTITION_BY + " cannot be combined with " + Setting.MACHINES + ": a distributed training "
           + "trains one model over every shard");
     }
     ModelTraining.checkWindows(shard, plan);

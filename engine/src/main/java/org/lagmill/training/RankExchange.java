@@ -18,6 +18,7 @@ import java.util.concurrent.BlockingQueue;
 import java.util.concurrent.LinkedBlockingQueue;
 import java.util.concurrent.TimeUnit;
 import java.util.function.Consumer;
+import org.lagmill.io.Setting;
 
 /**
  * lagmill's own small channel between the ranks of a distributed training, beside LightGBM's network: a star of TCP
@@ -138,7 +139,7 @@ public final class RankExchange implements AutoCloseable {
         Object[] message = inbox.poll(timeout.toMillis(), TimeUnit.MILLISECONDS);
         if (message == null) {
           throw new RankFailureException("rank " + peerRank + " sent nothing for " + timeout.toSeconds() + " s while "
-              + "this rank waited for " + what + " (time-out; raise --rank-timeout for very uneven ranks)");
+              + "this rank waited for " + what + " (time-out; raise " + Setting.RANK_TIMEOUT + " for very uneven ranks)");
         }
         if (message[0] instanceof RankFailureException failure) {
           throw failure;
@@ -197,7 +198,7 @@ public final class RankExchange implements AutoCloseable {
             }
             throw new RankFailureException("ranks " + missing + " of " + rankCount + " did not connect to rank 0 ("
                 + cluster.host(0) + ":" + cluster.exchangePort() + ") within " + timeout.toSeconds() + " s; start "
-                + "every rank with the same --machines list");
+                + "every rank with the same " + Setting.MACHINES + " list");
           }
           socket.setSoTimeout(leftMillis);
           socket.setTcpNoDelay(true);

@@ -219,11 +219,11 @@ class LongSalesReaderTest {
           .warnings());
       assertEquals(List.of(typo + ", line 23: date 2042-03-05 stretches the dates to 6579 days, more than 10 times"
           + " the 20 days of the other rows (1 row on that date); the store holds every day in between: check it for"
-          + " a typo, or narrow --date-window to refuse such dates"),
+          + " a typo, or narrow ‹date-window› to refuse such dates"),
           LongSalesReader.read(typo, "date", "units", MissingRows.UNKNOWN, budget, new Collected()).warnings());
       assertEquals(List.of(early + ", line 2: date 2004-03-05 stretches the dates to 7321 days, more than 10 times"
           + " the 20 days of the other rows (1 row on that date); the store holds every day in between: check it for"
-          + " a typo, or narrow --date-window to refuse such dates"),
+          + " a typo, or narrow ‹date-window› to refuse such dates"),
           LongSalesReader.read(early, "date", "units", MissingRows.UNKNOWN, budget, new Collected()).warnings());
     }
   }

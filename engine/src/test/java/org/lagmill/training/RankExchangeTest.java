@@ -120,12 +120,12 @@ class RankExchangeTest {
 
   @Test
   void shouldRejectMalformedMachineLists() {
-    assertEquals("--machines entry 'localhost' is not host:port; expected e.g. 10.0.0.5:12400,10.0.0.6:12400",
+    assertEquals("‹machines› entry 'localhost' is not host:port; expected e.g. 10.0.0.5:12400,10.0.0.6:12400",
         assertThrows(IllegalArgumentException.class, () -> ClusterSpec.parse("localhost,h:2000")).getMessage());
-    assertEquals("--machines entry 'h:12401' repeats the port of rank 0 + 1 (rank 0's exchange port); give each rank "
+    assertEquals("‹machines› entry 'h:12401' repeats the port of rank 0 + 1 (rank 0's exchange port); give each rank "
         + "its own port", assertThrows(IllegalArgumentException.class,
             () -> ClusterSpec.parse("h:12400,h:12401")).getMessage());
-    assertEquals("--machines lists 1 machines; expected 2 to 256 (one machine trains without --machines)",
+    assertEquals("‹machines› lists 1 machines; expected 2 to 256 (one machine trains without ‹machines›)",
         assertThrows(IllegalArgumentException.class, () -> ClusterSpec.parse("h:12400")).getMessage());
   }
 
