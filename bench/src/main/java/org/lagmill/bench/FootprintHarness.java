@@ -180,9 +180,10 @@ public final class FootprintHarness {
         Integer.toString(rounds), "--threads", Integer.toString(threads)));
     command.addAll(options);
     MeasuredProcess.Result result = measure(name, command);
-    ProbeResult probe = ProbeResult.findIn(Files.readAllLines(result.logFile())).orElseThrow(() ->
-        new IllegalStateException("probe " + name + " exited with " + result.exitCode() + " and printed no result; "
-            + "see " + result.logFile()));
+    ProbeResult probe = ProbeResult.findIn(Files.readAllLines(result.logFile()))
+        .orElseThrow(() -> new IllegalStateException(
+            "probe " + name + " exited with " + result.exitCode() + " and printed no result; "
+                + "see " + result.logFile()));
     System.out.printf(Locale.ROOT, "%s: %.1f s, sampled peak %d MB, probe peak %d MB: %s%n", name, result.seconds(),
         result.peakResidentBytes() >> 20, probe.peakAfterTrainingBytes() >> 20, probe.toLine());
     return probe;

@@ -28,7 +28,8 @@ final class FootprintTable {
   static String markdown(ProbeResult baseline, List<SizeResult> sizes) {
     long baselineBytes = baseline.peakAfterTrainingBytes();
     StringBuilder out = new StringBuilder();
-    out.append(String.format(Locale.ROOT, "Baseline JVM with LightGBM loaded: %d MB peak RSS.%n%n", mib(baselineBytes)));
+    out.append(
+        String.format(Locale.ROOT, "Baseline JVM with LightGBM loaded: %d MB peak RSS.%n%n", mib(baselineBytes)));
     out.append("| item-days | training rows | features | stream peak MB | floor peak MB | matrix peak MB "
         + "| stream B/row | floor B/row | matrix B/row | stream/floor | matrix/stream "
         + "| dataframe practice MB (400 B/item-day) | dataframe/stream |\n");
@@ -38,7 +39,7 @@ final class FootprintTable {
       long rows = stream.rowCount();
       double dataframeBytes = DATAFRAME_BYTES_PER_ITEM_DAY * size.itemDays();
       out.append(String.format(Locale.ROOT, "| %s (%d × %d) | %,d | %d | %,d | %,d | %s | %.1f | %.1f | %s | %.2f | %s "
-              + "| %,d | %.1f× |%n", millions(size.itemDays()), size.seriesCount(), size.dayCount(), rows,
+          + "| %,d | %.1f× |%n", millions(size.itemDays()), size.seriesCount(), size.dayCount(), rows,
           stream.featureCount(), mib(peak(stream)), mib(peak(size.floor())),
           size.matrix() == null ? size.matrixNote() : String.format(Locale.ROOT, "%,d", mib(peak(size.matrix()))),
           bytesPerRow(stream, baselineBytes), bytesPerRow(size.floor(), baselineBytes),
@@ -59,7 +60,7 @@ final class FootprintTable {
       double pushPass = stream.sourceSeconds() - samplePass;
       ProbeResult matrix = size.matrix();
       out.append(String.format(Locale.ROOT, "| %s | %,d | %,d | %.1f / %.1f | %,.0f | %.1f | %.1f | %,.0f | %.2f "
-              + "| %.1f | %.1f / %.1f / %s | %s | %s |%n", millions(size.itemDays()), stream.rowCount(),
+          + "| %.1f | %.1f / %.1f / %s | %s | %s |%n", millions(size.itemDays()), stream.rowCount(),
           stream.samplePassRowCount(), samplePass, pushPass, stream.rowCount() / pushPass, stream.sampleSeconds(),
           stream.datasetSeconds(), stream.rowCount() / stream.datasetSeconds(),
           stream.sourceSeconds() / stream.datasetSeconds(), size.floor().datasetSeconds(), stream.trainSeconds(),

@@ -42,7 +42,7 @@ public final class GenerateThroughput {
       ScenarioSummary summary = ScenarioGenerator.write(spec, dir.resolve("run"));
       double seconds = (System.nanoTime() - startNanos) / 1e9;
       System.out.printf(Locale.ROOT, "%d series x %d days = %d item-days%s%s: %.2f s, %.1f MB written, "
-              + "%.1f M item-days/s, %.1f MB/s, max heap %d MB%n",
+          + "%.1f M item-days/s, %.1f MB/s, max heap %d MB%n",
           seriesCount, dayCount, summary.itemDayCount(), gzip ? " (gzip)" : "", periodDays == 7 ? " (weekly)" : "",
           seconds, summary.fileBytes() / 1e6,
           summary.itemDayCount() / seconds / 1e6, summary.fileBytes() / 1e6 / seconds,

@@ -69,7 +69,8 @@ public final class IngestThroughput {
       out.write('\n');
       for (int s = 0; s < seriesCount; s++) {
         int store = s % 10;
-        out.write("item-" + s / 10 + "@store-" + store + ",item-" + s / 10 + ",store-" + store + ",region-" + store / 4);
+        out.write(
+            "item-" + s / 10 + "@store-" + store + ",item-" + s / 10 + ",store-" + store + ",region-" + store / 4);
         double rate = random.nextInt(50) == 0 ? 200 * random.nextDouble() : 3 * random.nextDouble();
         int launch = random.nextInt(4) == 0 ? random.nextInt(dayCount) : 0;
         for (int d = 0; d < dayCount; d++) {

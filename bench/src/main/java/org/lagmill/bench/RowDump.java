@@ -48,7 +48,7 @@ final class RowDump {
     ByteBuffer labels = ByteBuffer.allocateDirect(capacityRows * Float.BYTES).order(ByteOrder.nativeOrder());
     long[] written = {0};
     try (FileChannel featureOut = FileChannel.open(folder.resolve(FEATURES_FILE), StandardOpenOption.CREATE,
-            StandardOpenOption.WRITE, StandardOpenOption.TRUNCATE_EXISTING);
+        StandardOpenOption.WRITE, StandardOpenOption.TRUNCATE_EXISTING);
         FileChannel labelOut = FileChannel.open(folder.resolve(LABELS_FILE), StandardOpenOption.CREATE,
             StandardOpenOption.WRITE, StandardOpenOption.TRUNCATE_EXISTING);
         FeatureBatch batch = new FeatureBatch(budget, capacityRows, featureCount)) {

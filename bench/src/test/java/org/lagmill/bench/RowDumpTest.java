@@ -42,9 +42,11 @@ class RowDumpTest {
       }
     }
 
-    @Override public FeatureSchema schema() { return schema; }
+    @Override
+    public FeatureSchema schema() { return schema; }
 
-    @Override public long rowCount() { return labels.length; }
+    @Override
+    public long rowCount() { return labels.length; }
 
     @Override
     public void stream(FeatureBatch batch, BatchConsumer consumer) {
@@ -122,11 +124,11 @@ class RowDumpTest {
     RandomRows rows = new RandomRows(50);
     TimedRowStream timed = new TimedRowStream(rows, 2);
     try (MemoryBudget budget = MemoryBudget.unlimited("test"); FeatureBatch batch = new FeatureBatch(budget, 8, 3)) {
-      timed.stream(batch, full -> { });
-      timed.stream(batch, full -> { });
+      timed.stream(batch, full -> {});
+      timed.stream(batch, full -> {});
       assertEquals(2, timed.passCount());
       assertTrue(timed.producerSeconds() >= 0 && timed.consumerSeconds(1) <= timed.passSeconds(1));
-      assertThrows(IllegalStateException.class, () -> timed.stream(batch, full -> { }));
+      assertThrows(IllegalStateException.class, () -> timed.stream(batch, full -> {}));
     }
   }
 

@@ -17,7 +17,8 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 /** {@code lagmill append}: adds a store's next days from a wide or long sales file; may replace the dated files. */
-@Command(name = "append", header = "Add new days (and a newer calendar and prices) to a store, atomically.", mixinStandardHelpOptions = true,
+@Command(name = "append", header = "Add new days (and a newer calendar and prices) to a store, atomically.",
+    mixinStandardHelpOptions = true,
     description = {"Add new days to a store from a wide sales CSV whose first date is the store's next day, or from",
         "a long one (a till export, sparse or dense) dated from the store's next day on. Wide: series missing from",
         "the file get unknown units on the new days. Long: a day with no row follows --missing-rows (zero by",
@@ -29,13 +30,15 @@ import picocli.CommandLine.Spec;
         "      --sales-date-column day",
         "  lagmill append --store stores/chain --plan plan-next-month.csv"})
 final class AppendCommand implements Callable<Integer> {
-  @Spec CommandSpec spec;
+  @Spec
+  CommandSpec spec;
 
   @Option(names = "--store", required = true, paramLabel = "DIR", description = "existing store directory")
   Path store;
 
-  @Option(names = "--sales", paramLabel = "FILE", description = {"wide or long sales CSV, optionally .gz; without it the",
-      "calendar, prices, closures or plan given replace the stored ones and the days stay as they are"})
+  @Option(names = "--sales", paramLabel = "FILE",
+      description = {"wide or long sales CSV, optionally .gz; without it the",
+          "calendar, prices, closures or plan given replace the stored ones and the days stay as they are"})
   Path sales;
 
   @Option(names = "--calendar", paramLabel = "FILE", description = "newer calendar CSV replacing the stored one")
@@ -48,11 +51,14 @@ final class AppendCommand implements Callable<Integer> {
       "an optional reason); a closed day reads as unknown and is forecast as 0; replaces the stored closures"})
   Path closures;
 
-  @Mixin ColumnOptions columns;
+  @Mixin
+  ColumnOptions columns;
 
-  @Mixin SalesShapeOptions shape;
+  @Mixin
+  SalesShapeOptions shape;
 
-  @Mixin PlanOptions plan;
+  @Mixin
+  PlanOptions plan;
 
   @Option(names = "--date-window", paramLabel = "FROM..TO", description = "plausible dates: any date read outside "
       + "stops the run (default: 1900-01-01..2200-12-31)")

@@ -17,14 +17,16 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 /** {@code lagmill backtest}: rolling-origin backtest of the model against baselines, with a report. */
-@Command(name = "backtest", header = "Score the model against baselines over rolling forecast origins.", mixinStandardHelpOptions = true,
+@Command(name = "backtest", header = "Score the model against baselines over rolling forecast origins.",
+    mixinStandardHelpOptions = true,
     description = {"Rolling-origin backtest: for each origin, train only on the days before it, forecast the horizon",
         "as in production and score WRMSSE per level beside naive, seasonal naive, moving average, exponential",
         "smoothing, Croston and ETS (exponential smoothing with trend and season, chosen per series) baselines on",
         "the same days."},
     footer = {"", "Example:", "  lagmill backtest --store stores/chain --origins 3 --step 28 --report runs/bt1"})
 final class BacktestCommand implements Callable<Integer> {
-  @Spec CommandSpec commandSpec;
+  @Spec
+  CommandSpec commandSpec;
 
   @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory")
   Path store;
@@ -35,7 +37,7 @@ final class BacktestCommand implements Callable<Integer> {
 
   @Option(names = "--step", converter = Counts.Positive.class,
       paramLabel = "PERIODS", description = "periods (days, or weeks of a weekly store) between "
-      + "origins (default: the horizon)")
+          + "origins (default: the horizon)")
   Integer stepDays;
 
   @Option(names = "--report", required = true, paramLabel = "DIR", description = "folder for report.html, "
@@ -60,8 +62,10 @@ final class BacktestCommand implements Callable<Integer> {
       + "member and their average are scored on the same origins, the training options apply to all")
   List<String> members = List.of();
 
-  @Mixin TrainingOptions training;
-  @Mixin HierarchyOptions hierarchyOptions;
+  @Mixin
+  TrainingOptions training;
+  @Mixin
+  HierarchyOptions hierarchyOptions;
 
   @Override
   public Integer call() throws Exception {
@@ -104,7 +108,8 @@ final class BacktestCommand implements Callable<Integer> {
       TrainingPlan base = training.plan(memberSpecs.get(m), cutIndex);
       plans.add(new BacktestJob.Member(member, new TrainingPlan(base.spec(), base.trainParameters(),
           base.datasetParameters(), base.cutDayIndex(), base.validationDays(), at < 0 ? base.partitionAttribute()
-          : member.substring(at + 1), base.salesValueWeights(), base.refit())));
+              : member.substring(at + 1),
+          base.salesValueWeights(), base.refit())));
     }
     return plans;
   }

@@ -18,7 +18,8 @@ import picocli.CommandLine.Spec;
     footer = {"", "Example:", "  lagmill config --template > features.yaml",
         "  lagmill config --check features.yaml"})
 final class ConfigCommand implements Callable<Integer> {
-  @Spec CommandSpec spec;
+  @Spec
+  CommandSpec spec;
 
   @Option(names = "--template", description = "print the commented template with the defaults")
   boolean template;

@@ -81,7 +81,8 @@ final class ConsoleProgress implements ProgressListener {
       err.print("\r");
     }
     err.println(String.format(Locale.ROOT, "[%s] done: %d %s in %.1f s%s", stageName, doneUnits, unitName, seconds,
-        seconds > 0 && doneUnits > 0 ? String.format(Locale.ROOT, " (%,.0f %s/s)", doneUnits / seconds, unitName) : ""));
+        seconds > 0 && doneUnits > 0 ? String.format(Locale.ROOT, " (%,.0f %s/s)", doneUnits / seconds, unitName)
+            : ""));
   }
 
   private String status(long now) {

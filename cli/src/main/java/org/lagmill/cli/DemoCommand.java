@@ -51,7 +51,9 @@ import picocli.CommandLine.Spec;
  * baselines (the last four weeks withheld as a final check), train on the full history, forecast four weeks with
  * intervals, write the report.
  */
-@Command(name = "demo", header = "Run the whole job on built-in demo data, from invented history to forecast and report.", mixinStandardHelpOptions = true,
+@Command(name = "demo",
+    header = "Run the whole job on built-in demo data, from invented history to forecast and report.",
+    mixinStandardHelpOptions = true,
     description = {"Run the whole job on built-in demo data: generate an invented chain's history, ingest it, backtest",
         "against baselines, train on the full history, forecast 28 days with intervals and write the report."},
     footer = {"", "Example:", "  lagmill demo --out demo-run --size small"})
@@ -72,7 +74,8 @@ final class DemoCommand implements Callable<Integer> {
   static final int HORIZON_DAYS = 28;
   static final int BACKTEST_ORIGINS = 2;
 
-  @Spec CommandSpec commandSpec;
+  @Spec
+  CommandSpec commandSpec;
 
   @Option(names = "--out", paramLabel = "DIR", defaultValue = "demo-run", description = "output folder (default: "
       + "${DEFAULT-VALUE})")

@@ -53,7 +53,7 @@ final class DistributedTrainRun {
       throw new InvalidRequestException("rank " + rank + " of " + cluster.rankCount() + " needs shard " + rank
           + " of a store split in " + cluster.rankCount() + " (lagmill shard --parts " + cluster.rankCount() + "); "
           + "--store " + command.store + " is " + (part == null ? "a whole store"
-          : "shard " + part.part() + " of " + part.partCount()));
+              : "shard " + part.part() + " of " + part.partCount()));
     }
     String identity = "split " + part.sourceName() + " in " + part.partCount() + " by " + part.attribute() + "\n"
         + "first date " + shard.firstDate() + ", " + shard.periodDays() + " days per period, cut at "
@@ -66,7 +66,8 @@ final class DistributedTrainRun {
     PrintWriter out = command.commandSpec.commandLine().getOut();
     run.record().configure("store", command.store.toString()).configure("model", command.model.toString())
         .configure("machines", cluster.machines()).configure("rank", rank).configure("treeLearner",
-            learner.lightGbmName()).configure("plan", plan.toString());
+            learner.lightGbmName())
+        .configure("plan", plan.toString());
     try (RankExchange exchange = RankExchange.join(cluster, rank, identity, timeout, message -> {
       System.err.println("lagmill: rank " + rank + " stops: " + message);
       System.err.flush();
@@ -112,7 +113,8 @@ final class DistributedTrainRun {
               result.localTrainingRowCount(), report.trainingRowCount(),
               report.bestIteration(), report.iterationCount(), report.validationMetric(),
               report.validationCurve().length == 0 ? Double.NaN
-                  : report.validationCurve()[Math.max(0, report.bestIteration() - 1)], result.modelSha256());
+                  : report.validationCurve()[Math.max(0, report.bestIteration() - 1)],
+              result.modelSha256());
           out.printf(Locale.ROOT, "rank %d: peak RSS %,d MB, learner off-heap peak %,d KB%s%n", rank,
               ProcessMemory.peakResidentBytes() >> 20, learnerPeakBytes >> 10,
               rank == 0 ? ", model written to " + command.model : "");

@@ -34,12 +34,14 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 /** {@code lagmill evaluate}: scores a forecast file against the actuals the store holds for its days. */
-@Command(name = "evaluate", header = "Score a forecast file against the actuals held in a store.", mixinStandardHelpOptions = true,
+@Command(name = "evaluate", header = "Score a forecast file against the actuals held in a store.",
+    mixinStandardHelpOptions = true,
     description = {"Score a forecast file (long form: attributes or series_id, date, forecast, optional q… columns)",
         "against the store's actuals: WRMSSE and the per-level table, beside the baselines from the same origin."},
     footer = {"", "Example:", "  lagmill evaluate --store stores/chain --forecast week45.csv.gz --json"})
 final class EvaluateCommand implements Callable<Integer> {
-  @Spec CommandSpec commandSpec;
+  @Spec
+  CommandSpec commandSpec;
 
   @Option(names = "--store", required = true, paramLabel = "DIR", description = "store holding the actuals")
   Path store;
@@ -57,7 +59,8 @@ final class EvaluateCommand implements Callable<Integer> {
       "the score (for a shard: merge every shard's part with lagmill merge-scores)"})
   Path scoringPart;
 
-  @Mixin HierarchyOptions hierarchyOptions;
+  @Mixin
+  HierarchyOptions hierarchyOptions;
 
   @Override
   public Integer call() throws Exception {
@@ -115,8 +118,9 @@ final class EvaluateCommand implements Callable<Integer> {
       out.printf(Locale.ROOT, "forecast %s, %s .. %s, %s%n", forecast, opened.dateOf(origin),
           opened.dateOf(lastDay), Periods.count(table.horizonDays(), opened.periodDays()));
       printLevels(out, result);
-      baselines.forEach((name, value) -> out.printf(Locale.ROOT, "  baseline %-24s WRMSSE %.4f  (model / baseline %.3f)%n",
-          name, value, result.wrmsse() / value));
+      baselines
+          .forEach((name, value) -> out.printf(Locale.ROOT, "  baseline %-24s WRMSSE %.4f  (model / baseline %.3f)%n",
+              name, value, result.wrmsse() / value));
       ScoredLevels.print(out, result, opened.manifest());
     }
     return ExitCodes.OK;

@@ -34,7 +34,8 @@ import picocli.CommandLine.Spec;
     footer = {"", "Example:", "  lagmill explain --store stores/chain --model models/week49 \\",
         "      --series k2/north/dry --json"})
 final class ExplainCommand implements Callable<Integer> {
-  @Spec CommandSpec commandSpec;
+  @Spec
+  CommandSpec commandSpec;
 
   @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory")
   Path store;
@@ -48,7 +49,7 @@ final class ExplainCommand implements Callable<Integer> {
 
   @Option(names = "--horizon", converter = Counts.Positive.class,
       paramLabel = "PERIODS", description = "periods to forecast (default: the model's "
-      + "horizon)")
+          + "horizon)")
   Integer horizonDays;
 
   @Option(names = "--plan-carry-forward", description = "when the plan ends before the horizon does, carry each "
@@ -58,7 +59,8 @@ final class ExplainCommand implements Callable<Integer> {
   @Option(names = "--json", description = "print every period's parts as JSON")
   boolean json;
 
-  @Mixin HierarchyOptions hierarchyOptions;
+  @Mixin
+  HierarchyOptions hierarchyOptions;
 
   @Override
   public Integer call() throws Exception {

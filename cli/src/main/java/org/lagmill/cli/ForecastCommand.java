@@ -34,13 +34,15 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 /** {@code lagmill forecast}: forecasts every series for the days after the store's last day. */
-@Command(name = "forecast", header = "Forecast every series for the days after the store's last day.", mixinStandardHelpOptions = true,
+@Command(name = "forecast", header = "Forecast every series for the days after the store's last day.",
+    mixinStandardHelpOptions = true,
     description = {"Forecast each series' daily units for the horizon after the store's last day, with optional",
         "quantile intervals. Forecasts are estimates for a planner to review, never automatic orders."},
     footer = {"", "Example:", "  lagmill forecast --store stores/chain --model models/week49 \\",
         "      --out week49.csv.gz --intervals --report runs/week49"})
 final class ForecastCommand implements Callable<Integer> {
-  @Spec CommandSpec commandSpec;
+  @Spec
+  CommandSpec commandSpec;
 
   @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory")
   Path store;
@@ -88,7 +90,8 @@ final class ForecastCommand implements Callable<Integer> {
   @Option(names = "--quiet", description = "print nothing but errors")
   boolean quiet;
 
-  @Mixin HierarchyOptions hierarchyOptions;
+  @Mixin
+  HierarchyOptions hierarchyOptions;
 
   @Override
   public Integer call() throws Exception {

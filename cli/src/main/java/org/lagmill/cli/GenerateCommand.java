@@ -34,7 +34,8 @@ public final class GenerateCommand implements Callable<Integer> {
   @Spec
   CommandSpec spec;
 
-  @Option(names = "--out", required = true, paramLabel = "DIR", description = "Folder to write into (created if missing).")
+  @Option(names = "--out", required = true, paramLabel = "DIR",
+      description = "Folder to write into (created if missing).")
   Path outDir;
 
   @Option(names = "--series", required = true, paramLabel = "N", description = "Number of article-outlet series.")
@@ -43,7 +44,8 @@ public final class GenerateCommand implements Callable<Integer> {
   @Option(names = "--days", required = true, paramLabel = "D", description = "Number of sales days.")
   int dayCount;
 
-  @Option(names = "--start", paramLabel = "DATE", description = "First sales day, YYYY-MM-DD (default: ${DEFAULT-VALUE}).",
+  @Option(names = "--start", paramLabel = "DATE",
+      description = "First sales day, YYYY-MM-DD (default: ${DEFAULT-VALUE}).",
       defaultValue = "2023-01-02")
   LocalDate startDate;
 

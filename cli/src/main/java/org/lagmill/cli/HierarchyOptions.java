@@ -15,9 +15,10 @@ final class HierarchyOptions {
       "that nest in the store's data)"})
   List<String> hierarchies;
 
-  @Option(names = "--level", paramLabel = "A,B,…", description = {"an explicit aggregation level, repeatable, replacing",
-      "the hierarchies' levels: attribute names joined by commas, or 'total' (e.g. --level total --level store",
-      "--level store,item)"})
+  @Option(names = "--level", paramLabel = "A,B,…",
+      description = {"an explicit aggregation level, repeatable, replacing",
+          "the hierarchies' levels: attribute names joined by commas, or 'total' (e.g. --level total --level store",
+          "--level store,item)"})
   List<String> levels;
 
   /** The declared levels, or else the levels derived from how the history's attributes nest. */

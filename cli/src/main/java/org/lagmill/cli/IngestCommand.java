@@ -19,7 +19,8 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 /** {@code lagmill ingest}: builds a store from a sales file (wide or long) and optional calendar and prices files. */
-@Command(name = "ingest", header = "Build a compact store from sales, calendar and prices CSV files.", mixinStandardHelpOptions = true,
+@Command(name = "ingest", header = "Build a compact store from sales, calendar and prices CSV files.",
+    mixinStandardHelpOptions = true,
     description = {"Build a compact store from a sales CSV: wide (one row per series, one column per day) or long",
         "(one row per series and day), with an optional calendar and prices (see docs/formats.md)."},
     footer = {"", "Example:", "  lagmill ingest --sales sales.csv.gz --store stores/chain",
@@ -27,7 +28,8 @@ import picocli.CommandLine.Spec;
         "      --plan plan.csv --store stores/chain",
         "  lagmill ingest --sales sales.csv --store stores/chain --replace"})
 final class IngestCommand implements Callable<Integer> {
-  @Spec CommandSpec spec;
+  @Spec
+  CommandSpec spec;
 
   @Option(names = "--sales", required = true, paramLabel = "FILE", description = "sales CSV, optionally .gz")
   Path sales;
@@ -54,11 +56,14 @@ final class IngestCommand implements Callable<Integer> {
       "an optional reason); a closed day reads as unknown and is forecast as 0"})
   Path closures;
 
-  @Mixin ColumnOptions columns;
+  @Mixin
+  ColumnOptions columns;
 
-  @Mixin SalesShapeOptions shape;
+  @Mixin
+  SalesShapeOptions shape;
 
-  @Mixin PlanOptions plan;
+  @Mixin
+  PlanOptions plan;
 
   @Option(names = "--period", paramLabel = "PERIOD", description = {"the store's period: day, week or a number of",
       "days; checked against the sales dates (default: detected, from the most common gap between long sales'",
@@ -109,7 +114,8 @@ final class IngestCommand implements Callable<Integer> {
         spec.commandLine().getOut().printf("ingested %d series x %s (%s .. %s%s) into %s, %d bytes, peak off-heap "
             + "%d bytes%n", manifest.seriesCount(), Periods.count(manifest.dayCount(), manifest.periodDaysOrDaily()),
             manifest.firstDate(), manifest.lastLocalDate(), manifest.periodDaysOrDaily() == Periods.DAILY ? ""
-            : ", " + Periods.describe(manifest.periodDaysOrDaily()), store, manifest.binaryBytes(),
+                : ", " + Periods.describe(manifest.periodDaysOrDaily()),
+            store, manifest.binaryBytes(),
             peakOffHeapBytes);
         if (result.periodNote() != null) {
           spec.commandLine().getOut().println(FlagNames.render(result.periodNote()));

@@ -18,11 +18,13 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 /** {@code lagmill inspect}: verifies a store and prints its summary. */
-@Command(name = "inspect", header = "Verify a store and print its extent, widths and bytes per item-day.", mixinStandardHelpOptions = true,
+@Command(name = "inspect", header = "Verify a store and print its extent, widths and bytes per item-day.",
+    mixinStandardHelpOptions = true,
     description = "Verify a store (sizes, checksums) and print its extent, widths and bytes per item-day.",
     footer = {"", "Example:", "  lagmill inspect --store stores/chain --json"})
 final class InspectCommand implements Callable<Integer> {
-  @Spec CommandSpec spec;
+  @Spec
+  CommandSpec spec;
 
   @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory")
   Path store;

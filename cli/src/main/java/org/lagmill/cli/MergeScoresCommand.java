@@ -25,7 +25,8 @@ import picocli.CommandLine.Spec;
         "whole hierarchy: the same WRMSSE and per-level table one evaluate of the unsplit store gives."},
     footer = {"", "Example:", "  lagmill merge-scores part-0.json part-1.json part-2.json --json"})
 final class MergeScoresCommand implements Callable<Integer> {
-  @Spec CommandSpec spec;
+  @Spec
+  CommandSpec spec;
 
   @Parameters(arity = "1..*", paramLabel = "PART", description = "scoring part files, one per shard")
   List<Path> parts;

@@ -31,7 +31,8 @@ final class ModelCommand implements Callable<Integer> {
   /** Features listed by importance, at most. */
   static final int LISTED_FEATURE_COUNT = 20;
 
-  @Spec CommandSpec spec;
+  @Spec
+  CommandSpec spec;
 
   @Option(names = "--model", required = true, paramLabel = "DIR", description = "model directory from train")
   Path model;

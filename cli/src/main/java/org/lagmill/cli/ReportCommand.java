@@ -14,7 +14,8 @@ import picocli.CommandLine.Spec;
     description = "Rebuild the HTML report of a run (backtest, forecast or demo) from its report.json.",
     footer = {"", "Example:", "  lagmill report --run demo-run/report"})
 final class ReportCommand implements Callable<Integer> {
-  @Spec CommandSpec spec;
+  @Spec
+  CommandSpec spec;
 
   @Option(names = "--run", required = true, paramLabel = "DIR", description = "folder holding report.json")
   Path run;

@@ -24,7 +24,8 @@ import picocli.CommandLine.Spec;
         "contains the text, ignoring case."},
     footer = {"", "Example:", "  lagmill series --store stores/chain --match bakery"})
 final class SeriesCommand implements Callable<Integer> {
-  @Spec CommandSpec spec;
+  @Spec
+  CommandSpec spec;
 
   @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory")
   Path store;

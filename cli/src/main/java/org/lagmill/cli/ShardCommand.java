@@ -23,7 +23,8 @@ import picocli.CommandLine.Spec;
         "docs/distributed.md)."},
     footer = {"", "Example:", "  lagmill shard --store stores/chain --parts 3 --by item --out shards"})
 final class ShardCommand implements Callable<Integer> {
-  @Spec CommandSpec spec;
+  @Spec
+  CommandSpec spec;
 
   @Option(names = "--store", required = true, paramLabel = "DIR", description = "store to split")
   Path store;

@@ -7,6 +7,9 @@ final class Subcommands {
   private Subcommands() {}
 
   static List<Object> all() {
-    return List.of(new DemoCommand(), new GenerateCommand(), new IngestCommand(), new AppendCommand(), new ShardCommand(), new InspectCommand(), new SeriesCommand(), new ConfigCommand(), new TrainCommand(), new ModelCommand(), new BacktestCommand(), new ForecastCommand(), new ExplainCommand(), new EvaluateCommand(), new MergeScoresCommand(), new ClusterLocalCommand(), new ReportCommand());
+    return List.of(new DemoCommand(), new GenerateCommand(), new IngestCommand(), new AppendCommand(),
+        new ShardCommand(), new InspectCommand(), new SeriesCommand(), new ConfigCommand(), new TrainCommand(),
+        new ModelCommand(), new BacktestCommand(), new ForecastCommand(), new ExplainCommand(), new EvaluateCommand(),
+        new MergeScoresCommand(), new ClusterLocalCommand(), new ReportCommand());
   }
 }

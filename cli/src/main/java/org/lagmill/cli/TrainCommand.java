@@ -23,14 +23,16 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 /** {@code lagmill train}: streams features from a store into LightGBM and saves the model directory. */
-@Command(name = "train", header = "Train a model on a store's history, streaming features into LightGBM.", mixinStandardHelpOptions = true,
+@Command(name = "train", header = "Train a model on a store's history, streaming features into LightGBM.",
+    mixinStandardHelpOptions = true,
     description = {"Train a model on a store's history: features stream from the store into LightGBM's Dataset,",
         "the last --horizon days before the cut are the validation window for early stopping."},
     footer = {"", "Example:", "  lagmill train --store stores/chain --model models/week49 --rounds 800",
         "  lagmill train --store stores/chain --model models/by-store \\",
         "      --partition-by store --until 2026-11-29"})
 final class TrainCommand implements Callable<Integer> {
-  @Spec CommandSpec commandSpec;
+  @Spec
+  CommandSpec commandSpec;
 
   @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory")
   Path store;
@@ -49,7 +51,8 @@ final class TrainCommand implements Callable<Integer> {
   @Option(names = "--quiet", description = "print nothing but errors")
   boolean quiet;
 
-  @Mixin TrainingOptions training;
+  @Mixin
+  TrainingOptions training;
 
   @Option(names = "--machines", paramLabel = "HOST:PORT,…", description = {"train one model over several machines,",
       "each holding one shard (lagmill shard), on LightGBM's distributed learner: every rank's host:port in rank",
@@ -123,7 +126,8 @@ final class TrainCommand implements Callable<Integer> {
     long peak = ProcessMemory.peakResidentBytes();
     long rows = models.partitions().stream().mapToLong(p -> p.report().trainingRowCount()).max().orElse(0);
     out.printf("peak RSS %,d MB (%.1f bytes per training row of the largest partition); off-heap held: store %,d MB "
-        + "mapped, learner peak %,d KB%n", peak >> 20, rows == 0 ? 0 : peak / (double) rows, opened.offHeapBytes() >> 20,
+        + "mapped, learner peak %,d KB%n", peak >> 20, rows == 0 ? 0 : peak / (double) rows,
+        opened.offHeapBytes() >> 20,
         learnerPeakBytes >> 10);
     out.printf("model written to %s%n", model);
   }

@@ -19,22 +19,22 @@ final class TrainingOptions {
 
   @Option(names = "--horizon", converter = Counts.Positive.class,
       paramLabel = "PERIODS", description = "forecast horizon and validation window in "
-      + "periods of the store: days, or weeks of a weekly store (default: the config's horizonDays, 28)")
+          + "periods of the store: days, or weeks of a weekly store (default: the config's horizonDays, 28)")
   Integer horizonDays;
 
   @Option(names = "--lags", converter = Counts.Positive.class,
       split = ",", paramLabel = "PERIODS", description = "lags of units in periods, e.g. "
-      + "28,35,42")
+          + "28,35,42")
   int[] lagDays;
 
   @Option(names = "--windows", converter = Counts.Positive.class,
       split = ",", paramLabel = "PERIODS", description = "rolling windows in periods, "
-      + "e.g. 7,28,56")
+          + "e.g. 7,28,56")
   int[] windowDays;
 
   @Option(names = "--rounds", converter = Counts.Positive.class,
       paramLabel = "N", defaultValue = "1000", description = "most boosting rounds "
-      + "(default: ${DEFAULT-VALUE})")
+          + "(default: ${DEFAULT-VALUE})")
   int rounds;
 
   @Option(names = "--early-stopping", converter = Counts.NonNegative.class,
@@ -56,7 +56,7 @@ final class TrainingOptions {
 
   @Option(names = "--leaves", converter = Counts.Positive.class,
       paramLabel = "N", defaultValue = "127", description = "leaves per tree "
-      + "(default: ${DEFAULT-VALUE})")
+          + "(default: ${DEFAULT-VALUE})")
   int leafCount;
 
   @Option(names = "--feature-fraction", paramLabel = "SHARE", defaultValue = "0.8",

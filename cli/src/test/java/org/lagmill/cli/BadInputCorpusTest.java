@@ -33,7 +33,8 @@ class BadInputCorpusTest {
   private static final Path TINY = Path.of("..", "testdata", "tiny");
   private static final String TINY_HEADER = "series_id,item,department,category,store,region";
 
-  @TempDir static Path shared;
+  @TempDir
+  static Path shared;
   private static Path store;
   private static Path model;
   private static String storeListing;
@@ -126,7 +127,8 @@ class BadInputCorpusTest {
         "l.csv, line 2, column 2"));
     c.add(text("sales long", "a series whose attribute changes", "l.csv",
         "sku,shop,date,units\nA,s1,2024-03-01,1\nA,s2,2024-03-02,1\n", "ingest --sales FILE --store OUT"
-            + " --sales-format long --series-id-column sku", 3, "line 3"));
+            + " --sales-format long --series-id-column sku",
+        3, "line 3"));
     c.add(text("sales long", "an empty series id", "l.csv", "series_id,sku,date,units\n,A,2024-03-01,1\n",
         ingestLong, 3, "l.csv, line 2, column 1: series_id is empty: expected a value naming the series"));
     c.add(text("sales long", "a NUL character", "l.csv", "sku,date,units\nA\0,2024-03-01,1\n", ingestLong, 3,
@@ -247,7 +249,8 @@ class BadInputCorpusTest {
     List<String> args = new ArrayList<>();
     for (String word : c.command().split(" ")) {
       args.add(word.replace("FILE", file.toString()).replace("STORE", store.toString())
-          .replace("MODEL", model.toString()).replace("COPY", caseDir.resolve("copy").toString()).replace("OUT", caseDir.resolve("out").toString())
+          .replace("MODEL", model.toString()).replace("COPY", caseDir.resolve("copy").toString())
+          .replace("OUT", caseDir.resolve("out").toString())
           .replace("TINY", TINY.toString()).replace("CASEDIR", caseDir.toString()));
     }
     MainRun run = MainRun.of(args.toArray(new String[0]));

@@ -30,7 +30,8 @@ class ConcurrentProcessesTest {
   private static final int BASE_DAYS = 60;
   private static final long TIMEOUT_SECONDS = 120;
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   /** Units of series s on day d, plus a bias that tells two files for the same day apart. */
   private static int unitsOf(int s, int d, int bias) {

@@ -33,7 +33,8 @@ class DistributedTrainingTest {
   private static final Pattern SINGLE_LOSS = Pattern.compile("validation tweedie ([0-9.]+)");
   private static final int SERIES = 48;
 
-  @TempDir static Path dir;
+  @TempDir
+  static Path dir;
 
   @BeforeAll
   static void shardAStore() throws IOException {

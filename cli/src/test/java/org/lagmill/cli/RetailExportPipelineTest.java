@@ -43,7 +43,8 @@ class RetailExportPipelineTest {
   /** Aggregates per level, from the structure written: 2 depts, 3 shops, 3 groups, 12 skus. */
   private static final List<Integer> AGGREGATES = List.of(1, 2, 3, 3, 12, 6, 9, 36);
 
-  @TempDir Path dir;
+  @TempDir
+  Path dir;
 
   private static String group(int sku) {
     return "G" + (sku / 4 + 1);

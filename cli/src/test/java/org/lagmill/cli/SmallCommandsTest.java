@@ -30,7 +30,8 @@ class SmallCommandsTest {
   private static final String[][] SERIES = {{"k1", "north", "fresh"}, {"k2", "north", "dry"},
       {"k3", "south", "fresh"}, {"k4", "south", "dry"}, {"k5", "east", "fresh"}, {"k6", "east", "frozen"}};
 
-  @TempDir static Path dir;
+  @TempDir
+  static Path dir;
   static Path store;
   static Path model;
 

@@ -16,7 +16,8 @@ import org.lagmill.store.StoreLock;
 import picocli.CommandLine;
 
 class StoreCommandsTest {
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   private final StringWriter out = new StringWriter();
   private final StringWriter err = new StringWriter();
@@ -55,7 +56,8 @@ class StoreCommandsTest {
   void shouldMapFailuresToExitCodes() throws Exception {
     Path bad = temp.resolve("bad.csv");
     Files.writeString(bad, "item,2024-01-01\na,-1\n");
-    assertEquals(ExitCodes.BAD_INPUT, run("ingest", "--sales", bad.toString(), "--store", temp.resolve("s").toString()));
+    assertEquals(ExitCodes.BAD_INPUT,
+        run("ingest", "--sales", bad.toString(), "--store", temp.resolve("s").toString()));
     assertEquals("lagmill: " + bad + ", line 2, column 2: expected a non-negative integer number of units, found "
         + "\"-1\"", err.toString().trim());
     assertEquals(ExitCodes.IO_ERROR, run("ingest", "--sales", temp.resolve("none.csv").toString(), "--store",
@@ -79,8 +81,9 @@ class StoreCommandsTest {
     units[0] ^= 1;
     Files.write(unitsFile, units);
     assertEquals(ExitCodes.CORRUPT_STORE, run("inspect", "--store", store.toString()));
-    assertEquals(ExitCodes.USAGE_ERROR, run("ingest", "--sales", good.toString(), "--store", temp.resolve("s2").toString(),
-        "--memory-limit", "0"));
+    assertEquals(ExitCodes.USAGE_ERROR,
+        run("ingest", "--sales", good.toString(), "--store", temp.resolve("s2").toString(),
+            "--memory-limit", "0"));
     assertEquals(0, run("ingest", "--help"));
     assertTrue(out.toString().contains("lagmill ingest --sales sales.csv.gz --store stores/chain"), out.toString());
   }
@@ -117,7 +120,7 @@ class StoreCommandsTest {
     Files.writeString(next, "sku,2024-01-02\na,2\n");
     Path store = temp.resolve("store");
     assertEquals(0, run("ingest", "--sales", good.toString(), "--store", store.toString(), "--quiet"));
-    try (StoreLock held = StoreLock.acquire(store, false, text -> { })) {
+    try (StoreLock held = StoreLock.acquire(store, false, text -> {})) {
       assertEquals(ExitCodes.STORE_BUSY, run("append", "--store", store.toString(), "--sales", next.toString(),
           "--no-wait"));
       assertEquals("lagmill: store " + store.toAbsolutePath() + " is being changed by process "

@@ -16,7 +16,8 @@ class TillExportCommandsTest {
   private static final String SPARSE = "sku,shop,dept,date,units\n"
       + "A,s1,D1,2025-01-01,2\nA,s1,D1,2025-01-04,1\nB,s1,D1,2025-01-02,3\nB,s1,D1,2025-01-04,5\n";
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @Test
   void shouldShowTheNestingFoundInTheData() throws Exception {

@@ -17,7 +17,8 @@ class TinyFixtureCommandsTest {
   /** Surefire runs in the cli module's folder; the fixtures live in the sibling testdata module. */
   private static final Path TINY = Path.of("..", "testdata", "tiny");
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @Test
   void shouldIngestWithCalendarAndPricesPrintTheWarningAndInspect() throws Exception {

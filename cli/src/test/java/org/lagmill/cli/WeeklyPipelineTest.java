@@ -39,7 +39,8 @@ class WeeklyPipelineTest {
   private static final int HORIZON = 8;
   private static final int FUTURE_WEEKS = 12;
 
-  @TempDir Path dir;
+  @TempDir
+  Path dir;
 
   @Test
   void shouldRunAWeeklyDataSetThroughEveryCommand() throws Exception {

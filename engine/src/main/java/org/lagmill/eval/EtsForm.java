@@ -29,7 +29,9 @@ public enum EtsForm {
   MADM(true, true, true, Season.MULTIPLICATIVE);
 
   /** How the season enters the one-step forecast. */
-  public enum Season { NONE, ADDITIVE, MULTIPLICATIVE }
+  public enum Season {
+    NONE, ADDITIVE, MULTIPLICATIVE
+  }
 
   private final boolean multiplicativeError;
   private final boolean trend;

@@ -35,8 +35,9 @@ import org.lagmill.store.StoreManifest;
  * @param quantileLevels the quantile levels scored, empty without quantile forecasts
  */
 public record ScoringPart(String kind, int formatVersion, String firstDate, int periodDays, int originDay,
-    int horizon, int weightDayCount, String levelSource, String levelBasis, @JsonInclude(JsonInclude.Include.NON_NULL)
-    StoreManifest.Shard shard, boolean priced, long unknownTrainingCount, long unknownActualCount,
+    int horizon, int weightDayCount, String levelSource, String levelBasis,
+    @JsonInclude(JsonInclude.Include.NON_NULL) StoreManifest.Shard shard, boolean priced, long unknownTrainingCount,
+    long unknownActualCount,
     double[] quantileLevels, List<LevelPart> levels) {
   public static final String KIND = "lagmill-scoring-part";
   public static final int FORMAT_VERSION = 1;
@@ -199,8 +200,7 @@ public record ScoringPart(String kind, int formatVersion, String firstDate, int 
     }
   }
 
-  private static final com.fasterxml.jackson.databind.ObjectMapper JSON =
-      new com.fasterxml.jackson.databind.ObjectMapper();
+  private static final com.fasterxml.jackson.databind.ObjectMapper JSON = new com.fasterxml.jackson.databind.ObjectMapper();
 
   private static List<List<String>> aggregateValues(Level level, SeriesAttributes attributes) {
     int[] attributeIndexes = level.attributeIndexes();

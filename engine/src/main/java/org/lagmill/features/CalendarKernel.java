@@ -118,17 +118,17 @@ final class CalendarKernel implements FeatureKernel {
 
   static float dateValue(FeatureSpec.CalendarFeature feature, LocalDate date) {
     switch (feature) {
-      case DAY_OF_WEEK:
+      case DAY_OF_WEEK :
         return date.getDayOfWeek().getValue() - 1;
-      case DAY_OF_MONTH:
+      case DAY_OF_MONTH :
         return date.getDayOfMonth();
-      case MONTH:
+      case MONTH :
         return date.getMonthValue();
-      case WEEK_OF_YEAR:
+      case WEEK_OF_YEAR :
         return isoWeekOfYear(date);
-      case DAY_OF_YEAR:
+      case DAY_OF_YEAR :
         return date.getDayOfYear();
-      default:
+      default :
         throw new AssertionError(feature);
     }
   }

@@ -41,7 +41,9 @@ public final class FeatureBatch implements AutoCloseable {
   public boolean isFull() { return rowCount == capacityRows; }
 
   /** Index of row 0 of this batch within the whole stream (rows are numbered in stream order from 0). */
-  public long firstRowIndex() { return firstRowIndex; }
+  public long firstRowIndex() {
+    return firstRowIndex;
+  }
 
   /** Empties the batch; the next row added is row {@code firstRowIndex} of the stream. */
   public void reset(long firstRowIndex) {
@@ -82,10 +84,14 @@ public final class FeatureBatch implements AutoCloseable {
   }
 
   /** Native address of the row-major matrix: row r, feature f at {@code address + 4 * (r * featureCount + f)}. */
-  public long valuesAddress() { return values.address(); }
+  public long valuesAddress() {
+    return values.address();
+  }
 
   /** Heap arrays of length {@link #capacityRows()}; only the first {@link #rowCount()} entries are meaningful. */
-  public float[] labels() { return labels; }
+  public float[] labels() {
+    return labels;
+  }
   public float[] weights() { return weights; }
   public int[] seriesIndexes() { return seriesIndexes; }
   public int[] dayIndexes() { return dayIndexes; }

@@ -144,7 +144,9 @@ public final class FeatureSpec {
   }
 
   /** Days ahead a forecast reaches; a direct model's lags and rolling shift must be at least this. */
-  public int horizonDays() { return horizonDays; }
+  public int horizonDays() {
+    return horizonDays;
+  }
 
   public Strategy strategy() { return strategy; }
 
@@ -155,17 +157,23 @@ public final class FeatureSpec {
   public int[] rollingWindowDays() { return rollingWindowDays.clone(); }
 
   /** Days between a row's day and the last day of its rolling windows; the horizon unless set. */
-  public int rollingShiftDays() { return rollingShiftDaysOrNull == null ? horizonDays : rollingShiftDaysOrNull; }
+  public int rollingShiftDays() {
+    return rollingShiftDaysOrNull == null ? horizonDays : rollingShiftDaysOrNull;
+  }
 
   /** True when the rolling shift was set explicitly rather than following the horizon. */
-  public boolean hasExplicitRollingShift() { return rollingShiftDaysOrNull != null; }
+  public boolean hasExplicitRollingShift() {
+    return rollingShiftDaysOrNull != null;
+  }
 
   public List<RollingStat> rollingStats() { return rollingStats; }
 
   public List<CalendarFeature> calendarFeatures() { return calendarFeatures; }
 
   /** Whether every column of the history's day calendar becomes a feature ({@code cal_<name>}). */
-  public boolean calendarColumns() { return calendarColumns; }
+  public boolean calendarColumns() {
+    return calendarColumns;
+  }
 
   public List<PriceFeature> priceFeatures() { return priceFeatures; }
 
@@ -176,7 +184,9 @@ public final class FeatureSpec {
   public List<String> priceGroupAttributes() { return priceGroupAttributesOrNull; }
 
   /** Attributes whose codes become categorical features, or null for every attribute except {@code series_id}. */
-  public List<String> categoricalAttributes() { return categoricalAttributesOrNull; }
+  public List<String> categoricalAttributes() {
+    return categoricalAttributesOrNull;
+  }
 
   public List<SeriesFeature> seriesFeatures() { return seriesFeatures; }
 
@@ -196,13 +206,19 @@ public final class FeatureSpec {
   }
 
   /** First date of training rows, or null for the start of the history. */
-  public LocalDate fromDate() { return fromDate; }
+  public LocalDate fromDate() {
+    return fromDate;
+  }
 
   /** Last date of training rows (inclusive), or null for the end of the history. */
-  public LocalDate untilDate() { return untilDate; }
+  public LocalDate untilDate() {
+    return untilDate;
+  }
 
   /** Whether training rows of a series start only at its first sale plus the longest lag. */
-  public boolean skipPreLaunch() { return skipPreLaunch; }
+  public boolean skipPreLaunch() {
+    return skipPreLaunch;
+  }
 
   /** The shortest number of days between a row and the most recent unit any feature reads. */
   public int shortestShiftDays() {
@@ -357,7 +373,10 @@ public final class FeatureSpec {
     public Builder lagDays(int... days) { lagDays = days.clone(); return this; }
     public Builder rollingWindowDays(int... days) { rollingWindowDays = days.clone(); return this; }
     /** Sets the rolling shift in days; null makes it follow the horizon. */
-    public Builder rollingShiftDays(Integer days) { rollingShiftDays = days; return this; }
+    public Builder rollingShiftDays(Integer days) {
+      rollingShiftDays = days;
+      return this;
+    }
     public Builder rollingStats(List<RollingStat> stats) { rollingStats = List.copyOf(stats); return this; }
 
     /** Rolling statistics by config name (mean, std, min, max, zero_share). */

@@ -30,7 +30,7 @@ public final class FeatureSpecYaml {
       "skipPreLaunch");
 
   private static final YAMLMapper MAPPER = YAMLMapper.builder(
-          YAMLFactory.builder().disable(YAMLGenerator.Feature.WRITE_DOC_START_MARKER).build())
+      YAMLFactory.builder().disable(YAMLGenerator.Feature.WRITE_DOC_START_MARKER).build())
       .enable(DeserializationFeature.FAIL_ON_UNKNOWN_PROPERTIES)
       // 28.5 as a lag or 14.0 as a horizon is a mistake to report, not a number to truncate
       .disable(DeserializationFeature.ACCEPT_FLOAT_AS_INT)

@@ -50,7 +50,8 @@ final class FeatureSpecYamlErrors {
     }
     String original = String.valueOf(e.getOriginalMessage());
     if (original.startsWith("Duplicate field '")) {
-      String key = original.substring("Duplicate field '".length(), original.indexOf('\'', "Duplicate field '".length()));
+      String key = original.substring("Duplicate field '".length(),
+          original.indexOf('\'', "Duplicate field '".length()));
       return where + "key '" + Excerpts.of(key) + "' appears twice: expected each key once";
     }
     JsonParser parser = e.getProcessor() instanceof JsonParser p ? p : null;
@@ -91,13 +92,13 @@ final class FeatureSpecYamlErrors {
       return "nothing";
     }
     switch (token) {
-      case START_ARRAY:
+      case START_ARRAY :
         return "a list";
-      case START_OBJECT:
+      case START_OBJECT :
         return "a mapping of keys";
-      case VALUE_NULL:
+      case VALUE_NULL :
         return "an empty value";
-      default:
+      default :
         try {
           return "'" + Excerpts.of(parser.getText()) + "'";
         } catch (java.io.IOException unreadable) {

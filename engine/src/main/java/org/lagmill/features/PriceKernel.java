@@ -159,35 +159,35 @@ final class PriceKernel implements FeatureKernel {
       int out = firstFeatureIndex + k;
       int end = dayOffset + rowCount;
       switch (featureCodes[k]) {
-        case 0:
+        case 0 :
           for (int j = dayOffset; j < end; j++, out += rowStride) {
             rows[out] = dayPrices[dayIndexes[j]];
           }
           break;
-        case 1:
+        case 1 :
           for (int j = dayOffset; j < end; j++, out += rowStride) {
             rows[out] = dayPrices[dayIndexes[j]] / mean;
           }
           break;
-        case 2:
+        case 2 :
           for (int j = dayOffset; j < end; j++, out += rowStride) {
             rows[out] = dayPrices[dayIndexes[j]] / regular;
           }
           break;
-        case 3:
+        case 3 :
           for (int j = dayOffset; j < end; j++, out += rowStride) {
             int day = dayIndexes[j];
             float before = day >= changeLagPeriods ? dayPrices[day - changeLagPeriods] : Float.NaN;
             rows[out] = before > 0 ? dayPrices[day] / before - 1f : Float.NaN;
           }
           break;
-        case 4:
+        case 4 :
           for (int j = dayOffset; j < end; j++, out += rowStride) {
             float price = dayPrices[dayIndexes[j]];
             rows[out] = Float.isNaN(price) ? Float.NaN : (price < regular ? 1f : 0f);
           }
           break;
-        case 5: {
+        case 5 : {
           float[] groupMeans = groupMeanPrices;
           int groupOffset = this.groupOffset;
           for (int j = dayOffset; j < end; j++, out += rowStride) {
@@ -196,7 +196,7 @@ final class PriceKernel implements FeatureKernel {
           }
           break;
         }
-        default:
+        default :
           throw new AssertionError(featureCodes[k]);
       }
     }

@@ -212,7 +212,7 @@ final class RollingKernel implements FeatureKernel {
     double[] n = counts;
     double[] values = statValues;
     switch (statCode) {
-      case MEAN:
+      case MEAN :
         for (int i = 0; i < rowCount; i++) {
           values[i] = sums[i] / n[i];
         }
@@ -220,7 +220,7 @@ final class RollingKernel implements FeatureKernel {
           rows[out] = n[i] == 0 ? Float.NaN : (float) values[i];
         }
         break;
-      case STD:
+      case STD :
         for (int i = 0; i < rowCount; i++) {
           double s = sums[i];
           double variance = (sumSquares[i] - s * s / n[i]) / (n[i] - 1);
@@ -230,22 +230,22 @@ final class RollingKernel implements FeatureKernel {
           rows[out] = n[i] < 2 ? Float.NaN : (float) values[i];
         }
         break;
-      case MIN:
+      case MIN :
         for (int i = 0; i < rowCount; i++, out += rowStride) {
           rows[out] = n[i] == 0 ? Float.NaN : minUnits[i];
         }
         break;
-      case MAX:
+      case MAX :
         for (int i = 0; i < rowCount; i++, out += rowStride) {
           rows[out] = n[i] == 0 ? Float.NaN : maxUnits[i];
         }
         break;
-      case ZERO_SHARE:
+      case ZERO_SHARE :
         for (int i = 0; i < rowCount; i++, out += rowStride) {
           rows[out] = n[i] == 0 ? Float.NaN : (float) zeroCounts[i] / (float) n[i];
         }
         break;
-      default:
+      default :
         throw new AssertionError(statCode);
     }
   }

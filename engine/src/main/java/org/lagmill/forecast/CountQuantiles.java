@@ -1,6 +1,5 @@
 package org.lagmill.forecast;
 
-
 /**
  * Quantiles of a negative binomial distribution of daily units with mean {@code mean} and dispersion {@code alpha}
  * (variance = mean + alpha · mean²; alpha = 0 is Poisson). Forecast intervals use it around each point forecast:

@@ -149,14 +149,16 @@ public final class ForecastFileReader {
       if (Math.floorMod(daysAfterFirst, (long) history.periodDays()) != 0) {
         LocalDate before = history.firstDate().plusDays(Math.floorDiv(daysAfterFirst, (long) history.periodDays())
             * history.periodDays());
-        throw new InputFormatException(file, line, column + 1, "date " + Excerpts.of(text) + " is off the store's step of "
-            + history.periodDays() + " days: expected a period's first date such as " + before + " or "
-            + before.plusDays(history.periodDays()));
+        throw new InputFormatException(file, line, column + 1,
+            "date " + Excerpts.of(text) + " is off the store's step of "
+                + history.periodDays() + " days: expected a period's first date such as " + before + " or "
+                + before.plusDays(history.periodDays()));
       }
       return (int) (daysAfterFirst / history.periodDays());
     } catch (DateTimeParseException e) {
-      throw new InputFormatException(file, line, column + 1, "expected an ISO date (YYYY-MM-DD), found \"" + Excerpts.of(text)
-          + "\"");
+      throw new InputFormatException(file, line, column + 1,
+          "expected an ISO date (YYYY-MM-DD), found \"" + Excerpts.of(text)
+              + "\"");
     }
   }
 

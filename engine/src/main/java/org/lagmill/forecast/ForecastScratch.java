@@ -42,10 +42,14 @@ final class ForecastScratch implements SalesHistory {
     revealedDayCount++;
   }
 
-  @Override public int seriesCount() { return base.seriesCount(); }
-  @Override public int dayCount() { return baseDayCount + revealedDayCount; }
-  @Override public LocalDate firstDate() { return base.firstDate(); }
-  @Override public int periodDays() { return base.periodDays(); }
+  @Override
+  public int seriesCount() { return base.seriesCount(); }
+  @Override
+  public int dayCount() { return baseDayCount + revealedDayCount; }
+  @Override
+  public LocalDate firstDate() { return base.firstDate(); }
+  @Override
+  public int periodDays() { return base.periodDays(); }
 
   @Override
   public int units(int seriesIndex, int dayIndex) {
@@ -74,12 +78,20 @@ final class ForecastScratch implements SalesHistory {
   }
 
   /** The real history's first sale: a forecast day never counts as a launch. */
-  @Override public int firstSaleDayIndex(int seriesIndex) { return base.firstSaleDayIndex(seriesIndex); }
-  @Override public int maxUnits(int seriesIndex) { return base.maxUnits(seriesIndex); }
-  @Override public SeriesAttributes attributes() { return base.attributes(); }
-  @Override public PriceTable prices() { return base.prices(); }
-  @Override public DayCalendar calendar() { return base.calendar(); }
-  @Override public AttributeNesting nesting() { return base.nesting(); }
-  @Override public ClosureTable closures() { return base.closures(); }
-  @Override public PlanTable plan() { return base.plan(); }
+  @Override
+  public int firstSaleDayIndex(int seriesIndex) { return base.firstSaleDayIndex(seriesIndex); }
+  @Override
+  public int maxUnits(int seriesIndex) { return base.maxUnits(seriesIndex); }
+  @Override
+  public SeriesAttributes attributes() { return base.attributes(); }
+  @Override
+  public PriceTable prices() { return base.prices(); }
+  @Override
+  public DayCalendar calendar() { return base.calendar(); }
+  @Override
+  public AttributeNesting nesting() { return base.nesting(); }
+  @Override
+  public ClosureTable closures() { return base.closures(); }
+  @Override
+  public PlanTable plan() { return base.plan(); }
 }

@@ -83,8 +83,8 @@ public final class Forecaster {
             + "; use strategy: recursive or a shorter horizon");
       }
       FeaturePass pass = FeaturePass.prediction(history, spec, seriesIndexes, history.dayCount(), horizonDays);
-      predictInto(pass, predictor, history.dayCount(), budget, (series, dayOffset, value) -> out[series][dayOffset] =
-          value);
+      predictInto(pass, predictor, history.dayCount(), budget,
+          (series, dayOffset, value) -> out[series][dayOffset] = value);
     } else {
       forecastRecursive(history, spec, predictor, seriesIndexes, horizonDays, budget, out);
     }

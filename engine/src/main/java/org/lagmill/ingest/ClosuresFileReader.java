@@ -76,8 +76,10 @@ public final class ClosuresFileReader {
         long from = Cells.requireDate(file, line, fromIndex + 1, fromColumn, record.getField(fromIndex));
         long until = Cells.requireDate(file, line, untilIndex + 1, untilColumn, record.getField(untilIndex));
         if (until < from) {
-          throw new InputFormatException(file, line, untilIndex + 1, untilColumn + " '" + Excerpts.of(record.getField(untilIndex))
-              + "' is before " + fromColumn + " '" + Excerpts.of(record.getField(fromIndex)) + "': expected a date on or after it");
+          throw new InputFormatException(file, line, untilIndex + 1,
+              untilColumn + " '" + Excerpts.of(record.getField(untilIndex))
+                  + "' is before " + fromColumn + " '" + Excerpts.of(record.getField(fromIndex))
+                  + "': expected a date on or after it");
         }
         int keyId = keys.keyIdOf(record);
         if (keyId < 0) {

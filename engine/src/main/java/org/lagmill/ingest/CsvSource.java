@@ -190,8 +190,6 @@ public final class CsvSource implements AutoCloseable {
     }
   }
 
-
-
   @Override
   public void close() {
     try {

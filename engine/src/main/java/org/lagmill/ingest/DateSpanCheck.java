@@ -74,6 +74,7 @@ final class DateSpanCheck {
     return file + ", line " + line + ": " + dateColumn + " " + LocalDate.ofEpochDay(epochDay) + " stretches the"
         + " dates to " + (spanDays + 1) + " days, more than " + STRETCH_FACTOR + " times the " + (otherSpanDays + 1)
         + " days of the other rows (" + rowCount + (rowCount == 1 ? " row" : " rows") + " on that date); the store"
-        + " holds every day in between: check it for a typo, or narrow " + Setting.DATE_WINDOW + " to refuse such dates";
+        + " holds every day in between: check it for a typo, or narrow " + Setting.DATE_WINDOW
+        + " to refuse such dates";
   }
 }

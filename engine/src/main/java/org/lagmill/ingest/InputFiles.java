@@ -27,8 +27,7 @@ import java.util.zip.ZipException;
 final class InputFiles {
   static final String GZIP_SUFFIX = ".gz";
   static final String NOT_GZIP = "not gzip data: expected a gzip stream in a file named .gz";
-  static final String TRUNCATED_GZIP =
-      "truncated gzip stream: expected more compressed data, found the end of the file";
+  static final String TRUNCATED_GZIP = "truncated gzip stream: expected more compressed data, found the end of the file";
   static final String CORRUPT_GZIP = "corrupt gzip stream: ";
   private static final int BUFFER_BYTES = 1 << 16;
 

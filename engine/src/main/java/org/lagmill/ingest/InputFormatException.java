@@ -44,5 +44,7 @@ public final class InputFormatException extends RuntimeException {
   public long lineNumber() { return lineNumber; }
 
   /** 1-based column number, 0 when the problem is not in one column. */
-  public int columnNumber() { return columnNumber; }
+  public int columnNumber() {
+    return columnNumber;
+  }
 }

@@ -144,7 +144,7 @@ public final class LongSalesReader {
         LocalDate earliest = LocalDate.ofEpochDay(minEpochDay);
         throw new InputFormatException(file, findLineOf(file, layout, minEpochDay), layout.dateIndex + 1,
             dateColumn + " '" + earliest + "' is before " + frame.firstDate() + ": expected dates from "
-            + frame.firstDate() + " on (the period after the store's last)");
+                + frame.firstDate() + " on (the period after the store's last)");
       }
       minEpochDay = frameFirst;
     }
@@ -191,7 +191,7 @@ public final class LongSalesReader {
       String spanWarning = span.warning(file, dateColumn, periodDays);
       String periodNote = detected == null ? "period " + Periods.describe(periodDays) + ": " + stepSource
           : "period " + Periods.describe(periodDays) + ": detected from the sales dates, the most common gap between "
-          + "consecutive dates (" + detected.gapCount() + " of " + detected.allGapCount() + " gaps)";
+              + "consecutive dates (" + detected.gapCount() + " of " + detected.allGapCount() + " gaps)";
       return new LongSalesRead(header, zeroFills, periodNote, detected != null && detected.allGapCount() > 0
           && periodDays != Periods.DAILY && periodDays != Periods.WEEKLY,
           spanWarning == null ? List.of() : List.of(spanWarning));
@@ -273,8 +273,8 @@ public final class LongSalesReader {
     long epochDay = Cells.epochDay(duplicate.getField(layout.dateIndex));
     try (CsvSource source = CsvSource.open(file)) {
       source.readHeader();
-      for (CsvRecord record = source.next(); record != null && source.lineNumber() < duplicateLine;
-          record = source.next()) {
+      for (CsvRecord record = source.next(); record != null
+          && source.lineNumber() < duplicateLine; record = source.next()) {
         if (Cells.epochDay(record.getField(layout.dateIndex)) == epochDay && layout.seriesKey(record).equals(key)) {
           return source.lineNumber();
         }

@@ -181,7 +181,8 @@ public final class PlanFileReader {
             + storeFirstDate.plusDays((long) plan.reachDayIndex() * periodDays) + ", before the last sales "
             + Periods.unit(periodDays) + " " + storeFirstDate.plusDays((long) (storeDayCount - 1) * periodDays)
             + ": the plan's last values hold for the " + Periods.count(storeDayCount - 1 - plan.reachDayIndex(),
-            periodDays) + " after it");
+                periodDays)
+            + " after it");
       }
       return new PlanReadResult(plan, form, unknownKeyRowCount, offBoundaryRowCount, seriesWithoutPlan, warnings);
     }
@@ -189,13 +190,15 @@ public final class PlanFileReader {
 
   private static float number(Path file, long line, int column, String columnName, String text) {
     if (!Cells.isDecimal(text)) {
-      throw new InputFormatException(file, line, column + 1, "plan column '" + columnName + "' holds '" + Excerpts.of(text)
-          + "': expected a number such as 1, 0 or 0.25");
+      throw new InputFormatException(file, line, column + 1,
+          "plan column '" + columnName + "' holds '" + Excerpts.of(text)
+              + "': expected a number such as 1, 0 or 0.25");
     }
     float value = Float.parseFloat(text);
     if (Float.isInfinite(value)) {
-      throw new InputFormatException(file, line, column + 1, "plan column '" + columnName + "' holds '" + Excerpts.of(text)
-          + "': expected a number within float range (magnitude below 3.4e38)");
+      throw new InputFormatException(file, line, column + 1,
+          "plan column '" + columnName + "' holds '" + Excerpts.of(text)
+              + "': expected a number within float range (magnitude below 3.4e38)");
     }
     return value;
   }

@@ -55,9 +55,10 @@ public enum SalesFormat {
     if (Arrays.asList(header).contains(dateColumn) && Arrays.asList(header).contains(unitsColumn)) {
       return LONG;
     }
-    throw new InputFormatException(salesFile, 1, 0, "header " + Excerpts.of(String.join(",", header)) + " is neither wide nor "
-        + "long sales: expected ISO date column headers (wide) or the columns '" + dateColumn + "' and '"
-        + unitsColumn + "' (long; rename with " + Setting.DATE_COLUMN + ", " + Setting.UNITS_COLUMN + ")");
+    throw new InputFormatException(salesFile, 1, 0,
+        "header " + Excerpts.of(String.join(",", header)) + " is neither wide nor "
+            + "long sales: expected ISO date column headers (wide) or the columns '" + dateColumn + "' and '"
+            + unitsColumn + "' (long; rename with " + Setting.DATE_COLUMN + ", " + Setting.UNITS_COLUMN + ")");
   }
 
   /** The option value: {@code wide}, {@code long} or {@code auto}. */

@@ -259,20 +259,28 @@ public final class StoreAppend {
   /** The old closures, with none for series added by the append. */
   private static ClosureTable extended(ClosureTable closures, int oldSeriesCount) {
     return new ClosureTable() {
-      @Override public boolean isEmpty() { return closures.isEmpty(); }
-      @Override public int rangeCount(int s) { return s < oldSeriesCount ? closures.rangeCount(s) : 0; }
-      @Override public int firstDayIndex(int s, int k) { return closures.firstDayIndex(s, k); }
-      @Override public int lastDayIndex(int s, int k) { return closures.lastDayIndex(s, k); }
+      @Override
+      public boolean isEmpty() { return closures.isEmpty(); }
+      @Override
+      public int rangeCount(int s) { return s < oldSeriesCount ? closures.rangeCount(s) : 0; }
+      @Override
+      public int firstDayIndex(int s, int k) { return closures.firstDayIndex(s, k); }
+      @Override
+      public int lastDayIndex(int s, int k) { return closures.lastDayIndex(s, k); }
     };
   }
 
   /** The old price table, with no prices for series added by the append. */
   private static PriceTable extended(PriceTable prices, int oldSeriesCount) {
     return new PriceTable() {
-      @Override public boolean isEmpty() { return prices.isEmpty(); }
-      @Override public int changeCount(int s) { return s < oldSeriesCount ? prices.changeCount(s) : 0; }
-      @Override public int changeDayIndex(int s, int k) { return prices.changeDayIndex(s, k); }
-      @Override public float changePrice(int s, int k) { return prices.changePrice(s, k); }
+      @Override
+      public boolean isEmpty() { return prices.isEmpty(); }
+      @Override
+      public int changeCount(int s) { return s < oldSeriesCount ? prices.changeCount(s) : 0; }
+      @Override
+      public int changeDayIndex(int s, int k) { return prices.changeDayIndex(s, k); }
+      @Override
+      public float changePrice(int s, int k) { return prices.changePrice(s, k); }
     };
   }
 }

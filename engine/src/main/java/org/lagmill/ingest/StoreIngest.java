@@ -105,7 +105,7 @@ public final class StoreIngest {
       int periodDays = given != null ? given : reader.periodDays();
       periodNote[0] = "period " + Periods.describe(periodDays) + ": " + (given != null ? "given with " + Setting.PERIOD
           : reader.dayCount() > 1 ? "detected from the step between the date columns" : "daily, the default for a "
-          + "single date column");
+              + "single date column");
       StoreWriter writer = new StoreWriter(dir, reader.firstDate(), periodDays, reader.dayCount(),
           reader.attributeNames(), budget);
       try {
@@ -133,7 +133,8 @@ public final class StoreIngest {
     try {
       LongSalesRead read = LongSalesReader.read(options.salesFile(), columns.dateColumn(), columns.unitsColumn(),
           columns.seriesIdColumn(), options.missingRows(), options.periodDays() == null ? null
-          : LongSalesReader.Frame.ofPeriod(options.periodDays()), budget, sink);
+              : LongSalesReader.Frame.ofPeriod(options.periodDays()),
+          budget, sink);
       readOut[0] = read;
       return sink.writer();
     } catch (UncheckedIOException e) {

@@ -11,46 +11,21 @@ import java.util.regex.Pattern;
  * reads {@code ‹origins›}.
  */
 public enum Setting {
-  ORIGINS("origins"),
-  STEP("step"),
-  HORIZON("horizon"),
-  MISSING_ROWS("missing-rows"),
-  SALES_FORMAT("sales-format"),
-  SERIES_ID_COLUMN("series-id-column"),
-  DATE_COLUMN("date-column"),
-  UNITS_COLUMN("units-column"),
-  PRICES_FROM_COLUMN("prices-from-column"),
-  PRICES_PRICE_COLUMN("prices-price-column"),
-  CALENDAR_DATE_COLUMN("calendar-date-column"),
-  CLOSURES_FROM_COLUMN("closures-from-column"),
-  CLOSURES_UNTIL_COLUMN("closures-until-column"),
-  PLAN_DATE_COLUMN("plan-date-column"),
-  PLAN_FROM_COLUMN("plan-from-column"),
-  SALES("sales"),
-  CALENDAR("calendar"),
-  PRICES("prices"),
-  CLOSURES("closures"),
-  PLAN("plan"),
-  SHOWN_SERIES("show"),
-  CHOSEN_SERIES("series"),
-  SERIES_CONDITION("where"),
-  HIERARCHY("hierarchy"),
-  LEVELS("level"),
-  SHARD_ATTRIBUTE("by"),
-  NO_WAIT("no-wait"),
-  MEMORY_LIMIT("memory-limit"),
-  PERIOD("period"),
-  DATE_WINDOW("date-window"),
-  MODEL("model"),
-  PARTITION_BY("partition-by"),
-  MACHINES("machines"),
-  RANK("rank"),
-  RANK_TIMEOUT("rank-timeout"),
-  SCENARIO_SERIES("series"),
-  SCENARIO_DAYS("days"),
-  SCENARIO_FUTURE_DAYS("future-days"),
-  SCENARIO_START("start"),
-  SCENARIO_PERIOD("period");
+  ORIGINS("origins"), STEP("step"), HORIZON("horizon"), MISSING_ROWS("missing-rows"), SALES_FORMAT(
+      "sales-format"), SERIES_ID_COLUMN("series-id-column"), DATE_COLUMN("date-column"), UNITS_COLUMN(
+          "units-column"), PRICES_FROM_COLUMN("prices-from-column"), PRICES_PRICE_COLUMN(
+              "prices-price-column"), CALENDAR_DATE_COLUMN("calendar-date-column"), CLOSURES_FROM_COLUMN(
+                  "closures-from-column"), CLOSURES_UNTIL_COLUMN("closures-until-column"), PLAN_DATE_COLUMN(
+                      "plan-date-column"), PLAN_FROM_COLUMN("plan-from-column"), SALES("sales"), CALENDAR(
+                          "calendar"), PRICES("prices"), CLOSURES("closures"), PLAN(
+                              "plan"), SHOWN_SERIES("show"), CHOSEN_SERIES("series"), SERIES_CONDITION(
+                                  "where"), HIERARCHY("hierarchy"), LEVELS("level"), SHARD_ATTRIBUTE(
+                                      "by"), NO_WAIT("no-wait"), MEMORY_LIMIT("memory-limit"), PERIOD(
+                                          "period"), DATE_WINDOW("date-window"), MODEL("model"), PARTITION_BY(
+                                              "partition-by"), MACHINES("machines"), RANK("rank"), RANK_TIMEOUT(
+                                                  "rank-timeout"), SCENARIO_SERIES("series"), SCENARIO_DAYS(
+                                                      "days"), SCENARIO_FUTURE_DAYS("future-days"), SCENARIO_START(
+                                                          "start"), SCENARIO_PERIOD("period");
 
   private static final Pattern MENTION = Pattern.compile("\u2039([a-z-]+)\u203a");
 

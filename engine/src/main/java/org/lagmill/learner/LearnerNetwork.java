@@ -12,8 +12,7 @@ import com.microsoft.ml.lightgbm.lightgbmlib;
  * idempotent. Not thread-safe.
  */
 public final class LearnerNetwork implements AutoCloseable {
-  private static final java.util.concurrent.atomic.AtomicBoolean ANY_OPEN =
-      new java.util.concurrent.atomic.AtomicBoolean();
+  private static final java.util.concurrent.atomic.AtomicBoolean ANY_OPEN = new java.util.concurrent.atomic.AtomicBoolean();
   private boolean closed;
 
   private LearnerNetwork() {}

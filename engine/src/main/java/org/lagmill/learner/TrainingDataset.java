@@ -54,9 +54,7 @@ public final class TrainingDataset implements AutoCloseable {
     return validation;
   }
 
-  public boolean isClosed() {
-    return handle == null;
-  }
+  public boolean isClosed() { return handle == null; }
 
   SWIGTYPE_p_void handle() {
     if (handle == null) {

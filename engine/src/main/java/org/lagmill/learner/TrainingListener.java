@@ -3,7 +3,7 @@ package org.lagmill.learner;
 /** Hears about each boosting iteration, e.g. so the command line can print progress. Called on the training thread. */
 @FunctionalInterface
 public interface TrainingListener {
-  TrainingListener NONE = (iteration, trainSeconds, validationLoss) -> { };
+  TrainingListener NONE = (iteration, trainSeconds, validationLoss) -> {};
 
   /**
    * @param iteration 1-based number of the iteration just finished

@@ -20,9 +20,13 @@ public interface ProgressListener {
   void endStage();
 
   ProgressListener SILENT = new ProgressListener() {
-    @Override public void startStage(String stageName, String unitName, long totalUnits) {}
-    @Override public void advance(long doneUnits) {}
-    @Override public void note(String text) {}
-    @Override public void endStage() {}
+    @Override
+    public void startStage(String stageName, String unitName, long totalUnits) {}
+    @Override
+    public void advance(long doneUnits) {}
+    @Override
+    public void note(String text) {}
+    @Override
+    public void endStage() {}
   };
 }

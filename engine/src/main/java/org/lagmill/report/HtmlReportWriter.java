@@ -53,7 +53,8 @@ public final class HtmlReportWriter {
   }
 
   private static String header(ReportData report) {
-    StringBuilder b = new StringBuilder("<header class=\"report-header\"><p class=\"kicker\">lagmill forecast report</p>");
+    StringBuilder b = new StringBuilder(
+        "<header class=\"report-header\"><p class=\"kicker\">lagmill forecast report</p>");
     b.append("<h1>").append(ReportFormat.escape(report.title())).append("</h1>");
     RunInfo run = report.run();
     if (run != null) {
@@ -74,7 +75,8 @@ public final class HtmlReportWriter {
   private static String contents() {
     String[][] entries = {{"headline", "How good is the forecast"}, {"failures", "Where it fails"},
         {"series", "Actual and forecast"}, {"drivers", "Why this forecast"}, {"accuracy", "Accuracy against every "
-        + "baseline"}, {"horizon", "Error by horizon"}, {"training", "Model details"}, {"summary", "Data and storage"},
+            + "baseline"},
+        {"horizon", "Error by horizon"}, {"training", "Model details"}, {"summary", "Data and storage"},
         {"memory", "Memory and time"}, {"caution", "Caution"}};
     StringBuilder b = new StringBuilder("<nav class=\"contents\"><ol>");
     for (String[] e : entries) {

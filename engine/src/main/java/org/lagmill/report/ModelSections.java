@@ -253,7 +253,8 @@ final class ModelSections {
     ChartFrame frame = new ChartFrame(ChartFrame.WIDE.widthPx(), ChartFrame.WIDE.heightPx() + 16,
         ChartFrame.WIDE.leftPx(), ChartFrame.WIDE.rightPx(), ChartFrame.WIDE.topPx() + 16, ChartFrame.WIDE.bottomPx());
     LineChart chart = SvgCharts.lineChart(frame, dayCount)
-        .title(h.metricName() + " by horizon " + periodUnit + ", model and baselines").xLabels(i -> Integer.toString(i + 1))
+        .title(h.metricName() + " by horizon " + periodUnit + ", model and baselines")
+        .xLabels(i -> Integer.toString(i + 1))
         .yTitle(h.metricName()).includeZero(true);
     if (dayCount >= 14) {
       chart.xTicks(7, 6);
@@ -265,8 +266,8 @@ final class ModelSections {
     chart.line("model", h.model(), SvgCharts.MODEL_COLOUR, null, true);
     return Html.section("horizon", "Error by horizon " + periodUnit, Html.figure(null, chart.render())
         + Html.note(h.metricName() + " of each forecast " + periodUnit + " after the origin (" + periodUnit + " 1 is "
-        + "the " + periodUnit + " after the last known "
-        + periodUnit + "), over all backtest origins; lower is better. Error usually grows with the horizon."));
+            + "the " + periodUnit + " after the last known "
+            + periodUnit + "), over all backtest origins; lower is better. Error usually grows with the horizon."));
   }
 
   /** Mean, sample standard deviation, lowest and highest of the finite values of a column. */

@@ -41,7 +41,7 @@ final class PlannerSections {
         + "ran high. Scaled errors have no unit (1 is as bad as a one-" + periodUnit + "-ago guess was inside "
         + "the history; lower is better) so levels and baselines compare directly; MAE and bias are in units sold per "
         + periodUnit + " and per aggregate of the level. " + (a.origins().size() > 1 ? "Means over "
-        + a.origins().size() + " backtest origins." : "One origin.")));
+            + a.origins().size() + " backtest origins." : "One origin.")));
     b.append(levelsNote(a));
     b.append(fillNote(data, periodUnit));
     return Html.section("headline", heading, b.toString());
@@ -90,14 +90,15 @@ final class PlannerSections {
       text.append(String.format(Locale.ROOT, "The model's scaled error (WRMSSE) is %s against %s for the best simple "
           + "method (%s): %s.", ReportFormat.score(a.modelWrmsse()), ReportFormat.score(baseline), best,
           Math.abs(change) < 0.05 ? "the same" : String.format(Locale.ROOT, "%.1f%% %s", Math.abs(change),
-          change < 0 ? "lower, so the model adds accuracy" : "higher, so the model does not beat it")));
+              change < 0 ? "lower, so the model adds accuracy" : "higher, so the model does not beat it")));
     }
     List<AccuracySummary.LevelScore> levels = a.levels();
     if (!levels.isEmpty() && levels.get(0).modelMae() != null) {
       AccuracySummary.LevelScore top = levels.get(0);
       text.append(String.format(Locale.ROOT, " In units: at the %s level the forecast misses by %s units per %s on "
-          + "average and runs %s.", top.levelName(), units(top.modelMae()), periodUnit, direction(top.modelBias(),
-          periodUnit)));
+          + "average and runs %s.", top.levelName(), units(top.modelMae()), periodUnit,
+          direction(top.modelBias(),
+              periodUnit)));
       AccuracySummary.LevelScore bottom = levels.get(levels.size() - 1);
       if (levels.size() > 1 && bottom.modelMae() != null) {
         text.append(String.format(Locale.ROOT, " At the %s level (%s series) the miss is %s units per %s and series,"

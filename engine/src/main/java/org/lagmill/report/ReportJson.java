@@ -69,7 +69,8 @@ public final class ReportJson {
     } catch (JsonProcessingException e) {
       throw new CorruptStoreException(file, "not a readable lagmill report: " + e.getOriginalMessage()
           + (e.getLocation() == null ? "" : " (line " + e.getLocation().getLineNr() + ", column "
-          + e.getLocation().getColumnNr() + ")"), e);
+              + e.getLocation().getColumnNr() + ")"),
+          e);
     }
     if (parsed == null || parsed.formatVersion() != FORMAT_VERSION_CURRENT) {
       throw new CorruptStoreException(file, "report format version: expected " + FORMAT_VERSION_CURRENT

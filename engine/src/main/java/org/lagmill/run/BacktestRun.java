@@ -42,7 +42,8 @@ public final class BacktestRun {
     this.hierarchy = hierarchy;
   }
 
-  public static BacktestRun run(SalesHistory history, TrainingPlan plan, int originCount, int stepDays, Hierarchy hierarchy,
+  public static BacktestRun run(SalesHistory history, TrainingPlan plan, int originCount, int stepDays,
+      Hierarchy hierarchy,
       MemoryBudget budget, ProgressListener progress) {
     BacktestSettings settings = new BacktestSettings(originCount, stepDays, plan.spec().horizonDays(),
         DEFAULT_BASELINES, hierarchy, ForecastTable.publishedQuantiles());
@@ -62,7 +63,8 @@ public final class BacktestRun {
    * Backtests several members on the same origins and their average; the report and summary follow the one with the
    * lowest mean WRMSSE ({@link CombinedBacktestResult#chosenName()}).
    */
-  public static BacktestRun runMembers(SalesHistory history, List<String> names, List<TrainingPlan> plans, int originCount,
+  public static BacktestRun runMembers(SalesHistory history, List<String> names, List<TrainingPlan> plans,
+      int originCount,
       int stepDays, Hierarchy hierarchy, MemoryBudget budget, ProgressListener progress, CombinedBacktestResult[] out) {
     BacktestSettings settings = new BacktestSettings(originCount, stepDays, plans.get(0).spec().horizonDays(),
         DEFAULT_BASELINES, hierarchy, ForecastTable.publishedQuantiles());
@@ -99,7 +101,7 @@ public final class BacktestRun {
       report.training(ReportAssembler.training(lastPartitions()));
     }
     SeriesChartBuilder.build(history, hierarchy.bind(history), lastOriginDayIndex, lastOriginForecasts,
-        lastOriginDispersion, SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, shownSeries).forEach(chart ->
-        report.series(chart));
+        lastOriginDispersion, SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, shownSeries)
+        .forEach(chart -> report.series(chart));
   }
 }

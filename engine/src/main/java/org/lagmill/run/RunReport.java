@@ -51,7 +51,8 @@ public final class RunReport {
   public static void checkTarget(Path dir) throws IOException {
     OutputTargets.checkFolder(dir.toAbsolutePath().normalize(), "report folder",
         d -> Files.isRegularFile(d.resolve(JSON_FILE)) || Files.isRegularFile(d.resolve(HTML_FILE))
-            || Files.isRegularFile(d.resolve(BACKTEST_FILE)), Set.of());
+            || Files.isRegularFile(d.resolve(BACKTEST_FILE)),
+        Set.of());
   }
 
   /** Writes both files into {@code dir} and returns the HTML path. */

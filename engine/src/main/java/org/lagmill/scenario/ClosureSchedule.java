@@ -58,7 +58,7 @@ final class ClosureSchedule {
       for (int outlet = 0; outlet < reasonCode.length; outlet++) {
         boolean closes = ChainLayout.formatIndex(outlet) != ChainLayout.KIOSK
             && (closing == HolidayCalendar.Closing.BOTH_BANNERS
-            || closing == HolidayCalendar.Closing.FIRST_BANNER && ChainLayout.bannerIndex(outlet) == 0);
+                || closing == HolidayCalendar.Closing.FIRST_BANNER && ChainLayout.bannerIndex(outlet) == 0);
         if (closes && reasonCode[outlet][day] == OPEN) {
           reasonCode[outlet][day] = (byte) (CODE_FIRST_HOLIDAY + holiday);
         }

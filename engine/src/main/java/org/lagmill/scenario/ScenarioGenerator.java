@@ -65,7 +65,8 @@ public final class ScenarioGenerator {
       try (AsciiWriter out = open(closuresTemp, spec.gzip())) {
         closures.write(out, calendar, weekly);
       }
-      try (AsciiWriter salesOut = open(salesTemp, spec.gzip()); AsciiWriter pricesOut = open(pricesTemp, spec.gzip());
+      try (AsciiWriter salesOut = open(salesTemp, spec.gzip());
+          AsciiWriter pricesOut = open(pricesTemp, spec.gzip());
           AsciiWriter planOut = open(planTemp, spec.gzip())) {
         writeSeries(spec, layout, calendar, closures, salesOut, pricesOut, planOut);
       }

@@ -11,9 +11,12 @@ public final class ArrayClosureTable implements ClosureTable {
     this.lastDays = lastDays;
   }
 
-  @Override public int rangeCount(int seriesIndex) { return firstDays[seriesIndex].length; }
-  @Override public int firstDayIndex(int seriesIndex, int rangeIndex) { return firstDays[seriesIndex][rangeIndex]; }
-  @Override public int lastDayIndex(int seriesIndex, int rangeIndex) { return lastDays[seriesIndex][rangeIndex]; }
+  @Override
+  public int rangeCount(int seriesIndex) { return firstDays[seriesIndex].length; }
+  @Override
+  public int firstDayIndex(int seriesIndex, int rangeIndex) { return firstDays[seriesIndex][rangeIndex]; }
+  @Override
+  public int lastDayIndex(int seriesIndex, int rangeIndex) { return lastDays[seriesIndex][rangeIndex]; }
 
   @Override
   public boolean isEmpty() {

@@ -15,18 +15,24 @@ public final class ArrayDayCalendar implements DayCalendar {
     this.columns = List.copyOf(columns);
   }
 
-  @Override public int dayCount() { return dayCount; }
-  @Override public int columnCount() { return columns.size(); }
-  @Override public String columnName(int c) { return columns.get(c).name(); }
-  @Override public ColumnKind kind(int c) { return columns.get(c).kind(); }
+  @Override
+  public int dayCount() { return dayCount; }
+  @Override
+  public int columnCount() { return columns.size(); }
+  @Override
+  public String columnName(int c) { return columns.get(c).name(); }
+  @Override
+  public ColumnKind kind(int c) { return columns.get(c).kind(); }
 
   @Override
   public int cardinality(int c) {
     return columns.get(c).kind() == ColumnKind.CATEGORICAL ? columns.get(c).categories().size() : 0;
   }
 
-  @Override public String categoryValue(int c, int code) { return columns.get(c).categories().get(code); }
-  @Override public String keyAttribute(int c) { return columns.get(c).keyAttribute(); }
+  @Override
+  public String categoryValue(int c, int code) { return columns.get(c).categories().get(code); }
+  @Override
+  public String keyAttribute(int c) { return columns.get(c).keyAttribute(); }
 
   @Override
   public float value(int c, int keyCode, int dayIndex) {

@@ -42,12 +42,18 @@ public final class ArrayPlanTable implements PlanTable {
     return changeDaysByKey.length;
   }
 
-  @Override public int columnCount() { return columnNames.size(); }
-  @Override public String columnName(int columnIndex) { return columnNames.get(columnIndex); }
-  @Override public List<String> keyAttributeNames() { return keyAttributeNames; }
-  @Override public int changeCount(int keyIndex) { return changeDaysByKey[keyIndex].length; }
-  @Override public int changeDayIndex(int keyIndex, int changeIndex) { return changeDaysByKey[keyIndex][changeIndex]; }
-  @Override public int reachDayIndex() { return reachDayIndex; }
+  @Override
+  public int columnCount() { return columnNames.size(); }
+  @Override
+  public String columnName(int columnIndex) { return columnNames.get(columnIndex); }
+  @Override
+  public List<String> keyAttributeNames() { return keyAttributeNames; }
+  @Override
+  public int changeCount(int keyIndex) { return changeDaysByKey[keyIndex].length; }
+  @Override
+  public int changeDayIndex(int keyIndex, int changeIndex) { return changeDaysByKey[keyIndex][changeIndex]; }
+  @Override
+  public int reachDayIndex() { return reachDayIndex; }
 
   @Override
   public int keyOf(int seriesIndex) {

@@ -10,8 +10,12 @@ public final class ArrayPriceTable implements PriceTable {
     this.changePrices = changePrices;
   }
 
-  @Override public boolean isEmpty() { return false; }
-  @Override public int changeCount(int seriesIndex) { return changeDays[seriesIndex].length; }
-  @Override public int changeDayIndex(int seriesIndex, int changeIndex) { return changeDays[seriesIndex][changeIndex]; }
-  @Override public float changePrice(int seriesIndex, int changeIndex) { return changePrices[seriesIndex][changeIndex]; }
+  @Override
+  public boolean isEmpty() { return false; }
+  @Override
+  public int changeCount(int seriesIndex) { return changeDays[seriesIndex].length; }
+  @Override
+  public int changeDayIndex(int seriesIndex, int changeIndex) { return changeDays[seriesIndex][changeIndex]; }
+  @Override
+  public float changePrice(int seriesIndex, int changeIndex) { return changePrices[seriesIndex][changeIndex]; }
 }

@@ -86,11 +86,16 @@ public final class ArraySalesHistory implements SalesHistory {
     unitsBySeries[seriesIndex][dayIndex] = units;
   }
 
-  @Override public int seriesCount() { return unitsBySeries.length; }
-  @Override public int dayCount() { return dayCount; }
-  @Override public LocalDate firstDate() { return firstDate; }
-  @Override public int periodDays() { return periodDays; }
-  @Override public int units(int seriesIndex, int dayIndex) { return unitsBySeries[seriesIndex][dayIndex]; }
+  @Override
+  public int seriesCount() { return unitsBySeries.length; }
+  @Override
+  public int dayCount() { return dayCount; }
+  @Override
+  public LocalDate firstDate() { return firstDate; }
+  @Override
+  public int periodDays() { return periodDays; }
+  @Override
+  public int units(int seriesIndex, int dayIndex) { return unitsBySeries[seriesIndex][dayIndex]; }
 
   @Override
   public void readUnits(int seriesIndex, int fromDayIndex, int[] dst, int dstOffset, int count) {
@@ -117,7 +122,10 @@ public final class ArraySalesHistory implements SalesHistory {
     return max;
   }
 
-  @Override public SeriesAttributes attributes() { return attributes; }
-  @Override public PriceTable prices() { return prices; }
-  @Override public DayCalendar calendar() { return calendar; }
+  @Override
+  public SeriesAttributes attributes() { return attributes; }
+  @Override
+  public PriceTable prices() { return prices; }
+  @Override
+  public DayCalendar calendar() { return calendar; }
 }

@@ -47,19 +47,27 @@ public final class ArraySeriesAttributes implements SeriesAttributes {
     return new ArraySeriesAttributes(names, valuesBySeries);
   }
 
-  @Override public int attributeCount() { return names.length; }
-  @Override public String attributeName(int attributeIndex) { return names[attributeIndex]; }
-  @Override public List<String> attributeNames() { return List.of(names); }
+  @Override
+  public int attributeCount() { return names.length; }
+  @Override
+  public String attributeName(int attributeIndex) { return names[attributeIndex]; }
+  @Override
+  public List<String> attributeNames() { return List.of(names); }
 
-  @Override public int cardinality(int attributeIndex) { return valuesByAttribute.get(attributeIndex).size(); }
-  @Override public int code(int seriesIndex, int attributeIndex) { return codesBySeries[seriesIndex][attributeIndex]; }
-  @Override public String value(int attributeIndex, int code) { return valuesByAttribute.get(attributeIndex).get(code); }
+  @Override
+  public int cardinality(int attributeIndex) { return valuesByAttribute.get(attributeIndex).size(); }
+  @Override
+  public int code(int seriesIndex, int attributeIndex) { return codesBySeries[seriesIndex][attributeIndex]; }
+  @Override
+  public String value(int attributeIndex, int code) { return valuesByAttribute.get(attributeIndex).get(code); }
 
   @Override
   public int codeOf(int attributeIndex, String value) {
     return codeByValue.get(attributeIndex).getOrDefault(value, -1);
   }
 
-  @Override public String seriesId(int seriesIndex) { return seriesIds[seriesIndex]; }
-  @Override public int seriesIndexOf(String seriesId) { return seriesIndexById.getOrDefault(seriesId, -1); }
+  @Override
+  public String seriesId(int seriesIndex) { return seriesIds[seriesIndex]; }
+  @Override
+  public int seriesIndexOf(String seriesId) { return seriesIndexById.getOrDefault(seriesId, -1); }
 }

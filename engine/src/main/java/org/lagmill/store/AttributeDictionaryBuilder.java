@@ -99,7 +99,7 @@ final class AttributeDictionaryBuilder implements SeriesAttributes {
             + source.attributeName(a) + "\"");
       }
       if (a == seriesIdAttribute) {
-        continue;  // one value per series, never a feature: each shard keeps only its own ids
+        continue; // one value per series, never a feature: each shard keeps only its own ids
       }
       for (int code = 0; code < source.cardinality(a); code++) {
         String value = source.value(a, code);
@@ -137,14 +137,23 @@ final class AttributeDictionaryBuilder implements SeriesAttributes {
     }
   }
 
-  @Override public int attributeCount() { return names.length; }
-  @Override public String attributeName(int attributeIndex) { return names[attributeIndex]; }
-  @Override public List<String> attributeNames() { return List.of(names); }
+  @Override
+  public int attributeCount() { return names.length; }
+  @Override
+  public String attributeName(int attributeIndex) { return names[attributeIndex]; }
+  @Override
+  public List<String> attributeNames() { return List.of(names); }
 
-  @Override public int cardinality(int attributeIndex) { return values[attributeIndex].size(); }
-  @Override public int code(int seriesIndex, int attributeIndex) { return codes[attributeIndex].getInt(seriesIndex); }
-  @Override public String value(int attributeIndex, int code) { return values[attributeIndex].get(code); }
-  @Override public int codeOf(int attributeIndex, String value) { return codeByValue[attributeIndex].getInt(value); }
-  @Override public String seriesId(int seriesIndex) { return seriesIds.get(seriesIndex); }
-  @Override public int seriesIndexOf(String seriesId) { return seriesIndexById.getInt(seriesId); }
+  @Override
+  public int cardinality(int attributeIndex) { return values[attributeIndex].size(); }
+  @Override
+  public int code(int seriesIndex, int attributeIndex) { return codes[attributeIndex].getInt(seriesIndex); }
+  @Override
+  public String value(int attributeIndex, int code) { return values[attributeIndex].get(code); }
+  @Override
+  public int codeOf(int attributeIndex, String value) { return codeByValue[attributeIndex].getInt(value); }
+  @Override
+  public String seriesId(int seriesIndex) { return seriesIds.get(seriesIndex); }
+  @Override
+  public int seriesIndexOf(String seriesId) { return seriesIndexById.getInt(seriesId); }
 }

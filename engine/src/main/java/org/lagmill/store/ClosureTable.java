@@ -12,10 +12,14 @@ package org.lagmill.store;
 public interface ClosureTable {
   /** No closures. */
   ClosureTable EMPTY = new ClosureTable() {
-    @Override public int rangeCount(int seriesIndex) { return 0; }
-    @Override public int firstDayIndex(int seriesIndex, int rangeIndex) { throw new IndexOutOfBoundsException(); }
-    @Override public int lastDayIndex(int seriesIndex, int rangeIndex) { throw new IndexOutOfBoundsException(); }
-    @Override public boolean isEmpty() { return true; }
+    @Override
+    public int rangeCount(int seriesIndex) { return 0; }
+    @Override
+    public int firstDayIndex(int seriesIndex, int rangeIndex) { throw new IndexOutOfBoundsException(); }
+    @Override
+    public int lastDayIndex(int seriesIndex, int rangeIndex) { throw new IndexOutOfBoundsException(); }
+    @Override
+    public boolean isEmpty() { return true; }
   };
 
   /** Number of closed ranges of a series. */

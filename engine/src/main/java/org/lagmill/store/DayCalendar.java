@@ -9,7 +9,9 @@ package org.lagmill.store;
  * categorical columns hold a code {@code 0 .. cardinality-1}. Missing cells read NaN.
  */
 public interface DayCalendar {
-  enum ColumnKind { NUMERIC, CATEGORICAL }
+  enum ColumnKind {
+    NUMERIC, CATEGORICAL
+  }
 
   /** Number of days covered from day index 0; 0 when no calendar was ingested. */
   int dayCount();
@@ -37,13 +39,21 @@ public interface DayCalendar {
   float value(int columnIndex, int keyCode, int dayIndex);
 
   DayCalendar EMPTY = new DayCalendar() {
-    @Override public int dayCount() { return 0; }
-    @Override public int columnCount() { return 0; }
-    @Override public String columnName(int c) { throw new IndexOutOfBoundsException(); }
-    @Override public ColumnKind kind(int c) { throw new IndexOutOfBoundsException(); }
-    @Override public int cardinality(int c) { throw new IndexOutOfBoundsException(); }
-    @Override public String categoryValue(int c, int code) { throw new IndexOutOfBoundsException(); }
-    @Override public String keyAttribute(int c) { throw new IndexOutOfBoundsException(); }
-    @Override public float value(int c, int keyCode, int dayIndex) { return Float.NaN; }
+    @Override
+    public int dayCount() { return 0; }
+    @Override
+    public int columnCount() { return 0; }
+    @Override
+    public String columnName(int c) { throw new IndexOutOfBoundsException(); }
+    @Override
+    public ColumnKind kind(int c) { throw new IndexOutOfBoundsException(); }
+    @Override
+    public int cardinality(int c) { throw new IndexOutOfBoundsException(); }
+    @Override
+    public String categoryValue(int c, int code) { throw new IndexOutOfBoundsException(); }
+    @Override
+    public String keyAttribute(int c) { throw new IndexOutOfBoundsException(); }
+    @Override
+    public float value(int c, int keyCode, int dayIndex) { return Float.NaN; }
   };
 }

@@ -41,9 +41,7 @@ final class MappedFileReads {
     return count;
   }
 
-  String getString() {
-    return getStringOfLength(getCount("string length", Integer.MAX_VALUE));
-  }
+  String getString() { return getStringOfLength(getCount("string length", Integer.MAX_VALUE)); }
 
   String getStringOfLength(int byteLength) {
     check(byteLength);

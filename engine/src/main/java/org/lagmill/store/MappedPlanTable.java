@@ -59,11 +59,16 @@ final class MappedPlanTable extends MappedStoreFile implements PlanTable {
     return buffer.getInt(keyStartsOffset + keyIndex * Integer.BYTES, ByteOrder.LITTLE_ENDIAN);
   }
 
-  @Override public int columnCount() { return columnCount; }
-  @Override public String columnName(int columnIndex) { return columnNames.get(columnIndex); }
-  @Override public List<String> keyAttributeNames() { return keyAttributeNames; }
-  @Override public int keyCount() { return keyCount; }
-  @Override public int reachDayIndex() { return reachDayIndex; }
+  @Override
+  public int columnCount() { return columnCount; }
+  @Override
+  public String columnName(int columnIndex) { return columnNames.get(columnIndex); }
+  @Override
+  public List<String> keyAttributeNames() { return keyAttributeNames; }
+  @Override
+  public int keyCount() { return keyCount; }
+  @Override
+  public int reachDayIndex() { return reachDayIndex; }
 
   @Override
   public int keyOf(int seriesIndex) {

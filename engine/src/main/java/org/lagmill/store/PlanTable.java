@@ -55,22 +55,29 @@ public interface PlanTable {
    */
   static PlanTable withSeriesKeys(PlanTable plan, java.util.function.IntUnaryOperator keyOfSeries) {
     return new PlanTable() {
-      @Override public int columnCount() { return plan.columnCount(); }
-      @Override public String columnName(int c) { return plan.columnName(c); }
-      @Override public List<String> keyAttributeNames() { return plan.keyAttributeNames(); }
-      @Override public int keyOf(int s) { return keyOfSeries.applyAsInt(s); }
-      @Override public int keyCount() { return plan.keyCount(); }
-      @Override public int changeCount(int k) { return plan.changeCount(k); }
-      @Override public int changeDayIndex(int k, int i) { return plan.changeDayIndex(k, i); }
-      @Override public float changeValue(int k, int i, int c) { return plan.changeValue(k, i, c); }
-      @Override public int reachDayIndex() { return plan.reachDayIndex(); }
+      @Override
+      public int columnCount() { return plan.columnCount(); }
+      @Override
+      public String columnName(int c) { return plan.columnName(c); }
+      @Override
+      public List<String> keyAttributeNames() { return plan.keyAttributeNames(); }
+      @Override
+      public int keyOf(int s) { return keyOfSeries.applyAsInt(s); }
+      @Override
+      public int keyCount() { return plan.keyCount(); }
+      @Override
+      public int changeCount(int k) { return plan.changeCount(k); }
+      @Override
+      public int changeDayIndex(int k, int i) { return plan.changeDayIndex(k, i); }
+      @Override
+      public float changeValue(int k, int i, int c) { return plan.changeValue(k, i, c); }
+      @Override
+      public int reachDayIndex() { return plan.reachDayIndex(); }
     };
   }
 
   /** True when the store holds no plan. */
-  default boolean isEmpty() {
-    return columnCount() == 0;
-  }
+  default boolean isEmpty() { return columnCount() == 0; }
 
   /** The value column names in column order. */
   default List<String> columnNames() {

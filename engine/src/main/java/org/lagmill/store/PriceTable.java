@@ -49,9 +49,13 @@ public interface PriceTable {
   }
 
   PriceTable EMPTY = new PriceTable() {
-    @Override public boolean isEmpty() { return true; }
-    @Override public int changeCount(int seriesIndex) { return 0; }
-    @Override public int changeDayIndex(int seriesIndex, int changeIndex) { throw new IndexOutOfBoundsException(); }
-    @Override public float changePrice(int seriesIndex, int changeIndex) { throw new IndexOutOfBoundsException(); }
+    @Override
+    public boolean isEmpty() { return true; }
+    @Override
+    public int changeCount(int seriesIndex) { return 0; }
+    @Override
+    public int changeDayIndex(int seriesIndex, int changeIndex) { throw new IndexOutOfBoundsException(); }
+    @Override
+    public float changePrice(int seriesIndex, int changeIndex) { throw new IndexOutOfBoundsException(); }
   };
 }

@@ -48,8 +48,8 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
   private AttributeNesting nesting;
   private volatile boolean closed;
 
-  private SalesStore(Path dir, StoreManifest manifest, MemoryBudget budget, long maxWindowBytes, List<AutoCloseable>
-      opened) throws IOException {
+  private SalesStore(Path dir, StoreManifest manifest, MemoryBudget budget, long maxWindowBytes,
+      List<AutoCloseable> opened) throws IOException {
     this.dir = dir;
     this.manifest = manifest;
     this.seriesCount = manifest.seriesCount();
@@ -129,7 +129,7 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
       StoreDirectories.recoverSiblings(storeDir);
     }
     tidyUp(storeDir);
-    for (int attempt = 1; ; attempt++) {
+    for (int attempt = 1;; attempt++) {
       Path dir = StoreGenerations.readableDir(storeDir);
       try {
         return openGeneration(dir, budget, maxWindowBytes);
@@ -369,9 +369,12 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
     UnsafeBuffer buffer = seriesBuffer[seriesIndex];
     int offset = seriesColumnOffset[seriesIndex];
     switch (seriesWidthOrdinal[seriesIndex]) {
-      case 0: return ByteUnitsReader.get(buffer, offset, dayIndex);
-      case 1: return ShortUnitsReader.get(buffer, offset, dayIndex);
-      default: return IntUnitsReader.get(buffer, offset, dayIndex);
+      case 0 :
+        return ByteUnitsReader.get(buffer, offset, dayIndex);
+      case 1 :
+        return ShortUnitsReader.get(buffer, offset, dayIndex);
+      default :
+        return IntUnitsReader.get(buffer, offset, dayIndex);
     }
   }
 

@@ -91,9 +91,11 @@ final class StoreFileFormat {
     }
     int version = header.getInt(8);
     if (version < FILE_VERSION_OLDEST || version > FILE_VERSION_CURRENT) {
-      throw new CorruptStoreException(file, "unsupported format version: expected " + (FILE_VERSION_OLDEST
-          == FILE_VERSION_CURRENT ? String.valueOf(FILE_VERSION_CURRENT) : FILE_VERSION_OLDEST + " to "
-          + FILE_VERSION_CURRENT) + ", actual " + version);
+      throw new CorruptStoreException(file,
+          "unsupported format version: expected " + (FILE_VERSION_OLDEST == FILE_VERSION_CURRENT
+              ? String.valueOf(FILE_VERSION_CURRENT) : FILE_VERSION_OLDEST + " to "
+                  + FILE_VERSION_CURRENT)
+              + ", actual " + version);
     }
   }
 

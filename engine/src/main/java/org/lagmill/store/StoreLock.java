@@ -114,7 +114,7 @@ public final class StoreLock implements AutoCloseable {
    */
   public static StoreLock tryAcquire(Path storeDir) {
     try {
-      return acquire(storeDir, false, text -> { });
+      return acquire(storeDir, false, text -> {});
     } catch (StoreBusyException e) {
       return null;
     } catch (IOException e) {

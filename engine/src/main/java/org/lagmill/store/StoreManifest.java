@@ -208,7 +208,8 @@ public record StoreManifest(int formatVersion, String firstDate, int dayCount,
       throw new CorruptStoreException(file, "unsupported format version: expected " + FORMAT_VERSION_OLDEST
           + " to " + FORMAT_VERSION_CURRENT + ", actual " + manifest.formatVersion());
     }
-    if (manifest.periodDays() != null && (manifest.periodDays() < 1 || manifest.periodDays() > Periods.MAX_PERIOD_DAYS)) {
+    if (manifest.periodDays() != null
+        && (manifest.periodDays() < 1 || manifest.periodDays() > Periods.MAX_PERIOD_DAYS)) {
       throw new CorruptStoreException(file, "periodDays " + manifest.periodDays() + ": expected 1 to "
           + Periods.MAX_PERIOD_DAYS);
     }

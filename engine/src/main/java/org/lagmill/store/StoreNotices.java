@@ -9,7 +9,7 @@ import java.util.function.Consumer;
  * process, because recovery can happen inside any {@link SalesStore#open}, far from the caller's console.
  */
 public final class StoreNotices {
-  private static volatile Consumer<String> sink = text -> { };
+  private static volatile Consumer<String> sink = text -> {};
 
   private StoreNotices() {}
 

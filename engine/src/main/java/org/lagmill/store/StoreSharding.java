@@ -122,34 +122,51 @@ public final class StoreSharding {
 
   private static PriceTable selectedPrices(PriceTable prices, int[] sourceIndexes) {
     return new PriceTable() {
-      @Override public boolean isEmpty() { return prices.isEmpty(); }
-      @Override public int changeCount(int s) { return prices.changeCount(sourceIndexes[s]); }
-      @Override public int changeDayIndex(int s, int k) { return prices.changeDayIndex(sourceIndexes[s], k); }
-      @Override public float changePrice(int s, int k) { return prices.changePrice(sourceIndexes[s], k); }
+      @Override
+      public boolean isEmpty() { return prices.isEmpty(); }
+      @Override
+      public int changeCount(int s) { return prices.changeCount(sourceIndexes[s]); }
+      @Override
+      public int changeDayIndex(int s, int k) { return prices.changeDayIndex(sourceIndexes[s], k); }
+      @Override
+      public float changePrice(int s, int k) { return prices.changePrice(sourceIndexes[s], k); }
     };
   }
 
   private static ClosureTable selectedClosures(ClosureTable closures, int[] sourceIndexes) {
     return new ClosureTable() {
-      @Override public boolean isEmpty() { return closures.isEmpty(); }
-      @Override public int rangeCount(int s) { return closures.rangeCount(sourceIndexes[s]); }
-      @Override public int firstDayIndex(int s, int k) { return closures.firstDayIndex(sourceIndexes[s], k); }
-      @Override public int lastDayIndex(int s, int k) { return closures.lastDayIndex(sourceIndexes[s], k); }
+      @Override
+      public boolean isEmpty() { return closures.isEmpty(); }
+      @Override
+      public int rangeCount(int s) { return closures.rangeCount(sourceIndexes[s]); }
+      @Override
+      public int firstDayIndex(int s, int k) { return closures.firstDayIndex(sourceIndexes[s], k); }
+      @Override
+      public int lastDayIndex(int s, int k) { return closures.lastDayIndex(sourceIndexes[s], k); }
     };
   }
 
   /** The plan with every key kept (keys are few) and each shard series pointing at its source series' key. */
   private static PlanTable selectedPlan(PlanTable plan, int[] sourceIndexes) {
     return new PlanTable() {
-      @Override public int columnCount() { return plan.columnCount(); }
-      @Override public String columnName(int c) { return plan.columnName(c); }
-      @Override public List<String> keyAttributeNames() { return plan.keyAttributeNames(); }
-      @Override public int keyOf(int s) { return plan.keyOf(sourceIndexes[s]); }
-      @Override public int keyCount() { return plan.keyCount(); }
-      @Override public int changeCount(int k) { return plan.changeCount(k); }
-      @Override public int changeDayIndex(int k, int i) { return plan.changeDayIndex(k, i); }
-      @Override public float changeValue(int k, int i, int c) { return plan.changeValue(k, i, c); }
-      @Override public int reachDayIndex() { return plan.reachDayIndex(); }
+      @Override
+      public int columnCount() { return plan.columnCount(); }
+      @Override
+      public String columnName(int c) { return plan.columnName(c); }
+      @Override
+      public List<String> keyAttributeNames() { return plan.keyAttributeNames(); }
+      @Override
+      public int keyOf(int s) { return plan.keyOf(sourceIndexes[s]); }
+      @Override
+      public int keyCount() { return plan.keyCount(); }
+      @Override
+      public int changeCount(int k) { return plan.changeCount(k); }
+      @Override
+      public int changeDayIndex(int k, int i) { return plan.changeDayIndex(k, i); }
+      @Override
+      public float changeValue(int k, int i, int c) { return plan.changeValue(k, i, c); }
+      @Override
+      public int reachDayIndex() { return plan.reachDayIndex(); }
     };
   }
 

@@ -59,7 +59,8 @@ public record StoreSummary(int seriesCount, LocalDate firstDate, LocalDate lastD
     long unitsFileBytes = store.manifest().file(FileKind.UNITS.fileName()).bytes();
     return new StoreSummary(store.seriesCount(), store.firstDate(), store.dateOf(dayCount - 1), dayCount,
         cardinalities, byWidth, store.diskBytes(), store.offHeapBytes(), unitsFileBytes,
-        itemDays == 0 ? 0 : (double) unitsFileBytes / itemDays, itemDays == 0 ? 0 : (double) store.diskBytes() / itemDays,
+        itemDays == 0 ? 0 : (double) unitsFileBytes / itemDays,
+        itemDays == 0 ? 0 : (double) store.diskBytes() / itemDays,
         itemDays * Long.BYTES, store.manifest().sourceBytes(), unknownDays,
         knownDays == 0 ? 0 : (double) zeroDays / knownDays, store.fingerprint(),
         store.manifest().fill(), store.nesting().parents(), store.nesting().chains(), store.periodDays());

@@ -194,7 +194,7 @@ public final class StoreWriter implements AutoCloseable {
 
   // Unknown (-1) narrows to the all-ones sentinel of each width by plain truncation.
   private void writeBytes(int[] values) throws IOException {
-    for (int d = 0; d < dayCount; ) {
+    for (int d = 0; d < dayCount;) {
       ByteBuffer out = units.ensure(1);
       int n = Math.min(out.remaining(), dayCount - d);
       for (int i = 0; i < n; i++) {
@@ -205,7 +205,7 @@ public final class StoreWriter implements AutoCloseable {
   }
 
   private void writeShorts(int[] values) throws IOException {
-    for (int d = 0; d < dayCount; ) {
+    for (int d = 0; d < dayCount;) {
       ByteBuffer out = units.ensure(2);
       int n = Math.min(out.remaining() / 2, dayCount - d);
       for (int i = 0; i < n; i++) {
@@ -216,7 +216,7 @@ public final class StoreWriter implements AutoCloseable {
   }
 
   private void writeInts(int[] values) throws IOException {
-    for (int d = 0; d < dayCount; ) {
+    for (int d = 0; d < dayCount;) {
       ByteBuffer out = units.ensure(4);
       int n = Math.min(out.remaining() / 4, dayCount - d);
       for (int i = 0; i < n; i++) {
@@ -374,8 +374,8 @@ public final class StoreWriter implements AutoCloseable {
   }
 
   private ChecksummedFileWriter writeSeriesTable() throws IOException {
-    ChecksummedFileWriter out =
-        new ChecksummedFileWriter(dir.resolve(FileKind.SERIES.fileName()), FileKind.SERIES, budget);
+    ChecksummedFileWriter out = new ChecksummedFileWriter(dir.resolve(FileKind.SERIES.fileName()), FileKind.SERIES,
+        budget);
     try {
       out.putInt(seriesCount());
       out.putInt(dayCount);

@@ -23,10 +23,14 @@ public final class TruncatedHistory implements SalesHistory {
     this.dayCount = dayCount;
   }
 
-  @Override public int seriesCount() { return source.seriesCount(); }
-  @Override public int dayCount() { return dayCount; }
-  @Override public LocalDate firstDate() { return source.firstDate(); }
-  @Override public int periodDays() { return source.periodDays(); }
+  @Override
+  public int seriesCount() { return source.seriesCount(); }
+  @Override
+  public int dayCount() { return dayCount; }
+  @Override
+  public LocalDate firstDate() { return source.firstDate(); }
+  @Override
+  public int periodDays() { return source.periodDays(); }
 
   @Override
   public int units(int seriesIndex, int dayIndex) {
@@ -64,10 +68,16 @@ public final class TruncatedHistory implements SalesHistory {
     return max;
   }
 
-  @Override public SeriesAttributes attributes() { return source.attributes(); }
-  @Override public PriceTable prices() { return source.prices(); }
-  @Override public DayCalendar calendar() { return source.calendar(); }
-  @Override public AttributeNesting nesting() { return source.nesting(); }
-  @Override public ClosureTable closures() { return source.closures(); }
-  @Override public PlanTable plan() { return source.plan(); }
+  @Override
+  public SeriesAttributes attributes() { return source.attributes(); }
+  @Override
+  public PriceTable prices() { return source.prices(); }
+  @Override
+  public DayCalendar calendar() { return source.calendar(); }
+  @Override
+  public AttributeNesting nesting() { return source.nesting(); }
+  @Override
+  public ClosureTable closures() { return source.closures(); }
+  @Override
+  public PlanTable plan() { return source.plan(); }
 }

@@ -40,8 +40,9 @@ public final class ClusterSpec {
       try {
         port = Integer.parseInt(text.substring(colon + 1));
       } catch (NumberFormatException e) {
-        throw new InvalidRequestException(Setting.MACHINES + " entry '" + text + "' has port '" + text.substring(colon + 1)
-            + "'; expected a number in [1024, 65534]");
+        throw new InvalidRequestException(
+            Setting.MACHINES + " entry '" + text + "' has port '" + text.substring(colon + 1)
+                + "'; expected a number in [1024, 65534]");
       }
       if (port < 1024 || port > 65534) {
         throw new InvalidRequestException(Setting.MACHINES + " entry '" + text + "' has port " + port + "; expected "

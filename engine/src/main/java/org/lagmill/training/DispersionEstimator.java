@@ -1,6 +1,5 @@
 package org.lagmill.training;
 
-
 /**
  * Estimates the negative binomial dispersion of each series from held-out days (actual against forecast), shrunk
  * toward the pooled estimate so a series with few or quiet held-out days borrows strength from the rest.

@@ -55,8 +55,9 @@ public final class DistributedTraining {
       TreeLearner learner, int networkTimeoutMinutes, MemoryBudget budget, ProgressListener progress)
       throws IOException {
     if (plan.partitionAttribute() != null) {
-      throw new InvalidRequestException(Setting.PARTITION_BY + " cannot be combined with " + Setting.MACHINES + ": a distributed training "
-          + "trains one model over every shard");
+      throw new InvalidRequestException(
+          Setting.PARTITION_BY + " cannot be combined with " + Setting.MACHINES + ": a distributed training "
+              + "trains one model over every shard");
     }
     ModelTraining.checkWindows(shard, plan);
     int rank = exchange.rank();

@@ -80,7 +80,8 @@ public final class ModelDirectory {
           storeFingerprint, FeatureSpecYaml.format(models.spec()), parameters(plan.trainParameters()),
           parameters(plan.datasetParameters()), history.dateOf(0).toString(),
           history.dateOf(plan.trainingLastDayIndex()).toString(), history.dateOf(plan.validationFirstDayIndex())
-          .toString(), history.dateOf(plan.cutDayIndex()).toString(), plan.partitionAttribute(), reports, checksums,
+              .toString(),
+          history.dateOf(plan.cutDayIndex()).toString(), plan.partitionAttribute(), reports, checksums,
           ModelManifest.DISPERSION_FILE_NAME, crc32c(dispersionFile));
       Files.write(temp.resolve(ModelManifest.FILE_NAME), SealedJson.seal(JSON.writeValueAsBytes(manifest)));
       StoreDirectories.publish(temp, dir);
@@ -119,7 +120,7 @@ public final class ModelDirectory {
     if (version >= 2 && (!unsealed.sealed() || manifest.dispersionFileChecksum() == null)) {
       throw new CorruptStoreException(file, "expected the " + SealedJson.MEMBER + " member and the dispersion "
           + "table's checksum in format version " + version + ", actual " + (unsealed.sealed() ? "no dispersion "
-          + "checksum" : "no " + SealedJson.MEMBER + " member"));
+              + "checksum" : "no " + SealedJson.MEMBER + " member"));
     }
     return manifest;
   }

@@ -29,12 +29,16 @@ public final class ModelSet implements AutoCloseable {
   public FeatureSpec spec() { return spec; }
 
   /** The attribute the series are partitioned by, or null for a single model. */
-  public String partitionAttribute() { return partitionAttribute; }
+  public String partitionAttribute() {
+    return partitionAttribute;
+  }
 
   public List<Partition> partitions() { return partitions; }
 
   /** Negative binomial dispersion of each series' forecast errors, estimated on held-out days. */
-  public float[] dispersionBySeries() { return dispersionBySeries; }
+  public float[] dispersionBySeries() {
+    return dispersionBySeries;
+  }
 
   @Override
   public void close() {

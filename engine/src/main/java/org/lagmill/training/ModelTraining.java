@@ -177,8 +177,8 @@ public final class ModelTraining {
       progress.endStage();
       progress.startStage("refit" + stage, "iterations", rounds);
       TrainParameters parameters = plan.trainParameters().withRounds(rounds, 0);
-      TrainedModel model = new Trainer(parameters).train(training, (iteration, seconds, loss) ->
-          progress.advance(iteration));
+      TrainedModel model = new Trainer(parameters).train(training,
+          (iteration, seconds, loss) -> progress.advance(iteration));
       progress.endStage();
       return model;
     }

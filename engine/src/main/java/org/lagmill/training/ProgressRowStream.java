@@ -24,8 +24,10 @@ final class ProgressRowStream implements RowStream {
     this.streamedRowCount = streamedRowCount;
   }
 
-  @Override public FeatureSchema schema() { return rows.schema(); }
-  @Override public long rowCount() { return rows.rowCount(); }
+  @Override
+  public FeatureSchema schema() { return rows.schema(); }
+  @Override
+  public long rowCount() { return rows.rowCount(); }
 
   /** Rows streamed over every pass so far (the learner streams twice: its sample source, then every row). */
   /** A stream over other rows that reports into this stream's running count (validation rows after training rows). */

@@ -139,7 +139,8 @@ public final class RankExchange implements AutoCloseable {
         Object[] message = inbox.poll(timeout.toMillis(), TimeUnit.MILLISECONDS);
         if (message == null) {
           throw new RankFailureException("rank " + peerRank + " sent nothing for " + timeout.toSeconds() + " s while "
-              + "this rank waited for " + what + " (time-out; raise " + Setting.RANK_TIMEOUT + " for very uneven ranks)");
+              + "this rank waited for " + what + " (time-out; raise " + Setting.RANK_TIMEOUT
+              + " for very uneven ranks)");
         }
         if (message[0] instanceof RankFailureException failure) {
           throw failure;

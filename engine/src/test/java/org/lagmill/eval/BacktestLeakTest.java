@@ -56,7 +56,8 @@ class BacktestLeakTest {
     for (int origin : new int[] {173, 183}) {
       String context = "origin " + origin + ", seed " + SEED;
       for (int s = 0; s < history.seriesCount(); s++) {
-        assertArrayEquals(originalPoints.get(origin)[s], scrambledPoints.get(origin)[s], "series " + s + ", " + context);
+        assertArrayEquals(originalPoints.get(origin)[s], scrambledPoints.get(origin)[s],
+            "series " + s + ", " + context);
       }
       assertArrayEquals(originalAlphas.get(origin), scrambledAlphas.get(origin), context);
       for (BaselineKind kind : BaselineKind.values()) {

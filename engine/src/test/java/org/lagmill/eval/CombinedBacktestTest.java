@@ -34,8 +34,8 @@ class CombinedBacktestTest {
     BacktestResult pooledAlone;
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       result = RollingOriginBacktest.runMembers(history, List.of("pooled", "per store"), List.of(pooled, perStore),
-          settings, budget, ProgressListener.SILENT, (member, origin, point, dispersion) ->
-              forecasts.put(member + "@" + origin, point));
+          settings, budget, ProgressListener.SILENT,
+          (member, origin, point, dispersion) -> forecasts.put(member + "@" + origin, point));
       pooledAlone = RollingOriginBacktest.run(history, pooled, settings, budget, ProgressListener.SILENT, null);
     }
     Evaluator evaluator = new Evaluator(history, HIERARCHY);
@@ -81,6 +81,7 @@ class CombinedBacktestTest {
     BacktestSettings settings = new BacktestSettings(1, 10, HORIZON_DAYS, List.of(), HIERARCHY, new double[0]);
     assertEquals("need one name per member and at least one member, got 1 names for 2 plans", assertThrows(
         IllegalArgumentException.class, () -> RollingOriginBacktest.runMembers(SmallHistories.history(SEED, 4, 100, 0),
-            List.of("a"), List.of(plan, plan), settings, null, ProgressListener.SILENT, null)).getMessage());
+            List.of("a"), List.of(plan, plan), settings, null, ProgressListener.SILENT, null))
+        .getMessage());
   }
 }

@@ -136,7 +136,8 @@ class EvaluatorTest {
         }
         all.add(new EvaluationResult.AggregateError(key, w > 0 ? w * Math.sqrt(
             java.util.stream.IntStream.range(0, horizon).mapToDouble(k -> (f[k] - y[origin + k]) * (f[k]
-            - y[origin + k])).sum() / horizon / scales.get(key)) / levels.size() : 0, keyAbs, keyBias, keyActual));
+                - y[origin + k])).sum() / horizon / scales.get(key))
+            / levels.size() : 0, keyAbs, keyBias, keyActual));
         for (int k = 0; k < horizon; k++) {
           double e = f[k] - y[origin + k];
           mse += e * e / horizon;

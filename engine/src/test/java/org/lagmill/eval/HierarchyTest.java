@@ -87,7 +87,8 @@ class HierarchyTest {
   @Test
   void shouldRejectMalformedHierarchies() {
     assertEquals("hierarchy 'region>>store' has an empty attribute name; expected names joined by '>', e.g. "
-        + "'region>store'", assertThrows(IllegalArgumentException.class,
+        + "'region>store'",
+        assertThrows(IllegalArgumentException.class,
             () -> Hierarchy.parse(List.of("region>>store"))).getMessage());
     assertEquals("hierarchy 'store>store' names attribute 'store' twice", assertThrows(IllegalArgumentException.class,
         () -> Hierarchy.parse(List.of("store>store"))).getMessage());

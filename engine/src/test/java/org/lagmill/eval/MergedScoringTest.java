@@ -39,7 +39,8 @@ class MergedScoringTest {
     PARENTS.put("shop", null);
   }
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @Test
   void shouldEqualTheWholeStoreEvaluationOfTheSameForecasts() throws IOException {
@@ -62,7 +63,7 @@ class MergedScoringTest {
           }
         }
         if (members.isEmpty()) {
-          continue;  // a split that leaves a part empty is refused by the sharder; score the others as a split
+          continue; // a split that leaves a part empty is refused by the sharder; score the others as a split
         }
         parts.add(partOf(shape, members, hierarchy, new StoreManifest.Shard(part, partCount, "sku",
             ShardAssignment.HASH_NAME, "store test", shape.seriesCount)));

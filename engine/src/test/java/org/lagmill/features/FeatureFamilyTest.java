@@ -41,7 +41,8 @@ class FeatureFamilyTest {
     assertEquals("calendar: harvest fair", FeatureFamily.label("cal_harvest_fair", "days"));
     assertEquals("which shop", FeatureFamily.label("attr_shop", "days"));
     assertEquals(List.of("recent level", "weekly pattern", "season", "events and holidays", "price", "plan",
-        "launch", "item and location", "other"), java.util.Arrays.stream(FeatureFamily.values())
-        .map(FeatureFamily::label).toList());
+        "launch", "item and location", "other"),
+        java.util.Arrays.stream(FeatureFamily.values())
+            .map(FeatureFamily::label).toList());
   }
 }

@@ -124,8 +124,8 @@ class FeaturePassBehaviourTest {
     }
     int firstSale = scratch.firstSaleDayIndex(2);
     scratch.setUnits(2, 100, 9);
-    StreamedRows.Row written = StreamedRows.of(FeaturePass.prediction(scratch, spec, new int[] {2}, 101, 1), 4)
-        .rows.get(0);
+    StreamedRows.Row written = StreamedRows.of(FeaturePass.prediction(scratch, spec, new int[] {2}, 101, 1), 4).rows
+        .get(0);
     assertEquals(firstSale == SalesHistory.NO_SALE ? Float.NaN : 9f, written.values()[lag1]);
   }
 

@@ -85,7 +85,8 @@ class FeaturePassBitsTest {
         .rollingWindowDays(3, 28, 56).build();
     assertEquals(0x1651b75bc410432L, fingerprint(FeaturePass.training(history, spec), 64), "large units, mean and std");
     FeatureSpec all = spec.withRollingStats(ALL_STATS);
-    assertEquals(0x216e58d2ea4a3882L, fingerprint(FeaturePass.training(history, all), 64), "large units, every statistic");
+    assertEquals(0x216e58d2ea4a3882L, fingerprint(FeaturePass.training(history, all), 64),
+        "large units, every statistic");
   }
 
   private static long fingerprint(RowStream pass, int capacityRows) {

@@ -109,7 +109,7 @@ class FeaturePassSampleSourceTest {
     // outside check: the 99.9th percentile of chi-square with (candidates - 1) degrees of freedom from commons-math3
     double limit = new ChiSquaredDistribution(candidates.size() - 1).inverseCumulativeProbability(0.999);
     assertTrue(chiSquare < limit, "chi-square " + chiSquare + " >= " + limit + " over " + candidates.size()
-        + " series, master seed "        + MASTER_SEED);
+        + " series, master seed " + MASTER_SEED);
   }
 
   @Test

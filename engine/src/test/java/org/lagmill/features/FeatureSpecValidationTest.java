@@ -87,7 +87,8 @@ class FeatureSpecValidationTest {
     assertMessage("categorical attribute 'brand' does not exist; the series have: series_id",
         () -> FeaturePass.training(history, spec));
     assertMessage("training days [0, 50] are out of range: need 0 <= firstDayIndex <= lastDayIndex <= 49 (the"
-        + " history's last day)", () -> FeaturePass.training(history, spec.toBuilder().categoricalAttributes(null)
-        .build(), 0, 50));
+        + " history's last day)",
+        () -> FeaturePass.training(history, spec.toBuilder().categoricalAttributes(null)
+            .build(), 0, 50));
   }
 }

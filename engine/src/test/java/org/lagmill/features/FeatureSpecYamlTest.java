@@ -81,7 +81,8 @@ class FeatureSpecYamlTest {
   void shouldRefuseAFractionalLagInItsOwnWords() {
     assertYamlError("horizonDays: 14\nlagDays: [14, 28.5]\n",
         "features.yaml line 2: key 'lagDays': expected a list of whole numbers, e.g. [28, 35], found '28.5'");
-    assertYamlError("horizonDays: 14.0\n", "features.yaml line 1: key 'horizonDays': expected a whole number, found '14.0'");
+    assertYamlError("horizonDays: 14.0\n",
+        "features.yaml line 1: key 'horizonDays': expected a whole number, found '14.0'");
   }
 
   @Test

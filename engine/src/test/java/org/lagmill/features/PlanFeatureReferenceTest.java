@@ -25,7 +25,8 @@ import org.lagmill.store.SalesHistory;
 class PlanFeatureReferenceTest {
   private static final long MASTER_SEED = Long.getLong("lagmill.seed", 20240611L);
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @Test
   void shouldReadThePlanAtEachRowsOwnPeriod() throws Exception {

@@ -102,15 +102,24 @@ final class SlowFeatures {
     }
     LocalDate date = RandomStore.FIRST_DATE.plusDays(d);
     switch (name) {
-      case "day_of_week": return date.getDayOfWeek().getValue() - 1;
-      case "day_of_month": return date.getDayOfMonth();
-      case "month": return date.getMonthValue();
-      case "week_of_year": return date.get(IsoFields.WEEK_OF_WEEK_BASED_YEAR);
-      case "day_of_year": return date.getDayOfYear();
-      case "cal_event": return d < store.calendarDayCount ? store.eventFlag[d] : Double.NaN;
-      case "cal_event_type": return d < store.calendarDayCount ? store.eventType[d] : Double.NaN;
-      case "cal_payday": return d < store.calendarDayCount ? store.payday[store.regionCode(s)][d] : Double.NaN;
-      default: break;
+      case "day_of_week" :
+        return date.getDayOfWeek().getValue() - 1;
+      case "day_of_month" :
+        return date.getDayOfMonth();
+      case "month" :
+        return date.getMonthValue();
+      case "week_of_year" :
+        return date.get(IsoFields.WEEK_OF_WEEK_BASED_YEAR);
+      case "day_of_year" :
+        return date.getDayOfYear();
+      case "cal_event" :
+        return d < store.calendarDayCount ? store.eventFlag[d] : Double.NaN;
+      case "cal_event_type" :
+        return d < store.calendarDayCount ? store.eventType[d] : Double.NaN;
+      case "cal_payday" :
+        return d < store.calendarDayCount ? store.payday[store.regionCode(s)][d] : Double.NaN;
+      default :
+        break;
     }
     if (name.startsWith("price") || name.equals("promo")) {
       return priceFeature(name, s, d);
@@ -154,9 +163,9 @@ final class SlowFeatures {
     }
     double mean = values.stream().mapToDouble(Integer::doubleValue).sum() / n;
     switch (stat) {
-      case "mean":
+      case "mean" :
         return mean;
-      case "std": {
+      case "std" : {
         if (n < 2) {
           return Double.NaN;
         }
@@ -166,10 +175,14 @@ final class SlowFeatures {
         }
         return Math.sqrt(squares / (n - 1));
       }
-      case "min": return values.stream().mapToInt(Integer::intValue).min().getAsInt();
-      case "max": return values.stream().mapToInt(Integer::intValue).max().getAsInt();
-      case "zero_share": return values.stream().filter(v -> v == 0).count() / (double) n;
-      default: throw new IllegalArgumentException(stat);
+      case "min" :
+        return values.stream().mapToInt(Integer::intValue).min().getAsInt();
+      case "max" :
+        return values.stream().mapToInt(Integer::intValue).max().getAsInt();
+      case "zero_share" :
+        return values.stream().filter(v -> v == 0).count() / (double) n;
+      default :
+        throw new IllegalArgumentException(stat);
     }
   }
 
@@ -187,15 +200,19 @@ final class SlowFeatures {
     }
     double mean = count == 0 ? Double.NaN : sum / count;
     switch (name) {
-      case "price": return price;
-      case "price_to_mean": return price / mean;
-      case "price_to_max": return price / max;
-      case "price_change_7": {
+      case "price" :
+        return price;
+      case "price_to_mean" :
+        return price / mean;
+      case "price_to_max" :
+        return price / max;
+      case "price_change_7" : {
         double before = d >= 7 ? price(s, d - 7) : Double.NaN;
         return before > 0 ? price / before - 1 : Double.NaN;
       }
-      case "promo": return Double.isNaN(price) ? Double.NaN : price < max ? 1 : 0;
-      case "price_to_group": {
+      case "promo" :
+        return Double.isNaN(price) ? Double.NaN : price < max ? 1 : 0;
+      case "price_to_group" : {
         double groupSum = 0;
         int groupCount = 0;
         for (int o = 0; o < store.units.length; o++) {
@@ -208,7 +225,8 @@ final class SlowFeatures {
         }
         return price / (groupSum / groupCount);
       }
-      default: throw new IllegalArgumentException(name);
+      default :
+        throw new IllegalArgumentException(name);
     }
   }
 }

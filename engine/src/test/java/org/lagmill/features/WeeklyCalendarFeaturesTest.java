@@ -27,7 +27,8 @@ class WeeklyCalendarFeaturesTest {
         DayCalendar.EMPTY);
     FeatureSpec spec = FeatureSpec.builder().horizonDays(4).lagDays(4).rollingWindowDays(4).rollingStatNames(
         List.of("mean")).calendarFeatureNames(List.of("day_of_week", "week_of_year", "month")).seriesFeatures(
-        List.of()).categoricalAttributes(List.of()).skipPreLaunch(false).build();
+            List.of())
+        .categoricalAttributes(List.of()).skipPreLaunch(false).build();
     FeaturePass pass = FeaturePass.training(history, spec);
     List<String> names = pass.schema().names();
     assertEquals(List.of("lag_4", "roll_mean_4_shift_4", "week_of_year", "month"), names);

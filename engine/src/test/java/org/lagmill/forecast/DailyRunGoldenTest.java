@@ -44,7 +44,8 @@ class DailyRunGoldenTest {
   private static final String FEATURES_SHA = "00d0c90624b7083fe0a36bba7b7be9fb41337605a4c342e00d74be6035632ad1";
   private static final String FORECAST_SHA = "08422319c622d8c716067c467c09ea884dfaa17888266b6cc12c82ec4fb81414";
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @Test
   void shouldKeepDailyStoreFeaturesAndForecastByteIdentical() throws Exception {

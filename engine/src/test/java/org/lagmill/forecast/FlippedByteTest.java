@@ -44,7 +44,8 @@ class FlippedByteTest {
   private static final long SEED = Long.getLong("lagmill.seed", 9_107L);
   private static final int RANDOM_POSITIONS = 4;
 
-  @TempDir static Path fixture;
+  @TempDir
+  static Path fixture;
   private static Path store;
   private static Path model;
   private static Path report;

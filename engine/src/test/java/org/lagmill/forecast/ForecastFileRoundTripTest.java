@@ -89,8 +89,9 @@ class ForecastFileRoundTripTest {
         ", line 2, column 5: expected a non-negative number of units, found \"NaN\"");
     // columns in any order; the check follows the levels
     expectError(dir, history, "series_id,date,forecast,q0.75,q0.5,q0.25\nit0_st0,2023-02-04,1,4,2,1\n"
-        + "it0_st1,2023-02-04,1,2,3,1\n", ", line 3, column 4: q0.5 is 3.0 but q0.75 is 2.0: expected quantiles that"
-        + " do not decrease as the level rises");
+        + "it0_st1,2023-02-04,1,2,3,1\n",
+        ", line 3, column 4: q0.5 is 3.0 but q0.75 is 2.0: expected quantiles that"
+            + " do not decrease as the level rises");
   }
 
   private static void expectError(Path dir, ArraySalesHistory history, String text, String expectedTail)

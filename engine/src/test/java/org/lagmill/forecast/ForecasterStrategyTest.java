@@ -121,7 +121,7 @@ class ForecasterStrategyTest {
     FeatureSpec spec = SmallHistories.spec(HORIZON_DAYS);
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> Forecaster.forecast(history,
-          spec, (batch, out) -> { }, new int[] {0}, 14, budget, new double[6][14]));
+          spec, (batch, out) -> {}, new int[] {0}, 14, budget, new double[6][14]));
       assertEquals("a direct forecast of 14 days needs every lag and rolling shift >= 14, the shortest is 7; use"
           + " strategy: recursive or a shorter horizon", e.getMessage());
     }

@@ -42,7 +42,8 @@ class HorizonCoverageTest {
     assertEquals(2, coverage.seriesWithStalePriceCount());
     assertEquals(List.of("2 series have no price at all: their price features are missing",
         "2 series have no price set in the last week or the horizon: their last price is carried forward over the"
-            + " horizon"), coverage.warnings());
+            + " horizon"),
+        coverage.warnings());
   }
 
   /**

@@ -39,7 +39,8 @@ class ModelDirectoryIntegrityTest {
   private static final long SEED = 4_511L;
   private static final int HORIZON_DAYS = 7;
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
   private final List<String> notices = new ArrayList<>();
   private Consumer<String> previousSink;
   private ArraySalesHistory history;

@@ -23,7 +23,8 @@ class CalendarFileReaderTest {
   private static final LocalDate STORE_START = LocalDate.of(2024, 3, 1);
   private static final ArraySeriesAttributes CHAIN = IngestFiles.chain();
 
-  @TempDir Path dir;
+  @TempDir
+  Path dir;
 
   private CalendarReadResult read(String name, String text) {
     return CalendarFileReader.read(IngestFiles.write(dir, name, text), STORE_START, CHAIN, "date");
@@ -94,7 +95,8 @@ class CalendarFileReaderTest {
     LocalDate start = LocalDate.of(2024, 2, 27);
     CalendarReadResult result = CalendarFileReader.read(IngestFiles.write(dir, "leap.csv",
         "weekday,date,day_of_year\nTUESDAY,2024-02-27,58\nWEDNESDAY,2024-02-28,59\nTHURSDAY,2024-02-29,60\n"
-            + "FRIDAY,2024-03-01,61\nSATURDAY,2024-03-02,62\nSUNDAY,2024-03-03,63\n"), start, CHAIN, "date");
+            + "FRIDAY,2024-03-01,61\nSATURDAY,2024-03-02,62\nSUNDAY,2024-03-03,63\n"),
+        start, CHAIN, "date");
     ArrayDayCalendar cal = result.calendar();
     assertEquals(6, cal.dayCount());
     for (int day = 0; day < cal.dayCount(); day++) {
@@ -128,12 +130,14 @@ class CalendarFileReaderTest {
   void shouldRefuseNonFiniteCalendarValues() {
     for (String cell : new String[] {"NaN", "-Infinity", "inf", "+INF"}) {
       assertEquals("F, line 3, column 2: calendar column 'temp' value '" + cell + "': expected a finite number, a"
-          + " category or an empty cell (empty means unknown)", error("date,temp\n2024-03-01,1\n2024-03-02," + cell
-          + "\n"));
+          + " category or an empty cell (empty means unknown)",
+          error("date,temp\n2024-03-01,1\n2024-03-02," + cell
+              + "\n"));
     }
     assertEquals("F, line 2, column 3: calendar column 'payday[region=Southmoor]' value '1e39': expected a number of"
-        + " at most 3.4028235E38 in size", error("date,payday[region=Northvale],payday[region=Southmoor]\n"
-        + "2024-03-01,1,1e39\n"));
+        + " at most 3.4028235E38 in size",
+        error("date,payday[region=Northvale],payday[region=Southmoor]\n"
+            + "2024-03-01,1,1e39\n"));
   }
 
   @Test
@@ -165,7 +169,8 @@ class CalendarFileReaderTest {
     assertEquals("F, line 1, column 3: column 'p[store=north_1]' is keyed by store but 'p' is keyed by region in"
         + " another column: expected one key per column name",
         error("date,p[region=Northvale],p[store=north_1]\n2024-03-01,1,2\n"));
-    assertEquals("F, line 3: found 3 fields, expected 2 as in the header", error("date,x\n2024-03-01,1\n2024-03-02,1,2\n"));
+    assertEquals("F, line 3: found 3 fields, expected 2 as in the header",
+        error("date,x\n2024-03-01,1\n2024-03-02,1,2\n"));
   }
 
   @Test

@@ -39,7 +39,8 @@ class CalendarPricesWiringTest {
       gift_box,north_1,2024-03-01,9.00
       """;
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   private Path write(String name, String text) throws IOException {
     return Files.writeString(temp.resolve(name), text);
@@ -134,7 +135,7 @@ class CalendarPricesWiringTest {
       // Unknown: oat_bar 03-03; tea_tin, not in the file, its 2 new days; jam_jar, new, its 3 earlier days and 03-05.
       assertEquals(List.of("2 price rows for unknown keys skipped (first: item=fig_pot, store=south_1)",
           "7 of 15 item-days (46.7 %) are unknown and are left out of training and scores; if they are days with no "
-          + "sale, give long sales with ‹missing-rows› zero (the default) or write 0 in wide sales"),
+              + "sale, give long sales with ‹missing-rows› zero (the default) or write 0 in wide sales"),
           result.warnings());
       try (SalesStore store = SalesStore.open(temp.resolve("store"), budget)) {
         assertEquals(3, store.seriesCount());

@@ -25,7 +25,8 @@ class ClosuresIngestTest {
       + "A,s2,2025-03-01,2\nA,s2,2025-03-02,2\nA,s2,2025-03-03,0\nA,s2,2025-03-04,0\nA,s2,2025-03-05,1\nA,s2,2025-03-06,4\n"
       + "B,s1,2025-03-01,0\nB,s1,2025-03-02,5\nB,s1,2025-03-03,1\nB,s1,2025-03-04,0\nB,s1,2025-03-05,0\nB,s1,2025-03-06,2\n";
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   /**
    * Hand-worked: shop s1 closed 03-04 (a holiday, both skus), the whole chain closed 03-02 .. 03-02, sku A in s2 from

@@ -28,7 +28,8 @@ class ConcurrentStoreUseTest {
   private static final LocalDate FIRST = LocalDate.of(2025, 1, 1);
   private static final int SERIES = 40;
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   /** Units of series s on day d: series s widens from one byte to two on day 3·s, so layouts change per append. */
   private static int unitsOf(int s, int d) {

@@ -22,7 +22,8 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
 
 class CsvSourceTest {
-  @TempDir Path dir;
+  @TempDir
+  Path dir;
 
   private static List<String> readAll(Path file) {
     List<String> lines = new ArrayList<>();

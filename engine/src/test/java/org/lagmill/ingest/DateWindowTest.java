@@ -16,7 +16,8 @@ import org.lagmill.store.SalesStore;
 
 /** A date outside the plausible window stops the run with file, line and column, before any store is written. */
 class DateWindowTest {
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @AfterEach
   void resetWindow() {

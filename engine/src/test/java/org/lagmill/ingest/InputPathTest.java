@@ -14,7 +14,8 @@ import org.junit.jupiter.api.io.TempDir;
 /** An input path that is not a readable file is named with the reason, for every reader that opens files. */
 @Tag("reliability")
 class InputPathTest {
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @Test
   void shouldNameAFolderGivenAsAFile() throws Exception {

@@ -26,7 +26,8 @@ import org.lagmill.store.StoreManifest;
 class LongAppendTest {
   private static final long MASTER_SEED = TestSeeds.master(20240611L);
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @Test
   void shouldGiveTheStoreThatIngestingTheWholeExportGives() throws Exception {
@@ -72,7 +73,8 @@ class LongAppendTest {
       int closedPeriod = random.nextInt(periodCount);
       Path closures = Files.writeString(temp.resolve("shut" + round + ".csv"), "shop,from,until\nh0,"
           + first.plusDays((long) closedPeriod * periodDays) + "," + first.plusDays((long) closedPeriod * periodDays
-          + periodDays - 1) + "\n");
+              + periodDays - 1)
+          + "\n");
       ColumnNames columns = ColumnNames.DEFAULTS.withSalesDateColumn("day").withUnitsColumn("qty");
       MissingRows policy = zero ? MissingRows.ZERO : MissingRows.UNKNOWN;
       try (MemoryBudget budget = MemoryBudget.unlimited("test")) {

@@ -21,7 +21,8 @@ import org.lagmill.store.SalesStore;
 class LongSalesIngestTest {
   private static final long MASTER_SEED = TestSeeds.master(7_340_211L);
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   /**
    * One random table written both ways: the long file lists rows in random order, leaves out some unknown days and

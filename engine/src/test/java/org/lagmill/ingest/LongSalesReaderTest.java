@@ -23,7 +23,8 @@ class LongSalesReaderTest {
   private static final long MASTER_SEED = TestSeeds.master(0x10A65L);
   private static final int U = SalesHistory.UNKNOWN_UNITS;
 
-  @TempDir Path dir;
+  @TempDir
+  Path dir;
 
   /** Collects what the reader hands out, copying the reused arrays. */
   private static final class Collected implements SeriesSink {
@@ -31,7 +32,8 @@ class LongSalesReaderTest {
     LongSalesHeader begun;
     long zeroFilledItemDays;
 
-    @Override public void begin(LongSalesHeader header) { begun = header; }
+    @Override
+    public void begin(LongSalesHeader header) { begun = header; }
 
     @Override
     public void accept(String[] attributeValues, int[] units) {
@@ -88,8 +90,9 @@ class LongSalesReaderTest {
     assertEquals(MissingRows.ZERO, MissingRows.parse("Zero"));
     assertEquals(MissingRows.UNKNOWN, MissingRows.parse("unknown"));
     assertEquals("‹missing-rows› must be one of zero, unknown, got 'none'; zero (the default) reads a day with no "
-        + "row as no sale", assertThrows(IllegalArgumentException.class, () -> MissingRows.parse("none"))
-        .getMessage());
+        + "row as no sale",
+        assertThrows(IllegalArgumentException.class, () -> MissingRows.parse("none"))
+            .getMessage());
   }
 
   @Test
@@ -113,11 +116,13 @@ class LongSalesReaderTest {
   @Test
   void shouldReportEveryErrorExactly() {
     assertEquals("F, line 5: duplicate row for series oat_bar on 2024-03-01: lines 2 and 5, expected one row per"
-        + " series and date", error("item,date,units\noat_bar,2024-03-01,1\ntea_tin,2024-03-01,1\n"
-        + "oat_bar,2024-03-02,1\noat_bar,2024-03-01,3\n"));
+        + " series and date",
+        error("item,date,units\noat_bar,2024-03-01,1\ntea_tin,2024-03-01,1\n"
+            + "oat_bar,2024-03-02,1\noat_bar,2024-03-01,3\n"));
     assertEquals("F, line 3: duplicate row for series oat_bar/north_1 on 2024-03-01: lines 2 and 3, expected one"
-        + " row per series and date", error("item,store,date,units\noat_bar,north_1,2024-03-01,\n"
-        + "oat_bar,north_1,2024-03-01,4\n"));
+        + " row per series and date",
+        error("item,store,date,units\noat_bar,north_1,2024-03-01,\n"
+            + "oat_bar,north_1,2024-03-01,4\n"));
     for (String units : new String[] {"-3", "1.5", "x", "+2"}) {
       assertEquals("F, line 2, column 3: units '" + units + "': expected a non-negative integer or an empty cell",
           error("item,date,units\noat_bar,2024-03-01," + units + "\n"));

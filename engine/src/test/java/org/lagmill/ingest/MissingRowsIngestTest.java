@@ -31,7 +31,8 @@ class MissingRowsIngestTest {
   /** Marks a day written with an empty units cell in both files. */
   private static final int EMPTY_CELL = -2;
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @Test
   void shouldReadASparseTillExportAsTheSameSalesWrittenDensely() throws Exception {

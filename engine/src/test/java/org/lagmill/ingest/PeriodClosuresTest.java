@@ -26,7 +26,8 @@ class PeriodClosuresTest {
   private static final long MASTER_SEED = TestSeeds.master(20240611L);
   private static final int U = SalesHistory.UNKNOWN_UNITS;
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   /**
    * Hand-worked on a weekly store of four weeks from Monday 2024-01-01 (week k starts 2024-01-01 + 7k). Shop s1 is

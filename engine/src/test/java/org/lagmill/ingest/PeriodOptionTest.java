@@ -28,7 +28,8 @@ class PeriodOptionTest {
       A,s1,2025-03-09,3
       """;
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   private final ColumnNames columns = ColumnNames.DEFAULTS.withSalesDateColumn("day").withUnitsColumn("qty");
 

@@ -14,7 +14,8 @@ import org.lagmill.store.PlanTable;
 class PlanFileReaderReferenceTest {
   private static final long MASTER_SEED = Long.getLong("lagmill.seed", 20240611L);
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @Test
   void shouldMatchTheSlowReferenceOnRandomPlans() throws Exception {

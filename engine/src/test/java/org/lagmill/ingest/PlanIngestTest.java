@@ -24,7 +24,8 @@ class PlanIngestTest {
       + "A,s2,2025-03-03,2\nA,s2,2025-03-10,2\nA,s2,2025-03-17,6\nA,s2,2025-03-24,1\n"
       + "B,s1,2025-03-03,7\nB,s1,2025-03-10,8\nB,s1,2025-03-17,7\nB,s1,2025-03-24,9\n";
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   /**
    * Hand-worked, weekly: a from-plan keyed by sku only. A is on promotion from Wednesday 03-12 (the week of 03-10,

@@ -27,7 +27,8 @@ class PreviousFormatFixtureTest {
   private static final Path TINY = Path.of("..", "testdata", "tiny");
   private static final Path STORE_V1 = Path.of("..", "testdata", "store-v1");
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @Test
   void shouldOpenAStoreOfThePreviousFormatVersionAndMoveItOnItsFirstAppend() throws IOException {

@@ -26,7 +26,8 @@ class PriceCollapsingTest {
   private static final LocalDate FIRST = LocalDate.of(2025, 1, 6);
   private static final float[] PRICE_LEVELS = {1.49f, 1.99f, 2.49f};
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   /**
    * A hand-worked case: weekly rows 1.99, 1.99, 1.49, 1.49, 1.99, 1.99 from day 0 keep the days 0, 14 and 28, and the

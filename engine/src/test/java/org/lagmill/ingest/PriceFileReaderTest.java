@@ -25,7 +25,8 @@ class PriceFileReaderTest {
   private static final int SERIES_COUNT = 9;
   private static final float NAN = Float.NaN;
 
-  @TempDir Path dir;
+  @TempDir
+  Path dir;
 
   private PriceReadResult read(String name, String text) {
     return PriceFileReader.read(IngestFiles.write(dir, name, text), STORE_START, CHAIN, SERIES_COUNT, "from",
@@ -94,8 +95,9 @@ class PriceFileReaderTest {
   @Test
   void shouldReportEveryErrorExactly() {
     assertEquals("F, line 4: duplicate price for item=oat_bar, store=north_1 from 2024-03-02: lines 2 and 4,"
-        + " expected one", error("item,store,from,price\noat_bar,north_1,2024-03-02,1\n"
-        + "oat_bar,north_2,2024-03-02,1\noat_bar,north_1,2024-03-02,2\n"));
+        + " expected one",
+        error("item,store,from,price\noat_bar,north_1,2024-03-02,1\n"
+            + "oat_bar,north_2,2024-03-02,1\noat_bar,north_1,2024-03-02,2\n"));
     assertEquals("F, line 3: duplicate price for item=tea_tin from 2024-02-01: lines 2 and 3, expected one",
         error("item,from,price\ntea_tin,2024-02-01,1\ntea_tin,2024-02-01,2\n"));
     for (String price : new String[] {"0", "-1.5", "abc", "", "NaN", "Infinity", "1e-50"}) {

@@ -19,7 +19,8 @@ class SeriesKeysTest {
   private static final long MASTER_SEED = TestSeeds.master(0x4B3E_75L);
   private static final String[] NAMES = {"sku", "shop", "dept", "banner"};
 
-  @TempDir Path dir;
+  @TempDir
+  Path dir;
 
   @Test
   void shouldMatchEveryKeySubsetLikeTheSlowReference() {

@@ -22,7 +22,8 @@ import org.lagmill.store.StoreAssertions;
 class StoreAppendTest {
   private static final long MASTER_SEED = TestSeeds.master(99_173L);
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   /**
    * Append equals ingesting the concatenated file: the old series keep their order, then the series new in the

@@ -35,7 +35,8 @@ import org.lagmill.store.StoreWriter;
 class StoreCrashRecoveryTest {
   private static final LocalDate FIRST = LocalDate.of(2025, 6, 2);
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
   private final List<String> notices = new ArrayList<>();
   private Consumer<String> previousSink;
 
@@ -144,7 +145,7 @@ class StoreCrashRecoveryTest {
         if (Files.exists(crashed.resolve(StoreGenerations.POINTER_FILE_NAME))) {
           assertEquals(List.of(StoreGenerations.POINTER_FILE_NAME, StoreGenerations.readableDir(crashed)
               .getFileName().toString(), "lock"), StoreIngestTest.listing(crashed), where + ": only the current "
-              + "generation is left");
+                  + "generation is left");
         } else {
           List<String> expected = new ArrayList<>(List.of("lock", StoreManifest.FILE_NAME));
           StoreManifest.read(crashed).files().forEach(f -> expected.add(f.name()));

@@ -29,7 +29,8 @@ import org.lagmill.store.StoreSummary;
 class StoreIngestTest {
   private static final long MASTER_SEED = TestSeeds.master(20_240_601L);
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   private Path writeCsv(String name, RandomStoreData data) throws IOException {
     Path file = temp.resolve(name);
@@ -137,7 +138,8 @@ class StoreIngestTest {
         assertEquals(3.0 / 5.0, summary.zeroDayShare(), 1e-12);
         assertEquals(3 * 3 * 8, summary.int64ColumnBytes());
         assertEquals(Files.size(csv), summary.sourceCsvBytes());
-        assertEquals(Files.size(StoreGenerations.readableDir(temp.resolve("store")).resolve("units.bin")), summary.unitsFileBytes());
+        assertEquals(Files.size(StoreGenerations.readableDir(temp.resolve("store")).resolve("units.bin")),
+            summary.unitsFileBytes());
         assertEquals((16 + 3 + 6 + 3 + 8) / 9.0, summary.unitsBytesPerItemDay(), 1e-12);
         assertEquals(store.offHeapBytes(), summary.offHeapBytes());
       }

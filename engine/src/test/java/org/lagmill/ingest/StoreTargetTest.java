@@ -25,7 +25,8 @@ class StoreTargetTest {
   private static final StoreUpdate.Policy CREATE = new StoreUpdate.Policy(StoreUpdate.Mode.CREATE, true);
   private static final StoreUpdate.Policy REPLACE = new StoreUpdate.Policy(StoreUpdate.Mode.REPLACE, true);
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   private Path sales(String name, String units) throws IOException {
     Path file = temp.resolve(name);

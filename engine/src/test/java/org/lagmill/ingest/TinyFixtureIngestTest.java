@@ -27,7 +27,8 @@ class TinyFixtureIngestTest {
   /** Every store file carries a 16-byte header and an 8-byte footer (see StoreFileFormat). */
   private static final int HEADER_AND_FOOTER_BYTES = 16 + 8;
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @Test
   void shouldIngestTheTinyFixtureToTheHandWorkedValues() throws Exception {
@@ -53,20 +54,21 @@ class TinyFixtureIngestTest {
         assertEquals(expected.get("unitsBytes").asLong(), summary.unitsFileBytes() - HEADER_AND_FOOTER_BYTES);
         assertEquals(expected.get("unitsBytesPerItemDay").asDouble(),
             (double) (summary.unitsFileBytes() - HEADER_AND_FOOTER_BYTES) / (summary.seriesCount()
-                * summary.dayCount()), 1e-12);
+                * summary.dayCount()),
+            1e-12);
         assertEquals(expected.get("zeroDayShare").asDouble(), summary.zeroDayShare(), 1e-12);
         Map<String, Integer> cardinalities = new LinkedHashMap<>();
-        for (Iterator<Map.Entry<String, JsonNode>> it = expected.get("attributeCardinalities").fields();
-            it.hasNext(); ) {
+        for (Iterator<Map.Entry<String, JsonNode>> it = expected.get("attributeCardinalities").fields(); it
+            .hasNext();) {
           Map.Entry<String, JsonNode> e = it.next();
           cardinalities.put(e.getKey(), e.getValue().asInt());
         }
         assertEquals(cardinalities, summary.attributeCardinalities());
         assertEquals(expected.get("calendarDayCount").asInt(), store.calendar().dayCount());
-        for (Iterator<Map.Entry<String, JsonNode>> it = expected.get("pricesOnDay").fields(); it.hasNext(); ) {
+        for (Iterator<Map.Entry<String, JsonNode>> it = expected.get("pricesOnDay").fields(); it.hasNext();) {
           Map.Entry<String, JsonNode> bySeries = it.next();
           int s = store.attributes().seriesIndexOf(bySeries.getKey());
-          for (Iterator<Map.Entry<String, JsonNode>> days = bySeries.getValue().fields(); days.hasNext(); ) {
+          for (Iterator<Map.Entry<String, JsonNode>> days = bySeries.getValue().fields(); days.hasNext();) {
             Map.Entry<String, JsonNode> day = days.next();
             // Day index by java.time's calendar arithmetic, an outside reference for the store's own date mapping.
             int dayIndex = (int) ChronoUnit.DAYS.between(firstDate, LocalDate.parse(day.getKey()));

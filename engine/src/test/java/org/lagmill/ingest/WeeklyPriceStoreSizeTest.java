@@ -25,7 +25,8 @@ class WeeklyPriceStoreSizeTest {
   /** Four years in whole weeks (weekly output needs whole weeks): per-series tables are spread over enough days. */
   private static final int DAY_COUNT = 1_456;
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @Test
   void shouldStoreWeeklyPriceRowsInAtMostFifteenHundredthsOfAByte() throws Exception {
@@ -40,7 +41,8 @@ class WeeklyPriceStoreSizeTest {
           .withCalendarFile(data.resolve(ScenarioGenerator.CALENDAR_FILE)).withPricesFile(weeklyPrices), budget);
       try (SalesStore store = SalesStore.open(temp.resolve("store"), budget)) {
         double itemDays = (double) store.seriesCount() * store.dayCount();
-        double pricesBytesPerItemDay = Files.size(StoreGenerations.readableDir(temp.resolve("store")).resolve("prices.bin")) / itemDays;
+        double pricesBytesPerItemDay = Files
+            .size(StoreGenerations.readableDir(temp.resolve("store")).resolve("prices.bin")) / itemDays;
         double storeBytesPerItemDay = StoreSummary.of(store).storeBytesPerItemDay();
         String figures = String.format("%d weekly price rows; prices.bin %.4f B/item-day, store %.4f B/item-day",
             weeklyRowCount, pricesBytesPerItemDay, storeBytesPerItemDay);

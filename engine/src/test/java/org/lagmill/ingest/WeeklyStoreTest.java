@@ -22,7 +22,8 @@ import org.lagmill.store.StoreGenerations;
 class WeeklyStoreTest {
   private static final LocalDate MONDAY = LocalDate.of(2024, 1, 1);
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   private Path write(String name, String text) throws Exception {
     return Files.writeString(temp.resolve(name), text);

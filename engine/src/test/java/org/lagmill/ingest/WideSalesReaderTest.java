@@ -22,7 +22,8 @@ import org.lagmill.store.SalesHistory;
 class WideSalesReaderTest {
   private static final int U = SalesHistory.UNKNOWN_UNITS;
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   private Path write(String name, String content) throws IOException {
     return write(name, content.getBytes(StandardCharsets.UTF_8));

@@ -12,7 +12,8 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
 class AtomicFilesTest {
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   private List<String> listing() throws IOException {
     try (Stream<Path> files = Files.list(temp)) {

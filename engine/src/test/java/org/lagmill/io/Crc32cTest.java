@@ -9,7 +9,8 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
 class Crc32cTest {
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @Test
   void shouldGiveThePublishedCheckValue() throws Exception {

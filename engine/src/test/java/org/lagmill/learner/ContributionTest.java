@@ -18,7 +18,8 @@ class ContributionTest {
     NativeLibrary.load();
   }
 
-  @TempDir Path folder;
+  @TempDir
+  Path folder;
 
   /**
    * LightGBM's own guarantee (its documentation of predict_contrib: "the sum of the feature contributions is equal

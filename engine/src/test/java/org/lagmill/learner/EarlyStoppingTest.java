@@ -95,7 +95,7 @@ class EarlyStoppingTest {
           TrainingDataset valid = builder.createValidation(train, rows.slice(2_000, 3_000));
           TrainedModel model = new Trainer(TrainParameters.defaults().withObjective(Objective.POISSON)
               .withRounds(15, 50).withMinDataInLeaf(50).withThreadCount(1)).train(train, valid,
-              TrainingListener.NONE)) {
+                  TrainingListener.NONE)) {
         assertEquals(15, model.validationCurve().length);
         assertEquals(15, model.bestIteration());
         assertEquals(15, model.iterationCount());

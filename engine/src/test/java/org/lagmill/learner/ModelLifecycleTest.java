@@ -124,7 +124,7 @@ class ModelLifecycleTest {
       float[] labels = rows.labels().clone();
       labels[123] = Float.NaN;
       assertEquals("label of row 123 is NaN; training rows need a finite label (rows to forecast belong in a "
-              + "prediction stream)",
+          + "prediction stream)",
           assertThrows(IllegalArgumentException.class, () -> builder.build(rows.withLabels(labels))).getMessage());
       assertEquals(0, budget.heldBytes(), "a failed build frees its buffers");
 
@@ -140,7 +140,7 @@ class ModelLifecycleTest {
               .train(train, TrainingListener.NONE)) {
         assertThrows(IllegalArgumentException.class, () -> builder.createValidation(train, otherRows));
         assertEquals("validation data must come from DatasetBuilder.createValidation so it shares the training "
-                + "Dataset's bins",
+            + "Dataset's bins",
             assertThrows(IllegalArgumentException.class,
                 () -> new Trainer(TrainParameters.defaults()).train(train, train, TrainingListener.NONE))
                 .getMessage());

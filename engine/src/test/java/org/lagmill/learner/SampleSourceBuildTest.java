@@ -39,8 +39,10 @@ class SampleSourceBuildTest {
       this.passRowCounts = passRowCounts;
     }
 
-    @Override public FeatureSchema schema() { return rows.schema(); }
-    @Override public long rowCount() { return rows.rowCount(); }
+    @Override
+    public FeatureSchema schema() { return rows.schema(); }
+    @Override
+    public long rowCount() { return rows.rowCount(); }
 
     @Override
     public RowStream sampleSource(long minimumRowCount, long seed) {
@@ -120,10 +122,14 @@ class SampleSourceBuildTest {
   void shouldRefuseASampleSourceSmallerThanTheSample() {
     FeaturePass pass = FeaturePass.training(randomHistory(MASTER_SEED + 2, 100, 120), FeatureSpec.defaults());
     RowStream shrinking = new RowStream() {
-      @Override public FeatureSchema schema() { return pass.schema(); }
-      @Override public long rowCount() { return pass.rowCount(); }
-      @Override public void stream(FeatureBatch batch, BatchConsumer consumer) { pass.stream(batch, consumer); }
-      @Override public RowStream sampleSource(long minimumRowCount, long seed) {
+      @Override
+      public FeatureSchema schema() { return pass.schema(); }
+      @Override
+      public long rowCount() { return pass.rowCount(); }
+      @Override
+      public void stream(FeatureBatch batch, BatchConsumer consumer) { pass.stream(batch, consumer); }
+      @Override
+      public RowStream sampleSource(long minimumRowCount, long seed) {
         // ignores the minimum: a broken override
         return pass.sampleSource(1, seed);
       }

@@ -39,7 +39,8 @@ class MemoryBudgetLimitsTest {
 
   @Test
   void shouldWatchThePeakOnlyWhileTheWindowIsOpen() {
-    try (MemoryBudget root = MemoryBudget.unlimited("run"); MemoryBudget store = root.child("store");
+    try (MemoryBudget root = MemoryBudget.unlimited("run");
+        MemoryBudget store = root.child("store");
         MemoryBudget stage = root.child("stage")) {
       stage.reserve(500);
       stage.release(500);

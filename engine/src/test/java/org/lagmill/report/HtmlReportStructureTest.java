@@ -23,9 +23,9 @@ import org.w3c.dom.Element;
 /** The HTML page's structure: sections, numbers in the tables, chart elements, self-containment, escaping. */
 class HtmlReportStructureTest {
   private static final long SEED = TestSeeds.master(20240527L);
-  private static final List<String> SECTION_IDS =
-      List.of("headline", "failures", "series", "drivers", "accuracy", "horizon", "training", "summary", "memory",
-          "caution");
+  private static final List<String> SECTION_IDS = List.of("headline", "failures", "series", "drivers", "accuracy",
+      "horizon", "training", "summary", "memory",
+      "caution");
 
   private static String f3(double v) {
     return String.format(Locale.ROOT, "%.3f", v);
@@ -296,7 +296,7 @@ class HtmlReportStructureTest {
     assertEquals(levels.size() + 1, rows.size());
     String best = null;
     double bestScore = Double.POSITIVE_INFINITY;
-    for (var it = json.get("baselineWrmsse").fields(); it.hasNext(); ) {
+    for (var it = json.get("baselineWrmsse").fields(); it.hasNext();) {
       var e = it.next();
       if (e.getValue().asDouble() < bestScore) {
         bestScore = e.getValue().asDouble();

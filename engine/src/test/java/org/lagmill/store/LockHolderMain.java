@@ -7,7 +7,7 @@ public final class LockHolderMain {
   private LockHolderMain() {}
 
   public static void main(String[] args) throws Exception {
-    StoreLock lock = StoreLock.acquire(Path.of(args[0]), false, text -> { });
+    StoreLock lock = StoreLock.acquire(Path.of(args[0]), false, text -> {});
     System.out.println("locked");
     System.out.flush();
     Thread.sleep(120_000);

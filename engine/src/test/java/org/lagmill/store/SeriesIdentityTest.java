@@ -61,14 +61,23 @@ class SeriesIdentityTest {
 
   /** Implements only the abstract methods, so the interface's default {@code attributeNames()} is what runs. */
   private record DelegatingAttributes(SeriesAttributes inner) implements SeriesAttributes {
-    @Override public int attributeCount() { return inner.attributeCount(); }
-    @Override public String attributeName(int attributeIndex) { return inner.attributeName(attributeIndex); }
-    @Override public int attributeIndex(String attributeName) { return inner.attributeIndex(attributeName); }
-    @Override public int cardinality(int attributeIndex) { return inner.cardinality(attributeIndex); }
-    @Override public int code(int seriesIndex, int attributeIndex) { return inner.code(seriesIndex, attributeIndex); }
-    @Override public String value(int attributeIndex, int code) { return inner.value(attributeIndex, code); }
-    @Override public int codeOf(int attributeIndex, String value) { return inner.codeOf(attributeIndex, value); }
-    @Override public String seriesId(int seriesIndex) { return inner.seriesId(seriesIndex); }
-    @Override public int seriesIndexOf(String seriesId) { return inner.seriesIndexOf(seriesId); }
+    @Override
+    public int attributeCount() { return inner.attributeCount(); }
+    @Override
+    public String attributeName(int attributeIndex) { return inner.attributeName(attributeIndex); }
+    @Override
+    public int attributeIndex(String attributeName) { return inner.attributeIndex(attributeName); }
+    @Override
+    public int cardinality(int attributeIndex) { return inner.cardinality(attributeIndex); }
+    @Override
+    public int code(int seriesIndex, int attributeIndex) { return inner.code(seriesIndex, attributeIndex); }
+    @Override
+    public String value(int attributeIndex, int code) { return inner.value(attributeIndex, code); }
+    @Override
+    public int codeOf(int attributeIndex, String value) { return inner.codeOf(attributeIndex, value); }
+    @Override
+    public String seriesId(int seriesIndex) { return inner.seriesId(seriesIndex); }
+    @Override
+    public int seriesIndexOf(String seriesId) { return inner.seriesIndexOf(seriesId); }
   }
 }

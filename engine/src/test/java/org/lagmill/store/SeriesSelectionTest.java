@@ -109,7 +109,8 @@ class SeriesSelectionTest {
         assertThrows(IllegalArgumentException.class,
             () -> SeriesSelection.select(history, null, List.of("shop=s9"))).getMessage());
     assertEquals("‹series› a/s9/d1: no such series in the store; list them with lagmill series --store DIR --match "
-        + "TEXT", assertThrows(IllegalArgumentException.class,
+        + "TEXT",
+        assertThrows(IllegalArgumentException.class,
             () -> SeriesSelection.select(history, List.of("a/s9/d1"), null)).getMessage());
   }
 }

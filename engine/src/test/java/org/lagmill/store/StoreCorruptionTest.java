@@ -19,7 +19,8 @@ import org.lagmill.memory.MemoryBudget;
 
 /** Injected faults on the store files: each must raise CorruptStoreException naming the file, expected and actual. */
 class StoreCorruptionTest {
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
   private Path dir;
   private MemoryBudget budget;
 

@@ -13,7 +13,8 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
 class StoreDirectoriesTest {
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   private List<String> siblings() throws IOException {
     try (Stream<Path> files = Files.list(temp)) {

@@ -18,7 +18,8 @@ class StoreFileSizesTest {
   private static final int FOOTER_BYTES = 8;
   private static final int SERIES_RECORD_BYTES = 20;
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @Test
   void shouldSizeFilesAsTheFormatDocumentSays() throws Exception {

@@ -14,7 +14,8 @@ import org.lagmill.memory.MemoryBudget;
 
 /** Checks the store files' footers against the published CRC-32C, a source outside our own code. */
 class StoreFormatExternalCheckTest {
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @Test
   void shouldUseTheStandardCrc32cInEveryFooter() throws Exception {

@@ -19,13 +19,14 @@ import org.junit.jupiter.api.io.TempDir;
 
 /** One writer at a time, within a process and across processes; a killed holder releases the lock. */
 class StoreLockTest {
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @Test
   void shouldRefuseASecondWriterInTheSameProcessWhenNotWaiting() throws Exception {
     Path dir = temp.resolve("store");
-    try (StoreLock first = StoreLock.acquire(dir, false, text -> { })) {
-      StoreBusyException e = assertThrows(StoreBusyException.class, () -> StoreLock.acquire(dir, false, t -> { }));
+    try (StoreLock first = StoreLock.acquire(dir, false, text -> {})) {
+      StoreBusyException e = assertThrows(StoreBusyException.class, () -> StoreLock.acquire(dir, false, t -> {}));
       assertEquals("store " + dir.toAbsolutePath() + " is being changed by process " + ProcessHandle.current().pid()
           + "; try again when it has finished", e.getMessage());
       assertNull(StoreLock.tryAcquire(dir));
@@ -40,7 +41,7 @@ class StoreLockTest {
     Path dir = temp.resolve("store");
     List<String> notices = new ArrayList<>();
     CountDownLatch waiting = new CountDownLatch(1);
-    StoreLock first = StoreLock.acquire(dir, false, text -> { });
+    StoreLock first = StoreLock.acquire(dir, false, text -> {});
     Thread second = new Thread(() -> {
       try (StoreLock lock = StoreLock.acquire(dir, true, text -> {
         notices.add(text);
@@ -68,13 +69,13 @@ class StoreLockTest {
     try {
       BufferedReader out = new BufferedReader(new InputStreamReader(holder.getInputStream(), StandardCharsets.UTF_8));
       assertEquals("locked", out.readLine());
-      StoreBusyException e = assertThrows(StoreBusyException.class, () -> StoreLock.acquire(dir, false, t -> { }));
+      StoreBusyException e = assertThrows(StoreBusyException.class, () -> StoreLock.acquire(dir, false, t -> {}));
       assertTrue(e.getMessage().contains("process " + holder.pid()), e.getMessage());
       assertNull(StoreLock.tryAcquire(dir));
       holder.destroyForcibly();
       assertTrue(holder.waitFor(30, TimeUnit.SECONDS));
       // The kernel dropped the dead process's lock: no stale lock file to clear by hand.
-      try (StoreLock lock = StoreLock.acquire(dir, false, t -> { })) {
+      try (StoreLock lock = StoreLock.acquire(dir, false, t -> {})) {
         assertNotNull(lock);
       }
     } finally {

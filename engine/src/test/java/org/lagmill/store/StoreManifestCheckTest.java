@@ -29,7 +29,8 @@ import org.lagmill.memory.MemoryBudget;
  * re-signed every checksum: a first sale day outside the store, a largest value that does not fit its width.
  */
 class StoreManifestCheckTest {
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
   private Path dir;
   private MemoryBudget budget;
   private RandomStoreData data;

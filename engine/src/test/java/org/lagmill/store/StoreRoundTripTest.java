@@ -15,7 +15,8 @@ import org.lagmill.memory.MemoryBudget;
 class StoreRoundTripTest {
   private static final long MASTER_SEED = TestSeeds.master(0x5EED_2024L);
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @Test
   void shouldReadBackEverySeriesDayAttributePriceAndCalendarValue() throws Exception {

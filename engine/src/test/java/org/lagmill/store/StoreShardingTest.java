@@ -26,7 +26,8 @@ class StoreShardingTest {
   // weekly periods, a calendar keyed by shop, closures past the last sales period.
   private static final List<String> NAMES = List.of("dept", "sku", "shop");
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @Test
   void shouldHoldEverySeriesOfTheStoreExactlyOnceWithItsUnitsPricesCalendarAndClosures() throws IOException {

@@ -17,7 +17,8 @@ class UnitsWidthTest {
   private static final UnitsWidth[] EXPECTED = {UnitsWidth.BYTE, UnitsWidth.BYTE, UnitsWidth.SHORT, UnitsWidth.SHORT,
       UnitsWidth.SHORT, UnitsWidth.SHORT, UnitsWidth.INT, UnitsWidth.INT, UnitsWidth.INT};
 
-  @TempDir Path temp;
+  @TempDir
+  Path temp;
 
   @Test
   void shouldPickTheNarrowestWidthThatLeavesTheSentinelFree() {

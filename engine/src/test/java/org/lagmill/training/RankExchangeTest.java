@@ -37,7 +37,7 @@ class RankExchangeTest {
     double[] expected = new double[7];
     for (int r = 0; r < rankCount; r++) {
       for (int i = 0; i < 7; i++) {
-        expected[i] += values[r][i];  // the order rank 0 adds in: its own, then ranks 1, 2, 3
+        expected[i] += values[r][i]; // the order rank 0 adds in: its own, then ranks 1, 2, 3
       }
     }
     ExecutorService pool = Executors.newFixedThreadPool(rankCount);
@@ -46,7 +46,7 @@ class RankExchangeTest {
       for (int r = 0; r < rankCount; r++) {
         int rank = r;
         results.add(pool.submit(() -> {
-          try (RankExchange exchange = RankExchange.join(cluster, rank, "same", TIMEOUT, m -> { })) {
+          try (RankExchange exchange = RankExchange.join(cluster, rank, "same", TIMEOUT, m -> {})) {
             double[] sums = exchange.sum(values[rank], "test sums");
             List<byte[]> all = exchange.gather(("rank " + rank).getBytes(), "test gather");
             return new Object[] {sums, all};
@@ -56,8 +56,7 @@ class RankExchangeTest {
       for (int r = 0; r < rankCount; r++) {
         Object[] result = results.get(r).get(30, TimeUnit.SECONDS);
         assertArrayEquals(expected, (double[]) result[0], 0, "seed " + MASTER_SEED + ", rank " + r);
-        @SuppressWarnings("unchecked")
-        List<byte[]> all = (List<byte[]>) result[1];
+        @SuppressWarnings("unchecked") List<byte[]> all = (List<byte[]>) result[1];
         for (int k = 0; k < rankCount; k++) {
           assertEquals("rank " + k, new String(all.get(k)));
         }
@@ -72,8 +71,8 @@ class RankExchangeTest {
     ClusterSpec cluster = ClusterSpec.parse(machines(2));
     ExecutorService pool = Executors.newFixedThreadPool(2);
     try {
-      Future<?> zero = pool.submit(() -> RankExchange.join(cluster, 0, "split A\nrounds 10", TIMEOUT, m -> { }));
-      Future<?> one = pool.submit(() -> RankExchange.join(cluster, 1, "split A\nrounds 20", TIMEOUT, m -> { }));
+      Future<?> zero = pool.submit(() -> RankExchange.join(cluster, 0, "split A\nrounds 10", TIMEOUT, m -> {}));
+      Future<?> one = pool.submit(() -> RankExchange.join(cluster, 1, "split A\nrounds 20", TIMEOUT, m -> {}));
       Exception atZero = assertThrows(Exception.class, () -> zero.get(30, TimeUnit.SECONDS));
       assertEquals("rank 1 trains something else than rank 0: rank 0 has rounds 10, this one rounds 20; every rank "
           + "needs a shard of the same split and the same options", atZero.getCause().getMessage());
@@ -123,7 +122,8 @@ class RankExchangeTest {
     assertEquals("‹machines› entry 'localhost' is not host:port; expected e.g. 10.0.0.5:12400,10.0.0.6:12400",
         assertThrows(IllegalArgumentException.class, () -> ClusterSpec.parse("localhost,h:2000")).getMessage());
     assertEquals("‹machines› entry 'h:12401' repeats the port of rank 0 + 1 (rank 0's exchange port); give each rank "
-        + "its own port", assertThrows(IllegalArgumentException.class,
+        + "its own port",
+        assertThrows(IllegalArgumentException.class,
             () -> ClusterSpec.parse("h:12400,h:12401")).getMessage());
     assertEquals("‹machines› lists 1 machines; expected 2 to 256 (one machine trains without ‹machines›)",
         assertThrows(IllegalArgumentException.class, () -> ClusterSpec.parse("h:12400")).getMessage());
