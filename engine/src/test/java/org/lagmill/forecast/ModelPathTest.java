@@ -43,7 +43,7 @@ class ModelPathTest {
       java.nio.file.FileSystemException e = assertThrows(java.nio.file.FileSystemException.class,
           () -> org.lagmill.store.SalesStore.open(model, budget));
       assertEquals(model + ": not a store: it holds a trained model; give the folder ingest wrote (a model folder"
-          + " goes to --model)", e.getMessage());
+          + " goes to ‹model›)", e.getMessage());
       assertEquals(0, budget.heldBytes());
     }
   }
