@@ -148,26 +148,7 @@ public final class StoreSharding {
 
   /** The plan with every key kept (keys are few) and each shard series pointing at its source series' key. */
   private static PlanTable selectedPlan(PlanTable plan, int[] sourceIndexes) {
-    return new PlanTable() {
-      @Override
-      public int columnCount() { return plan.columnCount(); }
-      @Override
-      public String columnName(int c) { return plan.columnName(c); }
-      @Override
-      public List<String> keyAttributeNames() { return plan.keyAttributeNames(); }
-      @Override
-      public int keyOf(int s) { return plan.keyOf(sourceIndexes[s]); }
-      @Override
-      public int keyCount() { return plan.keyCount(); }
-      @Override
-      public int changeCount(int k) { return plan.changeCount(k); }
-      @Override
-      public int changeDayIndex(int k, int i) { return plan.changeDayIndex(k, i); }
-      @Override
-      public float changeValue(int k, int i, int c) { return plan.changeValue(k, i, c); }
-      @Override
-      public int reachDayIndex() { return plan.reachDayIndex(); }
-    };
+    return PlanTable.withSeriesKeys(plan, s -> plan.keyOf(sourceIndexes[s]));
   }
 
   private static String finest(SeriesAttributes attributes, SalesStore store) {
