@@ -26,7 +26,7 @@ import picocli.CommandLine.Command;
         "Exit codes: 0 ok, 1 internal error, 2 usage error, 3 bad input, 4 corrupt store,",
         "            5 out of memory budget, 6 file not readable or writable, or not ours",
         "            to replace, 7 store busy (being written, and --no-wait was given),",
-        "            8 Java heap exhausted"})
+        "            8 Java heap exhausted, 9 a distributed training rank failed"})
 public final class Main {
 
   public static void main(String[] args) {
