@@ -15,9 +15,13 @@ final class FlagNames {
     return "--" + setting.key();
   }
 
-  /** Engine text as the command line shows it: each setting mention replaced by its flag. */
+  static String commandOf(Setting.Command command) {
+    return "lagmill " + command.key();
+  }
+
+  /** Engine text as the command line shows it: each setting mention replaced by its flag, each command by its line. */
   static String render(String engineText) {
-    return Setting.render(engineText, FlagNames::flagOf);
+    return Setting.render(engineText, FlagNames::flagOf, FlagNames::commandOf);
   }
 
   static List<String> render(List<String> engineTexts) {

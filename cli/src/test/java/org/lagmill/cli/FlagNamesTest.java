@@ -26,6 +26,17 @@ class FlagNamesTest {
   }
 
   @Test
+  void shouldMapEveryCommandMentionToASubcommand() {
+    Set<String> subcommands = Main.commandLine().getSubcommands().keySet();
+    for (Setting.Command command : Setting.Command.values()) {
+      assertTrue(subcommands.contains(command.key()), command + " names no subcommand");
+    }
+    String hint = "list them with " + Setting.Command.SERIES + " " + Setting.STORE + " stores/chain";
+    assertEquals("list them with \u2039series command\u203a \u2039store\u203a stores/chain", hint);
+    assertEquals("list them with lagmill series --store stores/chain", FlagNames.render(hint));
+  }
+
+  @Test
   void shouldShowAnEngineRefusalWithTheFlag() {
     IllegalArgumentException e = org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
         () -> new BacktestSettings(0, 7, 7, java.util.List.of(), Hierarchy.parse(java.util.List.of()),

@@ -25,9 +25,45 @@ public enum Setting {
                                               "partition-by"), MACHINES("machines"), RANK("rank"), RANK_TIMEOUT(
                                                   "rank-timeout"), SCENARIO_SERIES("series"), SCENARIO_DAYS(
                                                       "days"), SCENARIO_FUTURE_DAYS("future-days"), SCENARIO_START(
-                                                          "start"), SCENARIO_PERIOD("period");
+                                                          "start"), SCENARIO_PERIOD("period"), STORE("store"), REPORT(
+                                                              "report"), BACKTEST_REPORT("backtest"), UNTIL("until");
 
-  private static final Pattern MENTION = Pattern.compile("\u2039([a-z-]+)\u203a");
+  /**
+   * A task a front end offers, named in engine hints ({@code Command.APPEND + " " + Setting.PLAN + " FILE"}); the
+   * command line shows it as its subcommand ({@code lagmill append --plan FILE}). Without rendering a mention reads
+   * {@code ‹append command›}.
+   */
+  public enum Command {
+    SERIES("series"), APPEND("append"), BACKTEST("backtest"), EVALUATE("evaluate"), SHARD("shard");
+
+    private final String key;
+
+    Command(String key) {
+      this.key = key;
+    }
+
+    /** The neutral name, e.g. {@code append}. */
+    public String key() {
+      return key;
+    }
+
+    /** The mention that engine messages carry, e.g. {@code ‹append command›}. */
+    @Override
+    public String toString() {
+      return "\u2039" + key + " command\u203a";
+    }
+
+    private static Command byKey(String key) {
+      for (Command c : values()) {
+        if (c.key.equals(key)) {
+          return c;
+        }
+      }
+      return null;
+    }
+  }
+
+  private static final Pattern MENTION = Pattern.compile("\u2039([a-z-]+)( command)?\u203a");
 
   private final String key;
 
@@ -47,19 +83,26 @@ public enum Setting {
   }
 
   /**
-   * The text with every mention replaced by {@code names} of its setting; a mention of an unknown key is left as it is.
-   * Settings that share a key (the generator's series count and a series choice) are told apart by the command, so
-   * a front end names them alike.
+   * The text with every mention replaced by {@code names} of its setting or {@code commands} of its command; a mention
+   * of an unknown key is left as it is. Settings that share a key (the generator's series count and a series choice)
+   * are told apart by the command, so a front end names them alike.
    */
-  public static String render(String text, Function<Setting, String> names) {
+  public static String render(String text, Function<Setting, String> names, Function<Command, String> commands) {
     if (text == null || text.indexOf('\u2039') < 0) {
       return text;
     }
     Matcher m = MENTION.matcher(text);
     StringBuilder out = new StringBuilder();
     while (m.find()) {
-      Setting setting = byKey(m.group(1));
-      m.appendReplacement(out, Matcher.quoteReplacement(setting == null ? m.group() : names.apply(setting)));
+      String shown;
+      if (m.group(2) != null) {
+        Command command = Command.byKey(m.group(1));
+        shown = command == null ? m.group() : commands.apply(command);
+      } else {
+        Setting setting = byKey(m.group(1));
+        shown = setting == null ? m.group() : names.apply(setting);
+      }
+      m.appendReplacement(out, Matcher.quoteReplacement(shown));
     }
     m.appendTail(out);
     return out.toString();
