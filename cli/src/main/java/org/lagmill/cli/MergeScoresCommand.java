@@ -52,7 +52,7 @@ final class MergeScoresCommand implements Callable<Integer> {
     ScoringPart first = read.get(0);
     out.printf(Locale.ROOT, "%d scoring parts, origin period %d, horizon %d%n", read.size(), first.originDay(),
         first.horizon());
-    EvaluateCommand.printLevels(out, result);
+    EvaluatePrinter.printLevels(out, result);
     return ExitCodes.OK;
   }
 }

@@ -1,4 +1,4 @@
-package org.lagmill.cli;
+package org.lagmill.run;
 
 import java.util.ArrayList;
 import java.util.List;
