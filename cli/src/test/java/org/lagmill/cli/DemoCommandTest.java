@@ -13,6 +13,7 @@ import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.features.FeatureSpecYaml;
+import org.lagmill.run.DemoJob;
 import org.lagmill.run.RunRecord;
 
 /** The README's first command, at its small size: every artefact it promises, and a model that beats the baselines. */
@@ -29,7 +30,7 @@ class DemoCommandTest {
       assertTrue(Files.isRegularFile(out.resolve(file)), "missing " + file);
     }
     List<String> forecast = Files.readAllLines(out.resolve("forecast.csv"));
-    assertEquals(1 + DemoCommand.Size.SMALL.seriesCount * DemoCommand.HORIZON_DAYS, forecast.size());
+    assertEquals(1 + DemoJob.Size.SMALL.seriesCount * DemoJob.HORIZON_DAYS, forecast.size());
     assertTrue(forecast.get(0).endsWith(",date,forecast,q0.005,q0.025,q0.165,q0.25,q0.5,q0.75,q0.835,q0.975,q0.995"),
         forecast.get(0));
     Matcher skill = SKILL.matcher(run.out());
@@ -38,7 +39,7 @@ class DemoCommandTest {
     assertTrue(Double.parseDouble(skill.group(1)) < 0.9, run.out());
     assertTrue(run.out().contains("never automatic orders"), run.out());
     JsonNode record = RunRecord.JSON.readTree(out.resolve("run.json").toFile());
-    assertEquals(DemoCommand.BACKTEST_ORIGINS + 1, record.path("results").path("backtest").path("origins").size());
+    assertEquals(DemoJob.BACKTEST_ORIGINS + 1, record.path("results").path("backtest").path("origins").size());
     // Every stage in order, each measured by its own Stage: ingest maps and buffers off-heap, the generator does not.
     List<String> stageNames = new ArrayList<>();
     record.path("stages").forEach(stage -> stageNames.add(stage.path("name").asText()));

@@ -11,7 +11,7 @@ class DemoSpecTest {
   @Test
   void shouldMatchTheExampleConfigurationTheDocsPointTo() throws Exception {
     FeatureSpec documented = FeatureSpecYaml.read(Path.of("../docs/examples/recursive-short-lags.yaml"));
-    assertEquals(documented, DemoCommand.demoSpec());
+    assertEquals(documented, org.lagmill.run.DemoJob.spec());
   }
 
   @Test

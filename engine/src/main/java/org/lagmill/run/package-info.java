@@ -6,7 +6,8 @@
  * the report say about time and memory is what the stages measured.
  *
  * <p>Entry points, one per command that runs the pipeline: {@link org.lagmill.run.TrainJob},
- * {@link org.lagmill.run.ForecastJob}, {@link org.lagmill.run.EvaluateJob}, {@link org.lagmill.run.BacktestJob}. Each
+ * {@link org.lagmill.run.ForecastJob}, {@link org.lagmill.run.EvaluateJob}, {@link org.lagmill.run.BacktestJob},
+ * {@link org.lagmill.run.DemoJob}. Each
  * takes a request of plain values, writes every file itself and returns what a front end prints; warnings go to a sink
  * as engine text with setting mentions.
  *
