@@ -1,5 +1,6 @@
 package org.lagmill.io;
 
+import java.util.Locale;
 import java.util.function.Function;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
@@ -34,32 +35,17 @@ public enum Setting {
    * {@code ‹append command›}.
    */
   public enum Command {
-    SERIES("series"), APPEND("append"), BACKTEST("backtest"), EVALUATE("evaluate"), SHARD("shard");
+    SERIES, APPEND, BACKTEST, EVALUATE, SHARD;
 
-    private final String key;
-
-    Command(String key) {
-      this.key = key;
-    }
-
-    /** The neutral name, e.g. {@code append}. */
+    /** The neutral name: the constant in lower case, words joined by '-', e.g. {@code append}. */
     public String key() {
-      return key;
+      return name().toLowerCase(Locale.ROOT).replace('_', '-');
     }
 
     /** The mention that engine messages carry, e.g. {@code ‹append command›}. */
     @Override
     public String toString() {
-      return "\u2039" + key + " command\u203a";
-    }
-
-    private static Command byKey(String key) {
-      for (Command c : values()) {
-        if (c.key.equals(key)) {
-          return c;
-        }
-      }
-      return null;
+      return "\u2039" + key() + " command\u203a";
     }
   }
 
@@ -96,10 +82,10 @@ public enum Setting {
     while (m.find()) {
       String shown;
       if (m.group(2) != null) {
-        Command command = Command.byKey(m.group(1));
+        Command command = byKey(Command.values(), Command::key, m.group(1));
         shown = command == null ? m.group() : commands.apply(command);
       } else {
-        Setting setting = byKey(m.group(1));
+        Setting setting = byKey(values(), Setting::key, m.group(1));
         shown = setting == null ? m.group() : names.apply(setting);
       }
       m.appendReplacement(out, Matcher.quoteReplacement(shown));
@@ -108,10 +94,10 @@ public enum Setting {
     return out.toString();
   }
 
-  private static Setting byKey(String key) {
-    for (Setting s : values()) {
-      if (s.key.equals(key)) {
-        return s;
+  private static <E> E byKey(E[] values, Function<E, String> keyOf, String key) {
+    for (E value : values) {
+      if (keyOf.apply(value).equals(key)) {
+        return value;
       }
     }
     return null;
