@@ -4,6 +4,7 @@ import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.nio.file.InvalidPathException;
 import java.nio.file.NoSuchFileException;
+import org.lagmill.ingest.InputFiles;
 import org.lagmill.ingest.InputFormatException;
 import org.lagmill.io.CorruptFileException;
 import org.lagmill.io.InvalidRequestException;
@@ -51,6 +52,9 @@ public final class Main {
     HelpLayout.apply(cli);
     cli.setExecutionExceptionHandler((e, commandLine, parseResult) -> {
       Throwable t = e instanceof UncheckedIOException u ? u.getCause() : e;
+      if (t instanceof InputFormatException bad) {
+        t = InputFiles.blameCompressedStream(bad);
+      }
       commandLine.getErr().println("lagmill: " + FlagNames.render(message(t)));
       return exitCodeOf(t);
     });
