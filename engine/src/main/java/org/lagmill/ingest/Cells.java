@@ -144,7 +144,15 @@ final class Cells {
     }
   }
 
-  /** A text cell holding a NUL character, a sign of a UTF-16 or binary file, is refused wherever it is read. */
+  /** How a header cell is named in a message about the cell itself. */
+  static final String HEADER_CELL = "header cell";
+
+  /**
+   * A cell holding a NUL character, a sign of a UTF-16 or binary file, is refused wherever it is read: every cell of
+   * every field-based input file in {@link CsvSource}, the text cells of wide sales files in their reader.
+   *
+   * @param columnName the column's header name, or {@link #HEADER_CELL} for a cell of the header itself
+   */
   static void requireNoNul(Path file, long line, int column, String columnName, String value) {
     if (value.indexOf('\0') >= 0) {
       throw new InputFormatException(file, line, column, columnName + " '" + Excerpts.of(value) + "' holds a NUL"

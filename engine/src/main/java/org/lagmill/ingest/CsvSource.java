@@ -28,12 +28,15 @@ import java.nio.file.Path;
  * thread-safe; close it (try-with-resources).
  */
 public final class CsvSource implements AutoCloseable {
-  private static final int GZIP_BUFFER_BYTES = 1 << 16;
+  static {
+    ColumnLimit.raiseParserLimit();
+  }
 
   private final Path file;
   private final CsvReader<CsvRecord> reader;
   private final CloseableIterator<CsvRecord> records;
   private int headerFieldCount = -1;
+  private String[] header;
   private long lineNumber;
 
   private CsvSource(Path file, CsvReader<CsvRecord> reader) {
@@ -69,7 +72,8 @@ public final class CsvSource implements AutoCloseable {
   /**
    * Reads the first non-blank line as the header.
    *
-   * @throws InputFormatException "empty file: expected a header line" when the file holds no line
+   * @throws InputFormatException "empty file: expected a header line" when the file holds no line, or a header cell
+   *     holds a NUL character
    */
   public String[] readHeader() {
     if (headerFieldCount >= 0) {
@@ -83,23 +87,34 @@ public final class CsvSource implements AutoCloseable {
     if (header.length > 0 && header[0].startsWith("\uFEFF")) {
       header[0] = header[0].substring(1);
     }
+    for (int c = 0; c < header.length; c++) {
+      Cells.requireNoNul(file, lineNumber, c + 1, Cells.HEADER_CELL, header[c]);
+    }
     headerFieldCount = header.length;
+    this.header = header.clone();
     return header;
   }
 
   /**
    * The next data record, or null at the end of the file. Its field count equals the header's.
    *
-   * @throws InputFormatException on a record with another field count, invalid UTF-8 or a damaged gzip stream
+   * @throws InputFormatException on a record with another field count, a NUL character, invalid UTF-8 or a damaged
+   *     gzip stream
    */
   public CsvRecord next() {
     if (headerFieldCount < 0) {
       throw new IllegalStateException("read the header of " + file + " first");
     }
     CsvRecord record = fetch();
-    if (record != null && record.getFieldCount() != headerFieldCount) {
+    if (record == null) {
+      return null;
+    }
+    if (record.getFieldCount() != headerFieldCount) {
       throw new InputFormatException(file, lineNumber, 0, "found " + record.getFieldCount() + " fields, expected "
           + headerFieldCount + " as in the header");
+    }
+    for (int c = 0; c < headerFieldCount; c++) {
+      Cells.requireNoNul(file, lineNumber, c + 1, header[c], record.getField(c));
     }
     return record;
   }
@@ -111,6 +126,9 @@ public final class CsvSource implements AutoCloseable {
       }
       CsvRecord record = records.next();
       lineNumber = record.getStartingLineNumber();
+      if (ColumnLimit.exceeds(record.getFieldCount())) {
+        throw ColumnLimit.refusal(file, lineNumber);
+      }
       return record;
     } catch (UncheckedIOException e) {
       throw translate(e.getCause());
@@ -122,6 +140,9 @@ public final class CsvSource implements AutoCloseable {
       if (cause instanceof IOException io) {
         throw translate(io);
       }
+      if (ColumnLimit.isParserRefusal(e)) {
+        throw ColumnLimit.refusal(file, lineNumber + 1);
+      }
       throw new InputFormatException(file, lineNumber + 1, 0, "unreadable CSV after this line: " + e.getMessage(), e);
     }
   }
@@ -130,7 +151,7 @@ public final class CsvSource implements AutoCloseable {
     if (e instanceof CharacterCodingException) {
       return locateInvalidUtf8(e);
     }
-    return InputFiles.failure(file, 0, e);
+    return InputFiles.failure(file, lineNumber, e);
   }
 
   /**

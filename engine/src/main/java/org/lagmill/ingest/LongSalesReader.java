@@ -359,11 +359,10 @@ public final class LongSalesReader {
       return b.toString();
     }
 
-    /** A new series' attribute cells are text without NUL characters and its id is not empty. */
+    /** A new series' id is not empty (NUL characters are refused by {@link CsvSource}). */
     void checkNamesSeries(Path file, long line, CsvRecord record) {
       boolean allEmpty = true;
       for (int c : attributeColumns) {
-        Cells.requireNoNul(file, line, c + 1, header[c], record.getField(c));
         allEmpty &= record.getField(c).isEmpty();
       }
       if (seriesIdIndex >= 0) {

@@ -125,6 +125,9 @@ public final class WideSalesReader implements AutoCloseable {
     List<String> names = new ArrayList<>();
     int ending;
     do {
+      if (ColumnLimit.exceeds(names.size() + 1L)) {
+        throw ColumnLimit.refusal(file, 1);
+      }
       names.add(readTextCell(names.size()));
       ending = endCell(names.size() - 1);
     } while (ending == COMMA);
@@ -390,13 +393,9 @@ public final class WideSalesReader implements AutoCloseable {
       throw error(column, String.format("expected UTF-8 text, found the invalid byte 0x%02X at byte %d of the cell",
           scratch[invalid] & 0xFF, invalid + 1));
     }
-    for (int i = 0; i < scratchLength; i++) {
-      if (scratch[i] == 0) {
-        throw error(column, "found a NUL character at byte " + (i + 1) + " of the cell: expected text (is the file"
-            + " UTF-16 or binary?)");
-      }
-    }
-    return new String(scratch, 0, scratchLength, StandardCharsets.UTF_8);
+    String text = new String(scratch, 0, scratchLength, StandardCharsets.UTF_8);
+    Cells.requireNoNul(file, lineNumber, column + 1, lineNumber == 1 ? Cells.HEADER_CELL : columnNames[column], text);
+    return text;
   }
 
   private void append(byte b) {

@@ -71,6 +71,19 @@ class CsvSourceTest {
   }
 
   @Test
+  void shouldRefuseANulCharacterInAnyCellNamingItsColumn() {
+    // every field-based reader (long sales, calendar, prices, plan, closures, forecast files) reads through here
+    Path inData = IngestFiles.write(dir, "d.csv", "date,price\n2024-01-01,1\n2024-01-02,2\0\n");
+    assertEquals(inData + ", line 3, column 2: price '2\\0' holds a NUL character: expected text (is the file UTF-16 or"
+        + " binary?)", assertThrows(InputFormatException.class, () -> readAll(inData)).getMessage());
+    Path inHeader = IngestFiles.write(dir, "h.csv.gz", "date,\0p\0r\0i\0c\0e\n2024-01-01,1\n");
+    assertEquals(inHeader + ", line 1, column 2: header cell '\\0p\\0r\\0i\\0c\\0e' holds a NUL character: expected"
+        + " text (is the file UTF-16 or binary?)",
+        assertThrows(InputFormatException.class, () -> readAll(inHeader))
+            .getMessage());
+  }
+
+  @Test
   void shouldRejectTruncatedGzip() throws IOException {
     StringBuilder text = new StringBuilder("a,b\n");
     for (int i = 0; i < 2000; i++) {
@@ -81,8 +94,9 @@ class CsvSourceTest {
     Path cut = IngestFiles.write(dir, "cut.csv", Arrays.copyOf(gz, gz.length / 2));
     Path cutGz = Files.move(cut, dir.resolve("cut.csv.gz"));
     InputFormatException e = assertThrows(InputFormatException.class, () -> readAll(cutGz));
-    assertEquals(cutGz + ": truncated gzip stream: expected more compressed data, found the end of the file",
-        e.getMessage());
+    // the line the reader had reached when the compressed data ran out
+    assertEquals(cutGz + ", line " + e.lineNumber() + ": truncated gzip stream: expected more compressed data, found"
+        + " the end of the file", e.getMessage());
   }
 
   @ParameterizedTest

@@ -229,8 +229,10 @@ class WideSalesReaderTest {
         failure(write("w.csv", "series_id,item,2024-03-01\n,a,1\n")));
     assertEquals("w.csv, line 2, column 3: key is empty: expected a value naming the series",
         failure(write("w.csv", "item,2024-03-01,key\na,1,\n"), "key"));
-    assertEquals("w.csv, line 2, column 1: found a NUL character at byte 2 of the cell: expected text (is the file"
-        + " UTF-16 or binary?)", failure(write("w.csv", "item,2024-03-01\na\0b,1\n")));
+    assertEquals("w.csv, line 2, column 1: item 'a\\0b' holds a NUL character: expected text (is the file UTF-16 or"
+        + " binary?)", failure(write("w.csv", "item,2024-03-01\na\0b,1\n")));
+    assertEquals("w.csv, line 1, column 2: header cell 'st\\0' holds a NUL character: expected text (is the file"
+        + " UTF-16 or binary?)", failure(write("w.csv", "item,st\0,2024-03-01\na,b,1\n")));
     assertEquals("w.csv, line 2, column 2: expected a non-negative integer number of units, found \"\\02\"",
         failure(write("w.csv", "item,2024-03-01\na,\0002\n")));
   }
