@@ -76,6 +76,8 @@ public final class TrainJob {
 
   private static Outcome trainHere(Request request, SalesStore opened, TrainingPlan plan, Run run,
       ProgressListener progress) throws IOException {
+    // refused before the training, not after it
+    ModelDirectory.checkTarget(request.modelDir());
     run.record().configure("store", request.storeDir().toString()).configure("model", request.modelDir().toString())
         .configure("cutDate", opened.dateOf(plan.cutDayIndex()).toString()).configure("plan", plan.toString());
     Outcome outcome;

@@ -8,6 +8,7 @@ import java.io.BufferedReader;
 import java.io.BufferedWriter;
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
+import java.nio.file.FileSystemException;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
@@ -22,7 +23,9 @@ import org.lagmill.features.FeatureSpecYaml;
 import org.lagmill.io.Crc32c;
 import org.lagmill.io.CsvCells;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.OutputRefusedException;
 import org.lagmill.io.OutputTargets;
+import org.lagmill.io.Setting;
 import org.lagmill.io.SealedJson;
 import org.lagmill.learner.TrainedModel;
 import org.lagmill.store.CorruptStoreException;
@@ -61,9 +64,7 @@ public final class ModelDirectory {
    */
   public static ModelManifest save(ModelSet models, Path dir, SalesHistory history, TrainingPlan plan,
       String storeFingerprint, List<SeriesDispersion> dispersionRows) throws IOException {
-    StoreDirectories.recoverSiblings(dir);
-    OutputTargets.checkFolder(dir.toAbsolutePath().normalize(), "model directory", ModelDirectory::looksLikeModel,
-        Set.of());
+    checkTarget(dir);
     Path temp = StoreDirectories.createTempSibling(dir);
     try {
       Map<String, String> checksums = new LinkedHashMap<>();
@@ -93,13 +94,30 @@ public final class ModelDirectory {
     }
   }
 
+  /**
+   * Checks, before anything is trained or written, that a model may be saved at {@code dir}: a missing or empty
+   * folder or one holding a model; a store folder is refused in those words, anything else as not ours.
+   *
+   * @throws org.lagmill.io.OutputRefusedException when {@code dir} holds a store or anything but a model
+   */
+  public static void checkTarget(Path dir) throws IOException {
+    StoreDirectories.recoverSiblings(dir);
+    if (holdsAStore(dir)) {
+      throw new OutputRefusedException(dir, OutputRefusedException.Reason.NOT_OURS, "it holds a sales store, not a"
+          + " model; nothing was changed, choose a new or empty folder for the model (a store folder goes to "
+          + Setting.STORE + ")");
+    }
+    OutputTargets.checkFolder(dir.toAbsolutePath().normalize(), "model directory", ModelDirectory::looksLikeModel,
+        Set.of());
+  }
+
   /** Reads only the manifest, checking its checksum (format version 2) and version. */
   public static ModelManifest readManifest(Path dir) throws IOException {
     StoreDirectories.recoverSiblings(dir);
     Path file = dir.resolve(ModelManifest.FILE_NAME);
     if (holdsAStore(dir)) {
-      throw new NoSuchFileException(dir.toString(), null, "not a model directory: it holds a sales store; give the "
-          + "folder a model was trained into");
+      throw new FileSystemException(dir.toString(), null, "not a model: it holds a sales store; give the folder"
+          + " train wrote (a store folder goes to " + Setting.STORE + ")");
     }
     if (!Files.exists(file)) {
       throw new NoSuchFileException(file.toString(), null, "not a model directory: no " + ModelManifest.FILE_NAME);

@@ -4,12 +4,13 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 
 import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
+import java.nio.file.FileSystemException;
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.ingest.IngestOptions;
 import org.lagmill.ingest.StoreIngest;
+import org.lagmill.io.OutputRefusedException;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.training.ModelDirectory;
 import org.lagmill.training.ModelSet;
@@ -26,10 +27,14 @@ class ModelPathTest {
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       StoreIngest.ingest(IngestOptions.of(sales, store), budget);
     }
-    NoSuchFileException e = assertThrows(NoSuchFileException.class, () -> ModelDirectory.readManifest(store));
-    assertEquals(store.toString(), e.getFile());
-    assertEquals("not a model directory: it holds a sales store; give the folder a model was trained into",
-        e.getReason());
+    // the mirror of a model given as the store, below: which folder it is and where it belongs
+    FileSystemException e = assertThrows(FileSystemException.class, () -> ModelDirectory.readManifest(store));
+    assertEquals(store + ": not a model: it holds a sales store; give the folder train wrote (a store folder goes to"
+        + " ‹store›)", e.getMessage());
+    OutputRefusedException refused = assertThrows(OutputRefusedException.class,
+        () -> ModelDirectory.checkTarget(store));
+    assertEquals("refusing to write " + store + ": it holds a sales store, not a model; nothing was changed, choose a"
+        + " new or empty folder for the model (a store folder goes to ‹store›)", refused.getMessage());
   }
 
   @Test
