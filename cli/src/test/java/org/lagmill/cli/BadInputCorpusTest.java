@@ -88,6 +88,34 @@ class BadInputCorpusTest {
     return joined;
   }
 
+  /** A long sales file of {@code rowCount} rows, varied enough that its deflate stream has many blocks. */
+  private static String longSalesText(int rowCount) {
+    StringBuilder b = new StringBuilder("sku,date,units\n");
+    for (int i = 0; i < rowCount; i++) {
+      b.append("s").append(i / 40).append(",2024-01-").append(String.format("%02d", 1 + i % 28)).append(',')
+          .append((i * 7919) % 13).append('\n');
+    }
+    return b.toString();
+  }
+
+  /** Twenty compressed bytes in the middle of a gzip file flipped: damage gzip finds only at the member's end. */
+  private static byte[] flippedInTheMiddle(byte[] gz) {
+    byte[] damaged = gz.clone();
+    for (int i = damaged.length / 2; i < damaged.length / 2 + 20; i++) {
+      damaged[i] ^= 0x55;
+    }
+    return damaged;
+  }
+
+  private static byte[] oneLineOfColumns(int columnCount) {
+    byte[] line = new byte[2 * columnCount];
+    for (int c = 0; c < columnCount; c++) {
+      line[2 * c] = 'x';
+      line[2 * c + 1] = (byte) (c == columnCount - 1 ? '\n' : ',');
+    }
+    return line;
+  }
+
   static Stream<Case> cases() {
     List<Case> c = new ArrayList<>();
     String ingest = "ingest --sales FILE --store OUT";
@@ -106,7 +134,7 @@ class BadInputCorpusTest {
     c.add(text("sales wide", "an empty series id", "w.csv", "series_id,item,2024-03-01\n,a,1\n", ingest, 3,
         "w.csv, line 2, column 1: series_id is empty: expected a value naming the series"));
     c.add(text("sales wide", "a NUL character", "w.csv", "item,2024-03-01\na\0b,1\n", ingest, 3,
-        "w.csv, line 2, column 1: found a NUL character at byte 2 of the cell"));
+        "w.csv, line 2, column 1: item 'a\\0b' holds a NUL character: expected text"));
     c.add(text("sales wide", "a 100,000-character cell quoted as an excerpt", "w.csv", "item,2024-03-01\na,"
         + "9".repeat(100_000) + "\n", ingest, 3, "w.csv, line 2, column 2: expected a number of units of at most"));
     c.add(text("sales wide", "append moves a known series", "w.csv", TINY_HEADER + ",2026-01-19\n"
@@ -138,6 +166,19 @@ class BadInputCorpusTest {
     c.add(bytes("sales gzip", "not gzip data", "w.csv.gz", plainSales, ingest, 3, "not gzip data"));
     c.add(bytes("sales gzip", "cut short", "w.csv.gz", Arrays.copyOf(gzip(plainSales), 40), ingest, 3,
         "truncated gzip stream"));
+    byte[] longPlain = longSalesText(4000).getBytes(StandardCharsets.UTF_8);
+    c.add(bytes("sales gzip", "corrupted mid-stream, long", "l.csv.gz", flippedInTheMiddle(gzip(longPlain)), ingest
+        + " --sales-format long", 3, "compressed data is corrupt ("));
+    c.add(bytes("sales gzip", "corrupted mid-stream, wide", "w.csv.gz", flippedInTheMiddle(gzip(plainSales)), ingest,
+        3, "compressed data is corrupt ("));
+    c.add(bytes("sales gzip", "bytes after the end", "w.csv.gz", concat(gzip(plainSales), "garbage\n".getBytes(
+        StandardCharsets.UTF_8)), ingest, 3, "8 bytes after the end of the gzip data at byte "));
+    c.add(bytes("calendar gzip", "zero bytes after the end", "cal.csv.gz", concat(gzip(
+        "date,x\n2026-01-05,1\n".getBytes(StandardCharsets.UTF_8)), new byte[4]), "ingest --sales TINY/sales.csv"
+            + " --calendar FILE --store OUT",
+        3, "4 bytes after the end of the gzip data"));
+    c.add(bytes("sales wide", "more columns than the limit", "w.csv", oneLineOfColumns(1_048_577), ingest, 3,
+        "w.csv, line 1: more than 1,048,576 columns: expected at most 1,048,576 columns in a line"));
     // calendar
     String ingestCal = "ingest --sales TINY/sales.csv --calendar FILE --store OUT";
     c.add(text("calendar", "a gap", "cal.csv", "date,x\n2026-01-05,1\n2026-01-07,1\n", ingestCal, 3,
@@ -146,6 +187,10 @@ class BadInputCorpusTest {
         ingestCal, 3, "cal.csv, line 3, column 2: calendar column 'temp' value 'NaN': expected a finite number"));
     c.add(text("calendar", "a number beyond float32", "cal.csv", "date,temp\n2026-01-05,1e39\n", ingestCal, 3,
         "value '1e39': expected a number of at most 3.4028235E38 in size"));
+    c.add(text("calendar", "a NUL character", "cal.csv", "date,x\n2026-01-05,1\0\n", ingestCal, 3,
+        "cal.csv, line 2, column 2: x '1\\0' holds a NUL character: expected text"));
+    c.add(text("calendar", "a UTF-16 header", "cal.csv", "d\0a\0t\0e\0\n2026-01-05\n", ingestCal, 3,
+        "cal.csv, line 1, column 1: header cell 'd\\0a\\0t\\0e\\0' holds a NUL character"));
     c.add(text("calendar", "keyed by an unknown attribute", "cal.csv", "date,p[color=red]\n2026-01-05,1\n",
         ingestCal, 3, "is keyed by 'color', which is not a series attribute"));
     // prices
@@ -156,6 +201,8 @@ class BadInputCorpusTest {
         ingestPrices, 3, "price 'Infinity': expected a decimal number > 0"));
     c.add(text("prices", "a price beyond float32", "p.csv", "item,from,price\nPNT-D1-0001,2026-01-05,1e39\n",
         ingestPrices, 3, "price '1e39': expected a decimal number > 0 and at most 3.4028235E38"));
+    c.add(text("prices", "a NUL character", "p.csv", "item,from,price\nPNT-D1-0001\0,2026-01-05,1\n", ingestPrices,
+        3, "p.csv, line 2, column 1: item 'PNT-D1-0001\\0' holds a NUL character: expected text"));
     c.add(text("prices", "no key columns", "p.csv", "from,price\n2026-01-05,1\n", ingestPrices, 3,
         "no key columns"));
     // closures
@@ -164,6 +211,12 @@ class BadInputCorpusTest {
         ingestClosures, 3, "x.csv, line 2"));
     c.add(text("closures", "not a date", "x.csv", "store,from,until\nNV-01,soon,2026-01-07\n", ingestClosures, 3,
         "x.csv, line 2, column 2"));
+    c.add(text("closures", "a NUL character", "x.csv", "store,from,until\nNV-01,2026-01-07,2026-01-08\0\n",
+        ingestClosures, 3, "x.csv, line 2, column 3: until '2026-01-08\\0' holds a NUL character: expected text"));
+    // plan
+    c.add(text("plan", "a NUL character", "plan.csv", "item,date,promo\nPNT-D1-0001,2026-01-06,\0\n",
+        "ingest --sales TINY/sales.csv --plan FILE --store OUT", 3,
+        "plan.csv, line 2, column 3: promo '\\0' holds a NUL character: expected text"));
     // YAML feature spec
     String check = "config --check FILE";
     c.add(text("config", "a fractional lag", "f.yaml", "horizonDays: 2\nlagDays: [2, 28.5]\n", check, 2,
@@ -187,13 +240,21 @@ class BadInputCorpusTest {
     c.add(text("forecast", "crossing quantiles", "fc.csv", "series_id,date,forecast,q0.25,q0.75\n"
         + "PNT-D1-0001@NV-01,2026-01-18,2,3,1\n", evaluate, 3,
         "fc.csv, line 2, column 5: q0.25 is 3.0 but q0.75 is 1.0: expected quantiles that do not decrease"));
+    c.add(text("forecast", "a NUL character", "fc.csv", forecastHeader + "PNT-D1-0001@NV-01\0,2026-01-18,1\n",
+        evaluate, 3, "fc.csv, line 2, column 1: series_id 'PNT-D1-0001@NV-01\\0' holds a NUL character"));
     c.add(text("forecast", "unknown series", "fc.csv", forecastHeader + "nobody,2026-01-18,1\n", evaluate, 3,
         "expected a series of the store, found 'nobody'"));
     c.add(text("forecast", "no date column", "fc.csv", "series_id,forecast\nx,1\n", evaluate, 3,
         "expected a 'date' column"));
     // model and store folders given to the wrong option
     c.add(text("model folder", "a store given as the model", "unused.txt", "", "forecast --store STORE --model STORE"
-        + " --out OUT", 6, "not a model directory: it holds a sales store"));
+        + " --out OUT", 6,
+        "STORE: not a model: it holds a sales store; give the folder train wrote (a store folder"
+            + " goes to --store)"));
+    c.add(text("model folder", "a store given as the model to train", "unused.txt", "", "train --store STORE --model"
+        + " STORE --horizon 2 --lags 2,3 --windows 2 --rounds 3", 6,
+        "refusing to write STORE: it holds a sales store,"
+            + " not a model"));
     c.add(text("model folder", "an empty folder as the model", "unused.txt", "", "forecast --store STORE --model"
         + " CASEDIR --out OUT", 6, "CASEDIR"));
     c.add(text("store folder", "a model given as the store", "unused.txt", "", "forecast --store MODEL --model"
@@ -254,7 +315,7 @@ class BadInputCorpusTest {
           .replace("TINY", TINY.toString()).replace("CASEDIR", caseDir.toString()));
     }
     MainRun run = MainRun.of(args.toArray(new String[0]));
-    String fragment = c.fragment().replace("CASEDIR", caseDir.toString());
+    String fragment = c.fragment().replace("CASEDIR", caseDir.toString()).replace("STORE", store.toString());
     assertEquals(c.exitCode(), run.exitCode(), c + "\n" + run.err());
     assertTrue(run.err().contains(fragment), c + ": expected the message to contain\n  " + fragment + "\nfound\n  "
         + run.err());
