@@ -2,6 +2,7 @@ package org.lagmill.cli;
 
 import java.io.IOException;
 import java.io.UncheckedIOException;
+import java.nio.file.FileSystemException;
 import java.nio.file.InvalidPathException;
 import java.nio.file.NoSuchFileException;
 import org.lagmill.ingest.InputFiles;
@@ -99,6 +100,9 @@ public final class Main {
     if (t instanceof OutOfMemoryError) {
       return "the Java process ran out of memory (" + t.getMessage() + "), outside lagmill's off-heap budget; give it"
           + " more heap with LAGMILL_HEAP (e.g. LAGMILL_HEAP=4g, the launcher's default is 1g) or run on fewer series";
+    }
+    if (t instanceof FileSystemException f) {
+      return PathFailureText.of(f);
     }
     if (t instanceof InputFormatException || t instanceof CorruptFileException
         || t instanceof MemoryBudgetExceededException || t instanceof InvalidRequestException

@@ -19,6 +19,8 @@ import org.lagmill.io.PathNames;
  * was. The temporary file is created with the default permissions of any file the user writes (not owner-only).
  */
 public final class AtomicFiles {
+  /** What marks a temporary sibling's name, after {@code .<name>}. */
+  public static final String TEMP_MARK = ".tmp-";
   private static final SecureRandom RANDOM = new SecureRandom();
 
   private AtomicFiles() {}
@@ -114,7 +116,16 @@ public final class AtomicFiles {
   public static Path tempSibling(Path target) {
     byte[] bytes = new byte[3];
     RANDOM.nextBytes(bytes);
-    return target.resolveSibling("." + target.getFileName() + ".tmp-" + ProcessHandle.current().pid() + "-"
+    return target.resolveSibling("." + target.getFileName() + TEMP_MARK + ProcessHandle.current().pid() + "-"
         + HexFormat.of().formatHex(bytes));
+  }
+
+  /**
+   * Whether a path has the form of a temporary sibling, {@code .<name>.tmp-…}: a file made here or a store or model
+   * folder being built, which a user never named.
+   */
+  public static boolean isTemporaryName(Path path) {
+    Path name = path.getFileName();
+    return name != null && name.toString().startsWith(".") && name.toString().contains(TEMP_MARK);
   }
 }

@@ -13,6 +13,7 @@ import java.security.SecureRandom;
 import java.util.ArrayList;
 import java.util.HexFormat;
 import java.util.List;
+import org.lagmill.io.AtomicFiles;
 
 /**
  * Builds stores beside their target and swaps them in by rename, so a reader never sees a half-written store and a
@@ -20,7 +21,7 @@ import java.util.List;
  */
 public final class StoreDirectories {
   private static final SecureRandom RANDOM = new SecureRandom();
-  private static final String TEMP_MARK = ".tmp-";
+  private static final String TEMP_MARK = AtomicFiles.TEMP_MARK;
   private static final String BACKUP_MARK = ".old-";
 
   private StoreDirectories() {}
