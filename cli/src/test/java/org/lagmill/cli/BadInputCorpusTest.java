@@ -157,6 +157,10 @@ class BadInputCorpusTest {
         "sku,shop,date,units\nA,s1,2024-03-01,1\nA,s2,2024-03-02,1\n", "ingest --sales FILE --store OUT"
             + " --sales-format long --series-id-column sku",
         3, "line 3"));
+    c.add(text("sales long", "append moves a known series", "l.csv", TINY_HEADER + ",date,units\n"
+        + "PNT-D1-0001@NV-01,PNT-D1-0001,PNT-D1,Pantry,NV-02,Northvale,2026-01-19,1\n",
+        "append --store COPY --sales FILE", 3, "l.csv, line 2, column 5: series 'PNT-D1-0001@NV-01' has store=NV-02:"
+            + " expected store=NV-01 as in the store"));
     c.add(text("sales long", "an empty series id", "l.csv", "series_id,sku,date,units\n,A,2024-03-01,1\n",
         ingestLong, 3, "l.csv, line 2, column 1: series_id is empty: expected a value naming the series"));
     c.add(text("sales long", "a NUL character", "l.csv", "sku,date,units\nA\0,2024-03-01,1\n", ingestLong, 3,

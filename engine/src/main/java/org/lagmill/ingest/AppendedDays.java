@@ -9,12 +9,13 @@ import java.util.List;
  * @param dayCount new periods appended
  * @param zeroFills new item-days read as zero for want of a row, series indexed as the appended store will hold
  *     them (the store's series, then the new ones); {@link ZeroFills#NONE} for wide sales
+ * @param warnings what the sales reader noticed but read anyway (a date that stretches the store), one sentence each
  */
 record AppendedDays(int dayCount, int[][] unitsBySeries, List<String[]> newSeriesAttributes,
-    List<int[]> newSeriesUnits, ZeroFills zeroFills) {
+    List<int[]> newSeriesUnits, ZeroFills zeroFills, List<String> warnings) {
 
   /** No sales file: the days stay as they are. */
   static AppendedDays none(int seriesCount) {
-    return new AppendedDays(0, new int[seriesCount][], List.of(), List.of(), ZeroFills.NONE);
+    return new AppendedDays(0, new int[seriesCount][], List.of(), List.of(), ZeroFills.NONE, List.of());
   }
 }

@@ -23,6 +23,9 @@ final class DateSpanCheck {
   private long secondMax = Long.MIN_VALUE;
   private long maxRowCount;
   private long maxLine;
+  private boolean held;
+  private long heldFirst;
+  private long heldLast;
 
   /** Takes one row's date (days since 1970-01-01) and its 1-based line. */
   void add(long epochDay, long line) {
@@ -49,11 +52,24 @@ final class DateSpanCheck {
   }
 
   /**
+   * Days a store already holds, before every date of the file (an append): they count as the other rows' dates, and
+   * only a late date of the file can stretch the span (the store's own dates were accepted before).
+   */
+  void addHeldDays(long firstEpochDay, long lastEpochDay) {
+    held = true;
+    heldFirst = firstEpochDay;
+    heldLast = lastEpochDay;
+  }
+
+  /**
    * The warning for the date that stretches the span, or null when none does.
    *
    * @param minSpanDays the span below which nothing is compared (the file's period: two adjacent dates never warn)
    */
   String warning(Path file, String dateColumn, long minSpanDays) {
+    if (held) {
+      return heldWarning(file, dateColumn, minSpanDays);
+    }
     if (secondMin == Long.MAX_VALUE) {
       return null;
     }
@@ -69,11 +85,29 @@ final class DateSpanCheck {
     return null;
   }
 
+  private String heldWarning(Path file, String dateColumn, long minSpanDays) {
+    if (max == Long.MIN_VALUE) {
+      return null;
+    }
+    long spanDays = max - heldFirst;
+    long otherSpanDays = Math.max(heldLast, secondMax) - heldFirst;
+    if (spanDays > STRETCH_FACTOR * Math.max(minSpanDays, otherSpanDays)) {
+      return message(file, dateColumn, maxLine, max, maxRowCount, spanDays, otherSpanDays, "the store and the other"
+          + " rows");
+    }
+    return null;
+  }
+
   private static String message(Path file, String dateColumn, long line, long epochDay, long rowCount, long spanDays,
       long otherSpanDays) {
+    return message(file, dateColumn, line, epochDay, rowCount, spanDays, otherSpanDays, "the other rows");
+  }
+
+  private static String message(Path file, String dateColumn, long line, long epochDay, long rowCount, long spanDays,
+      long otherSpanDays, String others) {
     return file + ", line " + line + ": " + dateColumn + " " + LocalDate.ofEpochDay(epochDay) + " stretches the"
         + " dates to " + (spanDays + 1) + " days, more than " + STRETCH_FACTOR + " times the " + (otherSpanDays + 1)
-        + " days of the other rows (" + rowCount + (rowCount == 1 ? " row" : " rows") + " on that date); the store"
+        + " days of " + others + " (" + rowCount + (rowCount == 1 ? " row" : " rows") + " on that date); the store"
         + " holds every day in between: check it for a typo, or narrow " + Setting.DATE_WINDOW
         + " to refuse such dates";
   }

@@ -1,5 +1,6 @@
 package org.lagmill.ingest;
 
+import de.siegmar.fastcsv.reader.CsvRecord;
 import it.unimi.dsi.fastutil.ints.IntArrayList;
 import it.unimi.dsi.fastutil.objects.Object2IntOpenHashMap;
 import java.nio.file.Path;
@@ -72,6 +73,10 @@ final class LongAppendDays {
         String seriesId = SeriesIdentity.seriesId(values, idAttribute);
         int seriesIndex = attributes.seriesIndexOf(seriesId);
         if (seriesIndex >= 0) {
+          int changed = StoreAppend.firstChangedAttribute(attributes, seriesIndex, values);
+          if (changed >= 0) {
+            throw refuseChange(file, columns.seriesIdColumn(), attributes, seriesIndex, changed, values[changed]);
+          }
           unitsBySeries[seriesIndex] = units.clone();
           firstRowDayBySeries[0][seriesIndex] = firstRowDayIndex;
           finalIndexOfFileSeries.add(seriesIndex);
@@ -85,7 +90,8 @@ final class LongAppendDays {
     };
     LongSalesRead read = LongSalesReader.read(file, columns.dateColumn(), columns.unitsColumn(),
         columns.seriesIdColumn(), options.missingRows(),
-        new LongSalesReader.Frame(store.dateOf(store.dayCount()), store.periodDays()), budget, sink);
+        new LongSalesReader.Frame(store.dateOf(store.dayCount()), store.periodDays(), store.firstDate()), budget,
+        sink);
     int dayCount = read.header().dayCount();
     ZeroFills zeroFills = zero ? new ZeroFills(storeSeriesCount + newAttributes.size(), dayCount) : ZeroFills.NONE;
     for (int k = 0; k < finalIndexOfFileSeries.size(); k++) {
@@ -110,6 +116,30 @@ final class LongAppendDays {
         }
       }
     }
-    return new AppendedDays(dayCount, unitsBySeries, newAttributes, newUnits, zeroFills);
+    return new AppendedDays(dayCount, unitsBySeries, newAttributes, newUnits, zeroFills, read.warnings());
+  }
+
+  /**
+   * The refusal of a known series whose attribute changed, at the first row of the series in the file: the reader
+   * hands over a series once its rows are read, so the row is found again here, on the error path only. Only a file
+   * with a series id column can name a known series with other attribute values (without one, other values name
+   * another series).
+   */
+  private static InputFormatException refuseChange(Path file, String seriesIdColumn, SeriesAttributes attributes,
+      int seriesIndex, int attribute, String value) {
+    String seriesId = attributes.seriesId(seriesIndex);
+    String attributeName = attributes.attributeName(attribute);
+    try (CsvSource source = CsvSource.open(file)) {
+      List<String> header = List.of(source.readHeader());
+      int idColumn = header.indexOf(seriesIdColumn);
+      int valueColumn = header.indexOf(attributeName);
+      for (CsvRecord record = source.next(); record != null && idColumn >= 0; record = source.next()) {
+        if (record.getField(idColumn).equals(seriesId)) {
+          return StoreAppend.attributeChanged(file, source.lineNumber(), valueColumn + 1, attributes, seriesIndex,
+              attribute, value);
+        }
+      }
+    }
+    return StoreAppend.attributeChanged(file, 0, 0, attributes, seriesIndex, attribute, value);
   }
 }

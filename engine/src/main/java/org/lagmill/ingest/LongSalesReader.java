@@ -76,11 +76,13 @@ public final class LongSalesReader {
    * @param firstDate the date of day index 0 (the store's next period), an earlier date in the file being an error;
    *     null for the file's earliest date (a period given with {@code --period} at ingest)
    * @param periodDays the step in days
+   * @param heldFirstDate the first date of the days a store already holds before {@code firstDate} (an append), which
+   *     count as other rows' dates when a date far from them is looked for; null when nothing is held
    */
-  public record Frame(LocalDate firstDate, int periodDays) {
+  public record Frame(LocalDate firstDate, int periodDays, LocalDate heldFirstDate) {
     /** The file's own first date, a given step. */
     public static Frame ofPeriod(int periodDays) {
-      return new Frame(null, Periods.requireValid(periodDays));
+      return new Frame(null, Periods.requireValid(periodDays), null);
     }
   }
 
@@ -147,6 +149,9 @@ public final class LongSalesReader {
                 + frame.firstDate() + " on (the period after the store's last)");
       }
       minEpochDay = frameFirst;
+      if (frame.heldFirstDate() != null) {
+        span.addHeldDays(frame.heldFirstDate().toEpochDay(), frameFirst - frame.periodDays());
+      }
     }
     firstDayIndexBySeries = new int[valuesBySeries.size()];
     for (int s = 0; s < firstDayIndexBySeries.length; s++) {

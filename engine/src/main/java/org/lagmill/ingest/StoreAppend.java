@@ -167,25 +167,42 @@ public final class StoreAppend {
         newUnits.add(row.clone());
       }
     }
-    return new AppendedDays(dayCount, unitsBySeries, newAttributes, newUnits, ZeroFills.NONE);
+    return new AppendedDays(dayCount, unitsBySeries, newAttributes, newUnits, ZeroFills.NONE, List.of());
   }
 
   /**
    * A known series must keep its attributes: an append that moved it to another department or store would silently
-   * rewrite its history's grouping, so it is refused as ingest refuses a series whose rows disagree.
+   * rewrite its history's grouping, so it is refused as ingest refuses a series whose rows disagree. The rule of wide
+   * and long appends alike ({@link LongAppendDays}).
+   *
+   * @param values the file's value of each store attribute, in the store's attribute order
+   * @return the first store attribute whose value differs from the store's, or -1 when all agree
    */
+  static int firstChangedAttribute(SeriesAttributes attributes, int seriesIndex, String[] values) {
+    for (int a = 0; a < values.length; a++) {
+      if (!attributes.value(a, attributes.code(seriesIndex, a)).equals(values[a])) {
+        return a;
+      }
+    }
+    return -1;
+  }
+
+  /** The refusal of a known series whose {@code attribute} has {@code value} in the file at line and column. */
+  static InputFormatException attributeChanged(Path file, long line, int column, SeriesAttributes attributes,
+      int seriesIndex, int attribute, String value) {
+    String name = attributes.attributeName(attribute);
+    String stored = attributes.value(attribute, attributes.code(seriesIndex, attribute));
+    return new InputFormatException(file, line, column, "series '" + Excerpts.of(attributes.seriesId(seriesIndex))
+        + "' has " + name + "=" + Excerpts.of(value) + ": expected " + name + "=" + Excerpts.of(stored)
+        + " as in the store (a series keeps its attributes; give a changed one a new series id)");
+  }
+
   private static void requireSameAttributes(SeriesAttributes attributes, int seriesIndex, String[] values,
       WideSalesReader reader, int[] fileColumnOfAttribute) {
-    for (int a = 0; a < values.length; a++) {
-      String stored = attributes.value(a, attributes.code(seriesIndex, a));
-      if (!stored.equals(values[a])) {
-        String name = attributes.attributeName(a);
-        throw new InputFormatException(reader.file(), reader.lineNumber(),
-            reader.attributeColumnNumber(fileColumnOfAttribute[a]), "series '" + Excerpts.of(attributes.seriesId(
-                seriesIndex)) + "' has " + name + "=" + Excerpts.of(values[a]) + ": expected " + name + "="
-                + Excerpts.of(stored) + " as in the store (a series keeps its attributes; give a changed one a new"
-                + " series id)");
-      }
+    int changed = firstChangedAttribute(attributes, seriesIndex, values);
+    if (changed >= 0) {
+      throw attributeChanged(reader.file(), reader.lineNumber(), reader.attributeColumnNumber(
+          fileColumnOfAttribute[changed]), attributes, seriesIndex, changed, values[changed]);
     }
   }
 
@@ -218,7 +235,7 @@ public final class StoreAppend {
         writer.addSeries(newDays.newSeriesAttributes().get(n), row);
       }
       StoreManifest.Fill oldFill = store.manifest().fill();
-      List<String> warnings = new ArrayList<>();
+      List<String> warnings = new ArrayList<>(newDays.warnings());
       if (options.pricesFile() != null) {
         CalendarAndPrices.writePrices(writer, options.pricesFile(), options.columns(), warnings);
       } else {

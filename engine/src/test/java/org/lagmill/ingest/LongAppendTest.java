@@ -136,4 +136,46 @@ class LongAppendTest {
       assertEquals(0, budget.heldBytes());
     }
   }
+
+  @Test
+  void shouldRefuseAKnownSeriesWhoseAttributesChangedAsTheWideAppendDoes() throws Exception {
+    Path first = Files.writeString(temp.resolve("first.csv"), "series_id,sku,dept,2024-01-01,2024-01-02\n"
+        + "k1,A,frozen,1,2\nk2,B,dry,3,4\n");
+    Path moved = Files.writeString(temp.resolve("moved.csv"), "dept,series_id,date,sku,units\ndry,k2,2024-01-03,B,5\n"
+        + "chilled,k1,2024-01-03,A,6\nchilled,k1,2024-01-04,A,1\n");
+    try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
+      StoreIngest.ingest(IngestOptions.of(first, temp.resolve("store")), budget);
+      List<String> before = StoreIngestTest.listing(temp.resolve("store"));
+      InputFormatException e = assertThrows(InputFormatException.class,
+          () -> StoreAppend.append(AppendOptions.of(temp.resolve("store"), moved), budget));
+      assertEquals(moved + ", line 3, column 1: series 'k1' has dept=chilled: expected dept=frozen as in the store"
+          + " (a series keeps its attributes; give a changed one a new series id)", e.getMessage());
+      assertEquals(before, StoreIngestTest.listing(temp.resolve("store")));
+      assertEquals(0, budget.heldBytes());
+    }
+  }
+
+  @Test
+  void shouldWarnWhenOneAppendedDateStretchesTheStoreTenfold() throws Exception {
+    StringBuilder history = new StringBuilder("sku,date,units\n");
+    for (int d = 1; d <= 20; d++) {
+      history.append("A,2024-03-").append(String.format("%02d", d)).append(",1\n");
+    }
+    Path first = Files.writeString(temp.resolve("first.csv"), history);
+    Path week = Files.writeString(temp.resolve("week.csv"), "sku,date,units\nA,2024-03-21,1\nA,2024-03-27,2\n");
+    Path typo = Files.writeString(temp.resolve("typo.csv"), "sku,date,units\nA,2024-03-28,1\nB,2042-03-28,2\n");
+    try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
+      StoreIngest.ingest(IngestOptions.of(first, temp.resolve("store")), budget);
+      // a week after 20 days: the store grows from 20 to 27 days, no warning
+      assertEquals(List.of(), StoreAppend.append(AppendOptions.of(temp.resolve("store"), week), budget).warnings()
+          .stream().filter(w -> w.contains("stretches")).toList());
+      // the store's 27 days count as the other rows' dates: 2042 stretches them to 6,602 days
+      List<String> warnings = StoreAppend.append(AppendOptions.of(temp.resolve("store"), typo), budget).warnings()
+          .stream().filter(w -> w.contains("stretches")).toList();
+      assertEquals(List.of(typo + ", line 3: date 2042-03-28 stretches the dates to 6602 days, more than 10 times"
+          + " the 28 days of the store and the other rows (1 row on that date); the store holds every day in between:"
+          + " check it for a typo, or narrow ‹date-window› to refuse such dates"), warnings);
+      assertEquals(0, budget.heldBytes());
+    }
+  }
 }
