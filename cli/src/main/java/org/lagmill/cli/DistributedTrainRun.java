@@ -5,6 +5,7 @@ import java.time.Duration;
 import java.util.Locale;
 import org.lagmill.features.FeatureSpecYaml;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.learner.DistributedBinning;
 import org.lagmill.learner.TreeLearner;
 import org.lagmill.memory.ProcessMemory;
 import org.lagmill.store.SalesStore;
@@ -106,7 +107,24 @@ final class DistributedTrainRun {
           ModelDirectory.save(result.models(), command.model, shard, plan, trainedOn, result.dispersionRows());
           run.record().result("partitions", java.util.List.of(report));
         }
-        run.record().result("rank", rank).result("modelSha256", result.modelSha256());
+        DistributedTraining.Binning binning = result.binning();
+        run.record().result("rank", rank).result("modelSha256", result.modelSha256())
+            .result("categoriesPerSplit", binning.categoriesPerSplit())
+            .result("categoricalsBinnedAsNumbers", binning.categoricalsBinnedAsNumbers());
+        if (binning.differsFromOneMachine() && rank == 0 && !command.quiet) {
+          java.util.List<String> changes = new java.util.ArrayList<>();
+          if (binning.categoriesPerSplit() != DistributedBinning.DEFAULT_CATEGORIES_PER_SPLIT) {
+            changes.add(String.format(Locale.ROOT, "categorical splits may hold up to %d categories (one machine: %d),"
+                + " so that LightGBM 4.3.0's split exchange cannot overrun", binning.categoriesPerSplit(),
+                DistributedBinning.DEFAULT_CATEGORIES_PER_SPLIT));
+          }
+          if (!binning.categoricalsBinnedAsNumbers().isEmpty()) {
+            changes.add(binning.categoricalsBinnedAsNumbers().size() + " categorical feature(s) binned as numbers on "
+                + "every rank because some rank's bin sample holds no category for them "
+                + binning.categoricalsBinnedAsNumbers());
+          }
+          out.println("distributed binning: " + String.join("; ", changes));
+        }
         if (!command.quiet) {
           out.printf(Locale.ROOT, "rank %d of %d: %,d of %,d training rows here, best iteration %d of %d, validation "
               + "%s over all ranks %.5f, model SHA-256 %s (the same on every rank)%n", rank, cluster.rankCount(),

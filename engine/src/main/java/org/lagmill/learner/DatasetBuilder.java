@@ -68,19 +68,26 @@ public final class DatasetBuilder {
    * {@code rows} (this rank's rows) are pushed, and LightGBM is told the row count over all ranks. Each rank draws
    * its bin sample from its own rows; LightGBM bins a slice of the features on each rank from that rank's sample and
    * exchanges the bin mappers, so every rank ends with the same bins (which therefore depend on how rows are split).
-   * Every rank must call this at the same point, with the same schema and parameters.
+   * Every rank must call this at the same point, with the same schema and parameters. Before LightGBM bins, the
+   * ranks agree through {@code rankSum} which categorical columns to bin as numbers ({@link DistributedBinning}).
    *
    * @param distributedRowCount training rows over every rank, at least {@code rows.rowCount()}
+   * @param rankSum adds numbers over every rank
    */
-  public TrainingDataset buildDistributed(RowStream rows, long distributedRowCount) {
+  public TrainingDataset buildDistributed(RowStream rows, long distributedRowCount, RankSum rankSum) {
     if (distributedRowCount < rows.rowCount()) {
       throw new IllegalArgumentException("rows over all ranks (" + distributedRowCount + ") cannot be fewer than "
           + "this rank's " + rows.rowCount());
     }
-    return build(rows, distributedRowCount);
+    return build(rows, distributedRowCount, rankSum);
   }
 
   private TrainingDataset build(RowStream rows, long distributedRowCount) {
+    return build(rows, distributedRowCount, null);
+  }
+
+  /** @param rankSum null on one machine */
+  private TrainingDataset build(RowStream rows, long distributedRowCount, RankSum rankSum) {
     FeatureSchema schema = rows.schema();
     int rowCount = checkedRowCount(rows);
     int sampleRowCount = Math.min(parameters.sampleRowCount(), rowCount);
@@ -94,7 +101,12 @@ public final class DatasetBuilder {
         throw new IllegalStateException("sample source promised " + sourceRowCount + " rows but produced "
             + sample.rowsSeen() + "; a RowStream must report its exact rowCount()");
       }
-      SWIGTYPE_p_void handle = createFromSample(sample, schema, sampleRowCount, rowCount, distributedRowCount);
+      int[] categoricalColumns = schema.categoricalIndexes();
+      if (rankSum != null) {
+        categoricalColumns = categoricalColumnsOnEveryRank(categoricalColumns, sample, rankSum);
+      }
+      SWIGTYPE_p_void handle = createFromSample(sample, schema, sampleRowCount, rowCount, distributedRowCount,
+          categoricalColumns);
       double weightSum;
       try {
         weightSum = pushRowsAndFinish(handle, rows, batch, rowCount);
@@ -104,8 +116,23 @@ public final class DatasetBuilder {
       }
       DatasetStats stats = new DatasetStats(rowCount, schema.featureCount(), sampleRowCount,
           sample.keptValueCount(), residentBefore, ProcessMemory.residentBytes());
-      return new TrainingDataset(handle, schema, stats, false, weightSum);
+      return new TrainingDataset(handle, schema, stats, false, weightSum, categoricalColumns);
     }
+  }
+
+  /**
+   * The categorical columns LightGBM may bin as categories on every rank: those every rank's sample holds a category
+   * for; the others are binned as numbers everywhere ({@link DistributedBinning}, second point).
+   */
+  private static int[] categoricalColumnsOnEveryRank(int[] categoricalColumns, RowSample sample, RankSum rankSum) {
+    double[] lacking = new double[categoricalColumns.length];
+    for (int i = 0; i < categoricalColumns.length; i++) {
+      lacking[i] = sample.hasCategory(categoricalColumns[i]) ? 0 : 1;
+    }
+    double[] ranksLacking = rankSum.sum(lacking);
+    int[] asNumbers = DistributedBinning.binnedAsNumbers(categoricalColumns, ranksLacking);
+    return java.util.Arrays.stream(categoricalColumns)
+        .filter(column -> java.util.Arrays.binarySearch(asNumbers, column) < 0).toArray();
   }
 
   /**
@@ -166,7 +193,7 @@ public final class DatasetBuilder {
     }
     DatasetStats stats = new DatasetStats(rowCount, schema.featureCount(), 0, 0, residentBefore,
         ProcessMemory.residentBytes());
-    return new TrainingDataset(handle, schema, stats, true, weightSum);
+    return new TrainingDataset(handle, schema, stats, true, weightSum, reference.categoricalColumns());
   }
 
   /**
@@ -208,7 +235,7 @@ public final class DatasetBuilder {
     int sampledRowCount = Math.min(parameters.sampleRowCount(), rowCount);
     DatasetStats stats = new DatasetStats(rowCount, featureCount, sampledRowCount, 0, residentBefore,
         ProcessMemory.residentBytes());
-    return new TrainingDataset(handle, schema, stats, false, rowCount);
+    return new TrainingDataset(handle, schema, stats, false, rowCount, schema.categoricalIndexes());
   }
 
   /** The Dataset parameter string a stream of {@code schema} with {@code rowCount} rows is built with. */
@@ -234,7 +261,7 @@ public final class DatasetBuilder {
    * Dataset. The copies are transient: LightGBM reads them only inside the call.
    */
   private SWIGTYPE_p_void createFromSample(RowSample sample, FeatureSchema schema, int sampleRowCount, int rowCount,
-      long distributedRowCount) {
+      long distributedRowCount, int[] categoricalColumns) {
     int featureCount = schema.featureCount();
     long sampleBytes = sample.keptValueCount() * (Double.BYTES + Integer.BYTES)
         + (long) featureCount * (2L * Long.BYTES + Integer.BYTES);
@@ -261,7 +288,8 @@ public final class DatasetBuilder {
       SWIGTYPE_p_p_void out = lightgbmlib.new_voidpp();
       // one machine: the local and the distributed row count are the same; several: the sum over every rank
       int returnCode = lightgbmlib.LGBM_DatasetCreateFromSampledColumn(columnValues, columnPositions, featureCount,
-          keptCounts, sampleRowCount, rowCount, distributedRowCount, parameterString(schema, rowCount), out);
+          keptCounts, sampleRowCount, rowCount, distributedRowCount,
+          parameters.toLightGbmString(categoricalColumns, sampleRowCount), out);
       SWIGTYPE_p_void handle = Native.takeHandle(out);
       Native.check(returnCode, "LGBM_DatasetCreateFromSampledColumn");
       return handle;

@@ -88,6 +88,14 @@ public record DatasetParameters(
    * @param sampledRowCount rows actually sampled (becomes {@code bin_construct_sample_cnt})
    */
   String toLightGbmString(FeatureSchema schema, int sampledRowCount) {
+    return toLightGbmString(schema.categoricalIndexes(), sampledRowCount);
+  }
+
+  /**
+   * As {@link #toLightGbmString(FeatureSchema, int)}, binning as categories only {@code categoricalColumns} (a
+   * distributed Dataset bins some of the schema's categorical columns as numbers: {@link DistributedBinning}).
+   */
+  String toLightGbmString(int[] categoricalColumns, int sampledRowCount) {
     StringBuilder text = new StringBuilder();
     text.append("max_bin=").append(maxBinCount)
         .append(" min_data_in_bin=").append(minDataInBin)
@@ -99,10 +107,9 @@ public record DatasetParameters(
     if (deterministic) {
       text.append(" deterministic=true");
     }
-    int[] categorical = schema.categoricalIndexes();
-    if (categorical.length > 0) {
+    if (categoricalColumns.length > 0) {
       text.append(" categorical_feature=")
-          .append(Arrays.stream(categorical).mapToObj(Integer::toString).collect(Collectors.joining(",")));
+          .append(Arrays.stream(categoricalColumns).mapToObj(Integer::toString).collect(Collectors.joining(",")));
     }
     return text.toString();
   }

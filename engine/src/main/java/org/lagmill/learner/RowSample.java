@@ -74,6 +74,26 @@ final class RowSample {
     }
   }
 
+  /**
+   * Whether LightGBM would find at least one category for {@code column} in this sample: a sampled value that is not
+   * NaN and whose integer part is not negative (LightGBM counts NaN and negative codes as missing), or a sampled zero
+   * (zeros are not kept, so fewer kept values than sampled rows means some were zero).
+   */
+  boolean hasCategory(int column) {
+    int kept = keptCounts[column];
+    if (kept < rowsSelected) {
+      return true;
+    }
+    float[] columnValues = values[column];
+    for (int i = 0; i < kept; i++) {
+      float value = columnValues[i];
+      if (!Float.isNaN(value) && (int) value >= 0) {
+        return true;
+      }
+    }
+    return false;
+  }
+
   long rowsSeen() {
     return rowsSeen;
   }

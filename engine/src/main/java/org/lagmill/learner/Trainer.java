@@ -66,8 +66,18 @@ public final class Trainer {
       throw new IllegalArgumentException("this rank holds validation rows, so validatingAnywhere must be true");
     }
     String parameterText = parameters.toLightGbmString() + " tree_learner=" + learner.lightGbmName()
-        + " num_machines=" + machineCount;
+        + " num_machines=" + machineCount + " max_cat_threshold=" + categoriesPerSplit(training);
     return train(training, validation, validatingAnywhere, reducer, parameterText, listener);
+  }
+
+  /**
+   * The most categories one split may hold in a distributed training on {@code training}
+   * ({@code max_cat_threshold}): the same on every rank, since every rank holds the same bins
+   * ({@link DistributedBinning}, first point). One machine trains with LightGBM's default,
+   * {@link DistributedBinning#DEFAULT_CATEGORIES_PER_SPLIT}.
+   */
+  public static int categoriesPerSplit(TrainingDataset training) {
+    return DistributedBinning.categoriesPerSplit(training.largestCategoricalBinCount());
   }
 
   private TrainedModel train(TrainingDataset training, TrainingDataset validation, boolean validating,

@@ -1,5 +1,6 @@
 package org.lagmill.learner;
 
+import com.microsoft.ml.lightgbm.SWIGTYPE_p_int;
 import com.microsoft.ml.lightgbm.SWIGTYPE_p_void;
 import com.microsoft.ml.lightgbm.lightgbmlib;
 import org.lagmill.features.FeatureSchema;
@@ -17,11 +18,13 @@ public final class TrainingDataset implements AutoCloseable {
   private final DatasetStats stats;
   private final boolean validation;
   private final double weightSum;
+  private final int[] categoricalColumns;
   private SWIGTYPE_p_void handle;
 
   TrainingDataset(SWIGTYPE_p_void handle, FeatureSchema schema, DatasetStats stats, boolean validation,
-      double weightSum) {
+      double weightSum, int[] categoricalColumns) {
     this.handle = handle;
+    this.categoricalColumns = categoricalColumns.clone();
     this.weightSum = weightSum;
     this.schema = schema;
     this.stats = stats;
@@ -47,6 +50,38 @@ public final class TrainingDataset implements AutoCloseable {
 
   public DatasetStats stats() {
     return stats;
+  }
+
+  /**
+   * The columns LightGBM bins as categories: the schema's categorical columns, less those a distributed Dataset bins
+   * as numbers ({@link DistributedBinning}). Ascending.
+   */
+  public int[] categoricalColumns() {
+    return categoricalColumns.clone();
+  }
+
+  /**
+   * The schema's categorical columns this Dataset bins as numbers (only a distributed Dataset does), ascending.
+   */
+  public int[] categoricalColumnsBinnedAsNumbers() {
+    return java.util.Arrays.stream(schema.categoricalIndexes())
+        .filter(column -> java.util.Arrays.binarySearch(categoricalColumns, column) < 0).toArray();
+  }
+
+  /** The most bins LightGBM gave any column binned as categories; 0 when there is none (or it dropped them all). */
+  public int largestCategoricalBinCount() {
+    SWIGTYPE_p_int out = lightgbmlib.new_intp();
+    try {
+      int largest = 0;
+      for (int column : categoricalColumns) {
+        Native.check(lightgbmlib.LGBM_DatasetGetFeatureNumBin(handle(), column, out),
+            "LGBM_DatasetGetFeatureNumBin");
+        largest = Math.max(largest, lightgbmlib.intp_value(out));
+      }
+      return largest;
+    } finally {
+      lightgbmlib.delete_intp(out);
+    }
   }
 
   /** True for a Dataset built by reference to a training Dataset's bins (usable only for validation). */

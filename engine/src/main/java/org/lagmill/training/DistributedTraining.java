@@ -13,6 +13,8 @@ import org.lagmill.features.FeaturePass;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.io.Setting;
 import org.lagmill.learner.DatasetBuilder;
+import org.lagmill.learner.DistributedBinning;
+import org.lagmill.learner.RankSum;
 import org.lagmill.learner.LearnerNetwork;
 import org.lagmill.learner.TrainParameters;
 import org.lagmill.learner.TrainedModel;
@@ -40,7 +42,41 @@ import org.lagmill.store.SalesHistory;
 public final class DistributedTraining {
   /** A rank's result: the model (the same on every rank) and, on rank 0, every rank's dispersion rows. */
   public record Result(ModelSet models, List<ModelDirectory.SeriesDispersion> dispersionRows,
-      long localTrainingRowCount, long totalTrainingRowCount, long totalValidationRowCount, String modelSha256) {}
+      long localTrainingRowCount, long totalTrainingRowCount, long totalValidationRowCount, String modelSha256,
+      Binning binning) {}
+
+  /**
+   * What the ranks agreed beyond one machine's settings ({@link DistributedBinning}), over the training and the refit
+   * Dataset: both change the model against one machine, so they are reported.
+   *
+   * @param categoriesPerSplit the largest {@code max_cat_threshold} used (one machine: 32)
+   * @param categoricalsBinnedAsNumbers names of the categorical features binned as numbers on every rank
+   */
+  public record Binning(int categoriesPerSplit, List<String> categoricalsBinnedAsNumbers) {
+    public Binning {
+      categoricalsBinnedAsNumbers = List.copyOf(categoricalsBinnedAsNumbers);
+    }
+
+    static Binning of(TrainingDataset dataset) {
+      List<String> names = new ArrayList<>();
+      for (int column : dataset.categoricalColumnsBinnedAsNumbers()) {
+        names.add(dataset.schema().names().get(column));
+      }
+      return new Binning(Trainer.categoriesPerSplit(dataset), names);
+    }
+
+    Binning and(Binning other) {
+      java.util.TreeSet<String> names = new java.util.TreeSet<>(categoricalsBinnedAsNumbers);
+      names.addAll(other.categoricalsBinnedAsNumbers);
+      return new Binning(Math.max(categoriesPerSplit, other.categoriesPerSplit), new ArrayList<>(names));
+    }
+
+    /** True when the ranks trained with anything one machine would not. */
+    public boolean differsFromOneMachine() {
+      return categoriesPerSplit != DistributedBinning.DEFAULT_CATEGORIES_PER_SPLIT
+          || !categoricalsBinnedAsNumbers.isEmpty();
+    }
+  }
 
   private DistributedTraining() {}
 
@@ -105,9 +141,12 @@ public final class DistributedTraining {
       TrainedModel model;
       double datasetSeconds;
       double trainSeconds;
+      Binning binning;
       long residentAfter;
-      try (TrainingDataset training = builder.buildDistributed(reported, totalTraining)) {
+      try (TrainingDataset training = builder.buildDistributed(reported, totalTraining, rankSum(exchange,
+          "categorical columns of the training sample"))) {
         residentAfter = ProcessMemory.residentBytes();
+        binning = Binning.of(training);
         try (TrainingDataset validation = validationRows.rowCount() > 0
             ? builder.createValidation(training, reported.continuedBy(validationRows)) : null) {
           progress.endStage();
@@ -143,10 +182,10 @@ public final class DistributedTraining {
           refitRowCount = (long) exchange.sum(new double[] {allRows.rowCount()}, "refit row counts")[0];
           refitRounds = ModelTraining.refitRounds(bestIteration, totalTraining, refitRowCount);
           long refitStart = System.nanoTime();
-          TrainedModel refit = refit(allRows, refitRowCount, refitRounds, plan, learner, rankCount, rank, budget,
-              progress);
+          Refit refit = refit(allRows, refitRowCount, refitRounds, plan, learner, exchange, budget, progress);
           model.close();
-          model = refit;
+          model = refit.model();
+          binning = binning.and(refit.binning());
           trainSeconds += (System.nanoTime() - refitStart) / 1e9;
         }
         String sha256 = sha256(model.modelText());
@@ -184,7 +223,8 @@ public final class DistributedTraining {
         }
         ModelSet models = new ModelSet(plan.spec(), null, List.of(new ModelSet.Partition("all", allSeries, model,
             report)), alphas);
-        return new Result(models, dispersionRows, trainingRows.rowCount(), totalTraining, totalValidation, sha256);
+        return new Result(models, dispersionRows, trainingRows.rowCount(), totalTraining, totalValidation, sha256,
+            binning);
       } catch (IOException | RuntimeException | Error e) {
         model.close();
         throw e;
@@ -192,19 +232,34 @@ public final class DistributedTraining {
     }
   }
 
-  private static TrainedModel refit(FeaturePass rows, long totalRowCount, int rounds, TrainingPlan plan,
-      TreeLearner learner, int rankCount, int rank, MemoryBudget budget, ProgressListener progress) {
+  private record Refit(TrainedModel model, Binning binning) {}
+
+  private static Refit refit(FeaturePass rows, long totalRowCount, int rounds, TrainingPlan plan,
+      TreeLearner learner, RankExchange exchange, MemoryBudget budget, ProgressListener progress) {
+    int rank = exchange.rank();
     DatasetBuilder builder = new DatasetBuilder(budget, plan.datasetParameters());
     progress.startStage("refit dataset rank " + rank, "rows streamed", builder.sampleSource(rows).rowCount()
         + rows.rowCount());
-    try (TrainingDataset training = builder.buildDistributed(new ProgressRowStream(rows, progress), totalRowCount)) {
+    try (TrainingDataset training = builder.buildDistributed(new ProgressRowStream(rows, progress), totalRowCount,
+        rankSum(exchange, "categorical columns of the refit sample"))) {
       progress.endStage();
       progress.startStage("refit rank " + rank, "iterations", rounds);
       TrainedModel model = new Trainer(plan.trainParameters().withRounds(rounds, 0)).trainDistributed(training, null,
-          false, learner, rankCount, null, (iteration, seconds, loss) -> progress.advance(iteration));
+          false, learner, exchange.rankCount(), null, (iteration, seconds, loss) -> progress.advance(iteration));
       progress.endStage();
-      return model;
+      return new Refit(model, Binning.of(training));
     }
+  }
+
+  /** Sums over every rank through the exchange, for the learner's agreements before LightGBM's network. */
+  private static RankSum rankSum(RankExchange exchange, String what) {
+    return local -> {
+      try {
+        return exchange.sum(local, what);
+      } catch (IOException e) {
+        throw new java.io.UncheckedIOException(e);
+      }
+    };
   }
 
   static String sha256(String text) {
