@@ -60,20 +60,18 @@ final class AppendCommand implements Callable<Integer> {
   @Mixin
   PlanOptions plan;
 
-  @Option(names = "--date-window", paramLabel = "FROM..TO", description = "plausible dates: any date read outside "
-      + "stops the run (default: 1900-01-01..2200-12-31)")
-  String dateWindow;
+  @Mixin
+  DateWindowOption dateWindow;
 
-  @Option(names = "--no-wait", description = "fail at once (exit 7) when another command is writing the store, "
-      + "instead of waiting for it")
-  boolean noWait;
+  @Mixin
+  NoWaitOption noWait;
 
   @Option(names = "--quiet", description = "print nothing on success, not even warnings")
   boolean quiet;
 
   @Override
   public Integer call() throws Exception {
-    DateWindows.apply(dateWindow);
+    dateWindow.apply();
     AppendOptions options = AppendOptions.of(store, sales).withColumns(columns.names())
         .withSalesFormat(shape.format()).withMissingRows(shape.missingRows())
         .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures)
@@ -85,7 +83,8 @@ final class AppendCommand implements Callable<Integer> {
           .configure("plan", plan.file == null ? null : plan.file.toString());
       IngestResult result;
       try (Stage stage = run.stage("append")) {
-        result = StoreAppend.append(options, new StoreUpdate.Policy(StoreUpdate.Mode.CHANGE, !noWait), stage.budget());
+        result = StoreAppend.append(options, new StoreUpdate.Policy(StoreUpdate.Mode.CHANGE, noWait.waits()),
+            stage.budget());
         stage.addRows((long) result.manifest().seriesCount() * result.manifest().dayCount());
       }
       StoreManifest appended = result.manifest();

@@ -28,8 +28,8 @@ final class BacktestCommand implements Callable<Integer> {
   @Spec
   CommandSpec commandSpec;
 
-  @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory")
-  Path store;
+  @Mixin
+  StoreOption store;
 
   @Option(names = "--origins", converter = Counts.Positive.class,
       required = true, paramLabel = "K", description = "number of forecast origins")
@@ -44,15 +44,14 @@ final class BacktestCommand implements Callable<Integer> {
       + "report.json, backtest.json and run.json")
   Path reportDir;
 
-  @Option(names = "--show", split = ",", paramLabel = "SERIES_ID", description = "series to chart in the report")
-  List<String> shownSeries = List.of();
+  @Mixin
+  ShownSeriesOption shown;
 
   @Option(names = "--json", description = "print the backtest result as JSON")
   boolean json;
 
-  @Option(names = "--memory-limit", paramLabel = "SIZE", converter = ByteSizeConverter.class,
-      description = "off-heap budget: bytes, or with k, m, g (1024-based), e.g. 512m or 2g (default: none)")
-  Long memoryLimitBytes;
+  @Mixin
+  MemoryLimitOption memoryLimit;
 
   @Option(names = "--quiet", description = "print nothing but errors (and the JSON with --json)")
   boolean quiet;
@@ -75,10 +74,10 @@ final class BacktestCommand implements Callable<Integer> {
       int at = member.lastIndexOf('@');
       memberSpecs.add(FeatureSpecYaml.read(Path.of(at < 0 ? member : member.substring(0, at))));
     }
-    BacktestJob.Outcome outcome = BacktestJob.run(new BacktestJob.Request(store, originCount, stepDays,
-        MemoryLimitOption.bytes(memoryLimitBytes), reportDir, shownSeries, cut -> members(spec, memberSpecs, cut),
+    BacktestJob.Outcome outcome = BacktestJob.run(new BacktestJob.Request(store.dir, originCount, stepDays,
+        memoryLimit.bytes(), reportDir, shown.seriesIds, cut -> members(spec, memberSpecs, cut),
         hierarchyOptions::hierarchy,
-        "lagmill backtest --store " + store + " --origins " + originCount), ConsoleProgress.forCommand(quiet));
+        "lagmill backtest --store " + store.dir + " --origins " + originCount), ConsoleProgress.forCommand(quiet));
     PrintWriter out = commandSpec.commandLine().getOut();
     if (json) {
       out.println(RunRecord.JSON.writeValueAsString(outcome.written()));

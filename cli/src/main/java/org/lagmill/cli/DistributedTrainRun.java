@@ -53,7 +53,7 @@ final class DistributedTrainRun {
     if (part == null || part.partCount() != cluster.rankCount() || part.part() != rank) {
       throw new InvalidRequestException("rank " + rank + " of " + cluster.rankCount() + " needs shard " + rank
           + " of a store split in " + cluster.rankCount() + " (lagmill shard --parts " + cluster.rankCount() + "); "
-          + "--store " + command.store + " is " + (part == null ? "a whole store"
+          + "--store " + command.store.dir + " is " + (part == null ? "a whole store"
               : "shard " + part.part() + " of " + part.partCount()));
     }
     String identity = "split " + part.sourceName() + " in " + part.partCount() + " by " + part.attribute() + "\n"
@@ -65,7 +65,7 @@ final class DistributedTrainRun {
     Duration timeout = Duration.ofSeconds(command.rankTimeoutSeconds);
     int networkMinutes = Math.max(1, (command.rankTimeoutSeconds + 59) / 60);
     PrintWriter out = command.commandSpec.commandLine().getOut();
-    run.record().configure("store", command.store.toString()).configure("model", command.model.toString())
+    run.record().configure("store", command.store.dir.toString()).configure("model", command.model.toString())
         .configure("machines", cluster.machines()).configure("rank", rank).configure("treeLearner",
             learner.lightGbmName())
         .configure("plan", plan.toString());

@@ -30,8 +30,8 @@ final class EvaluateCommand implements Callable<Integer> {
   @Option(names = "--json", description = "print the result as JSON")
   boolean json;
 
-  @Option(names = "--report", paramLabel = "DIR", description = "also write report.html and report.json here")
-  Path reportDir;
+  @Mixin
+  ReportOption report;
 
   @Option(names = "--scoring-part", paramLabel = "FILE", description = {"also write this store's additive share of",
       "the score (for a shard: merge every shard's part with lagmill merge-scores)"})
@@ -43,7 +43,7 @@ final class EvaluateCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     PrintWriter out = commandSpec.commandLine().getOut();
-    EvaluateJob.Outcome outcome = EvaluateJob.run(new EvaluateJob.Request(store, forecast, reportDir, scoringPart,
+    EvaluateJob.Outcome outcome = EvaluateJob.run(new EvaluateJob.Request(store, forecast, report.dir, scoringPart,
         hierarchyOptions::hierarchy, "lagmill evaluate --store " + store + " --forecast " + forecast));
     if (outcome.reportHtml() != null && !json) {
       out.println("report written to " + outcome.reportHtml());

@@ -37,11 +37,11 @@ final class ExplainCommand implements Callable<Integer> {
   @Spec
   CommandSpec commandSpec;
 
-  @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory")
-  Path store;
+  @Mixin
+  StoreOption store;
 
-  @Option(names = "--model", required = true, paramLabel = "DIR", description = "model directory from train")
-  Path model;
+  @Mixin
+  ModelOption model;
 
   @Option(names = "--series", split = ",", paramLabel = "SERIES_ID", description = "series to explain besides the "
       + "largest aggregate of each level")
@@ -67,8 +67,8 @@ final class ExplainCommand implements Callable<Integer> {
     PrintWriter out = commandSpec.commandLine().getOut();
     List<DriverChart> charts;
     try (Run run = Run.unlimited("explain");
-        SalesStore opened = SalesStore.open(store, run.budget().child("store"));
-        ModelSet models = ModelDirectory.open(model, opened);
+        SalesStore opened = SalesStore.open(store.dir, run.budget().child("store"));
+        ModelSet models = ModelDirectory.open(model.dir, opened);
         Stage stage = run.stage("explain")) {
       int horizon = horizonDays == null ? models.spec().horizonDays() : horizonDays;
       HorizonCoverage.check(opened, models.spec(), horizon, planCarryForward).warnings()

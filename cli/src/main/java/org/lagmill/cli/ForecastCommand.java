@@ -23,11 +23,11 @@ final class ForecastCommand implements Callable<Integer> {
   @Spec
   CommandSpec commandSpec;
 
-  @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory")
-  Path store;
+  @Mixin
+  StoreOption store;
 
-  @Option(names = "--model", required = true, paramLabel = "DIR", description = "model directory from train")
-  Path model;
+  @Mixin
+  ModelOption model;
 
   @Option(names = "--horizon", converter = Counts.Positive.class,
       paramLabel = "DAYS", description = "days to forecast (default: the model's horizon)")
@@ -43,15 +43,15 @@ final class ForecastCommand implements Callable<Integer> {
   @Option(names = "--wide", description = "one row per series, one column per date (point forecasts only)")
   boolean wide;
 
-  @Option(names = "--report", paramLabel = "DIR", description = "also write report.html and report.json here")
-  Path reportDir;
+  @Mixin
+  ReportOption report;
 
   @Option(names = "--backtest", paramLabel = "DIR", description = "with --report: include the accuracy of this "
       + "backtest of the same store (the folder backtest --report wrote)")
   Path backtestDir;
 
-  @Option(names = "--show", split = ",", paramLabel = "SERIES_ID", description = "series to chart in the report")
-  List<String> shownSeries = List.of();
+  @Mixin
+  ShownSeriesOption shown;
 
   @Option(names = "--series", split = ",", paramLabel = "SERIES_ID",
       description = "forecast only these series (ids as lagmill series lists them)")
@@ -78,14 +78,16 @@ final class ForecastCommand implements Callable<Integer> {
       throw new InvalidRequestException("--wide holds one point forecast per date and no quantiles; drop --wide to "
           + "get the quantile columns, or drop --intervals");
     }
-    if (backtestDir != null && reportDir == null) {
+    if (backtestDir != null && report.dir == null) {
       throw new InvalidRequestException("--backtest adds a backtest's accuracy to the report; give --report DIR "
           + "as well");
     }
     PrintWriter err = commandSpec.commandLine().getErr();
-    ForecastJob.Outcome outcome = ForecastJob.run(new ForecastJob.Request(store, model, horizonDays, out, intervals,
-        wide, reportDir, backtestDir, shownSeries, chosenSeriesIds, conditions, planCarryForward,
-        hierarchyOptions::hierarchy, "lagmill forecast --store " + store + " --model " + model), warning -> {
+    ForecastJob.Outcome outcome = ForecastJob.run(
+        new ForecastJob.Request(store.dir, model.dir, horizonDays, out, intervals,
+            wide, report.dir, backtestDir, shown.seriesIds, chosenSeriesIds, conditions, planCarryForward,
+            hierarchyOptions::hierarchy, "lagmill forecast --store " + store.dir + " --model " + model.dir),
+        warning -> {
           if (!quiet) {
             err.println("warning: " + FlagNames.render(warning));
             err.flush();

@@ -48,9 +48,8 @@ final class IngestCommand implements Callable<Integer> {
       + "replaced; any other file or folder is refused)")
   boolean replace;
 
-  @Option(names = "--no-wait", description = "fail at once (exit 7) when another command is writing the store, "
-      + "instead of waiting for it")
-  boolean noWait;
+  @Mixin
+  NoWaitOption noWait;
 
   @Option(names = "--closures", paramLabel = "FILE", description = {"closures CSV: key columns, from, until (and",
       "an optional reason); a closed day reads as unknown and is forecast as 0"})
@@ -70,26 +69,24 @@ final class IngestCommand implements Callable<Integer> {
       "dates or the step of wide date columns)"})
   String period;
 
-  @Option(names = "--date-window", paramLabel = "FROM..TO", description = "plausible dates: any date read outside "
-      + "stops the run (default: 1900-01-01..2200-12-31)")
-  String dateWindow;
+  @Mixin
+  DateWindowOption dateWindow;
 
-  @Option(names = "--memory-limit", paramLabel = "SIZE", converter = ByteSizeConverter.class,
-      description = "off-heap budget: bytes, or with k, m, g (1024-based), e.g. 512m or 2g (default: none)")
-  Long memoryLimitBytes;
+  @Mixin
+  MemoryLimitOption memoryLimit;
 
   @Option(names = "--quiet", description = "print nothing on success, not even warnings")
   boolean quiet;
 
   @Override
   public Integer call() throws Exception {
-    DateWindows.apply(dateWindow);
+    dateWindow.apply();
     IngestOptions options = IngestOptions.of(sales, store)
         .withColumns(columns.names())
         .withSalesFormat(shape.format()).withMissingRows(shape.missingRows())
         .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures)
         .withPlan(plan.source()).withPeriodDays(period == null ? null : Periods.parse("--period", period));
-    try (Run run = Run.start("ingest", MemoryLimitOption.bytes(memoryLimitBytes))) {
+    try (Run run = Run.start("ingest", memoryLimit.bytes())) {
       run.record().configure("sales", sales.toString())
           .configure("calendar", calendar == null ? null : calendar.toString())
           .configure("prices", prices == null ? null : prices.toString()).configure("store", store.toString())
@@ -99,7 +96,7 @@ final class IngestCommand implements Callable<Integer> {
       long peakOffHeapBytes;
       try (Stage stage = run.stage("ingest")) {
         result = StoreIngest.ingest(options, new StoreUpdate.Policy(replace ? StoreUpdate.Mode.REPLACE
-            : StoreUpdate.Mode.CREATE, !noWait), stage.budget());
+            : StoreUpdate.Mode.CREATE, noWait.waits()), stage.budget());
         peakOffHeapBytes = stage.budget().peakBytes();
         stage.addRows((long) result.manifest().seriesCount() * result.manifest().dayCount());
       }

@@ -13,6 +13,7 @@ import org.lagmill.store.SalesStore;
 import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreSummary;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
@@ -26,8 +27,8 @@ final class InspectCommand implements Callable<Integer> {
   @Spec
   CommandSpec spec;
 
-  @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory")
-  Path store;
+  @Mixin
+  StoreOption store;
 
   @Option(names = "--json", description = "print the summary as JSON")
   boolean json;
@@ -35,7 +36,8 @@ final class InspectCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     StoreSummary summary;
-    try (Run run = Run.unlimited("inspect"); SalesStore opened = SalesStore.open(store, run.budget().child("store"))) {
+    try (Run run = Run.unlimited("inspect");
+        SalesStore opened = SalesStore.open(store.dir, run.budget().child("store"))) {
       summary = StoreSummary.of(opened);
     }
     PrintWriter out = spec.commandLine().getOut();
@@ -43,7 +45,7 @@ final class InspectCommand implements Callable<Integer> {
       out.println(new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT).writeValueAsString(summary.toMap()));
       return ExitCodes.OK;
     }
-    out.printf("store                 %s%n", store);
+    out.printf("store                 %s%n", store.dir);
     out.printf("series                %,d%n", summary.seriesCount());
     out.printf("days                  %,d (%s .. %s)%n", summary.dayCount(), summary.firstDate(), summary.lastDate());
     for (Map.Entry<String, Integer> e : summary.attributeCardinalities().entrySet()) {

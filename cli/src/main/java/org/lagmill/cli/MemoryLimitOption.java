@@ -2,19 +2,23 @@ package org.lagmill.cli;
 
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.memory.MemoryBudget;
+import picocli.CommandLine.Option;
 
-/** The run's off-heap limit from {@code --memory-limit}: absent means none. */
+/** {@code --memory-limit SIZE}: the run's off-heap limit; absent means none. */
 final class MemoryLimitOption {
-  private MemoryLimitOption() {}
+  @Option(names = "--memory-limit", paramLabel = "SIZE", converter = ByteSizeConverter.class,
+      description = "off-heap budget: bytes, or with k, m, g (1024-based), e.g. 512m or 2g (default: none)")
+  Long limitBytes;
 
-  static long bytes(Long memoryLimitBytes) {
-    if (memoryLimitBytes == null) {
+  /** The limit in bytes, or {@link MemoryBudget#UNLIMITED_BYTES} when the option is absent. */
+  long bytes() {
+    if (limitBytes == null) {
       return MemoryBudget.UNLIMITED_BYTES;
     }
-    if (memoryLimitBytes <= 0) {
-      throw new InvalidRequestException("--memory-limit must be a positive number of bytes, got " + memoryLimitBytes
+    if (limitBytes <= 0) {
+      throw new InvalidRequestException("--memory-limit must be a positive number of bytes, got " + limitBytes
           + "; e.g. --memory-limit 2g");
     }
-    return memoryLimitBytes;
+    return limitBytes;
   }
 }

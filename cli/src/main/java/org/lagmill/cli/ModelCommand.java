@@ -16,6 +16,7 @@ import org.lagmill.training.ModelDirectory;
 import org.lagmill.training.ModelManifest;
 import org.lagmill.training.PartitionReport;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
@@ -34,8 +35,8 @@ final class ModelCommand implements Callable<Integer> {
   @Spec
   CommandSpec spec;
 
-  @Option(names = "--model", required = true, paramLabel = "DIR", description = "model directory from train")
-  Path model;
+  @Mixin
+  ModelOption model;
 
   @Option(names = "--all", description = "list every feature, not only the 20 with the most gain")
   boolean all;
@@ -45,14 +46,14 @@ final class ModelCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
-    ModelManifest manifest = ModelDirectory.readManifest(model);
-    FeatureSpec features = FeatureSpecYaml.parse(manifest.featureSpecYaml(), model.resolve(ModelManifest.FILE_NAME)
+    ModelManifest manifest = ModelDirectory.readManifest(model.dir);
+    FeatureSpec features = FeatureSpecYaml.parse(manifest.featureSpecYaml(), model.dir.resolve(ModelManifest.FILE_NAME)
         .toString());
     List<Map<String, Object>> importance = importance(manifest.partitions());
     PrintWriter out = spec.commandLine().getOut();
     if (json) {
       Map<String, Object> document = new LinkedHashMap<>();
-      document.put("model", model.toString());
+      document.put("model", model.dir.toString());
       document.put("createdAt", manifest.createdAt());
       document.put("storeFingerprint", manifest.storeFingerprint());
       document.put("windows", windows(manifest));
@@ -76,7 +77,7 @@ final class ModelCommand implements Callable<Integer> {
       out.println(RunRecord.JSON.writeValueAsString(document));
       return ExitCodes.OK;
     }
-    out.printf("model                %s (created %s, store fingerprint %s)%n", model, manifest.createdAt(),
+    out.printf("model                %s (created %s, store fingerprint %s)%n", model.dir, manifest.createdAt(),
         manifest.storeFingerprint());
     windows(manifest).forEach((name, value) -> out.printf("%-20s %s%n", name, value));
     out.printf("strategy             %s, horizon %d periods%n", features.strategy().configName(),

@@ -13,6 +13,7 @@ import org.lagmill.store.SalesStore;
 import org.lagmill.store.SeriesAttributes;
 import org.lagmill.store.SeriesSelection;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
@@ -27,8 +28,8 @@ final class SeriesCommand implements Callable<Integer> {
   @Spec
   CommandSpec spec;
 
-  @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory")
-  Path store;
+  @Mixin
+  StoreOption store;
 
   @Option(names = "--match", paramLabel = "TEXT", description = "only series whose id or attribute values contain "
       + "this text (case ignored)")
@@ -40,7 +41,8 @@ final class SeriesCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
-    try (Run run = Run.unlimited("series"); SalesStore opened = SalesStore.open(store, run.budget().child("store"))) {
+    try (Run run = Run.unlimited("series");
+        SalesStore opened = SalesStore.open(store.dir, run.budget().child("store"))) {
       SeriesAttributes attributes = opened.attributes();
       int[] chosen = SeriesSelection.matching(opened, match);
       List<String> columns = new ArrayList<>();

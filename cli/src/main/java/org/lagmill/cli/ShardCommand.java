@@ -10,6 +10,7 @@ import org.lagmill.store.ShardAssignment;
 import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreSharding;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
@@ -41,14 +42,13 @@ final class ShardCommand implements Callable<Integer> {
       + "existing shard store there is replaced")
   Path out;
 
-  @Option(names = "--memory-limit", paramLabel = "SIZE", converter = ByteSizeConverter.class,
-      description = "off-heap budget: bytes, or with k, m, g (1024-based), e.g. 512m or 2g (default: none)")
-  Long memoryLimitBytes;
+  @Mixin
+  MemoryLimitOption memoryLimit;
 
   @Override
   public Integer call() throws Exception {
     PrintWriter console = spec.commandLine().getOut();
-    try (Run run = Run.start("shard", MemoryLimitOption.bytes(memoryLimitBytes));
+    try (Run run = Run.start("shard", memoryLimit.bytes());
         Stage stage = run.stage("shard")) {
       List<StoreManifest> manifests = StoreSharding.shard(store, parts, by, out, stage.budget());
       for (StoreManifest manifest : manifests) {

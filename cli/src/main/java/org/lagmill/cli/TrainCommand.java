@@ -23,8 +23,8 @@ final class TrainCommand implements Callable<Integer> {
   @Spec
   CommandSpec commandSpec;
 
-  @Option(names = "--store", required = true, paramLabel = "DIR", description = "store directory")
-  Path store;
+  @Mixin
+  StoreOption store;
 
   @Option(names = "--model", required = true, paramLabel = "DIR", description = "model directory to write")
   Path model;
@@ -33,9 +33,8 @@ final class TrainCommand implements Callable<Integer> {
       + "store's last day)")
   LocalDate until;
 
-  @Option(names = "--memory-limit", paramLabel = "SIZE", converter = ByteSizeConverter.class,
-      description = "off-heap budget: bytes, or with k, m, g (1024-based), e.g. 512m or 2g (default: none)")
-  Long memoryLimitBytes;
+  @Mixin
+  MemoryLimitOption memoryLimit;
 
   @Option(names = "--quiet", description = "print nothing but errors")
   boolean quiet;
@@ -65,7 +64,7 @@ final class TrainCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     FeatureSpec spec = training.featureSpec();
-    TrainJob.Request request = new TrainJob.Request(store, model, until, MemoryLimitOption.bytes(memoryLimitBytes),
+    TrainJob.Request request = new TrainJob.Request(store.dir, model, until, memoryLimit.bytes(),
         cut -> training.plan(spec, cut));
     if (machines != null || rank != null) {
       return TrainJob.open(request, (opened, plan, run) -> DistributedTrainRun.run(this, opened, plan, run));
