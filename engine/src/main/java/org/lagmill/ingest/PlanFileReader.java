@@ -3,7 +3,6 @@ package org.lagmill.ingest;
 import de.siegmar.fastcsv.reader.CsvRecord;
 import it.unimi.dsi.fastutil.floats.FloatArrayList;
 import it.unimi.dsi.fastutil.ints.IntArrayList;
-import it.unimi.dsi.fastutil.ints.IntArrays;
 import it.unimi.dsi.fastutil.longs.LongArrayList;
 import java.nio.file.Path;
 import java.time.LocalDate;
@@ -241,31 +240,19 @@ public final class PlanFileReader {
 
     ArrayPlanTable build(List<String> keyNames, List<String> columnNames) {
       int rowCount = rows.count();
-      int[] order = new int[rowCount];
-      for (int r = 0; r < rowCount; r++) {
-        order[r] = r;
-      }
       int[] keyIds = rows.keyIds();
       long[] days = rows.epochDays();
-      IntArrays.quickSort(order, (a, b) -> {
-        int byKey = Integer.compare(keyIds[a], keyIds[b]);
-        return byKey != 0 ? byKey : Long.compare(days[a], days[b]);
-      });
-      int reach = -1;
+      int[] order = KeyRuns.sortedRows(rowCount, keyIds, (a, b) -> Long.compare(days[a], days[b]));
+      int lastPeriod = -1;
       for (int r = 0; r < rowCount; r++) {
-        reach = Math.max(reach, periodOf(r));
+        lastPeriod = Math.max(lastPeriod, periodOf(r));
       }
+      int reach = lastPeriod;
       int[] keyBySeries = new int[keys.seriesCount()];
       Arrays.fill(keyBySeries, PlanTable.NO_KEY);
       List<int[]> changeDays = new ArrayList<>();
       List<float[]> changeValues = new ArrayList<>();
-      int start = 0;
-      while (start < rowCount) {
-        int keyId = keyIds[order[start]];
-        int end = start;
-        while (end < rowCount && keyIds[order[end]] == keyId) {
-          end++;
-        }
+      KeyRuns.forEachKey(order, keyIds, (keyId, start, end) -> {
         keyDays.clear();
         keyValues.clear();
         if (form == Form.DATE) {
@@ -279,8 +266,7 @@ public final class PlanFileReader {
         for (int s : keys.seriesOf(keyId)) {
           keyBySeries[s] = planKey;
         }
-        start = end;
-      }
+      });
       return new ArrayPlanTable(keyNames, columnNames, keyBySeries, changeDays.toArray(new int[0][]),
           changeValues.toArray(new float[0][]), reach);
     }

@@ -3,7 +3,6 @@ package org.lagmill.ingest;
 import de.siegmar.fastcsv.reader.CsvRecord;
 import it.unimi.dsi.fastutil.floats.FloatArrayList;
 import it.unimi.dsi.fastutil.ints.IntArrayList;
-import it.unimi.dsi.fastutil.ints.IntArrays;
 import java.nio.file.Path;
 import java.time.LocalDate;
 import java.util.ArrayList;
@@ -116,26 +115,13 @@ public final class PriceFileReader {
   private static ArrayPriceTable buildTable(Path file, SeriesKeys keys, LocalDate storeFirstDate, int periodDays,
       int[] keyIds,
       int[] days, float[] prices, int[] lines, int rowCount) {
-    int[] order = new int[rowCount];
-    for (int r = 0; r < rowCount; r++) {
-      order[r] = r;
-    }
-    IntArrays.quickSort(order, (a, b) -> {
-      int byKey = Integer.compare(keyIds[a], keyIds[b]);
-      return byKey != 0 ? byKey : Integer.compare(days[a], days[b]);
-    });
+    int[] order = KeyRuns.sortedRows(rowCount, keyIds, (a, b) -> Integer.compare(days[a], days[b]));
     int seriesCount = keys.seriesCount();
     int[][] changeDays = new int[seriesCount][];
     float[][] changePrices = new float[seriesCount][];
     IntArrayList keyDays = new IntArrayList();
     FloatArrayList keyPrices = new FloatArrayList();
-    int start = 0;
-    while (start < rowCount) {
-      int keyId = keyIds[order[start]];
-      int end = start;
-      while (end < rowCount && keyIds[order[end]] == keyId) {
-        end++;
-      }
+    KeyRuns.forEachKey(order, keyIds, (keyId, start, end) -> {
       keyDays.clear();
       keyPrices.clear();
       for (int i = start; i < end; i++) {
@@ -162,8 +148,7 @@ public final class PriceFileReader {
         changeDays[seriesIndex] = sharedDays;
         changePrices[seriesIndex] = sharedPrices;
       }
-      start = end;
-    }
+    });
     for (int s = 0; s < seriesCount; s++) {
       if (changeDays[s] == null) {
         changeDays[s] = NO_DAYS;
