@@ -1,14 +1,18 @@
 package org.lagmill.cli;
 
+import org.lagmill.ingest.CalendarFileReader;
+import org.lagmill.ingest.ClosuresFileReader;
 import org.lagmill.ingest.ColumnNames;
+import org.lagmill.ingest.LongSalesReader;
+import org.lagmill.ingest.PriceFileReader;
 import org.lagmill.store.SeriesIdentity;
 import picocli.CommandLine.Option;
 
 /**
  * The column-name options of every input file, shared by {@code ingest} and {@code append}: the one place they are
- * defined; defaults as in docs/formats.md. Each dated file has its own date columns ({@code --sales-date-column},
- * {@code --calendar-date-column}, {@code --prices-from-column}, {@code --closures-from-column} and
- * {@code --closures-until-column}); the plan file's are with its own options.
+ * defined; the defaults are the readers' own (docs/formats.md). Each dated file has its own date columns
+ * ({@code --sales-date-column}, {@code --calendar-date-column}, {@code --prices-from-column},
+ * {@code --closures-from-column} and {@code --closures-until-column}); the plan file's are with its own options.
  */
 final class ColumnOptions {
   @Option(names = "--series-id-column", paramLabel = "NAME", defaultValue = SeriesIdentity.SERIES_ID,
@@ -16,7 +20,7 @@ final class ColumnOptions {
           + "attribute values joined with '/'")
   String seriesIdColumn;
 
-  @Option(names = "--date-column", paramLabel = "NAME", defaultValue = "date",
+  @Option(names = "--date-column", paramLabel = "NAME", defaultValue = CalendarFileReader.DEFAULT_DATE_COLUMN,
       description = "date column of the calendar and of long sales (default: ${DEFAULT-VALUE})")
   String dateColumn;
 
@@ -28,23 +32,27 @@ final class ColumnOptions {
       description = "date column of the calendar only (default: --date-column)")
   String calendarDateColumn;
 
-  @Option(names = "--units-column", paramLabel = "NAME", defaultValue = "units",
+  @Option(names = "--units-column", paramLabel = "NAME", defaultValue = LongSalesReader.DEFAULT_UNITS_COLUMN,
       description = "units column of long sales (default: ${DEFAULT-VALUE})")
   String unitsColumn;
 
-  @Option(names = {"--prices-from-column", "--from-column"}, paramLabel = "NAME", defaultValue = "from",
+  @Option(names = {"--prices-from-column", "--from-column"}, paramLabel = "NAME",
+      defaultValue = PriceFileReader.DEFAULT_FROM_COLUMN,
       description = "date column of prices: the price holds from it (default: ${DEFAULT-VALUE})")
   String fromColumn;
 
-  @Option(names = {"--prices-price-column", "--price-column"}, paramLabel = "NAME", defaultValue = "price",
+  @Option(names = {"--prices-price-column", "--price-column"}, paramLabel = "NAME",
+      defaultValue = PriceFileReader.DEFAULT_PRICE_COLUMN,
       description = "price column of prices (default: ${DEFAULT-VALUE})")
   String priceColumn;
 
-  @Option(names = "--closures-from-column", paramLabel = "NAME", defaultValue = "from",
+  @Option(names = "--closures-from-column", paramLabel = "NAME",
+      defaultValue = ClosuresFileReader.DEFAULT_FROM_COLUMN,
       description = "first closed date of closures (default: ${DEFAULT-VALUE})")
   String closuresFromColumn;
 
-  @Option(names = "--closures-until-column", paramLabel = "NAME", defaultValue = "until",
+  @Option(names = "--closures-until-column", paramLabel = "NAME",
+      defaultValue = ClosuresFileReader.DEFAULT_UNTIL_COLUMN,
       description = "last closed date of closures, included (default: ${DEFAULT-VALUE})")
   String closuresUntilColumn;
 
