@@ -246,6 +246,10 @@ class BadInputCorpusTest {
         "fc.csv, line 2, column 5: q0.25 is 3.0 but q0.75 is 1.0: expected quantiles that do not decrease"));
     c.add(text("forecast", "a NUL character", "fc.csv", forecastHeader + "PNT-D1-0001@NV-01\0,2026-01-18,1\n",
         evaluate, 3, "fc.csv, line 2, column 1: series_id 'PNT-D1-0001@NV-01\\0' holds a NUL character"));
+    c.add(text("forecast", "a quantile level given twice", "fc.csv", "series_id,date,forecast,q0.5,q0.50\n"
+        + "PNT-D1-0001@NV-01,2026-01-18,2,2,2\n", evaluate, 3,
+        "fc.csv, line 1, column 5: quantile column q0.50"
+            + " repeats the level of q0.5 (column 4): expected each level once"));
     c.add(text("forecast", "unknown series", "fc.csv", forecastHeader + "nobody,2026-01-18,1\n", evaluate, 3,
         "expected a series of the store, found 'nobody'"));
     c.add(text("forecast", "no date column", "fc.csv", "series_id,forecast\nx,1\n", evaluate, 3,

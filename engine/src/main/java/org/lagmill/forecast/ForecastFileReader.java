@@ -42,8 +42,20 @@ public final class ForecastFileReader {
       List<Double> levels = new ArrayList<>();
       for (int c = 0; c < header.length; c++) {
         if (header[c].matches("q0\\.\\d+")) {
+          double level = Double.parseDouble(header[c].substring(1));
+          if (level <= 0) {
+            throw new InputFormatException(file, 1, c + 1, "quantile column " + header[c] + ": expected a level"
+                + " above 0 and below 1, e.g. q0.5");
+          }
+          int earlier = levels.indexOf(level);
+          if (earlier >= 0) {
+            // both columns would be scored as the one level, counting its loss twice
+            throw new InputFormatException(file, 1, c + 1, "quantile column " + header[c] + " repeats the level of "
+                + header[quantileColumns.get(earlier)] + " (column " + (quantileColumns.get(earlier) + 1)
+                + "): expected each level once");
+          }
           quantileColumns.add(c);
-          levels.add(Double.parseDouble(header[c].substring(1)));
+          levels.add(level);
         }
       }
       // the columns by rising level: a quantile file may list them in any order

@@ -94,6 +94,18 @@ class ForecastFileRoundTripTest {
             + " do not decrease as the level rises");
   }
 
+  @Test
+  void shouldRefuseARepeatedOrZeroQuantileLevel(@TempDir Path dir) throws IOException {
+    ArraySalesHistory history = SmallHistories.history(SEED, 2, 40, 10);
+    // q0.5 and q0.50 are one level: scored twice, its loss would count double
+    expectError(dir, history, "series_id,date,forecast,q0.5,q0.50\nit0_st0,2023-02-04,1,1,1\n"
+        + "it0_st1,2023-02-04,1,1,1\n",
+        ", line 1, column 5: quantile column q0.50 repeats the level of q0.5 (column"
+            + " 4): expected each level once");
+    expectError(dir, history, "series_id,date,forecast,q0.0\nit0_st0,2023-02-04,1,0\nit0_st1,2023-02-04,1,0\n",
+        ", line 1, column 4: quantile column q0.0: expected a level above 0 and below 1, e.g. q0.5");
+  }
+
   private static void expectError(Path dir, ArraySalesHistory history, String text, String expectedTail)
       throws IOException {
     Path file = Files.writeString(dir.resolve("bad.csv"), text, StandardCharsets.UTF_8);
