@@ -191,6 +191,8 @@ class BadInputCorpusTest {
         ingestCal, 3, "cal.csv, line 3, column 2: calendar column 'temp' value 'NaN': expected a finite number"));
     c.add(text("calendar", "a number beyond float32", "cal.csv", "date,temp\n2026-01-05,1e39\n", ingestCal, 3,
         "value '1e39': expected a number of at most 3.4028235E38 in size"));
+    c.add(text("calendar", "separated by semicolons", "cal.csv", "date;x\n2026-01-05;1\n", ingestCal, 3,
+        "cal.csv, line 1: the header is one column holding ';' between its names: expected comma-separated values"));
     c.add(text("calendar", "a NUL character", "cal.csv", "date,x\n2026-01-05,1\0\n", ingestCal, 3,
         "cal.csv, line 2, column 2: x '1\\0' holds a NUL character: expected text"));
     c.add(text("calendar", "a UTF-16 header", "cal.csv", "d\0a\0t\0e\0\n2026-01-05\n", ingestCal, 3,

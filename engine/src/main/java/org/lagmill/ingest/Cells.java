@@ -144,6 +144,22 @@ final class Cells {
     }
   }
 
+  /**
+   * A header of one cell holding a semicolon or a tab is a file separated by something else than commas (a
+   * spreadsheet's export in some locales): refused in those words rather than as a header missing its columns.
+   */
+  static void requireCommaSeparated(Path file, String[] header) {
+    if (header.length != 1) {
+      return;
+    }
+    for (char separator : new char[] {';', '\t'}) {
+      if (header[0].indexOf(separator) >= 0) {
+        throw new InputFormatException(file, 1, 0, "the header is one column holding '" + (separator == '\t' ? "\\t"
+            : ";") + "' between its names: expected comma-separated values (lagmill reads commas only)");
+      }
+    }
+  }
+
   /** How a header cell is named in a message about the cell itself. */
   static final String HEADER_CELL = "header cell";
 

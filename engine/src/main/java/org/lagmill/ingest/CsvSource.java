@@ -90,6 +90,7 @@ public final class CsvSource implements AutoCloseable {
     for (int c = 0; c < header.length; c++) {
       Cells.requireNoNul(file, lineNumber, c + 1, Cells.HEADER_CELL, header[c]);
     }
+    Cells.requireCommaSeparated(file, header);
     headerFieldCount = header.length;
     this.header = header.clone();
     return header;

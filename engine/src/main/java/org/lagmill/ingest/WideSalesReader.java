@@ -133,6 +133,7 @@ public final class WideSalesReader implements AutoCloseable {
     } while (ending == COMMA);
     columnCount = names.size();
     columnNames = names.toArray(new String[0]);
+    Cells.requireCommaSeparated(file, columnNames);
     // a map, not a scan of the earlier names: a file of 100,000 day columns would take billions of comparisons
     Object2IntOpenHashMap<String> firstColumnByName = new Object2IntOpenHashMap<>(columnCount);
     firstColumnByName.defaultReturnValue(-1);

@@ -108,6 +108,22 @@ class CsvSourceTest {
   }
 
   @Test
+  void shouldNameASemicolonOrTabSeparatedHeader() throws IOException {
+    Path semicolons = IngestFiles.write(dir, "s.csv", "date;temp\n2024-01-01;1\n");
+    assertEquals(semicolons + ", line 1: the header is one column holding ';' between its names: expected"
+        + " comma-separated values (lagmill reads commas only)",
+        assertThrows(InputFormatException.class,
+            () -> readAll(semicolons)).getMessage());
+    Path tabs = IngestFiles.write(dir, "t.csv", "item\t2024-01-01\na\t1\n");
+    assertEquals(tabs + ", line 1: the header is one column holding '\\t' between its names: expected"
+        + " comma-separated values (lagmill reads commas only)",
+        assertThrows(InputFormatException.class,
+            () -> WideSalesReader.open(tabs, "series_id").close()).getMessage());
+    assertEquals(List.of("date", "2:2024-01-01"), readAll(IngestFiles.write(dir, "one.csv", "date\n2024-01-01\n")),
+        "one column without a separator is a header like any other");
+  }
+
+  @Test
   void shouldRejectPlainTextNamedGz() throws IOException {
     Path plain = IngestFiles.write(dir, "p.csv", "a,b\n1,2\n");
     Path named = Files.move(plain, dir.resolve("p.csv.gz"));
