@@ -9,6 +9,7 @@ import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
 import org.lagmill.forecast.HorizonCoverage;
+import org.lagmill.ingest.DateWindow;
 import org.lagmill.training.ModelDirectory;
 import org.lagmill.training.ModelSet;
 import org.lagmill.report.DriverChart;
@@ -71,6 +72,7 @@ final class ExplainCommand implements Callable<Integer> {
         ModelSet models = ModelDirectory.open(model.dir, opened);
         Stage stage = run.stage("explain")) {
       int horizon = horizonDays == null ? models.spec().horizonDays() : horizonDays;
+      DateWindow.requireHorizonWithin(opened.dateOf(opened.dayCount()), opened.periodDays(), horizon);
       HorizonCoverage.check(opened, models.spec(), horizon, planCarryForward).warnings()
           .forEach(w -> System.err.println("warning: " + FlagNames.render(w)));
       charts = DriverChartBuilder.build(opened, hierarchyOptions.hierarchy(opened).bind(opened), models,

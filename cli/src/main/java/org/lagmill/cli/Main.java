@@ -37,8 +37,21 @@ public final class Main {
 
   /** Runs the command line and returns its exit code; tests call this instead of {@link #main}. */
   public static int run(String... args) {
-    CommandLine cli = commandLine();
-    return cli.execute(args);
+    return execute(commandLine(), args);
+  }
+
+  /**
+   * Executes {@code args} on {@code cli}. picocli hands only exceptions to the failure handler; a command that
+   * exhausts the Java heap throws an {@link OutOfMemoryError} past it, which is worded and given its exit code here.
+   */
+  static int execute(CommandLine cli, String... args) {
+    try {
+      return cli.execute(args);
+    } catch (OutOfMemoryError e) {
+      cli.getErr().println("lagmill: " + message(e));
+      cli.getErr().flush();
+      return exitCodeOf(e);
+    }
   }
 
   static CommandLine commandLine() {

@@ -276,6 +276,10 @@ class BadInputCorpusTest {
     // counts on the command line and paths that are not what they should be
     c.add(text("options", "a negative horizon", "unused.txt", "", "forecast --store STORE --model MODEL --out OUT"
         + " --horizon -5", 2, "Invalid value for option '--horizon': expected a whole number of at least 1, found -5"));
+    c.add(text("options", "a horizon past the plausible dates", "unused.txt", "", "forecast --store STORE --model"
+        + " MODEL --out OUT --horizon 2147483647", 2,
+        "--horizon 2147483647 reaches past 2200-12-31, the last plausible"
+            + " date: expected at most 63899 periods from 2026-01-19"));
     c.add(text("options", "a zero horizon to train", "unused.txt", "", "train --store STORE --model OUT --horizon 0",
         2, "Invalid value for option '--horizon': expected a whole number of at least 1, found 0"));
     c.add(text("options", "a negative lag", "unused.txt", "", "train --store STORE --model OUT --lags 2,-3", 2,

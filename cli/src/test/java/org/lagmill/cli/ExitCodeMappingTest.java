@@ -45,6 +45,27 @@ class ExitCodeMappingTest {
     assertEquals(ExitCodes.USAGE_ERROR, Main.exitCodeOf(catchThrown(() -> Path.of("a\u0000b"))));
   }
 
+  @Test
+  void shouldEndACommandThatExhaustsTheJavaHeapWithItsExitCodeAndNoStackTrace() {
+    // picocli hands only exceptions to the failure handler; an Error thrown by a command passes through it
+    picocli.CommandLine cli = Main.commandLine();
+    cli.addSubcommand("exhaust", new picocli.CommandLine(new Exhaust()));
+    java.io.StringWriter err = new java.io.StringWriter();
+    cli.setErr(new java.io.PrintWriter(err, true));
+    assertEquals(ExitCodes.JVM_OUT_OF_MEMORY, Main.execute(cli, "exhaust"));
+    assertEquals("lagmill: the Java process ran out of memory (Requested array size exceeds VM limit), outside"
+        + " lagmill's off-heap budget; give it more heap with LAGMILL_HEAP (e.g. LAGMILL_HEAP=4g, the launcher's"
+        + " default is 1g) or run on fewer series", err.toString().strip());
+  }
+
+  @picocli.CommandLine.Command(name = "exhaust")
+  static final class Exhaust implements java.util.concurrent.Callable<Integer> {
+    @Override
+    public Integer call() {
+      throw new OutOfMemoryError("Requested array size exceeds VM limit");
+    }
+  }
+
   private static Throwable catchThrown(Runnable action) {
     try {
       action.run();

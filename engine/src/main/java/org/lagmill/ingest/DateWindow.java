@@ -3,6 +3,7 @@ package org.lagmill.ingest;
 import java.nio.file.Path;
 import java.time.LocalDate;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.Setting;
 
 /**
  * The plausible dates of every date lagmill reads (sales, calendar, prices): 1900-01-01 to 2200-12-31 unless widened.
@@ -35,6 +36,26 @@ public final class DateWindow {
           + "the first");
     }
     window = new Window(first.toEpochDay(), last.toEpochDay());
+  }
+
+  /**
+   * Refuses a forecast horizon whose last period starts after the window's last date: the same bound as every date
+   * read, and what keeps a mistyped horizon (2147483647) from asking for an array no machine holds.
+   *
+   * @param firstForecastDate the first forecast period's date (the store's next period)
+   * @param periodDays the store's step in days
+   * @param horizonPeriods periods to forecast, at least 1
+   * @throws InvalidRequestException naming the most periods that fit
+   */
+  public static void requireHorizonWithin(LocalDate firstForecastDate, int periodDays, long horizonPeriods) {
+    Window w = window;
+    long first = firstForecastDate.toEpochDay();
+    if (first + (horizonPeriods - 1) * periodDays > w.lastEpochDay) {
+      long most = Math.max(0, (w.lastEpochDay - first) / periodDays + 1);
+      throw new InvalidRequestException(Setting.HORIZON + " " + horizonPeriods + " reaches past "
+          + LocalDate.ofEpochDay(w.lastEpochDay) + ", the last plausible date: expected at most " + most
+          + " periods from " + firstForecastDate);
+    }
   }
 
   /** Back to 1900-01-01 .. 2200-12-31. */

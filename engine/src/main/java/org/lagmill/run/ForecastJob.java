@@ -13,6 +13,7 @@ import org.lagmill.forecast.ForecastFileWriter;
 import org.lagmill.forecast.ForecastTable;
 import org.lagmill.forecast.Forecaster;
 import org.lagmill.forecast.HorizonCoverage;
+import org.lagmill.ingest.DateWindow;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.io.PathNames;
 import org.lagmill.io.Setting;
@@ -81,6 +82,7 @@ public final class ForecastJob {
         ModelSet models = ModelDirectory.open(request.modelDir(), opened)) {
       ModelManifest manifest = ModelDirectory.readManifest(request.modelDir());
       int horizon = request.horizonPeriods() == null ? models.spec().horizonDays() : request.horizonPeriods();
+      DateWindow.requireHorizonWithin(opened.dateOf(opened.dayCount()), opened.periodDays(), horizon);
       HorizonCoverage coverage = HorizonCoverage.check(opened, models.spec(), horizon, request.planCarryForward());
       run.record().result("planCarriedSeriesPeriods", coverage.planCarriedSeriesPeriods());
       coverage.warnings().forEach(warnings);

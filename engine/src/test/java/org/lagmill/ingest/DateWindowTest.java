@@ -11,6 +11,7 @@ import java.time.LocalDate;
 import org.junit.jupiter.api.AfterEach;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesStore;
 
@@ -59,5 +60,20 @@ class DateWindowTest {
     IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
         () -> DateWindow.set(LocalDate.of(2000, 1, 1), LocalDate.of(1999, 1, 1)));
     assertEquals("date window 2000-01-01..1999-01-01: the last date must not be before the first", e.getMessage());
+  }
+
+  @Test
+  void shouldRefuseAHorizonThatReachesPastTheWindow() {
+    LocalDate next = LocalDate.of(2026, 1, 19);
+    // 2026-01-19 .. 2200-12-31 holds 63,899 days (Python: (date(2200, 12, 31) - date(2026, 1, 19)).days + 1)
+    DateWindow.requireHorizonWithin(next, 1, 63_899);
+    InvalidRequestException e = assertThrows(InvalidRequestException.class,
+        () -> DateWindow.requireHorizonWithin(next, 1, 63_900));
+    assertEquals("‹horizon› 63900 reaches past 2200-12-31, the last plausible date: expected at most 63899 periods"
+        + " from 2026-01-19", e.getMessage());
+    // weekly: the 9,129th week starts on 2200-12-29 (Python: date(2026, 1, 19) + timedelta(days=9128 * 7))
+    DateWindow.requireHorizonWithin(next, 7, 9_129);
+    assertThrows(InvalidRequestException.class, () -> DateWindow.requireHorizonWithin(next, 7, 9_130));
+    assertThrows(InvalidRequestException.class, () -> DateWindow.requireHorizonWithin(next, 7, Integer.MAX_VALUE));
   }
 }
