@@ -280,6 +280,10 @@ class BadInputCorpusTest {
         + " MODEL --out OUT --horizon 2147483647", 2,
         "--horizon 2147483647 reaches past 2200-12-31, the last plausible"
             + " date: expected at most 63899 periods from 2026-01-19"));
+    c.add(text("options", "a horizon and lag of 2147483647 to train", "unused.txt", "", "train --store STORE --model"
+        + " OUT --horizon 2147483647 --lags 2147483647", 2,
+        "the validation window of 2147483647 days (the horizon)"
+            + " leaves no day of the 14 days of history up to the cut to train on; use a shorter --horizon"));
     c.add(text("options", "a zero horizon to train", "unused.txt", "", "train --store STORE --model OUT --horizon 0",
         2, "Invalid value for option '--horizon': expected a whole number of at least 1, found 0"));
     c.add(text("options", "a negative lag", "unused.txt", "", "train --store STORE --model OUT --lags 2,-3", 2,

@@ -8,6 +8,7 @@ import org.lagmill.features.FeatureBatch;
 import org.lagmill.features.FeaturePass;
 import org.lagmill.features.FeatureSchema;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.Setting;
 import org.lagmill.learner.DatasetBuilder;
 import org.lagmill.learner.FeatureImportance;
 import org.lagmill.learner.TrainParameters;
@@ -62,7 +63,13 @@ public final class ModelTraining {
       throw new InvalidRequestException("the training cut (day " + plan.cutDayIndex() + ") must lie within the "
           + history.dayCount() + " days of history");
     }
-    int minimumTrainingDays = plan.spec().launchSkipDays() + 1;
+    if (plan.trainingLastDayIndex() < 0) {
+      throw new InvalidRequestException("the validation window of " + plan.validationDays() + " days (the horizon)"
+          + " leaves no day of the " + (plan.cutDayIndex() + 1) + " days of history up to the cut to train on; use a"
+          + " shorter " + Setting.HORIZON);
+    }
+    // long: a lag of Integer.MAX_VALUE days plus the one training day must not wrap around
+    long minimumTrainingDays = plan.spec().launchSkipDays() + 1L;
     if (plan.trainingLastDayIndex() < minimumTrainingDays) {
       throw new InvalidRequestException("the history before the validation window has " + (plan
           .trainingLastDayIndex() + 1) + " days, too few for the longest lag (" + plan.spec().launchSkipDays()
