@@ -4,8 +4,10 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.Callable;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.ingest.IngestOptions;
 import org.lagmill.ingest.IngestResult;
+import org.lagmill.ingest.ShardIngest;
 import org.lagmill.ingest.StoreIngest;
 import org.lagmill.store.Periods;
 import org.lagmill.run.Run;
@@ -78,6 +80,14 @@ final class IngestCommand implements Callable<Integer> {
   @Option(names = "--quiet", description = "print nothing on success, not even warnings")
   boolean quiet;
 
+  @Option(names = "--shard", paramLabel = "K/N", description = {"write only shard K of N (K from 0) straight from",
+      "the files: the store lagmill shard --parts N --by ATTR would write as shard-K; needs --by"})
+  String shard;
+
+  @Option(names = "--by", paramLabel = "ATTR", description = "with --shard: attribute whose value picks each series' "
+      + "shard (the rule of lagmill shard)")
+  String by;
+
   @Override
   public Integer call() throws Exception {
     dateWindow.apply();
@@ -86,7 +96,9 @@ final class IngestCommand implements Callable<Integer> {
         .withSalesFormat(shape.format()).withMissingRows(shape.missingRows())
         .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures)
         .withPlan(plan.source()).withPeriodDays(period == null ? null : Periods.parse("--period", period));
+    ShardIngest.Request request = shardRequest(shard, by);
     try (Run run = Run.start("ingest", memoryLimit.bytes())) {
+      run.record().configure("shard", shard).configure("shardAttribute", by);
       run.record().configure("sales", sales.toString())
           .configure("calendar", calendar == null ? null : calendar.toString())
           .configure("prices", prices == null ? null : prices.toString()).configure("store", store.toString())
@@ -95,8 +107,10 @@ final class IngestCommand implements Callable<Integer> {
       IngestResult result;
       long peakOffHeapBytes;
       try (Stage stage = run.stage("ingest")) {
-        result = StoreIngest.ingest(options, new StoreUpdate.Policy(replace ? StoreUpdate.Mode.REPLACE
-            : StoreUpdate.Mode.CREATE, noWait.waits()), stage.budget());
+        StoreUpdate.Policy policy = new StoreUpdate.Policy(replace ? StoreUpdate.Mode.REPLACE
+            : StoreUpdate.Mode.CREATE, noWait.waits());
+        result = request == null ? StoreIngest.ingest(options, policy, stage.budget())
+            : ShardIngest.ingest(options, request, policy, stage.budget());
         peakOffHeapBytes = stage.budget().peakBytes();
         stage.addRows((long) result.manifest().seriesCount() * result.manifest().dayCount());
       }
@@ -114,6 +128,11 @@ final class IngestCommand implements Callable<Integer> {
                 : ", " + Periods.describe(manifest.periodDaysOrDaily()),
             store, manifest.binaryBytes(),
             peakOffHeapBytes);
+        StoreManifest.Shard part = manifest.shard();
+        if (part != null) {
+          spec.commandLine().getOut().printf("shard %d of %d by %s: %d of the input's %d series%n", part.part(),
+              part.partCount(), part.attribute(), manifest.seriesCount(), part.sourceSeriesCount());
+        }
         if (result.periodNote() != null) {
           spec.commandLine().getOut().println(FlagNames.render(result.periodNote()));
         }
@@ -121,6 +140,22 @@ final class IngestCommand implements Callable<Integer> {
       }
     }
     return ExitCodes.OK;
+  }
+
+  /** The shard asked for with {@code --shard K/N --by ATTR}, or null for the whole input. */
+  static ShardIngest.Request shardRequest(String shard, String by) {
+    if (shard == null) {
+      if (by != null) {
+        throw new InvalidRequestException("--by " + by + " picks the shard of each series for --shard K/N; give "
+            + "--shard too, or leave both out to ingest every series");
+      }
+      return null;
+    }
+    java.util.regex.Matcher m = java.util.regex.Pattern.compile("(\\d{1,9})/(\\d{1,9})").matcher(shard);
+    if (!m.matches()) {
+      throw new InvalidRequestException("--shard '" + shard + "': expected K/N, shard K (from 0) of N, e.g. 0/3");
+    }
+    return new ShardIngest.Request(Integer.parseInt(m.group(1)), Integer.parseInt(m.group(2)), by);
   }
 
   /** One line with the manifest's fill counts, as ingest and append print them. */

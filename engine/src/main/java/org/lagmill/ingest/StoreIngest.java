@@ -97,15 +97,7 @@ public final class StoreIngest {
   private static StoreWriter writeWide(IngestOptions options, Path dir, MemoryBudget budget, String[] periodNote)
       throws IOException {
     try (WideSalesReader reader = WideSalesReader.open(options.salesFile(), options.seriesIdColumn())) {
-      Integer given = options.periodDays();
-      if (given != null && reader.dayCount() > 1 && reader.periodDays() != given) {
-        throw new InputFormatException(options.salesFile(), 1, 0, "date columns " + reader.periodDays() + " days "
-            + "apart: expected the step given with " + Setting.PERIOD + ", " + given + (given == 1 ? " day" : " days"));
-      }
-      int periodDays = given != null ? given : reader.periodDays();
-      periodNote[0] = "period " + Periods.describe(periodDays) + ": " + (given != null ? "given with " + Setting.PERIOD
-          : reader.dayCount() > 1 ? "detected from the step between the date columns" : "daily, the default for a "
-              + "single date column");
+      int periodDays = widePeriodDays(options, reader, periodNote);
       StoreWriter writer = new StoreWriter(dir, reader.firstDate(), periodDays, reader.dayCount(),
           reader.attributeNames(), budget);
       try {
@@ -120,6 +112,23 @@ public final class StoreIngest {
         throw e;
       }
     }
+  }
+
+  /**
+   * The period of a wide file: given (and checked against its date columns) or detected; notes which in
+   * {@code periodNote[0]}.
+   */
+  static int widePeriodDays(IngestOptions options, WideSalesReader reader, String[] periodNote) {
+    Integer given = options.periodDays();
+    if (given != null && reader.dayCount() > 1 && reader.periodDays() != given) {
+      throw new InputFormatException(options.salesFile(), 1, 0, "date columns " + reader.periodDays() + " days "
+          + "apart: expected the step given with " + Setting.PERIOD + ", " + given + (given == 1 ? " day" : " days"));
+    }
+    int periodDays = given != null ? given : reader.periodDays();
+    periodNote[0] = "period " + Periods.describe(periodDays) + ": " + (given != null ? "given with " + Setting.PERIOD
+        : reader.dayCount() > 1 ? "detected from the step between the date columns" : "daily, the default for a "
+            + "single date column");
+    return periodDays;
   }
 
   /**
@@ -147,7 +156,7 @@ public final class StoreIngest {
     }
   }
 
-  private static void closeAfterFailure(StoreWriter writer, Throwable failure) {
+  static void closeAfterFailure(StoreWriter writer, Throwable failure) {
     if (writer == null) {
       return;
     }

@@ -39,6 +39,22 @@ public final class ZeroFills {
     return ((bits[(int) (bit >>> 6)] >>> (bit & 63)) & 1) != 0;
   }
 
+  /** The marks of the series {@code seriesIndexes} only, renumbered 0, 1, ... in that order (one shard's series). */
+  ZeroFills restrictedTo(int[] seriesIndexes) {
+    if (count == 0) {
+      return NONE;
+    }
+    ZeroFills kept = new ZeroFills(seriesIndexes.length, dayCount);
+    for (int s = 0; s < seriesIndexes.length; s++) {
+      for (int d = 0; d < dayCount; d++) {
+        if (isSet(seriesIndexes[s], d)) {
+          kept.set(s, d);
+        }
+      }
+    }
+    return kept;
+  }
+
   /** Item-days marked. */
   public long count() {
     return count;

@@ -20,7 +20,7 @@ public enum Setting {
                       "plan-date-column"), PLAN_FROM_COLUMN("plan-from-column"), SALES("sales"), CALENDAR(
                           "calendar"), PRICES("prices"), CLOSURES("closures"), PLAN(
                               "plan"), SHOWN_SERIES("show"), CHOSEN_SERIES("series"), SERIES_CONDITION(
-                                  "where"), HIERARCHY("hierarchy"), LEVELS("level"), SHARD_ATTRIBUTE(
+                                  "where"), HIERARCHY("hierarchy"), LEVELS("level"), SHARD("shard"), SHARD_ATTRIBUTE(
                                       "by"), NO_WAIT("no-wait"), MEMORY_LIMIT("memory-limit"), PERIOD(
                                           "period"), DATE_WINDOW("date-window"), MODEL("model"), PARTITION_BY(
                                               "partition-by"), MACHINES("machines"), RANK("rank"), RANK_TIMEOUT(

@@ -14,7 +14,7 @@ import org.lagmill.memory.MemoryBudget;
  * attribute on the heap; doubles as a {@link SeriesAttributes} view of the series added so far, so a price or calendar
  * reader can map its keys to series before the store is finished.
  */
-final class AttributeDictionaryBuilder implements SeriesAttributes {
+public final class AttributeDictionaryBuilder implements SeriesAttributes {
   private final String[] names;
   private final int seriesIdAttribute;
   private final Object2IntOpenHashMap<String>[] codeByValue;
@@ -24,7 +24,7 @@ final class AttributeDictionaryBuilder implements SeriesAttributes {
   private final ObjectArrayList<String> seriesIds = new ObjectArrayList<>();
 
   @SuppressWarnings("unchecked")
-  AttributeDictionaryBuilder(List<String> attributeNames) {
+  public AttributeDictionaryBuilder(List<String> attributeNames) {
     names = attributeNames.toArray(new String[0]);
     for (int a = 0; a < names.length; a++) {
       for (int b = 0; b < a; b++) {
@@ -51,7 +51,7 @@ final class AttributeDictionaryBuilder implements SeriesAttributes {
    *
    * @throws IllegalArgumentException when the series id is already taken
    */
-  void add(String[] attributeValues) {
+  public void add(String[] attributeValues) {
     if (attributeValues.length != names.length) {
       throw new IllegalArgumentException("expected " + names.length + " attribute values, got "
           + attributeValues.length);
@@ -74,7 +74,7 @@ final class AttributeDictionaryBuilder implements SeriesAttributes {
     }
   }
 
-  int seriesCount() {
+  public int seriesCount() {
     return seriesIds.size();
   }
 

@@ -120,7 +120,11 @@ public final class StoreSharding {
     }
   }
 
-  private static PriceTable selectedPrices(PriceTable prices, int[] sourceIndexes) {
+  /**
+   * The prices of the series {@code sourceIndexes} of a whole store, as a shard keeps them (shard series {@code s} is
+   * source series {@code sourceIndexes[s]}).
+   */
+  public static PriceTable selectedPrices(PriceTable prices, int[] sourceIndexes) {
     return new PriceTable() {
       @Override
       public boolean isEmpty() { return prices.isEmpty(); }
@@ -133,7 +137,8 @@ public final class StoreSharding {
     };
   }
 
-  private static ClosureTable selectedClosures(ClosureTable closures, int[] sourceIndexes) {
+  /** The closures of the series {@code sourceIndexes} of a whole store, as a shard keeps them. */
+  public static ClosureTable selectedClosures(ClosureTable closures, int[] sourceIndexes) {
     return new ClosureTable() {
       @Override
       public boolean isEmpty() { return closures.isEmpty(); }
@@ -147,7 +152,7 @@ public final class StoreSharding {
   }
 
   /** The plan with every key kept (keys are few) and each shard series pointing at its source series' key. */
-  private static PlanTable selectedPlan(PlanTable plan, int[] sourceIndexes) {
+  public static PlanTable selectedPlan(PlanTable plan, int[] sourceIndexes) {
     return PlanTable.withSeriesKeys(plan, s -> plan.keyOf(sourceIndexes[s]));
   }
 
