@@ -35,7 +35,7 @@ final class ConfigCommand implements Callable<Integer> {
           + "features.yaml");
     }
     if (template) {
-      out.print(FeatureSpecTemplate.text());
+      out.print(FlagNames.render(FeatureSpecTemplate.text()));
     } else {
       out.print(FeatureSpecYaml.format(FeatureSpecYaml.read(check)));
     }

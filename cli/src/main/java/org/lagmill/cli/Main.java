@@ -9,13 +9,14 @@ import org.lagmill.ingest.InputFiles;
 import org.lagmill.ingest.InputFormatException;
 import org.lagmill.io.CorruptFileException;
 import org.lagmill.io.InvalidRequestException;
-import org.lagmill.memory.MemoryBudgetExceededException;
 import org.lagmill.io.OutputRefusedException;
+import org.lagmill.io.Setting;
+import org.lagmill.memory.MemoryBudgetExceededException;
 import org.lagmill.store.StoreBusyException;
 import org.lagmill.store.StoreNotices;
 import org.lagmill.training.RankFailureException;
-import picocli.CommandLine;
 import picocli.CommandLine.Command;
+import picocli.CommandLine;
 
 /** The {@code lagmill} command: parses arguments, runs one subcommand, maps failures to documented exit codes. */
 @Command(
@@ -56,6 +57,7 @@ public final class Main {
 
   static CommandLine commandLine() {
     CommandLine cli = new CommandLine(new Main());
+    Setting.showMentionsAs(FlagNames::flagOf, FlagNames::commandOf);
     StoreNotices.setSink(text -> {
       cli.getErr().println("note: " + FlagNames.render(text));
       cli.getErr().flush();

@@ -37,6 +37,13 @@ class FlagNamesTest {
   }
 
   @Test
+  void shouldShowMentionsInTheFilesTheEngineWritesAsTheCommandLineDoes() {
+    Main.commandLine();
+    assertEquals("pass its folder with lagmill forecast --backtest DIR", Setting.shown("pass its folder with "
+        + Setting.Command.FORECAST + " " + Setting.BACKTEST_REPORT + " DIR"));
+  }
+
+  @Test
   void shouldShowAnEngineRefusalWithTheFlag() {
     IllegalArgumentException e = org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
         () -> new BacktestSettings(0, 7, 7, java.util.List.of(), Hierarchy.parse(java.util.List.of()),

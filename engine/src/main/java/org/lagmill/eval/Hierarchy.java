@@ -7,6 +7,7 @@ import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Set;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.Setting;
 import org.lagmill.store.AttributeNesting;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SeriesAttributes;
@@ -81,7 +82,7 @@ public final class Hierarchy {
       chains.add(List.copyOf(chain));
     }
     return new Hierarchy(crossProduct(chains), List.copyOf(chains), Source.DECLARED,
-        "--hierarchy " + chainsText(chains));
+        Setting.HIERARCHY + " " + chainsText(chains));
   }
 
   /**
@@ -136,7 +137,7 @@ public final class Hierarchy {
       copy.add(List.copyOf(level));
     }
     return new Hierarchy(List.copyOf(copy), List.of(), Source.DECLARED,
-        "--level " + String.join("; ", copy.stream().map(Level::nameOf).toList()));
+        Setting.LEVELS + " " + String.join("; ", copy.stream().map(Level::nameOf).toList()));
   }
 
   /**

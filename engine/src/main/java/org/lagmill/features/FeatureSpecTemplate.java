@@ -3,6 +3,7 @@ package org.lagmill.features;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
+import org.lagmill.io.Setting;
 
 /**
  * A commented feature spec file: every key of {@link FeatureSpecYaml}, what it means, and its default. The values
@@ -45,7 +46,8 @@ public final class FeatureSpecTemplate {
     Map<String, Object> defaults = FeatureSpecYaml.values(FeatureSpec.defaults());
     StringBuilder b = new StringBuilder();
     b.append("# lagmill feature spec. Every key is optional; a key left out keeps its default, shown here.\n")
-        .append("# Use it with --config FILE (train, backtest, demo). docs/configuration.md explains each key.\n");
+        .append(
+            "# Use it with " + Setting.CONFIG + " FILE (train, backtest). docs/configuration.md explains each key.\n");
     for (Key key : KEYS) {
       b.append('\n');
       for (String line : wrap(key.meaning(), 116)) {

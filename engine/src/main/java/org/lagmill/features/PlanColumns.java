@@ -2,6 +2,7 @@ package org.lagmill.features;
 
 import java.util.List;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.Setting;
 import org.lagmill.store.PlanTable;
 
 /** The one rule for which plan columns a feature spec reads from a history's plan, and the error when one is gone. */
@@ -27,12 +28,13 @@ public final class PlanColumns {
       }
       if (plan.isEmpty()) {
         throw new InvalidRequestException("the features read plan columns " + String.join(", ", columns)
-            + " but the store holds no plan; ingest or append one with those columns (lagmill append --store DIR"
-            + " --plan FILE)");
+            + " but the store holds no plan; ingest or append one with those columns ("
+            + Setting.Command.APPEND + " " + Setting.STORE + " DIR " + Setting.PLAN + " FILE)");
       }
       throw new InvalidRequestException("the features read plan column '" + columns.get(k) + "', which the "
           + "store's plan does not have (its columns: " + String.join(", ", plan.columnNames()) + "); append a plan"
-          + " with that column (lagmill append --store DIR --plan FILE) or train again");
+          + " with that column (" + Setting.Command.APPEND + " " + Setting.STORE + " DIR " + Setting.PLAN
+          + " FILE) or train again");
     }
     return indexes;
   }

@@ -4,9 +4,10 @@ import java.util.ArrayList;
 import java.util.List;
 import org.lagmill.features.FeatureSpec;
 import org.lagmill.features.PlanColumns;
+import org.lagmill.io.InvalidRequestException;
+import org.lagmill.io.Setting;
 import org.lagmill.store.Periods;
 import org.lagmill.store.PlanTable;
-import org.lagmill.io.InvalidRequestException;
 import org.lagmill.store.SalesHistory;
 
 /**
@@ -42,7 +43,7 @@ public record HorizonCoverage(int seriesWithoutPriceCount, int seriesWithStalePr
     if (spec.calendarColumns() && history.calendar().columnCount() > 0 && history.calendar().dayCount() <= lastDay) {
       throw new InvalidRequestException("the calendar ends on " + history.dateOf(history.calendar().dayCount() - 1)
           + " but the forecast needs it through " + history.dateOf(lastDay) + "; append a calendar that covers the"
-          + " horizon (lagmill append --store DIR --calendar FILE)");
+          + " horizon (" + Setting.Command.APPEND + " " + Setting.STORE + " DIR " + Setting.CALENDAR + " FILE)");
     }
     List<String> warnings = new ArrayList<>();
     long carried = checkPlan(history, spec, lastDay, planCarryForward, warnings);
@@ -102,7 +103,8 @@ public record HorizonCoverage(int seriesWithoutPriceCount, int seriesWithStalePr
       throw new InvalidRequestException(ends + " but the forecast needs it through " + history.dateOf(lastDay) + ": "
           + plan.describeKey(history.attributes(), firstPlanned) + " has no plan from "
           + history.dateOf(firstUncovered) + " (nor has any other series with plan rows); append a plan that reaches"
-          + " the horizon's end (lagmill append --store DIR --plan FILE) or forecast with --plan-carry-forward to"
+          + " the horizon's end (" + Setting.Command.APPEND + " " + Setting.STORE + " DIR " + Setting.PLAN
+          + " FILE) or forecast with " + Setting.PLAN_CARRY_FORWARD + " to"
           + " carry each key's last values forward");
     }
     long carried = seriesWithPlan * uncoveredPeriods;

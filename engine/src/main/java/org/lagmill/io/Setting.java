@@ -1,6 +1,7 @@
 package org.lagmill.io;
 
 import java.util.Locale;
+import java.util.Objects;
 import java.util.function.Function;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
@@ -27,7 +28,9 @@ public enum Setting {
                                                   "rank-timeout"), SCENARIO_SERIES("series"), SCENARIO_DAYS(
                                                       "days"), SCENARIO_FUTURE_DAYS("future-days"), SCENARIO_START(
                                                           "start"), SCENARIO_PERIOD("period"), STORE("store"), REPORT(
-                                                              "report"), BACKTEST_REPORT("backtest"), UNTIL("until");
+                                                              "report"), BACKTEST_REPORT("backtest"), UNTIL(
+                                                                  "until"), MATCH("match"), PLAN_CARRY_FORWARD(
+                                                                      "plan-carry-forward"), CONFIG("config");
 
   /**
    * A task a front end offers, named in engine hints ({@code Command.APPEND + " " + Setting.PLAN + " FILE"}); the
@@ -35,7 +38,7 @@ public enum Setting {
    * {@code ‹append command›}.
    */
   public enum Command {
-    SERIES, APPEND, BACKTEST, EVALUATE, SHARD;
+    SERIES, APPEND, BACKTEST, EVALUATE, FORECAST, DEMO, SHARD;
 
     /** The neutral name: the constant in lower case, words joined by '-', e.g. {@code append}. */
     public String key() {
@@ -48,6 +51,8 @@ public enum Setting {
       return "\u2039" + key() + " command\u203a";
     }
   }
+
+  private static volatile Function<String, String> shownAs = Function.identity();
 
   private static final Pattern MENTION = Pattern.compile("\u2039([a-z-]+)( command)?\u203a");
 
@@ -92,6 +97,21 @@ public enum Setting {
     }
     m.appendTail(out);
     return out.toString();
+  }
+
+  /**
+   * Sets how text the engine writes for people into files (the report page, the run record's lines) shows
+   * mentions: a front end sets its own names once at start; until then mentions stay as they are.
+   */
+  public static void showMentionsAs(Function<Setting, String> names, Function<Command, String> commands) {
+    Objects.requireNonNull(names, "names");
+    Objects.requireNonNull(commands, "commands");
+    shownAs = text -> render(text, names, commands);
+  }
+
+  /** {@code text} with its mentions as the front end shows them ({@link #showMentionsAs}). */
+  public static String shown(String text) {
+    return shownAs.apply(text);
   }
 
   private static <E> E byKey(E[] values, Function<E, String> keyOf, String key) {

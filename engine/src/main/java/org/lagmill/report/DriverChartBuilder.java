@@ -10,9 +10,9 @@ import org.lagmill.features.FeatureFamily;
 import org.lagmill.forecast.ForecastExplainer;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.io.Setting;
-import org.lagmill.training.ModelSet;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesHistory;
+import org.lagmill.training.ModelSet;
 
 /**
  * Explains the forecast after a history's last period for the largest aggregate of each level (by units over the
@@ -56,7 +56,7 @@ public final class DriverChartBuilder {
       if (series < 0) {
         throw new InvalidRequestException(Setting.CHOSEN_SERIES + " " + id
             + ": no such series in the store; list them with "
-            + "lagmill series --store DIR --match TEXT");
+            + Setting.Command.SERIES + " " + Setting.STORE + " DIR " + Setting.MATCH + " TEXT");
       }
       targets.add(new ForecastExplainer.Target("series " + id, new int[] {series}));
     }

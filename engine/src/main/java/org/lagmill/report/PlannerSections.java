@@ -5,6 +5,7 @@ import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import org.lagmill.io.Setting;
 
 /**
  * The first sections a planner reads: how good the forecast is, in plain words and in units ({@code #headline}),
@@ -21,9 +22,10 @@ final class PlannerSections {
   static String headline(AccuracySummary a, DataSummary data, String periodUnit) {
     String heading = "How good is the forecast";
     if (a == null) {
-      return Html.section("headline", heading, Html.absent("No accuracy was measured for this report: run lagmill "
-          + "backtest on the same store and pass its folder with forecast --backtest DIR, or score a past forecast "
-          + "with lagmill evaluate --report DIR.") + fillNote(data, periodUnit));
+      String hint = "No accuracy was measured for this report: run " + Setting.Command.BACKTEST + " on the same store "
+          + "and pass its folder with " + Setting.Command.FORECAST + " " + Setting.BACKTEST_REPORT + " DIR, or score a "
+          + "past forecast with " + Setting.Command.EVALUATE + " " + Setting.REPORT + " DIR.";
+      return Html.section("headline", heading, Html.absent(Setting.shown(hint)) + fillNote(data, periodUnit));
     }
     StringBuilder b = new StringBuilder("<p class=\"headline\">").append(ReportFormat.escape(plainWords(a,
         periodUnit))).append("</p>");
@@ -55,7 +57,7 @@ final class PlannerSections {
     List<String> names = a.levels().stream().map(AccuracySummary.LevelScore::levelName).toList();
     String from = "detected".equals(a.levelSource())
         ? "from how the attributes nest in the data (the default): " + a.levelBasis()
-        : "as declared with " + a.levelBasis();
+        : "as declared with " + Setting.shown(a.levelBasis());
     return Html.note("Levels scored (" + names.size() + "): " + String.join(", ", names) + "; " + from + ".");
   }
 

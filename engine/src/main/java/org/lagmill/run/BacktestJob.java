@@ -10,6 +10,7 @@ import org.lagmill.eval.CombinedBacktestResult;
 import org.lagmill.eval.EvaluationResult;
 import org.lagmill.eval.Hierarchy;
 import org.lagmill.io.AtomicFiles;
+import org.lagmill.io.Setting;
 import org.lagmill.progress.ProgressListener;
 import org.lagmill.report.ReportAssembler;
 import org.lagmill.report.ReportData;
@@ -62,7 +63,8 @@ public final class BacktestJob {
   public static Outcome run(Request request, ProgressListener progress) throws IOException {
     // Refused before the (long) backtest runs, not after it.
     RunReport.checkTarget(request.reportDir());
-    ReportData.Builder report = RunReport.start("lagmill backtest", request.commandLine(),
+    ReportData.Builder report = RunReport.start(Setting.shown(Setting.Command.BACKTEST.toString()),
+        request.commandLine(),
         request.storeDir().toString());
     try (Run run = Run.start("backtest", request.memoryLimitBytes());
         Stage opening = run.stage("open store");
@@ -102,7 +104,7 @@ public final class BacktestJob {
           written));
       Path html = RunReport.write(report.build(), request.reportDir());
       EvaluationResult scores = backtest.result().origins().get(0).model();
-      run.record().result("backtest", written).result("levelsScored", scores.scoredLevelsLine())
+      run.record().result("backtest", written).result("levelsScored", Setting.shown(scores.scoredLevelsLine()))
           .result("fill", opened.manifest().fill());
       run.record().write(request.reportDir());
       return new Outcome(backtest, combined[0], opened.manifest(), html, written);

@@ -18,6 +18,7 @@ import org.lagmill.forecast.HorizonCoverage;
 import org.lagmill.ingest.IngestOptions;
 import org.lagmill.ingest.PlanSource;
 import org.lagmill.ingest.StoreIngest;
+import org.lagmill.io.Setting;
 import org.lagmill.learner.DatasetParameters;
 import org.lagmill.learner.Objective;
 import org.lagmill.learner.TrainParameters;
@@ -109,8 +110,9 @@ public final class DemoJob {
       // file silently. The promotion plan is ingested: its columns become plan_<column> features.
       warnings.accept("the demo data's " + ScenarioGenerator.CLOSURES_FILE + " is not ingested by the demo; closed "
           + "outlet days count as zero sales");
-      ReportData.Builder report = RunReport.start("lagmill demo: Marrowgate & Tillbox, " + size.name()
-          .toLowerCase(Locale.ROOT) + " scenario", request.commandLine(), storeDir.toString());
+      ReportData.Builder report = RunReport
+          .start(Setting.shown(Setting.Command.DEMO.toString()) + ": Marrowgate & Tillbox, " + size.name()
+              .toLowerCase(Locale.ROOT) + " scenario", request.commandLine(), storeDir.toString());
       BacktestRun backtest;
       double[][] point;
       float[] dispersion;

@@ -92,7 +92,8 @@ public final class EvaluateJob {
       baselineResults.forEach((kind, score) -> baselines.put(ReportAssembler.label(kind), score.wrmsse()));
       Path html = null;
       if (request.reportDir() != null) {
-        ReportData.Builder report = RunReport.start("lagmill evaluate", request.commandLine(),
+        ReportData.Builder report = RunReport.start(Setting.shown(Setting.Command.EVALUATE.toString()),
+            request.commandLine(),
             request.storeDir().toString());
         report.data(ReportAssembler.dataSummary(StoreSummary.of(opened)))
             .accuracy(ReportAssembler.accuracy(result, baselineResults, opened.dateOf(origin)))

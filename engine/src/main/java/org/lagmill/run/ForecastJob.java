@@ -153,7 +153,8 @@ public final class ForecastJob {
   private static Path writeReport(Request request, Run run, SalesStore opened, ModelSet models,
       ModelManifest manifest, HorizonCoverage coverage, double[][] point, int horizon, Consumer<String> warnings)
       throws IOException {
-    ReportData.Builder report = RunReport.start("lagmill forecast", request.commandLine(),
+    ReportData.Builder report = RunReport.start(Setting.shown(Setting.Command.FORECAST.toString()),
+        request.commandLine(),
         request.storeDir().toString());
     if (coverage.planCarriedSeriesPeriods() > 0) {
       report.caution(ReportData.DEFAULT_CAUTION + " The promotion plan ended before the horizon: its last values "

@@ -40,7 +40,7 @@ public final class SeriesSelection {
         if (series < 0) {
           throw new InvalidRequestException(Setting.CHOSEN_SERIES + " " + id
               + ": no such series in the store; list them with "
-              + "lagmill series --store DIR --match TEXT");
+              + Setting.Command.SERIES + " " + Setting.STORE + " DIR " + Setting.MATCH + " TEXT");
         }
         chosen.set(series);
       }

@@ -118,11 +118,13 @@ class PlanFeatureReferenceTest {
     IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
         () -> FeaturePass.prediction(bare.withPlan(plan), spec, null, plans.dayCount, 3));
     assertEquals("the features read plan column 'coupon', which the store's plan does not have (its columns: "
-        + String.join(", ", plans.columns) + "); append a plan with that column (lagmill append --store DIR --plan "
+        + String.join(", ", plans.columns)
+        + "); append a plan with that column (\u2039append command\u203a \u2039store\u203a DIR \u2039plan\u203a "
         + "FILE) or train again", e.getMessage());
     e = assertThrows(IllegalArgumentException.class, () -> FeaturePass.prediction(bare, spec, null, plans.dayCount,
         3));
     assertEquals("the features read plan columns end_cap, coupon but the store holds no plan; ingest or append one "
-        + "with those columns (lagmill append --store DIR --plan FILE)", e.getMessage());
+        + "with those columns (\u2039append command\u203a \u2039store\u203a DIR \u2039plan\u203a FILE)",
+        e.getMessage());
   }
 }

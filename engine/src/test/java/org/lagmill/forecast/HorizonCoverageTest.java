@@ -26,7 +26,8 @@ class HorizonCoverageTest {
     IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> HorizonCoverage.check(history,
         SPEC, 7));
     assertEquals("the calendar ends on 2024-02-05 but the forecast needs it through 2024-02-06; append a calendar"
-        + " that covers the horizon (lagmill append --store DIR --calendar FILE)", e.getMessage());
+        + " that covers the horizon (\u2039append command\u203a \u2039store\u203a DIR \u2039calendar\u203a FILE)",
+        e.getMessage());
     assertEquals(List.of(), HorizonCoverage.check(history, SPEC, 6).warnings());
     assertEquals(List.of(), HorizonCoverage.check(history, SPEC.toBuilder().calendarColumns(false).build(), 7)
         .warnings(), "a spec without calendar columns does not need the calendar");
@@ -62,7 +63,8 @@ class HorizonCoverageTest {
         SPEC, 7));
     assertEquals("the plan ends on 2024-02-03 but the forecast needs it through 2024-02-06: series_id=s1 has no plan"
         + " from 2024-02-04 (nor has any other series with plan rows); append a plan that reaches the horizon's end"
-        + " (lagmill append --store DIR --plan FILE) or forecast with --plan-carry-forward to carry each key's last"
+        + " (\u2039append command\u203a \u2039store\u203a DIR \u2039plan\u203a FILE) or forecast with"
+        + " \u2039plan-carry-forward\u203a to carry each key's last"
         + " values forward", e.getMessage());
     HorizonCoverage carried = HorizonCoverage.check(history, SPEC, 7, true);
     assertEquals(6, carried.planCarriedSeriesPeriods());
@@ -73,7 +75,8 @@ class HorizonCoverageTest {
     e = assertThrows(IllegalArgumentException.class, () -> HorizonCoverage.check(history, SPEC.toBuilder()
         .planColumns(List.of("display")).build(), 4));
     assertEquals("the features read plan column 'display', which the store's plan does not have (its columns: "
-        + "promo); append a plan with that column (lagmill append --store DIR --plan FILE) or train again",
+        + "promo); append a plan with that column (\u2039append command\u203a \u2039store\u203a DIR"
+        + " \u2039plan\u203a FILE) or train again",
         e.getMessage());
   }
 

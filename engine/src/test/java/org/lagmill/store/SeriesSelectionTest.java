@@ -108,8 +108,9 @@ class SeriesSelectionTest {
     assertEquals("‹where› 'shop=s9': no series has shop = s9; values of shop: s1, s2",
         assertThrows(IllegalArgumentException.class,
             () -> SeriesSelection.select(history, null, List.of("shop=s9"))).getMessage());
-    assertEquals("‹series› a/s9/d1: no such series in the store; list them with lagmill series --store DIR --match "
-        + "TEXT",
+    assertEquals(
+        "‹series› a/s9/d1: no such series in the store; list them with \u2039series command\u203a \u2039store\u203a"
+            + " DIR \u2039match\u203a TEXT",
         assertThrows(IllegalArgumentException.class,
             () -> SeriesSelection.select(history, List.of("a/s9/d1"), null)).getMessage());
   }
