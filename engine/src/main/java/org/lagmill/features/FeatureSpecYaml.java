@@ -1,6 +1,8 @@
 package org.lagmill.features;
 
 import com.fasterxml.jackson.annotation.JsonAutoDetect;
+import com.fasterxml.jackson.annotation.JsonSetter;
+import com.fasterxml.jackson.annotation.Nulls;
 import com.fasterxml.jackson.annotation.JsonInclude;
 import com.fasterxml.jackson.annotation.JsonPropertyOrder;
 import com.fasterxml.jackson.core.JsonParser;
@@ -35,6 +37,8 @@ public final class FeatureSpecYaml {
       // 28.5 as a lag or 14.0 as a horizon is a mistake to report, not a number to truncate
       .disable(DeserializationFeature.ACCEPT_FLOAT_AS_INT)
       .enable(JsonParser.Feature.STRICT_DUPLICATE_DETECTION)
+      // a key with an empty value would keep the default without a word: refused like a value of the wrong type
+      .defaultSetterInfo(JsonSetter.Value.forValueNulls(Nulls.FAIL))
       .serializationInclusion(JsonInclude.Include.NON_NULL)
       .build();
 

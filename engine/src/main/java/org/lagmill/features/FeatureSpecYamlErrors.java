@@ -6,6 +6,7 @@ import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.core.JsonStreamContext;
 import com.fasterxml.jackson.core.JsonToken;
 import com.fasterxml.jackson.databind.JsonMappingException;
+import com.fasterxml.jackson.databind.exc.InvalidNullException;
 import com.fasterxml.jackson.databind.exc.UnrecognizedPropertyException;
 import com.fasterxml.jackson.dataformat.yaml.JacksonYAMLParseException;
 import java.util.List;
@@ -60,7 +61,8 @@ final class FeatureSpecYamlErrors {
       key = keyOf(parser.getParsingContext());
     }
     // a value the library refused before reading it (e.g. a number of thousands of digits) has no parser to quote
-    String found = parser == null ? "" : ", found " + found(parser);
+    String found = e instanceof InvalidNullException ? ", found an empty value"
+        : parser == null ? "" : ", found " + found(parser);
     if (key == null) {
       return where + "expected keys with values (key: value, one per line)" + found;
     }
@@ -100,7 +102,9 @@ final class FeatureSpecYamlErrors {
         return "an empty value";
       default :
         try {
-          return "'" + Excerpts.of(parser.getText()) + "'";
+          String text = parser.getText();
+          // an empty scalar reaches a list or number as an empty text
+          return text == null || text.isEmpty() ? "an empty value" : "'" + Excerpts.of(text) + "'";
         } catch (java.io.IOException unreadable) {
           return "an unreadable value";
         }

@@ -108,6 +108,19 @@ class FeatureSpecYamlTest {
   }
 
   @Test
+  void shouldRefuseAKeyWithoutAValueInsteadOfTakingTheDefault() {
+    // an empty value would otherwise keep the default (28 days) without a word
+    assertYamlError("horizonDays:\n", "features.yaml line 1: key 'horizonDays': expected a whole number, found an"
+        + " empty value");
+    assertYamlError("lagDays: 28\n".replace("28", "null"), "features.yaml line 1: key 'lagDays': expected a list of"
+        + " whole numbers, e.g. [28, 35], found an empty value");
+    assertYamlError("horizonDays: 7\nlagDays:\n", "features.yaml line 2: key 'lagDays': expected a list of whole"
+        + " numbers, e.g. [28, 35], found an empty value");
+    assertYamlError("horizonDays: 7\nstrategy: ~\n", "features.yaml line 2: key 'strategy': expected direct or"
+        + " recursive, found an empty value");
+  }
+
+  @Test
   void shouldReportBrokenYamlWithoutTheLibrarysWords() {
     IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
         () -> FeatureSpecYaml.parse("strategy: direct\nhorizonDays: 14: 15\n", "features.yaml"));
