@@ -231,6 +231,8 @@ class BadInputCorpusTest {
         "f.yaml line 2: key 'horizonDays' appears twice: expected each key once"));
     c.add(text("config", "a word as a number", "f.yaml", "horizonDays: two\n", check, 2,
         "f.yaml line 1: key 'horizonDays': expected a whole number, found 'two'"));
+    c.add(text("config", "a key without a value", "f.yaml", "horizonDays: 2\nlagDays:\n", check, 2,
+        "f.yaml line 2: key 'lagDays': expected a list of whole numbers, e.g. [28, 35], found an empty value"));
     c.add(text("config", "an unknown key", "f.yaml", "lags: [2]\n", check, 2, "f.yaml line 1: unknown key 'lags'"));
     c.add(text("config", "broken YAML", "f.yaml", "horizonDays: 2: 3\n", check, 2,
         "f.yaml line 1: not valid YAML (mapping values are not allowed here)"));
@@ -269,6 +271,10 @@ class BadInputCorpusTest {
         + " CASEDIR --out OUT", 6, "CASEDIR"));
     c.add(text("store folder", "a model given as the store", "unused.txt", "", "forecast --store MODEL --model"
         + " MODEL --out OUT", 6, "not a store: it holds a trained model"));
+    c.add(text("store folder", "a file given as the store", "notes.txt", "mine", "inspect --store FILE", 6,
+        "notes.txt: is a file, not a store: give the folder ingest wrote"));
+    c.add(text("model folder", "a file given as the model", "notes.txt", "mine", "forecast --store STORE --model FILE"
+        + " --out OUT", 6, "notes.txt: is a file, not a model: give the folder train wrote"));
     c.add(text("store folder", "an empty folder as the store", "unused.txt", "", "inspect --store CASEDIR", 6,
         "CASEDIR"));
     c.add(text("store folder", "a replace of something not a store", "notes.txt", "mine",

@@ -3,6 +3,7 @@ package org.lagmill.store;
 import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.nio.ByteOrder;
+import java.nio.file.FileSystemException;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
@@ -124,6 +125,10 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
 
   /** As {@link #open(Path, MemoryBudget)} with a smaller window, so tests can cross window boundaries. */
   static SalesStore open(Path storeDir, MemoryBudget budget, long maxWindowBytes) throws IOException {
+    if (Files.isRegularFile(storeDir)) {
+      // named as the user gave it, before the lock or pointer inside it is reached ("notes.txt/lock: Not a directory")
+      throw new FileSystemException(storeDir.toString(), null, "is a file, not a store: give the folder ingest wrote");
+    }
     if (!Files.exists(storeDir)) {
       // A store of the previous protocol, swapped by two renames, may survive only as its backup.
       StoreDirectories.recoverSiblings(storeDir);

@@ -115,6 +115,9 @@ public final class ModelDirectory {
   public static ModelManifest readManifest(Path dir) throws IOException {
     StoreDirectories.recoverSiblings(dir);
     Path file = dir.resolve(ModelManifest.FILE_NAME);
+    if (Files.isRegularFile(dir)) {
+      throw new FileSystemException(dir.toString(), null, "is a file, not a model: give the folder train wrote");
+    }
     if (holdsAStore(dir)) {
       throw new FileSystemException(dir.toString(), null, "not a model: it holds a sales store; give the folder"
           + " train wrote (a store folder goes to " + Setting.STORE + ")");

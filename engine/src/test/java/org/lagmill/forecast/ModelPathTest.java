@@ -52,4 +52,18 @@ class ModelPathTest {
       assertEquals(0, budget.heldBytes());
     }
   }
+
+  @Test
+  void shouldNameAFileGivenWhereAStoreOrAModelFolderBelongs(@TempDir Path temp) throws Exception {
+    Path notes = Files.writeString(temp.resolve("notes.txt"), "mine");
+    FileSystemException asModel = assertThrows(FileSystemException.class, () -> ModelDirectory.readManifest(notes));
+    assertEquals(notes + ": is a file, not a model: give the folder train wrote", asModel.getMessage());
+    try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
+      FileSystemException asStore = assertThrows(FileSystemException.class,
+          () -> org.lagmill.store.SalesStore.open(notes, budget));
+      assertEquals(notes + ": is a file, not a store: give the folder ingest wrote", asStore.getMessage());
+      assertEquals(0, budget.heldBytes());
+    }
+    assertEquals("mine", Files.readString(notes));
+  }
 }
