@@ -61,6 +61,11 @@ final class BacktestCommand implements Callable<Integer> {
       + "member and their average are scored on the same origins, the training options apply to all")
   List<String> members = List.of();
 
+  @Option(names = "--scoring-part", paramLabel = "FILE", description = {"also write this store's additive share of",
+      "every origin's scores (a shard's; lagmill merge-scores adds the shards' into one hierarchy-wide backtest",
+      "score); point forecasts only, one plan"})
+  Path scoringPart;
+
   @Mixin
   TrainingOptions training;
   @Mixin
@@ -77,7 +82,8 @@ final class BacktestCommand implements Callable<Integer> {
     BacktestJob.Outcome outcome = BacktestJob.run(new BacktestJob.Request(store.dir, originCount, stepDays,
         memoryLimit.bytes(), reportDir, shown.seriesIds, cut -> members(spec, memberSpecs, cut),
         hierarchyOptions::hierarchy,
-        "lagmill backtest --store " + store.dir + " --origins " + originCount), ConsoleProgress.forCommand(quiet));
+        "lagmill backtest --store " + store.dir + " --origins " + originCount, scoringPart),
+        ConsoleProgress.forCommand(quiet));
     PrintWriter out = commandSpec.commandLine().getOut();
     if (json) {
       out.println(RunRecord.JSON.writeValueAsString(outcome.written()));

@@ -1,5 +1,6 @@
 package org.lagmill.cli;
 
+import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -8,6 +9,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.concurrent.Callable;
+import org.lagmill.eval.BacktestScoringPart;
 import org.lagmill.eval.EvaluationResult;
 import org.lagmill.eval.MergedScoring;
 import org.lagmill.eval.ScoringPart;
@@ -22,7 +24,8 @@ import picocli.CommandLine.Spec;
 @Command(name = "merge-scores", header = "Merge the shards' scoring parts into one hierarchy-wide score.",
     mixinStandardHelpOptions = true,
     description = {"Add every shard's scoring part (lagmill evaluate --scoring-part on each shard) and score the",
-        "whole hierarchy: the same WRMSSE and per-level table one evaluate of the unsplit store gives."},
+        "whole hierarchy: the same WRMSSE and per-level table one evaluate of the unsplit store gives. Backtest",
+        "parts (lagmill backtest --scoring-part) merge origin by origin, with the mean WRMSSE over origins."},
     footer = {"", "Example:", "  lagmill merge-scores part-0.json part-1.json part-2.json --json"})
 final class MergeScoresCommand implements Callable<Integer> {
   @Spec
@@ -37,6 +40,9 @@ final class MergeScoresCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
+    if (BacktestScoringPart.KIND.equals(BacktestScoringPart.kindOf(parts.get(0)))) {
+      return mergeBacktests(out);
+    }
     List<ScoringPart> read = new ArrayList<>();
     for (Path part : parts) {
       read.add(ScoringPart.read(part));
@@ -53,6 +59,39 @@ final class MergeScoresCommand implements Callable<Integer> {
     out.printf(Locale.ROOT, "%d scoring parts, origin period %d, horizon %d%n", read.size(), first.originDay(),
         first.horizon());
     EvaluatePrinter.printLevels(out, result);
+    return ExitCodes.OK;
+  }
+
+  /** Backtest parts (lagmill backtest --scoring-part): one merged score per origin and their mean. */
+  private int mergeBacktests(PrintWriter out) throws IOException {
+    List<BacktestScoringPart> read = new ArrayList<>();
+    for (Path part : parts) {
+      read.add(BacktestScoringPart.read(part));
+    }
+    List<EvaluationResult> origins = BacktestScoringPart.merge(read);
+    double mean = BacktestScoringPart.meanWrmsse(origins);
+    List<ScoringPart> first = read.get(0).origins();
+    if (json) {
+      List<Map<String, Object>> rows = new ArrayList<>();
+      for (int k = 0; k < origins.size(); k++) {
+        Map<String, Object> row = new LinkedHashMap<>();
+        row.put("originDay", first.get(k).originDay());
+        row.put("forecast", origins.get(k));
+        rows.add(row);
+      }
+      Map<String, Object> document = new LinkedHashMap<>();
+      document.put("origins", rows);
+      document.put("meanModelWrmsse", mean);
+      document.put("partCount", read.size());
+      out.println(RunRecord.JSON.writeValueAsString(document));
+      return ExitCodes.OK;
+    }
+    out.printf(Locale.ROOT, "%d backtest scoring parts, %d origins, horizon %d%n", read.size(), origins.size(),
+        first.get(0).horizon());
+    for (int k = 0; k < origins.size(); k++) {
+      out.printf(Locale.ROOT, "  origin period %d: WRMSSE %.4f%n", first.get(k).originDay(), origins.get(k).wrmsse());
+    }
+    out.printf(Locale.ROOT, "mean WRMSSE over origins %.4f%n", mean);
     return ExitCodes.OK;
   }
 }

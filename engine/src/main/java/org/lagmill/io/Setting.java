@@ -21,16 +21,18 @@ public enum Setting {
                       "plan-date-column"), PLAN_FROM_COLUMN("plan-from-column"), SALES("sales"), CALENDAR(
                           "calendar"), PRICES("prices"), CLOSURES("closures"), PLAN(
                               "plan"), SHOWN_SERIES("show"), CHOSEN_SERIES("series"), SERIES_CONDITION(
-                                  "where"), HIERARCHY("hierarchy"), LEVELS("level"), SHARD("shard"), SHARD_ATTRIBUTE(
-                                      "by"), NO_WAIT("no-wait"), MEMORY_LIMIT("memory-limit"), PERIOD(
-                                          "period"), DATE_WINDOW("date-window"), MODEL("model"), PARTITION_BY(
-                                              "partition-by"), MACHINES("machines"), RANK("rank"), RANK_TIMEOUT(
-                                                  "rank-timeout"), SCENARIO_SERIES("series"), SCENARIO_DAYS(
-                                                      "days"), SCENARIO_FUTURE_DAYS("future-days"), SCENARIO_START(
-                                                          "start"), SCENARIO_PERIOD("period"), STORE("store"), REPORT(
-                                                              "report"), BACKTEST_REPORT("backtest"), UNTIL(
-                                                                  "until"), MATCH("match"), PLAN_CARRY_FORWARD(
-                                                                      "plan-carry-forward"), CONFIG("config");
+                                  "where"), HIERARCHY("hierarchy"), LEVELS("level"), SHARD("shard"), SCORING_PART(
+                                      "scoring-part"), SHARD_ATTRIBUTE(
+                                          "by"), NO_WAIT("no-wait"), MEMORY_LIMIT("memory-limit"), PERIOD(
+                                              "period"), DATE_WINDOW("date-window"), MODEL("model"), PARTITION_BY(
+                                                  "partition-by"), MACHINES("machines"), RANK("rank"), RANK_TIMEOUT(
+                                                      "rank-timeout"), SCENARIO_SERIES("series"), SCENARIO_DAYS(
+                                                          "days"), SCENARIO_FUTURE_DAYS("future-days"), SCENARIO_START(
+                                                              "start"), SCENARIO_PERIOD("period"), STORE(
+                                                                  "store"), REPORT(
+                                                                      "report"), BACKTEST_REPORT("backtest"), UNTIL(
+                                                                          "until"), MATCH("match"), PLAN_CARRY_FORWARD(
+                                                                              "plan-carry-forward"), CONFIG("config");
 
   /**
    * A task a front end offers, named in engine hints ({@code Command.APPEND + " " + Setting.PLAN + " FILE"}); the

@@ -6,10 +6,13 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.function.Function;
 import java.util.function.IntFunction;
+import org.lagmill.eval.BacktestScoringPart;
 import org.lagmill.eval.CombinedBacktestResult;
 import org.lagmill.eval.EvaluationResult;
+import org.lagmill.eval.Evaluator;
 import org.lagmill.eval.Hierarchy;
 import org.lagmill.io.AtomicFiles;
+import org.lagmill.io.InvalidRequestException;
 import org.lagmill.io.Setting;
 import org.lagmill.progress.ProgressListener;
 import org.lagmill.report.ReportAssembler;
@@ -41,10 +44,12 @@ public final class BacktestJob {
    *     member without a name for a plain backtest, or the members of a combination
    * @param hierarchyOf the levels to score, once the store is open
    * @param commandLine shown in the report
+   * @param scoringPart where to write this store's additive share of the scores ({@link BacktestScoringPart}), or
+   *     null for none; one plan only
    */
   public record Request(Path storeDir, int originCount, Integer stepPeriods, Long memoryLimitBytes, Path reportDir,
       List<String> shownSeries, IntFunction<List<Member>> membersByCutIndex,
-      Function<SalesHistory, Hierarchy> hierarchyOf, String commandLine) {}
+      Function<SalesHistory, Hierarchy> hierarchyOf, String commandLine, Path scoringPart) {}
 
   /**
    * What the backtest found.
@@ -77,10 +82,18 @@ public final class BacktestJob {
       run.record().configure("store", request.storeDir().toString()).configure("origins", request.originCount())
           .configure("stepDays", stepPeriods).configure("plan", first.toString());
       Hierarchy hierarchy = request.hierarchyOf().apply(opened);
+      boolean combination = members.size() > 1 || members.get(0).name() != null;
+      if (request.scoringPart() != null && combination) {
+        throw new InvalidRequestException(Setting.SCORING_PART + " scores one plan: leave out the members");
+      }
+      StoreManifest manifest = opened.manifest();
+      BacktestScoringPart.Collector scoringParts = request.scoringPart() == null ? null
+          : new BacktestScoringPart.Collector(opened, new Evaluator(opened, hierarchy, first.spec().horizonDays()),
+              manifest.shard(), manifest.nesting() != null ? manifest.nesting() : opened.nesting().parents());
       BacktestRun backtest;
       CombinedBacktestResult[] combined = new CombinedBacktestResult[1];
       try (Stage stage = run.stage("backtest")) {
-        if (members.size() > 1 || members.get(0).name() != null) {
+        if (combination) {
           List<String> names = new ArrayList<>();
           List<TrainingPlan> plans = new ArrayList<>();
           members.forEach(m -> {
@@ -92,7 +105,7 @@ public final class BacktestJob {
               stage.budget(), progress, combined);
         } else {
           backtest = BacktestRun.run(opened, first, request.originCount(), stepPeriods, hierarchy, stage.budget(),
-              progress);
+              progress, scoringParts);
         }
         stage.addRows(backtest.result().origins().stream().flatMap(o -> o.partitions().stream())
             .mapToLong(p -> p.trainingRowCount()).sum());
@@ -103,6 +116,9 @@ public final class BacktestJob {
       AtomicFiles.write(request.reportDir().resolve(RunReport.BACKTEST_FILE), RunRecord.JSON.writeValueAsBytes(
           written));
       Path html = RunReport.write(report.build(), request.reportDir());
+      if (scoringParts != null) {
+        scoringParts.finish().write(request.scoringPart());
+      }
       EvaluationResult scores = backtest.result().origins().get(0).model();
       run.record().result("backtest", written).result("levelsScored", Setting.shown(scores.scoredLevelsLine()))
           .result("fill", opened.manifest().fill());

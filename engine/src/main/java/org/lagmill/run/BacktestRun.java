@@ -3,6 +3,7 @@ package org.lagmill.run;
 import java.util.List;
 import java.util.Map;
 import org.lagmill.eval.BacktestResult;
+import org.lagmill.eval.BacktestScoringPart;
 import org.lagmill.eval.BacktestSettings;
 import org.lagmill.eval.BaselineKind;
 import org.lagmill.eval.CombinedBacktestResult;
@@ -45,6 +46,16 @@ public final class BacktestRun {
   public static BacktestRun run(SalesHistory history, TrainingPlan plan, int originCount, int stepDays,
       Hierarchy hierarchy,
       MemoryBudget budget, ProgressListener progress) {
+    return run(history, plan, originCount, stepDays, hierarchy, budget, progress, null);
+  }
+
+  /**
+   * As {@link #run(SalesHistory, TrainingPlan, int, int, Hierarchy, MemoryBudget, ProgressListener)}, handing each
+   * origin's point forecasts to {@code scoringParts} (a shard's share of the scores), unless it is null.
+   */
+  public static BacktestRun run(SalesHistory history, TrainingPlan plan, int originCount, int stepDays,
+      Hierarchy hierarchy, MemoryBudget budget, ProgressListener progress,
+      BacktestScoringPart.Collector scoringParts) {
     BacktestSettings settings = new BacktestSettings(originCount, stepDays, plan.spec().horizonDays(),
         DEFAULT_BASELINES, hierarchy, ForecastTable.publishedQuantiles());
     int[] lastOrigin = {-1};
@@ -55,6 +66,9 @@ public final class BacktestRun {
           lastOrigin[0] = origin;
           lastForecasts[0] = point;
           lastDispersion[0] = dispersion;
+          if (scoringParts != null) {
+            scoringParts.onOrigin(origin, point);
+          }
         });
     return new BacktestRun(result, lastOrigin[0], lastForecasts[0], lastDispersion[0], hierarchy);
   }
