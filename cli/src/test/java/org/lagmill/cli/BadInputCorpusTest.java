@@ -209,6 +209,9 @@ class BadInputCorpusTest {
         ingestPrices, 3, "price '1e39': expected a decimal number > 0 and at most 3.4028235E38"));
     c.add(text("prices", "a NUL character", "p.csv", "item,from,price\nPNT-D1-0001\0,2026-01-05,1\n", ingestPrices,
         3, "p.csv, line 2, column 1: item 'PNT-D1-0001\\0' holds a NUL character: expected text"));
+    c.add(text("prices", "a price below float32", "p.csv", "item,from,price\nPNT-D1-0001,2026-01-05,1e-50\n",
+        ingestPrices, 3, "price '1e-50': expected a decimal number of at least 1.4E-45 (the smallest price the store"
+            + " holds)"));
     c.add(text("prices", "no key columns", "p.csv", "from,price\n2026-01-05,1\n", ingestPrices, 3,
         "no key columns"));
     // closures

@@ -80,9 +80,15 @@ public final class PriceFileReader {
         long epochDay = Cells.requireDate(file, line, fromIndex + 1, fromColumn, record.getField(fromIndex));
         String priceText = record.getField(priceIndex);
         double price = Cells.isDecimal(priceText) ? Double.parseDouble(priceText) : Double.NaN;
-        if (!(price > 0) || Double.isInfinite(price) || (float) price == 0f) {
+        if (!(price > 0) || Double.isInfinite(price)) {
           throw new InputFormatException(file, line, priceIndex + 1,
               priceColumn + " '" + Excerpts.of(priceText) + "': expected a decimal number > 0");
+        }
+        if ((float) price == 0f) {
+          // the store keeps prices as float32: a smaller number would read back as 0
+          throw new InputFormatException(file, line, priceIndex + 1, priceColumn + " '" + Excerpts.of(priceText)
+              + "': expected a decimal number of at least " + Float.MIN_VALUE + " (the smallest price the store"
+              + " holds)");
         }
         if (Float.isInfinite((float) price)) {
           // the store keeps prices as float32: a larger number would read back as infinity
