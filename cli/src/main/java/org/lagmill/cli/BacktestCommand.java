@@ -1,6 +1,7 @@
 package org.lagmill.cli;
 
 import java.io.PrintWriter;
+import java.io.IOException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -73,14 +74,8 @@ final class BacktestCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
-    FeatureSpec spec = training.featureSpec();
-    List<FeatureSpec> memberSpecs = new ArrayList<>();
-    for (String member : members) {
-      int at = member.lastIndexOf('@');
-      memberSpecs.add(FeatureSpecYaml.read(Path.of(at < 0 ? member : member.substring(0, at))));
-    }
     BacktestJob.Outcome outcome = BacktestJob.run(new BacktestJob.Request(store.dir, originCount, stepDays,
-        memoryLimit.bytes(), reportDir, shown.seriesIds, cut -> members(spec, memberSpecs, cut),
+        memoryLimit.bytes(), reportDir, shown.seriesIds, this::members,
         hierarchyOptions::hierarchy,
         "lagmill backtest --store " + store.dir + " --origins " + originCount, scoringPart),
         ConsoleProgress.forCommand(quiet));
@@ -99,18 +94,19 @@ final class BacktestCommand implements Callable<Integer> {
   }
 
   /**
-   * The plans to score for a store whose last period is {@code cutIndex}: the training options' spec, or one plan
-   * per {@code --member SPEC[@ATTRIBUTE]} (the spec file's features, partitioned by the attribute when given).
+   * The plans to score for a store of this period whose last period is {@code cutIndex}: the training options' spec,
+   * or one plan per {@code --member SPEC[@ATTRIBUTE]} (the spec file's features, keys left out taking the period's
+   * defaults, partitioned by the attribute when given).
    */
-  private List<BacktestJob.Member> members(FeatureSpec spec, List<FeatureSpec> memberSpecs, int cutIndex) {
+  private List<BacktestJob.Member> members(int periodDays, int cutIndex) throws IOException {
     if (members.isEmpty()) {
-      return List.of(new BacktestJob.Member(null, training.plan(spec, cutIndex)));
+      return List.of(new BacktestJob.Member(null, training.plan(training.featureSpec(periodDays), cutIndex)));
     }
     List<BacktestJob.Member> plans = new ArrayList<>();
-    for (int m = 0; m < members.size(); m++) {
-      String member = members.get(m);
+    for (String member : members) {
       int at = member.lastIndexOf('@');
-      TrainingPlan base = training.plan(memberSpecs.get(m), cutIndex);
+      FeatureSpec spec = FeatureSpecYaml.read(Path.of(at < 0 ? member : member.substring(0, at)), periodDays);
+      TrainingPlan base = training.plan(spec, cutIndex);
       plans.add(new BacktestJob.Member(member, new TrainingPlan(base.spec(), base.trainParameters(),
           base.datasetParameters(), base.cutDayIndex(), base.validationDays(), at < 0 ? base.partitionAttribute()
               : member.substring(at + 1),

@@ -6,6 +6,7 @@ import java.util.concurrent.Callable;
 import org.lagmill.features.FeatureSpecTemplate;
 import org.lagmill.features.FeatureSpecYaml;
 import org.lagmill.io.InvalidRequestException;
+import org.lagmill.store.Periods;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -16,6 +17,7 @@ import picocli.CommandLine.Spec;
     description = {"--template prints every key of a feature spec with its meaning and its default, ready to edit",
         "and pass to --config; --check reads a spec file and prints every setting it resolves to, defaults included."},
     footer = {"", "Example:", "  lagmill config --template > features.yaml",
+        "  lagmill config --template --period week > weekly-features.yaml",
         "  lagmill config --check features.yaml"})
 final class ConfigCommand implements Callable<Integer> {
   @Spec
@@ -27,6 +29,14 @@ final class ConfigCommand implements Callable<Integer> {
   @Option(names = "--check", paramLabel = "FILE", description = "read a feature spec and print what it resolves to")
   Path check;
 
+  @Option(names = "--period", paramLabel = "P", defaultValue = "day", description = "the store's period the "
+      + "defaults are for: day, week, or a number of days (default: ${DEFAULT-VALUE})")
+  String period;
+
+  private int periodDays() {
+    return Periods.parse("--period", period);
+  }
+
   @Override
   public Integer call() throws Exception {
     PrintWriter out = spec.commandLine().getOut();
@@ -35,9 +45,9 @@ final class ConfigCommand implements Callable<Integer> {
           + "features.yaml");
     }
     if (template) {
-      out.print(FlagNames.render(FeatureSpecTemplate.text()));
+      out.print(FlagNames.render(FeatureSpecTemplate.text(periodDays())));
     } else {
-      out.print(FeatureSpecYaml.format(FeatureSpecYaml.read(check)));
+      out.print(FeatureSpecYaml.format(FeatureSpecYaml.read(check, periodDays())));
     }
     out.flush();
     return ExitCodes.OK;

@@ -80,11 +80,11 @@ final class ModelCommand implements Callable<Integer> {
     out.printf("model                %s (created %s, store fingerprint %s)%n", model.dir, manifest.createdAt(),
         manifest.storeFingerprint());
     windows(manifest).forEach((name, value) -> out.printf("%-20s %s%n", name, value));
-    out.printf("strategy             %s, horizon %d periods%n", features.strategy().configName(),
-        features.horizonDays());
+    out.printf("strategy             %s, horizon %s%n", features.strategy().configName(),
+        periods(features.horizonDays()));
     out.printf("lags                 %s%n", java.util.Arrays.toString(features.lagDays()));
-    out.printf("rolling windows      %s, ending %d periods before the row; %s%n",
-        java.util.Arrays.toString(features.rollingWindowDays()), features.rollingShiftDays(),
+    out.printf("rolling windows      %s, ending %s before the row; %s%n",
+        java.util.Arrays.toString(features.rollingWindowDays()), periods(features.rollingShiftDays()),
         features.rollingStats().stream().map(FeatureSpec.RollingStat::configName).toList());
     out.printf("partitioned by       %s%n", manifest.partitionAttribute() == null ? "none (one model)"
         : manifest.partitionAttribute());
@@ -143,5 +143,9 @@ final class ModelCommand implements Callable<Integer> {
     List<String> parts = new ArrayList<>();
     parameters.forEach((k, v) -> parts.add(k + "=" + v));
     return String.join(", ", parts);
+  }
+
+  private static String periods(int count) {
+    return count + (count == 1 ? " period" : " periods");
   }
 }

@@ -3,7 +3,6 @@ package org.lagmill.cli;
 import java.nio.file.Path;
 import java.time.LocalDate;
 import java.util.concurrent.Callable;
-import org.lagmill.features.FeatureSpec;
 import org.lagmill.run.TrainJob;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -63,9 +62,8 @@ final class TrainCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
-    FeatureSpec spec = training.featureSpec();
     TrainJob.Request request = new TrainJob.Request(store.dir, model, until, memoryLimit.bytes(),
-        cut -> training.plan(spec, cut));
+        (periodDays, cut) -> training.plan(training.featureSpec(periodDays), cut));
     if (machines != null || rank != null) {
       return TrainJob.open(request, (opened, plan, run) -> DistributedTrainRun.run(this, opened, plan, run));
     }

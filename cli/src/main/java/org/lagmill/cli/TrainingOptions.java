@@ -19,12 +19,13 @@ final class TrainingOptions {
 
   @Option(names = "--horizon", converter = Counts.Positive.class,
       paramLabel = "PERIODS", description = "forecast horizon and validation window in "
-          + "periods of the store: days, or weeks of a weekly store (default: the config's horizonDays, 28)")
+          + "periods of the store: days, or weeks of a weekly store (default: the config's horizonDays; without "
+          + "one, 28 days in a daily store, 8 periods in a weekly or longer one)")
   Integer horizonDays;
 
   @Option(names = "--lags", converter = Counts.Positive.class,
       split = ",", paramLabel = "PERIODS", description = "lags of units in periods, e.g. "
-          + "28,35,42")
+          + "1,2,3,7,14 (default: the config's; without one, see lagmill config --template)")
   int[] lagDays;
 
   @Option(names = "--windows", converter = Counts.Positive.class,
@@ -95,9 +96,12 @@ final class TrainingOptions {
       description = "rows sampled to fix LightGBM's bin boundaries (default: ${DEFAULT-VALUE})")
   int sampleRowCount;
 
-  /** The feature spec: the config file (or defaults) with command-line overrides. */
-  FeatureSpec featureSpec() throws IOException {
-    FeatureSpec spec = config == null ? FeatureSpec.defaults() : FeatureSpecYaml.read(config);
+  /**
+   * The feature spec for a store of this period: the config file (keys left out take the period's defaults) or the
+   * period's defaults, with command-line overrides.
+   */
+  FeatureSpec featureSpec(int periodDays) throws IOException {
+    FeatureSpec spec = config == null ? FeatureSpec.defaultsFor(periodDays) : FeatureSpecYaml.read(config, periodDays);
     FeatureSpec.Builder builder = spec.toBuilder();
     if (horizonDays != null) {
       builder.horizonDays(horizonDays);

@@ -239,7 +239,7 @@ class BadInputCorpusTest {
     c.add(text("config", "an unknown key", "f.yaml", "lags: [2]\n", check, 2, "f.yaml line 1: unknown key 'lags'"));
     c.add(text("config", "broken YAML", "f.yaml", "horizonDays: 2: 3\n", check, 2,
         "f.yaml line 1: not valid YAML (mapping values are not allowed here)"));
-    c.add(text("config", "a lag shorter than the horizon", "f.yaml", "horizonDays: 7\nlagDays: [1]\n",
+    c.add(text("config", "a lag shorter than the horizon", "f.yaml", "strategy: direct\nhorizonDays: 7\nlagDays: [1]\n",
         "train --store STORE --model OUT --config FILE", 2, "lag 1 is shorter than the horizon"));
     // forecast files read by evaluate
     String evaluate = "evaluate --store STORE --forecast FILE";

@@ -10,7 +10,7 @@ import org.junit.jupiter.api.Test;
 class DemoSpecTest {
   @Test
   void shouldMatchTheExampleConfigurationTheDocsPointTo() throws Exception {
-    FeatureSpec documented = FeatureSpecYaml.read(Path.of("../docs/examples/recursive-short-lags.yaml"));
+    FeatureSpec documented = FeatureSpecYaml.read(Path.of("../docs/examples/recursive-short-lags.yaml"), 1);
     assertEquals(documented, org.lagmill.run.DemoJob.spec());
   }
 

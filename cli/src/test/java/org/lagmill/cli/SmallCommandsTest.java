@@ -148,7 +148,7 @@ class SmallCommandsTest {
     MainRun text = MainRun.of("model", "--model", model.toString());
     expectOk(text);
     assertTrue(text.out().contains("lags                 [7, 14]"), text.out());
-    assertTrue(text.out().contains("rolling windows      [7, 14], ending 7 periods before the row"), text.out());
+    assertTrue(text.out().contains("rolling windows      [7, 14], ending 1 period before the row"), text.out());
     assertTrue(text.out().contains("learned from         2025-02-03 .. "), text.out());
     assertTrue(text.out().contains("features by share of gain"), text.out());
     MainRun json = MainRun.of("model", "--model", model.toString(), "--json");

@@ -4,10 +4,11 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import org.lagmill.io.Setting;
+import org.lagmill.store.Periods;
 
 /**
  * A commented feature spec file: every key of {@link FeatureSpecYaml}, what it means, and its default. The values
- * come from {@link FeatureSpec#defaults()}, the one place defaults live, so the template cannot drift from them; keys
+ * come from {@link FeatureSpec#defaultsFor(int)}, the one place defaults live, so the template cannot drift from them; keys
  * unset by default are written commented out. Reading the template back gives the defaults (a test checks it).
  */
 public final class FeatureSpecTemplate {
@@ -41,13 +42,17 @@ public final class FeatureSpecTemplate {
 
   private FeatureSpecTemplate() {}
 
-  /** The template text: a header, then per key its meaning and default as comments and the key itself. */
-  public static String text() {
-    Map<String, Object> defaults = FeatureSpecYaml.values(FeatureSpec.defaults());
+  /**
+   * The template text for a store of this period: a header, then per key its meaning and the period's default
+   * ({@link FeatureSpec#defaultsFor(int)}) as comments and the key itself.
+   */
+  public static String text(int periodDays) {
+    Map<String, Object> defaults = FeatureSpecYaml.values(FeatureSpec.defaultsFor(periodDays));
     StringBuilder b = new StringBuilder();
-    b.append("# lagmill feature spec. Every key is optional; a key left out keeps its default, shown here.\n")
-        .append(
-            "# Use it with " + Setting.CONFIG + " FILE (train, backtest). docs/configuration.md explains each key.\n");
+    b.append("# lagmill feature spec for a store whose periods are ").append(Periods.count(periodDays, Periods.DAILY))
+        .append(" long. Every key is optional; a key left out keeps\n")
+        .append("# its default, shown here (with strategy: direct, left-out keys take the direct defaults instead).\n")
+        .append("# Use it with " + Setting.CONFIG + " FILE (train, backtest). docs/configuration.md explains each key.\n");
     for (Key key : KEYS) {
       b.append('\n');
       for (String line : wrap(key.meaning(), 116)) {

@@ -44,15 +44,52 @@ public final class FeatureSpecYaml {
 
   private FeatureSpecYaml() {}
 
-  /** Parses a spec file; an empty file gives the defaults. */
-  public static FeatureSpec read(Path file) throws IOException {
-    return parse(Files.readString(file), file.toString());
+  /**
+   * Reads a user's spec file for a store of this period: a key left out takes the period's default for the file's
+   * strategy ({@link FeatureSpec#defaultsFor(int, FeatureSpec.Strategy)}; recursive when the file names none), and
+   * an empty file gives {@link FeatureSpec#defaultsFor(int)}.
+   */
+  public static FeatureSpec read(Path file, int periodDays) throws IOException {
+    return parse(Files.readString(file), file.toString(), periodDays);
   }
 
-  /** Parses spec text; {@code source} names it in error messages. */
+  /** {@link #read(Path, int)} of spec text; {@code source} names it in error messages. */
+  public static FeatureSpec parse(String yaml, String source, int periodDays) {
+    Document doc = document(yaml, source);
+    if (doc == null) {
+      return FeatureSpec.defaultsFor(periodDays);
+    }
+    FeatureSpec.Strategy strategy;
+    try {
+      strategy = doc.strategy == null ? FeatureSpec.Strategy.RECURSIVE : FeatureSpec.Strategy.parse(doc.strategy);
+    } catch (IllegalArgumentException e) {
+      throw new InvalidRequestException(source + ": " + e.getMessage(), e);
+    }
+    return toSpec(doc, FeatureSpec.defaultsFor(periodDays, strategy), source);
+  }
+
+  /**
+   * Parses a spec that lagmill wrote itself (a model's manifest, which holds every key): a key left out takes the
+   * builder's value ({@link FeatureSpec#defaults()}), as when the file was written, so a stored spec reads back
+   * the same whatever today's period defaults are. {@code source} names it in error messages.
+   */
   public static FeatureSpec parse(String yaml, String source) {
+    Document doc = document(yaml, source);
+    return doc == null ? FeatureSpec.defaults() : toSpec(doc, FeatureSpec.defaults(), source);
+  }
+
+  private static FeatureSpec toSpec(Document doc, FeatureSpec base, String source) {
+    try {
+      return doc.toSpec(base);
+    } catch (IllegalArgumentException e) {
+      throw new InvalidRequestException(source + ": " + e.getMessage(), e);
+    }
+  }
+
+  /** The parsed document, or null for blank text. */
+  private static Document document(String yaml, String source) {
     if (yaml.isBlank()) {
-      return FeatureSpec.defaults();
+      return null;
     }
     Document doc;
     try {
@@ -60,11 +97,7 @@ public final class FeatureSpecYaml {
     } catch (JsonProcessingException e) {
       throw new InvalidRequestException(FeatureSpecYamlErrors.message(source, e, KEYS), e);
     }
-    try {
-      return doc == null ? FeatureSpec.defaults() : doc.toSpec();
-    } catch (IllegalArgumentException e) {
-      throw new InvalidRequestException(source + ": " + e.getMessage(), e);
-    }
+    return doc;
   }
 
   /** Writes every setting of {@code spec}, so the file documents the run. */
@@ -130,8 +163,9 @@ public final class FeatureSpecYaml {
       return d;
     }
 
-    FeatureSpec toSpec() {
-      FeatureSpec.Builder b = FeatureSpec.builder();
+    /** The spec: every key given here, the rest from {@code base}. */
+    FeatureSpec toSpec(FeatureSpec base) {
+      FeatureSpec.Builder b = base.toBuilder();
       if (horizonDays != null) {
         b.horizonDays(horizonDays);
       }
@@ -144,7 +178,9 @@ public final class FeatureSpecYaml {
       if (rollingWindowDays != null) {
         b.rollingWindowDays(rollingWindowDays);
       }
-      b.rollingShiftDays(rollingShiftDays);
+      if (rollingShiftDays != null) {
+        b.rollingShiftDays(rollingShiftDays);
+      }
       if (rollingStats != null) {
         b.rollingStatNames(rollingStats);
       }
@@ -157,14 +193,24 @@ public final class FeatureSpecYaml {
       if (priceFeatures != null) {
         b.priceFeatureNames(priceFeatures);
       }
-      b.priceGroupAttributes(priceGroupAttributes);
-      b.categoricalAttributes(categoricalAttributes);
+      if (priceGroupAttributes != null) {
+        b.priceGroupAttributes(priceGroupAttributes);
+      }
+      if (categoricalAttributes != null) {
+        b.categoricalAttributes(categoricalAttributes);
+      }
       if (seriesFeatures != null) {
         b.seriesFeatureNames(seriesFeatures);
       }
-      b.planColumns(planColumns);
-      b.fromDate(date("fromDate", fromDate));
-      b.untilDate(date("untilDate", untilDate));
+      if (planColumns != null) {
+        b.planColumns(planColumns);
+      }
+      if (fromDate != null) {
+        b.fromDate(date("fromDate", fromDate));
+      }
+      if (untilDate != null) {
+        b.untilDate(date("untilDate", untilDate));
+      }
       if (skipPreLaunch != null) {
         b.skipPreLaunch(skipPreLaunch);
       }

@@ -5,7 +5,6 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.function.Function;
-import java.util.function.IntFunction;
 import org.lagmill.eval.BacktestScoringPart;
 import org.lagmill.eval.CombinedBacktestResult;
 import org.lagmill.eval.EvaluationResult;
@@ -35,20 +34,30 @@ public final class BacktestJob {
   /** One training plan to score, named as the user gave it (null for a single plan). */
   public record Member(String name, TrainingPlan plan) {}
 
+  /** The plans to score, once the store's period and last period are known. */
+  @FunctionalInterface
+  public interface MemberPlans {
+    /**
+     * @param periodDays the store's step in days: specs left to defaults take the period's
+     * @param cutIndex the store's last period index, the training cut
+     * @return one member without a name for a plain backtest, or the members of a combination
+     */
+    List<Member> plansFor(int periodDays, int cutIndex) throws IOException;
+  }
+
   /**
    * What to backtest.
    *
    * @param stepPeriods periods between origins, or null for the horizon
    * @param memoryLimitBytes off-heap limit of the run, or null for none
-   * @param membersByCutIndex the plans to score, given the training cut (the store's last period index): one
-   *     member without a name for a plain backtest, or the members of a combination
+   * @param members the plans to score
    * @param hierarchyOf the levels to score, once the store is open
    * @param commandLine shown in the report
    * @param scoringPart where to write this store's additive share of the scores ({@link BacktestScoringPart}), or
    *     null for none; one plan only
    */
   public record Request(Path storeDir, int originCount, Integer stepPeriods, Long memoryLimitBytes, Path reportDir,
-      List<String> shownSeries, IntFunction<List<Member>> membersByCutIndex,
+      List<String> shownSeries, MemberPlans members,
       Function<SalesHistory, Hierarchy> hierarchyOf, String commandLine, Path scoringPart) {}
 
   /**
@@ -76,7 +85,7 @@ public final class BacktestJob {
         SalesStore opened = SalesStore.open(request.storeDir(), run.budget().child("store"))) {
       opening.close();
       report.data(ReportAssembler.dataSummary(StoreSummary.of(opened)));
-      List<Member> members = request.membersByCutIndex().apply(opened.dayCount() - 1);
+      List<Member> members = request.members().plansFor(opened.periodDays(), opened.dayCount() - 1);
       TrainingPlan first = members.get(0).plan();
       int stepPeriods = request.stepPeriods() == null ? first.spec().horizonDays() : request.stepPeriods();
       run.record().configure("store", request.storeDir().toString()).configure("origins", request.originCount())

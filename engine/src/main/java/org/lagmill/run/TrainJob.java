@@ -4,7 +4,6 @@ import java.io.IOException;
 import java.nio.file.Path;
 import java.time.LocalDate;
 import java.util.List;
-import java.util.function.IntFunction;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.io.Setting;
 import org.lagmill.progress.ProgressListener;
@@ -28,10 +27,19 @@ public final class TrainJob {
    *
    * @param until the last day the model may learn from, or null for the store's last day
    * @param memoryLimitBytes the run's off-heap limit, or {@link org.lagmill.memory.MemoryBudget#UNLIMITED_BYTES}
-   * @param planByCutIndex the training plan, given the index of the cut period
+   * @param plan the training plan, once the store's period and the cut are known
    */
-  public record Request(Path storeDir, Path modelDir, LocalDate until, long memoryLimitBytes,
-      IntFunction<TrainingPlan> planByCutIndex) {}
+  public record Request(Path storeDir, Path modelDir, LocalDate until, long memoryLimitBytes, PlanFor plan) {}
+
+  /** The training plan for a store of this period cut at this period index. */
+  @FunctionalInterface
+  public interface PlanFor {
+    /**
+     * @param periodDays the store's step in days: a spec left to defaults takes the period's
+     * @param cutIndex the index of the last period training may read
+     */
+    TrainingPlan planFor(int periodDays, int cutIndex) throws IOException;
+  }
 
   /**
    * What was trained.
@@ -70,7 +78,7 @@ public final class TrainJob {
         throw new InvalidRequestException(Setting.UNTIL + " " + until + " is outside the store's days "
             + opened.firstDate() + " .. " + opened.dateOf(opened.dayCount() - 1));
       }
-      return training.train(opened, request.planByCutIndex().apply(cut), run);
+      return training.train(opened, request.plan().planFor(opened.periodDays(), cut), run);
     }
   }
 

@@ -33,7 +33,7 @@ class FeatureSpecYamlTest {
         "fromDate: 2023-01-02",
         "untilDate: 2024-06-30",
         "skipPreLaunch: false", ""));
-    FeatureSpec spec = FeatureSpecYaml.read(file);
+    FeatureSpec spec = FeatureSpecYaml.read(file, 1);
     FeatureSpec expected = FeatureSpec.builder().horizonDays(14).strategy(Strategy.RECURSIVE).lagDays(1, 7, 14)
         .rollingWindowDays(7, 28).rollingShiftDays(1)
         .rollingStats(List.of(RollingStat.MEAN, RollingStat.STD, RollingStat.ZERO_SHARE))
@@ -50,9 +50,29 @@ class FeatureSpecYamlTest {
     Path file = dir.resolve("spec.yaml");
     FeatureSpec spec = FeatureSpec.defaults().withRollingStats(List.of(RollingStat.MAX, RollingStat.MEAN));
     FeatureSpecYaml.write(spec, file);
-    assertEquals(spec, FeatureSpecYaml.read(file));
-    assertEquals(FeatureSpec.defaults(), FeatureSpecYaml.parse("", "empty.yaml"));
-    assertEquals(FeatureSpec.defaults(), FeatureSpecYaml.parse("horizonDays: 28\n", "min.yaml"));
+    assertEquals(spec, FeatureSpecYaml.read(file, 1));
+    assertEquals(spec, FeatureSpecYaml.read(file, 7), "a written spec holds every key: the period adds nothing");
+    assertEquals(FeatureSpec.defaultsFor(1), FeatureSpecYaml.parse("", "empty.yaml", 1));
+    assertEquals(FeatureSpec.defaultsFor(7), FeatureSpecYaml.parse("", "empty.yaml", 7));
+    assertEquals(FeatureSpec.defaultsFor(1), FeatureSpecYaml.parse("horizonDays: 28\n", "min.yaml", 1));
+  }
+
+  @Test
+  void shouldFillLeftOutKeysFromThePeriodsDefaultsOfTheFilesStrategy() {
+    assertEquals(FeatureSpec.defaultsFor(7, Strategy.DIRECT), FeatureSpecYaml.parse("strategy: direct\n", "d", 7));
+    assertEquals(FeatureSpec.defaultsFor(1, Strategy.DIRECT), FeatureSpecYaml.parse("strategy: direct\n", "d", 1));
+    FeatureSpec weekly = FeatureSpecYaml.parse("planColumns: [promo]\n", "plan.yaml", 7);
+    assertEquals(FeatureSpec.defaultsFor(7).toBuilder().planColumns(List.of("promo")).build(), weekly);
+    assertEquals(8, weekly.horizonDays());
+  }
+
+  @Test
+  void shouldReadAStoredSpecWithTheBuildersValuesWhateverThePeriodDefaults() {
+    // A model's manifest written before the period defaults existed leaves the rolling shift out when it follows
+    // the horizon; reading it must not take today's recursive shift of 1.
+    FeatureSpec stored = FeatureSpecYaml.parse("strategy: recursive\nlagDays: [1, 7]\n", "manifest.json");
+    assertEquals(28, stored.rollingShiftDays());
+    assertEquals(FeatureSpec.defaults(), FeatureSpecYaml.parse("", "manifest.json"));
   }
 
   @Test
