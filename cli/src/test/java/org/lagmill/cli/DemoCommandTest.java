@@ -46,6 +46,9 @@ class DemoCommandTest {
     assertEquals(List.of("generate", "ingest", "backtest", "train", "forecast", "explain"), stageNames);
     assertEquals(0, record.path("stages").path(0).path("offHeapBytes").asLong());
     assertTrue(record.path("stages").path(1).path("offHeapBytes").asLong() > 0, record.toString());
+    // The closures file is ingested: closed outlet days are counted, never scored as zero sales.
+    Matcher closed = Pattern.compile("closed ([0-9,]+)").matcher(run.out());
+    assertTrue(closed.find() && Long.parseLong(closed.group(1).replace(",", "")) > 0, run.out());
     // The promotion plan is ingested and read: the model records its plan columns.
     assertTrue(!run.err().contains("plan.csv"), run.err());
     JsonNode modelManifest = RunRecord.JSON.readTree(out.resolve("model/manifest.json").toFile());

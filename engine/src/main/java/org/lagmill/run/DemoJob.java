@@ -30,6 +30,7 @@ import org.lagmill.report.SeriesChartBuilder;
 import org.lagmill.scenario.ScenarioGenerator;
 import org.lagmill.scenario.ScenarioSpec;
 import org.lagmill.store.SalesStore;
+import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreSummary;
 import org.lagmill.training.ModelDirectory;
 import org.lagmill.training.ModelSet;
@@ -73,9 +74,11 @@ public final class DemoJob {
    * What the demo found and wrote.
    *
    * @param backtest the backtest origins and, last, the withheld final weeks
+   * @param storeManifest the ingested store's manifest, with its fill counts (closed outlet days among them)
    * @param elapsedSeconds the whole run's wall time
    */
-  public record Outcome(BacktestResult backtest, Path reportHtml, Path forecastFile, double elapsedSeconds) {}
+  public record Outcome(BacktestResult backtest, StoreManifest storeManifest, Path reportHtml, Path forecastFile,
+      double elapsedSeconds) {}
 
   /**
    * Runs the demo.
@@ -103,20 +106,20 @@ public final class DemoJob {
         StoreIngest.ingest(IngestOptions.of(data.resolve(ScenarioGenerator.SALES_FILE), storeDir)
             .withCalendarFile(data.resolve(ScenarioGenerator.CALENDAR_FILE))
             .withPricesFile(data.resolve(ScenarioGenerator.PRICES_FILE))
-            .withPlan(PlanSource.of(data.resolve(ScenarioGenerator.PLAN_FILE))), stage.budget());
+            .withPlan(PlanSource.of(data.resolve(ScenarioGenerator.PLAN_FILE)))
+            .withClosuresFile(data.resolve(ScenarioGenerator.CLOSURES_FILE)), stage.budget());
         stage.addRows(itemDays);
       }
-      // The demo does not ingest closures yet: it scores closed outlet days as zero sales. Say so rather than drop the
-      // file silently. The promotion plan is ingested: its columns become plan_<column> features.
-      warnings.accept("the demo data's " + ScenarioGenerator.CLOSURES_FILE + " is not ingested by the demo; closed "
-          + "outlet days count as zero sales");
       ReportData.Builder report = RunReport
           .start(Setting.shown(Setting.Command.DEMO.toString()) + ": Marrowgate & Tillbox, " + size.name()
               .toLowerCase(Locale.ROOT) + " scenario", request.commandLine(), storeDir.toString());
       BacktestRun backtest;
       double[][] point;
       float[] dispersion;
+      StoreManifest storeManifest;
       try (SalesStore store = SalesStore.open(storeDir, run.budget().child("store"))) {
+        // Closed outlet days (the closures file) are unknown: no training rows, not scored, 0 in the forecast.
+        storeManifest = store.manifest();
         report.data(ReportAssembler.dataSummary(StoreSummary.of(store)));
         FeatureSpec spec = spec();
         TrainingPlan plan = new TrainingPlan(spec, trainParameters(), DatasetParameters.defaults(),
@@ -146,6 +149,10 @@ public final class DemoJob {
             dispersion = models.dispersionBySeries();
             ForecastTable table = new ForecastTable(store.dayCount(), point, ForecastTable.publishedQuantiles(),
                 CountQuantiles.quantiles(point, dispersion, ForecastTable.publishedQuantiles()));
+            long closedSeriesDays = table.zeroClosedDays(store);
+            if (closedSeriesDays > 0) {
+              warnings.accept(ForecastTable.closedDaysNote(closedSeriesDays));
+            }
             ForecastFileWriter.writeLong(table, store, forecastFile);
             stage.addRows((long) point.length * HORIZON_DAYS);
           }
@@ -165,7 +172,7 @@ public final class DemoJob {
       Path html = RunReport.write(report.build(), reportDir);
       run.record().result("backtest", backtest.result());
       run.record().write(outDir);
-      return new Outcome(backtest.result(), html, forecastFile, run.record().elapsedSeconds());
+      return new Outcome(backtest.result(), storeManifest, html, forecastFile, run.record().elapsedSeconds());
     }
   }
 
