@@ -49,6 +49,16 @@ class DemoCommandTest {
     // The closures file is ingested: closed outlet days are counted, never scored as zero sales.
     Matcher closed = Pattern.compile("closed ([0-9,]+)").matcher(run.out());
     assertTrue(closed.find() && Long.parseLong(closed.group(1).replace(",", "")) > 0, run.out());
+    // A closed horizon day is forecast 0 and marked.
+    List<String> header = List.of(forecast.get(0).split(","));
+    int forecastColumn = header.indexOf("forecast");
+    int closedColumn = header.indexOf("closed");
+    long closedRows = forecast.stream().skip(1).map(line -> line.split(","))
+        .filter(cells -> cells[closedColumn].equals("1")).peek(cells -> assertEquals(0.0,
+            Double.parseDouble(cells[forecastColumn]), String.join(",", cells)))
+        .count();
+    assertTrue(closedRows > 0 && run.err().contains("forecast 0 for " + closedRows + " series-days declared closed"),
+        closedRows + " closed rows; " + run.err());
     // The promotion plan is ingested and read: the model records its plan columns.
     assertTrue(!run.err().contains("plan.csv"), run.err());
     JsonNode modelManifest = RunRecord.JSON.readTree(out.resolve("model/manifest.json").toFile());

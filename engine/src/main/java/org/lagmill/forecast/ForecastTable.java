@@ -29,6 +29,12 @@ public record ForecastTable(int firstDayIndex, double[][] point, double[] quanti
    *
    * @return the series-days set to 0
    */
+  /** What a forecast says when {@link #zeroClosedDays} set {@code closedSeriesDays > 0} series-days to 0. */
+  public static String closedDaysNote(long closedSeriesDays) {
+    return "forecast 0 for " + closedSeriesDays + " series-days declared closed (marked in the forecast file's closed "
+        + "column)";
+  }
+
   public long zeroClosedDays(SalesHistory history) {
     if (history.closures().isEmpty()) {
       return 0;
