@@ -1,16 +1,11 @@
 package org.lagmill.cli;
 
 import java.io.PrintWriter;
-import java.io.IOException;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.concurrent.Callable;
-import org.lagmill.features.FeatureSpec;
-import org.lagmill.features.FeatureSpecYaml;
 import org.lagmill.run.BacktestJob;
 import org.lagmill.run.RunRecord;
-import org.lagmill.training.TrainingPlan;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -75,7 +70,8 @@ final class BacktestCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     BacktestJob.Outcome outcome = BacktestJob.run(new BacktestJob.Request(store.dir, originCount, stepDays,
-        memoryLimit.bytes(), reportDir, shown.seriesIds, this::members,
+        memoryLimit.bytes(), reportDir, shown.seriesIds,
+        (periodDays, cut) -> training.members(members, periodDays, cut),
         hierarchyOptions::hierarchy,
         "lagmill backtest --store " + store.dir + " --origins " + originCount, scoringPart),
         ConsoleProgress.forCommand(quiet));
@@ -93,25 +89,4 @@ final class BacktestCommand implements Callable<Integer> {
     return ExitCodes.OK;
   }
 
-  /**
-   * The plans to score for a store of this period whose last period is {@code cutIndex}: the training options' spec,
-   * or one plan per {@code --member SPEC[@ATTRIBUTE]} (the spec file's features, keys left out taking the period's
-   * defaults, partitioned by the attribute when given).
-   */
-  private List<BacktestJob.Member> members(int periodDays, int cutIndex) throws IOException {
-    if (members.isEmpty()) {
-      return List.of(new BacktestJob.Member(null, training.plan(training.featureSpec(periodDays), cutIndex)));
-    }
-    List<BacktestJob.Member> plans = new ArrayList<>();
-    for (String member : members) {
-      int at = member.lastIndexOf('@');
-      FeatureSpec spec = FeatureSpecYaml.read(Path.of(at < 0 ? member : member.substring(0, at)), periodDays);
-      TrainingPlan base = training.plan(spec, cutIndex);
-      plans.add(new BacktestJob.Member(member, new TrainingPlan(base.spec(), base.trainParameters(),
-          base.datasetParameters(), base.cutDayIndex(), base.validationDays(), at < 0 ? base.partitionAttribute()
-              : member.substring(at + 1),
-          base.salesValueWeights(), base.refit())));
-    }
-    return plans;
-  }
 }

@@ -2,7 +2,11 @@ package org.lagmill.cli;
 
 import java.nio.file.Path;
 import java.time.LocalDate;
+import java.util.List;
+import java.util.Locale;
 import java.util.concurrent.Callable;
+import org.lagmill.io.InvalidRequestException;
+import org.lagmill.run.BacktestChoice;
 import org.lagmill.run.TrainJob;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -17,7 +21,8 @@ import picocli.CommandLine.Spec;
         "the last --horizon days before the cut are the validation window for early stopping."},
     footer = {"", "Example:", "  lagmill train --store stores/chain --model models/week49 --rounds 800",
         "  lagmill train --store stores/chain --model models/by-store \\",
-        "      --partition-by store --until 2026-11-29"})
+        "      --partition-by store --until 2026-11-29",
+        "  lagmill train --store stores/chain --model models/combined --from-backtest runs/members"})
 final class TrainCommand implements Callable<Integer> {
   @Spec
   CommandSpec commandSpec;
@@ -41,6 +46,15 @@ final class TrainCommand implements Callable<Integer> {
   @Mixin
   TrainingOptions training;
 
+  @Option(names = "--member", paramLabel = "SPEC[@ATTRIBUTE]", description = {"train a combined model: a feature",
+      "spec YAML, optionally @ the attribute to partition by; repeat it: each member trains in turn (memory is the",
+      "largest member's) and forecast averages them, as backtest --member scores them"})
+  List<String> members = List.of();
+
+  @Option(names = "--from-backtest", paramLabel = "DIR", description = {"train what a backtest of several --member",
+      "specs chose: the member with the lowest mean WRMSSE, or all of them when their average scored lowest"})
+  Path fromBacktest;
+
   @Option(names = "--machines", paramLabel = "HOST:PORT,…", description = {"train one model over several machines,",
       "each holding one shard (lagmill shard), on LightGBM's distributed learner: every rank's host:port in rank",
       "order; rank 0 also uses its port + 1 (docs/distributed.md)"})
@@ -62,8 +76,24 @@ final class TrainCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
+    List<String> memberArgs = members;
+    if (fromBacktest != null) {
+      if (!members.isEmpty() || training.config != null) {
+        throw new InvalidRequestException("--from-backtest takes the specs the backtest chose; drop --member and "
+            + "--config");
+      }
+      BacktestChoice choice = BacktestChoice.read(fromBacktest);
+      memberArgs = choice.memberNames();
+      if (!quiet) {
+        commandSpec.commandLine().getOut().printf(Locale.ROOT, "the backtest in %s chose %s (mean WRMSSE %.4f): "
+            + "training %s%n", fromBacktest, choice.chosenName(), choice.meanWrmsse(), String.join(", ", memberArgs));
+      }
+    } else if (!members.isEmpty() && training.config != null) {
+      throw new InvalidRequestException("give either --config or --member, not both: each member is its own spec");
+    }
+    List<String> chosenMembers = memberArgs;
     TrainJob.Request request = new TrainJob.Request(store.dir, model, until, memoryLimit.bytes(),
-        (periodDays, cut) -> training.plan(training.featureSpec(periodDays), cut));
+        (periodDays, cut) -> training.members(chosenMembers, periodDays, cut));
     if (machines != null || rank != null) {
       return TrainJob.open(request, (opened, plan, run) -> DistributedTrainRun.run(this, opened, plan, run));
     }

@@ -21,6 +21,10 @@ final class TrainPrinter {
     out.printf("peak RSS %,d MB (%.1f bytes per training row of the largest partition); off-heap held: store %,d MB "
         + "mapped, learner peak %,d KB%n", peak >> 20, rows == 0 ? 0 : peak / (double) rows,
         outcome.storeOffHeapBytes() >> 20, outcome.learnerPeakBytes() >> 10);
+    if (!outcome.memberNames().isEmpty()) {
+      out.printf("combination of %d members, trained in turn (forecast averages them): %s%n",
+          outcome.memberNames().size(), String.join(", ", outcome.memberNames()));
+    }
     out.printf("model written to %s%n", outcome.modelDir());
   }
 }

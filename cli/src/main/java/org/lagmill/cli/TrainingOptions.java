@@ -2,6 +2,8 @@ package org.lagmill.cli;
 
 import java.io.IOException;
 import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Locale;
 import org.lagmill.features.FeatureSpec;
 import org.lagmill.features.FeatureSpecYaml;
@@ -9,6 +11,7 @@ import org.lagmill.io.InvalidRequestException;
 import org.lagmill.learner.DatasetParameters;
 import org.lagmill.learner.Objective;
 import org.lagmill.learner.TrainParameters;
+import org.lagmill.run.MemberPlans;
 import org.lagmill.training.TrainingPlan;
 import picocli.CommandLine.Option;
 
@@ -113,6 +116,29 @@ final class TrainingOptions {
       builder.rollingWindowDays(windowDays);
     }
     return builder.build();
+  }
+
+  /**
+   * The plans of a run for a store of this period: with no member, the spec of {@code --config} (or the period's
+   * defaults) as one plain plan; with one, that spec file's as one plain plan; with several, one named member per
+   * {@code SPEC[@ATTRIBUTE]} (the spec file's features, keys left out taking the period's defaults, partitioned by the
+   * attribute when given). The other training options apply to every member.
+   */
+  List<MemberPlans.Member> members(List<String> memberArgs, int periodDays, int cutIndex) throws IOException {
+    if (memberArgs.isEmpty()) {
+      return List.of(new MemberPlans.Member(null, plan(featureSpec(periodDays), cutIndex)));
+    }
+    List<MemberPlans.Member> plans = new ArrayList<>();
+    for (String member : memberArgs) {
+      int at = member.lastIndexOf('@');
+      FeatureSpec spec = FeatureSpecYaml.read(Path.of(at < 0 ? member : member.substring(0, at)), periodDays);
+      TrainingPlan base = plan(spec, cutIndex);
+      TrainingPlan plan = at < 0 ? base : new TrainingPlan(base.spec(), base.trainParameters(),
+          base.datasetParameters(), base.cutDayIndex(), base.validationDays(), member.substring(at + 1),
+          base.salesValueWeights(), base.refit());
+      plans.add(new MemberPlans.Member(memberArgs.size() == 1 ? null : member, plan));
+    }
+    return plans;
   }
 
   TrainingPlan plan(FeatureSpec spec, int cutDayIndex) {

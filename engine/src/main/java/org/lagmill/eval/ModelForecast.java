@@ -2,6 +2,7 @@ package org.lagmill.eval;
 
 import java.util.ArrayList;
 import java.util.List;
+import org.lagmill.forecast.MemberAverage;
 import org.lagmill.training.PartitionReport;
 
 /**
@@ -14,26 +15,14 @@ import org.lagmill.training.PartitionReport;
 record ModelForecast(double[][] point, float[] dispersion, List<PartitionReport> partitions, double trainSeconds,
     double forecastSeconds) {
 
-  /**
-   * The plain average of several members: per series and day the mean of their point forecasts; per series the mean
-   * of their dispersions (an approximation: the spread of a mixture also holds the members' disagreement, which this
-   * leaves out, so its bands are somewhat narrow where members disagree). Times add up.
-   */
+  /** The plain average of several members ({@link MemberAverage}); times add up. */
   static ModelForecast mean(List<ModelForecast> members) {
-    int seriesCount = members.get(0).point().length;
-    int horizon = seriesCount == 0 ? 0 : members.get(0).point()[0].length;
-    double[][] point = new double[seriesCount][horizon];
-    float[] dispersion = new float[seriesCount];
+    double[][] point = MemberAverage.point(members.stream().map(ModelForecast::point).toList());
+    float[] dispersion = MemberAverage.dispersion(members.stream().map(ModelForecast::dispersion).toList());
     List<PartitionReport> partitions = new ArrayList<>();
     double trainSeconds = 0;
     double forecastSeconds = 0;
     for (ModelForecast member : members) {
-      for (int s = 0; s < seriesCount; s++) {
-        for (int d = 0; d < horizon; d++) {
-          point[s][d] += member.point()[s][d] / members.size();
-        }
-        dispersion[s] += member.dispersion()[s] / members.size();
-      }
       partitions.addAll(member.partitions());
       trainSeconds += member.trainSeconds();
       forecastSeconds += member.forecastSeconds();

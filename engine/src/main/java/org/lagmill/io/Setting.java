@@ -32,7 +32,8 @@ public enum Setting {
                                                                   "store"), REPORT(
                                                                       "report"), BACKTEST_REPORT("backtest"), UNTIL(
                                                                           "until"), MATCH("match"), PLAN_CARRY_FORWARD(
-                                                                              "plan-carry-forward"), CONFIG("config");
+                                                                              "plan-carry-forward"), CONFIG("config"), MEMBER("member"), FROM_BACKTEST(
+      "from-backtest");
 
   /**
    * A task a front end offers, named in engine hints ({@code Command.APPEND + " " + Setting.PLAN + " FILE"}); the

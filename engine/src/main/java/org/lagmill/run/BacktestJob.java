@@ -31,20 +31,6 @@ import org.lagmill.training.TrainingPlan;
 public final class BacktestJob {
   private BacktestJob() {}
 
-  /** One training plan to score, named as the user gave it (null for a single plan). */
-  public record Member(String name, TrainingPlan plan) {}
-
-  /** The plans to score, once the store's period and last period are known. */
-  @FunctionalInterface
-  public interface MemberPlans {
-    /**
-     * @param periodDays the store's step in days: specs left to defaults take the period's
-     * @param cutIndex the store's last period index, the training cut
-     * @return one member without a name for a plain backtest, or the members of a combination
-     */
-    List<Member> plansFor(int periodDays, int cutIndex) throws IOException;
-  }
-
   /**
    * What to backtest.
    *
@@ -85,13 +71,13 @@ public final class BacktestJob {
         SalesStore opened = SalesStore.open(request.storeDir(), run.budget().child("store"))) {
       opening.close();
       report.data(ReportAssembler.dataSummary(StoreSummary.of(opened)));
-      List<Member> members = request.members().plansFor(opened.periodDays(), opened.dayCount() - 1);
+      List<MemberPlans.Member> members = request.members().plansFor(opened.periodDays(), opened.dayCount() - 1);
       TrainingPlan first = members.get(0).plan();
       int stepPeriods = request.stepPeriods() == null ? first.spec().horizonDays() : request.stepPeriods();
       run.record().configure("store", request.storeDir().toString()).configure("origins", request.originCount())
           .configure("stepDays", stepPeriods).configure("plan", first.toString());
       Hierarchy hierarchy = request.hierarchyOf().apply(opened);
-      boolean combination = members.size() > 1 || members.get(0).name() != null;
+      boolean combination = MemberPlans.combined(members);
       if (request.scoringPart() != null && combination) {
         throw new InvalidRequestException(Setting.SCORING_PART + " scores one plan: leave out the members");
       }
@@ -102,7 +88,7 @@ public final class BacktestJob {
       BacktestRun backtest;
       CombinedBacktestResult[] combined = new CombinedBacktestResult[1];
       try (Stage stage = run.stage("backtest")) {
-        if (combination) {
+        if (MemberPlans.combined(members)) {
           List<String> names = new ArrayList<>();
           List<TrainingPlan> plans = new ArrayList<>();
           members.forEach(m -> {

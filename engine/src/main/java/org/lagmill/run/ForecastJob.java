@@ -3,10 +3,14 @@ package org.lagmill.run;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.time.LocalDate;
+import java.util.ArrayList;
+import java.util.LinkedHashSet;
 import java.util.List;
+import java.util.Set;
 import java.util.function.Consumer;
 import java.util.function.Function;
 import org.lagmill.eval.Hierarchy;
+import org.lagmill.features.FeatureSpec;
 import org.lagmill.eval.Level;
 import org.lagmill.forecast.CountQuantiles;
 import org.lagmill.forecast.ForecastFileWriter;
@@ -14,6 +18,7 @@ import org.lagmill.forecast.ForecastTable;
 import org.lagmill.forecast.Forecaster;
 import org.lagmill.forecast.HorizonCoverage;
 import org.lagmill.ingest.DateWindow;
+import org.lagmill.forecast.MemberAverage;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.io.PathNames;
 import org.lagmill.io.Setting;
@@ -27,7 +32,7 @@ import org.lagmill.store.SalesStore;
 import org.lagmill.store.SeriesSelection;
 import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreSummary;
-import org.lagmill.training.ModelDirectory;
+import org.lagmill.training.ModelCombination;
 import org.lagmill.training.ModelManifest;
 import org.lagmill.training.ModelSet;
 
@@ -79,13 +84,27 @@ public final class ForecastJob {
     try (Run run = Run.unlimited("forecast");
         Stage opening = run.stage("open");
         SalesStore opened = SalesStore.open(request.storeDir(), run.budget().child("store"));
-        ModelSet models = ModelDirectory.open(request.modelDir(), opened)) {
-      ModelManifest manifest = ModelDirectory.readManifest(request.modelDir());
-      int horizon = request.horizonPeriods() == null ? models.spec().horizonDays() : request.horizonPeriods();
+        ModelCombination.Opened models = ModelCombination.open(request.modelDir(), opened)) {
+      ModelManifest manifest = models.manifests().get(0);
+      FeatureSpec firstSpec = models.models().get(0).spec();
+      int horizon = request.horizonPeriods() == null ? firstSpec.horizonDays() : request.horizonPeriods();
       DateWindow.requireHorizonWithin(opened.dateOf(opened.dayCount()), opened.periodDays(), horizon);
-      HorizonCoverage coverage = HorizonCoverage.check(opened, models.spec(), horizon, request.planCarryForward());
+      // Members may read different plan columns: each is checked, and a warning said once.
+      HorizonCoverage coverage = null;
+      Set<String> coverageWarnings = new LinkedHashSet<>();
+      for (ModelSet member : models.models()) {
+        HorizonCoverage memberCoverage = HorizonCoverage.check(opened, member.spec(), horizon,
+            request.planCarryForward());
+        coverageWarnings.addAll(memberCoverage.warnings());
+        if (coverage == null || memberCoverage.planCarriedSeriesPeriods() > coverage.planCarriedSeriesPeriods()) {
+          coverage = memberCoverage;
+        }
+      }
       run.record().result("planCarriedSeriesPeriods", coverage.planCarriedSeriesPeriods());
-      coverage.warnings().forEach(warnings);
+      coverageWarnings.forEach(warnings);
+      if (models.combined()) {
+        run.record().configure("members", models.members().stream().map(ModelCombination.Member::name).toList());
+      }
       StoreManifest.Shard shard = opened.manifest().shard();
       // A model trained over every shard records the fingerprint of the store they were split from.
       boolean sameStore = manifest.storeFingerprint().equals(opened.fingerprint())
@@ -107,20 +126,25 @@ public final class ForecastJob {
       }
       opening.close();
       double[][] point;
+      float[] dispersion;
       ForecastTable table;
       int forecastSeriesCount;
       try (Stage stage = run.stage("forecast")) {
-        point = Forecaster.forecast(models, opened, horizon, stage.budget(), chosen);
+        List<double[][]> memberPoints = new ArrayList<>();
+        for (ModelSet member : models.models()) {
+          memberPoints.add(Forecaster.forecast(member, opened, horizon, stage.budget(), chosen));
+        }
+        point = MemberAverage.point(memberPoints);
+        dispersion = MemberAverage.dispersion(models.models().stream().map(ModelSet::dispersionBySeries).toList());
         forecastSeriesCount = chosen == null ? point.length : chosen.length;
         double[] levels = request.intervals() ? ForecastTable.publishedQuantiles() : new double[0];
         table = new ForecastTable(opened.dayCount(), point, levels, request.intervals()
-            ? CountQuantiles.quantiles(point, models.dispersionBySeries(), levels) : new double[0][][]);
+            ? CountQuantiles.quantiles(point, dispersion, levels) : new double[0][][]);
         stage.addRows((long) forecastSeriesCount * horizon);
       }
       long closedSeriesDays = table.zeroClosedDays(opened);
       if (closedSeriesDays > 0) {
-        warnings.accept("forecast 0 for " + closedSeriesDays + " series-days declared closed (marked in the "
-            + "forecast file's closed column)");
+        warnings.accept(ForecastTable.closedDaysNote(closedSeriesDays));
       }
       run.record().result("closedSeriesDays", closedSeriesDays).result("fill", opened.manifest().fill());
       try (Stage stage = run.stage("write")) {
@@ -139,7 +163,7 @@ public final class ForecastJob {
           .result("lastDate", opened.dateOf(opened.dayCount() + horizon - 1).toString());
       Path html = null;
       if (request.reportDir() != null) {
-        html = writeReport(request, run, opened, models, manifest, coverage, point, horizon, warnings);
+        html = writeReport(request, run, opened, models, coverage, point, dispersion, horizon, warnings);
         run.record().write(request.reportDir());
       } else {
         // Without a report folder the record goes beside the forecast file, so every run leaves one.
@@ -150,8 +174,8 @@ public final class ForecastJob {
     }
   }
 
-  private static Path writeReport(Request request, Run run, SalesStore opened, ModelSet models,
-      ModelManifest manifest, HorizonCoverage coverage, double[][] point, int horizon, Consumer<String> warnings)
+  private static Path writeReport(Request request, Run run, SalesStore opened, ModelCombination.Opened models,
+      HorizonCoverage coverage, double[][] point, float[] dispersion, int horizon, Consumer<String> warnings)
       throws IOException {
     ReportData.Builder report = RunReport.start(Setting.shown(Setting.Command.FORECAST.toString()),
         request.commandLine(),
@@ -161,7 +185,7 @@ public final class ForecastJob {
           + "were carried forward for " + coverage.planCarriedSeriesPeriods() + " series-periods.");
     }
     report.data(ReportAssembler.dataSummary(StoreSummary.of(opened)))
-        .training(ReportAssembler.training(manifest.partitions()));
+        .training(ReportAssembler.training(models.partitions()));
     Path backtestDir = request.backtestDir();
     if (backtestDir != null) {
       ReportData backtest = ReportJson.read(backtestDir.resolve(RunReport.JSON_FILE));
@@ -170,14 +194,19 @@ public final class ForecastJob {
             + "accuracy; give the folder " + Setting.Command.BACKTEST + " " + Setting.REPORT + " wrote");
       }
       report.accuracy(backtest.accuracy()).horizon(backtest.horizon());
-      BacktestMatch.warnings(backtest, opened, models.spec().horizonDays()).forEach(warnings);
+      BacktestMatch.warnings(backtest, opened, models.models().get(0).spec().horizonDays()).forEach(warnings);
       run.record().configure("backtest", backtestDir.toString());
     }
     List<Level> scoredLevels = request.hierarchyOf().apply(opened).bind(opened);
-    SeriesChartBuilder.build(opened, scoredLevels, opened.dayCount(), point, models.dispersionBySeries(),
+    SeriesChartBuilder.build(opened, scoredLevels, opened.dayCount(), point, dispersion,
         SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, request.shownSeries()).forEach(report::series);
+    if (models.combined()) {
+      // Contributions are additive within one model's raw score, not across an average of several models' outputs.
+      warnings.accept("the report's drivers explain the combination's first member (" + models.members().get(0)
+          .name() + ") only; the forecast averages all " + models.members().size());
+    }
     try (Stage stage = run.stage("explain")) {
-      DriverChartBuilder.build(opened, scoredLevels, models, horizon, request.shownSeries(),
+      DriverChartBuilder.build(opened, scoredLevels, models.models().get(0), horizon, request.shownSeries(),
           SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, stage.budget()).forEach(report::driver);
     }
     RunReport.addStages(report, run.record(), null);

@@ -3,12 +3,14 @@ package org.lagmill.run;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.time.LocalDate;
+import java.util.ArrayList;
 import java.util.List;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.io.Setting;
 import org.lagmill.progress.ProgressListener;
 import org.lagmill.store.Periods;
 import org.lagmill.store.SalesStore;
+import org.lagmill.training.ModelCombination;
 import org.lagmill.training.ModelDirectory;
 import org.lagmill.training.ModelSet;
 import org.lagmill.training.ModelTraining;
@@ -27,29 +29,21 @@ public final class TrainJob {
    *
    * @param until the last day the model may learn from, or null for the store's last day
    * @param memoryLimitBytes the run's off-heap limit, or {@link org.lagmill.memory.MemoryBudget#UNLIMITED_BYTES}
-   * @param plan the training plan, once the store's period and the cut are known
+   * @param members the training plans, once the store's period and the cut are known: one plain plan writes a model
+   *     directory, several named members a combination ({@link ModelCombination})
    */
-  public record Request(Path storeDir, Path modelDir, LocalDate until, long memoryLimitBytes, PlanFor plan) {}
-
-  /** The training plan for a store of this period cut at this period index. */
-  @FunctionalInterface
-  public interface PlanFor {
-    /**
-     * @param periodDays the store's step in days: a spec left to defaults takes the period's
-     * @param cutIndex the index of the last period training may read
-     */
-    TrainingPlan planFor(int periodDays, int cutIndex) throws IOException;
-  }
+  public record Request(Path storeDir, Path modelDir, LocalDate until, long memoryLimitBytes, MemberPlans members) {}
 
   /**
    * What was trained.
    *
-   * @param partitions one report per trained partition
-   * @param learnerPeakBytes the training stage's peak off-heap bytes
+   * @param memberNames the members' names in order (empty for a single model)
+   * @param partitions one report per trained partition, every member's in member order
+   * @param learnerPeakBytes the largest training stage's peak off-heap bytes
    * @param storeOffHeapBytes what the open store held mapped
    */
-  public record Outcome(List<PartitionReport> partitions, long learnerPeakBytes, long storeOffHeapBytes,
-      Path modelDir) {}
+  public record Outcome(List<String> memberNames, List<PartitionReport> partitions, long learnerPeakBytes,
+      long storeOffHeapBytes, Path modelDir) {}
 
   /** Training done elsewhere on the opened store and plan, under the job's run (the distributed ranks). */
   @FunctionalInterface
@@ -58,14 +52,32 @@ public final class TrainJob {
   }
 
   public static Outcome run(Request request, ProgressListener progress) throws Exception {
-    return open(request, (opened, plan, run) -> trainHere(request, opened, plan, run, progress));
+    return openMembers(request, (opened, members, run) -> MemberPlans.combined(members)
+        ? trainMembers(request, opened, members, run, progress)
+        : trainOne(request, opened, members.get(0).plan(), run, progress));
   }
 
   /**
-   * Opens the store under a new run, resolves the cut and the plan, and hands them to {@code training}; the store
+   * Opens the store under a new run, resolves the cut and the one plan, and hands them to {@code training}; the store
    * and the run close after it returns.
+   *
+   * @throws InvalidRequestException when the request names several members: elsewhere-training takes one plan
    */
   public static <T> T open(Request request, Training<T> training) throws Exception {
+    return openMembers(request, (opened, members, run) -> {
+      if (MemberPlans.combined(members)) {
+        throw new InvalidRequestException("a distributed training trains one feature spec, got " + members.size()
+            + " members; train each member with its own " + Setting.CONFIG);
+      }
+      return training.train(opened, members.get(0).plan(), run);
+    });
+  }
+
+  private interface MembersTraining<T> {
+    T train(SalesStore opened, List<MemberPlans.Member> members, Run run) throws Exception;
+  }
+
+  private static <T> T openMembers(Request request, MembersTraining<T> training) throws Exception {
     try (Run run = Run.start("train", request.memoryLimitBytes());
         Stage opening = run.stage("open store");
         SalesStore opened = SalesStore.open(request.storeDir(), run.budget().child("store"))) {
@@ -78,11 +90,11 @@ public final class TrainJob {
         throw new InvalidRequestException(Setting.UNTIL + " " + until + " is outside the store's days "
             + opened.firstDate() + " .. " + opened.dateOf(opened.dayCount() - 1));
       }
-      return training.train(opened, request.plan().planFor(opened.periodDays(), cut), run);
+      return training.train(opened, request.members().plansFor(opened.periodDays(), cut), run);
     }
   }
 
-  private static Outcome trainHere(Request request, SalesStore opened, TrainingPlan plan, Run run,
+  private static Outcome trainOne(Request request, SalesStore opened, TrainingPlan plan, Run run,
       ProgressListener progress) throws IOException {
     // refused before the training, not after it
     ModelDirectory.checkTarget(request.modelDir());
@@ -98,11 +110,55 @@ public final class TrainJob {
         ModelDirectory.save(models, request.modelDir(), opened, plan, opened.fingerprint());
       }
       run.record().result("partitions", reports);
-      outcome = new Outcome(reports, learnerPeakBytes, opened.offHeapBytes(), request.modelDir());
+      outcome = new Outcome(List.of(), reports, learnerPeakBytes, opened.offHeapBytes(), request.modelDir());
     } finally {
       trainStage.close();
     }
     run.record().write(request.modelDir());
     return outcome;
+  }
+
+  /**
+   * Trains the members one after another (memory is the largest member's) into one combination directory, which
+   * appears only when every member is saved.
+   */
+  private static Outcome trainMembers(Request request, SalesStore opened, List<MemberPlans.Member> members, Run run,
+      ProgressListener progress) throws IOException {
+    int horizon = members.get(0).plan().spec().horizonDays();
+    for (MemberPlans.Member member : members) {
+      if (member.plan().spec().horizonDays() != horizon) {
+        throw new InvalidRequestException("the members of a combination must share one horizon: " + members.get(0)
+            .name() + " has " + horizon + ", " + member.name() + " has " + member.plan().spec().horizonDays());
+      }
+    }
+    List<String> names = members.stream().map(MemberPlans.Member::name).toList();
+    run.record().configure("store", request.storeDir().toString()).configure("model", request.modelDir().toString())
+        .configure("cutDate", opened.dateOf(members.get(0).plan().cutDayIndex()).toString())
+        .configure("members", names);
+    List<PartitionReport> reports = new ArrayList<>();
+    long learnerPeakBytes = 0;
+    try (ModelCombination.Writer writer = ModelCombination.Writer.begin(request.modelDir())) {
+      for (int m = 0; m < members.size(); m++) {
+        MemberPlans.Member member = members.get(m);
+        run.record().configure("plan " + (m + 1), member.plan().toString());
+        Stage trainStage = run.stage("train member " + (m + 1));
+        try (ModelSet models = ModelTraining.train(opened, member.plan(), trainStage.budget(), progress)) {
+          learnerPeakBytes = Math.max(learnerPeakBytes, trainStage.budget().peakBytes());
+          List<PartitionReport> memberReports = models.partitions().stream().map(ModelSet.Partition::report)
+              .toList();
+          trainStage.addRows(memberReports.stream().mapToLong(PartitionReport::trainingRowCount).sum()).close();
+          reports.addAll(memberReports);
+          try (Stage saving = run.stage("save member " + (m + 1))) {
+            writer.save(member.name(), models, opened, member.plan(), opened.fingerprint());
+          }
+        } finally {
+          trainStage.close();
+        }
+      }
+      writer.finish();
+    }
+    run.record().result("partitions", reports);
+    run.record().write(request.modelDir());
+    return new Outcome(names, reports, learnerPeakBytes, opened.offHeapBytes(), request.modelDir());
   }
 }

@@ -107,8 +107,8 @@ public final class ModelDirectory {
           + " model; nothing was changed, choose a new or empty folder for the model (a store folder goes to "
           + Setting.STORE + ")");
     }
-    OutputTargets.checkFolder(dir.toAbsolutePath().normalize(), "model directory", ModelDirectory::looksLikeModel,
-        Set.of());
+    OutputTargets.checkFolder(dir.toAbsolutePath().normalize(), "model directory",
+        d -> looksLikeModel(d) || ModelCombination.looksLikeCombination(d), Set.of());
   }
 
   /** Reads only the manifest, checking its checksum (format version 2) and version. */
@@ -121,6 +121,10 @@ public final class ModelDirectory {
     if (holdsAStore(dir)) {
       throw new FileSystemException(dir.toString(), null, "not a model: it holds a sales store; give the folder"
           + " train wrote (a store folder goes to " + Setting.STORE + ")");
+    }
+    if (!Files.exists(file) && ModelCombination.isCombination(dir)) {
+      throw new InvalidRequestException(dir + " holds a combination of models (" + ModelCombination.FILE_NAME
+          + "), which only a forecast reads as a whole; give one member's folder, e.g. " + dir.resolve("member-1"));
     }
     if (!Files.exists(file)) {
       throw new NoSuchFileException(file.toString(), null, "not a model directory: no " + ModelManifest.FILE_NAME);
