@@ -31,7 +31,8 @@ class DemoCommandTest {
     }
     List<String> forecast = Files.readAllLines(out.resolve("forecast.csv"));
     assertEquals(1 + DemoJob.Size.SMALL.seriesCount * DemoJob.HORIZON_DAYS, forecast.size());
-    assertTrue(forecast.get(0).endsWith(",date,forecast,q0.005,q0.025,q0.165,q0.25,q0.5,q0.75,q0.835,q0.975,q0.995"),
+    assertTrue(forecast.get(0).endsWith(",date,forecast,q0.005,q0.025,q0.165,q0.25,q0.5,q0.75,q0.835,q0.975,q0.995"
+        + ",closed"),
         forecast.get(0));
     Matcher skill = SKILL.matcher(run.out());
     assertTrue(skill.find(), run.out());
