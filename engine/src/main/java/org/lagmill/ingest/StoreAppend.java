@@ -264,6 +264,13 @@ public final class StoreAppend {
         int oldSeriesCount = store.seriesCount();
         writer.writePlan(PlanTable.withSeriesKeys(plan, s -> s < oldSeriesCount ? plan.keyOf(s) : PlanTable.NO_KEY));
       }
+      String uncovered = uncoveredNewSeries(newDays.newSeriesAttributes().size(),
+          options.pricesFile() == null && !store.prices().isEmpty(),
+          options.closuresFile() == null && !store.closures().isEmpty(),
+          options.plan() == null && !store.plan().isEmpty());
+      if (uncovered != null) {
+        warnings.add(uncovered);
+      }
       List<StoreManifest.SourceFile> sources = new ArrayList<>(store.manifest().sources());
       sources.addAll(StoreIngest.sourcesOf(options.salesFile(), options.calendarFile(), options.pricesFile(),
           options.closuresFile(), options.plan() == null ? null : options.plan().file()));
@@ -271,6 +278,34 @@ public final class StoreAppend {
       FillWarnings.add(manifest, zeroFilledNow, warnings);
       return new IngestResult(manifest, warnings);
     }
+  }
+
+  /**
+   * The warning for series new to the store when stored prices, closures or a plan are kept: each table was matched
+   * to the series when its file was read, so a new series gets no rows from it (no price, never closed, nothing
+   * planned) until that file is appended again. Null when nothing is missing.
+   */
+  static String uncoveredNewSeries(int newSeriesCount, boolean keptPrices, boolean keptClosures, boolean keptPlan) {
+    List<String> kinds = new ArrayList<>();
+    List<String> files = new ArrayList<>();
+    if (keptPrices) {
+      kinds.add("prices");
+      files.add(Setting.PRICES + " FILE");
+    }
+    if (keptClosures) {
+      kinds.add("closures");
+      files.add(Setting.CLOSURES + " FILE");
+    }
+    if (keptPlan) {
+      kinds.add("plan rows");
+      files.add(Setting.PLAN + " FILE");
+    }
+    if (newSeriesCount == 0 || kinds.isEmpty()) {
+      return null;
+    }
+    return newSeriesCount + " series new to the store have no " + String.join(", ", kinds) + " from the stored "
+        + "files, which were matched to series when they were read; append them again (" + String.join(", ", files)
+        + ") to cover the new series";
   }
 
   /** The old closures, with none for series added by the append. */

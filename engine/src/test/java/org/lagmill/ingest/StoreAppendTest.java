@@ -3,6 +3,7 @@ package org.lagmill.ingest;
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -132,6 +133,42 @@ class StoreAppendTest {
       assertEquals(moved + ", line 3, column 1: series 'k1' has dept=chilled: expected dept=frozen as in the store"
           + " (a series keeps its attributes; give a changed one a new series id)", e.getMessage());
       assertEquals(before, StoreIngestTest.listing(temp.resolve("store")));
+      assertEquals(0, budget.heldBytes());
+    }
+  }
+
+  @Test
+  void shouldSayWhichStoredTablesDoNotCoverSeriesNewToTheStore() throws Exception {
+    // Closures by shop, resolved to series at ingest: a sku new to shop 'n' after the append has none of them
+    // unless the closures file comes again.
+    Path first = temp.resolve("first.csv");
+    Files.writeString(first, "sku,shop,2024-01-01,2024-01-02\na,n,1,2\nb,s,3,4\n");
+    Path closures = temp.resolve("closures.csv");
+    Files.writeString(closures, "shop,from,until\nn,2024-01-04,2024-01-04\n");
+    Path next = temp.resolve("next.csv");
+    Files.writeString(next, "sku,shop,2024-01-03,2024-01-04\na,n,5,0\nb,s,6,7\nc,n,1,0\nd,s,2,2\n");
+    Path again = temp.resolve("again.csv");
+    Files.writeString(again, "sku,shop,2024-01-05\na,n,1\nb,s,1\nc,n,1\nd,s,1\ne,n,1\n");
+    try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
+      Path store = temp.resolve("store");
+      StoreIngest.ingest(IngestOptions.of(first, store).withClosuresFile(closures), budget);
+      IngestResult kept = StoreAppend.append(AppendOptions.of(store, next), budget);
+      // (The new series' unknown first days raise the store's unknown-share warning after it.)
+      assertEquals("2 series new to the store have no closures from the stored files, which were matched to "
+          + "series when they were read; append them again (‹closures› FILE) to cover the new series",
+          kept.warnings().get(0));
+      try (SalesStore opened = SalesStore.open(store, budget.child("read"))) {
+        int c = opened.attributes().seriesIndexOf("c/n");
+        assertTrue(opened.isClosed(opened.attributes().seriesIndexOf("a/n"), 3));
+        assertTrue(!opened.isClosed(c, 3), "the stored closures do not reach the new series");
+      }
+      IngestResult covered = StoreAppend.append(AppendOptions.of(store, again).withClosuresFile(closures), budget);
+      assertTrue(covered.warnings().stream().noneMatch(w -> w.contains("new to the store")), covered.warnings()
+          .toString());
+      try (SalesStore opened = SalesStore.open(store, budget.child("read"))) {
+        assertTrue(opened.isClosed(opened.attributes().seriesIndexOf("c/n"), 3));
+        assertTrue(opened.isClosed(opened.attributes().seriesIndexOf("e/n"), 3));
+      }
       assertEquals(0, budget.heldBytes());
     }
   }
