@@ -82,9 +82,10 @@ final class TrainingOptions {
   @Option(names = "--deterministic", description = "bit-identical models for the same inputs and thread count")
   boolean deterministic;
 
-  @Option(names = "--no-refit", description = "ship the early-stopped model, trained without the last horizon of "
-      + "days (default: after early stopping picks the rounds, train again on every day; see docs/learner.md)")
-  boolean noRefit;
+  @Option(names = "--refit", negatable = true, description = "after early stopping picks the rounds on the last "
+      + "horizon of days, train again on every day and ship that model; --no-refit (the default, which backtests "
+      + "found more accurate) ships the early-stopped model (see docs/learner.md)")
+  Boolean refit;
 
   @Option(names = "--partition-by", paramLabel = "ATTRIBUTE",
       description = "train one model per value of this attribute (e.g. store), one after another")
@@ -156,7 +157,7 @@ final class TrainingOptions {
     DatasetParameters dataset = DatasetParameters.defaults().withSampleRowCount(sampleRowCount).withSeed(seed)
         .withDeterministic(deterministic).withUseWeights(salesValue).withThreadCount(threads);
     return new TrainingPlan(spec, train, dataset, cutDayIndex, spec.horizonDays(), partitionAttribute, salesValue,
-        !noRefit);
+        refit == null ? TrainingPlan.REFIT_BY_DEFAULT : refit);
   }
 
   static Objective objective(String name) {

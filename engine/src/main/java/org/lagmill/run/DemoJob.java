@@ -123,7 +123,7 @@ public final class DemoJob {
         report.data(ReportAssembler.dataSummary(StoreSummary.of(store)));
         FeatureSpec spec = spec();
         TrainingPlan plan = new TrainingPlan(spec, trainParameters(), DatasetParameters.defaults(),
-            store.dayCount() - 1, HORIZON_DAYS, null, false, true);
+            store.dayCount() - 1, HORIZON_DAYS, null, false, TrainingPlan.REFIT_BY_DEFAULT);
         FeatureSpecYaml.write(spec, outDir.resolve("features.yaml"));
         run.record().configure("size", size.name()).configure("seriesCount", size.seriesCount)
             .configure("dayCount", size.dayCount).configure("seed", request.seed()).configure("plan", plan.toString());
