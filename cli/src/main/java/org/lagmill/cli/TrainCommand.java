@@ -22,7 +22,8 @@ import picocli.CommandLine.Spec;
     footer = {"", "Example:", "  lagmill train --store stores/chain --model models/week49 --rounds 800",
         "  lagmill train --store stores/chain --model models/by-store \\",
         "      --partition-by store --until 2026-11-29",
-        "  lagmill train --store stores/chain --model models/combined --from-backtest runs/members"})
+        "  lagmill train --store stores/chain --model models/combined \\",
+        "      --from-backtest runs/members"})
 final class TrainCommand implements Callable<Integer> {
   @Spec
   CommandSpec commandSpec;
