@@ -217,7 +217,8 @@ public final class StoreAppend {
       int[] row = new int[dayCount];
       String[] values = new String[names.size()];
       for (int s = 0; s < store.seriesCount(); s++) {
-        store.readUnits(s, 0, row, 0, oldDayCount);
+        // As stored: a closed day keeps its units, so a corrected closures file appended later finds them again.
+        store.readStoredUnits(s, 0, row, 0, oldDayCount);
         int[] added = newDays.unitsBySeries()[s];
         if (added == null) {
           Arrays.fill(row, oldDayCount, dayCount, SalesHistory.UNKNOWN_UNITS);
@@ -276,6 +277,11 @@ public final class StoreAppend {
           options.closuresFile(), options.plan() == null ? null : options.plan().file()));
       StoreManifest manifest = writer.finish(sources);
       FillWarnings.add(manifest, zeroFilledNow, warnings);
+      if (!closures.isEmpty()) {
+        try (SalesStore built = SalesStore.openUnpublished(temp, budget.child("closed-day check"))) {
+          ClosedDaySales.warn(built, warnings);
+        }
+      }
       return new IngestResult(manifest, warnings);
     }
   }

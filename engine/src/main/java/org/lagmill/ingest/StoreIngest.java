@@ -10,6 +10,7 @@ import org.lagmill.io.Setting;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.ClosureTable;
 import org.lagmill.store.Periods;
+import org.lagmill.store.SalesStore;
 import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreUpdate;
 import org.lagmill.store.StoreWriter;
@@ -88,6 +89,11 @@ public final class StoreIngest {
       }
       // A new store's zero fills are all this run's.
       FillWarnings.add(manifest, manifest.fill().zeroFilledItemDays(), warnings);
+      if (options.closuresFile() != null) {
+        try (SalesStore built = SalesStore.openUnpublished(temp, stage.child("closed-day check"))) {
+          ClosedDaySales.warn(built, warnings);
+        }
+      }
       update.commit();
       return new IngestResult(manifest, warnings, periodNote[0]);
     }

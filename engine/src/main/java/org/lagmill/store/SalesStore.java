@@ -192,6 +192,14 @@ public final class SalesStore implements SalesHistory, AutoCloseable {
     return manifest;
   }
 
+  /**
+   * Opens a generation a {@link StoreWriter} has just finished, before it is published: for checks that need the
+   * stored units (ingest and append count sales on declared closed days). The caller closes it before publishing.
+   */
+  public static SalesStore openUnpublished(Path generationDir, MemoryBudget budget) throws IOException {
+    return openGeneration(generationDir, budget, DEFAULT_WINDOW_BYTES);
+  }
+
   private static SalesStore openGeneration(Path dir, MemoryBudget budget, long maxWindowBytes) throws IOException {
     StoreManifest manifest = StoreManifest.read(dir);
     List<AutoCloseable> opened = new ArrayList<>();
