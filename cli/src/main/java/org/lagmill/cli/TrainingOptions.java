@@ -71,6 +71,10 @@ final class TrainingOptions {
       description = "share of rows each tree is grown on; 1 disables bagging (default: ${DEFAULT-VALUE})")
   double baggingFraction;
 
+  @Option(names = "--goss", description = "grow each tree on LightGBM's gradient-based one-side sample (every row "
+      + "with a large gradient and a weighted share of the rest) instead of a bagged share of rows")
+  boolean goss;
+
   @Option(names = "--threads", converter = Counts.Positive.class,
       paramLabel = "N", description = "threads (default: all processors)")
   Integer threadCount;
@@ -148,7 +152,7 @@ final class TrainingOptions {
         .withTweedieVariancePower(tweediePower).withLearningRate(learningRate).withLeafCount(leafCount)
         .withFractions(featureFraction, baggingFraction)
         .withRounds(rounds, earlyStoppingRounds).withThreadCount(threads).withSeed(seed)
-        .withDeterministic(deterministic);
+        .withDeterministic(deterministic).withGoss(goss);
     boolean salesValue = switch (weights.toLowerCase(Locale.ROOT)) {
       case "none" -> false;
       case "sales-value" -> true;

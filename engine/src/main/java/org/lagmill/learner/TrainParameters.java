@@ -20,6 +20,8 @@ import static org.lagmill.learner.DatasetParameters.requireRange;
  * @param threadCount OpenMP threads
  * @param seed seeds bagging, feature sampling and LightGBM's other random choices
  * @param deterministic bit-identical models across runs with the same data, seed and thread count
+ * @param goss gradient-based one-side sampling (LightGBM's {@code data_sample_strategy=goss}: every row with a large
+ *     gradient, a weighted sample of the rest) instead of bagging; {@code baggingFraction} is then unused
  */
 public record TrainParameters(
     Objective objective,
@@ -34,7 +36,8 @@ public record TrainParameters(
     int earlyStoppingRounds,
     int threadCount,
     long seed,
-    boolean deterministic) {
+    boolean deterministic,
+    boolean goss) {
 
   public TrainParameters {
     if (objective == null) {
@@ -58,62 +61,71 @@ public record TrainParameters(
    */
   public static TrainParameters defaults() {
     return new TrainParameters(Objective.TWEEDIE, 1.1, 0.05, 127, 100, 0.8, 0.8, 0.1, 1000, 50,
-        Runtime.getRuntime().availableProcessors(), 1L, false);
+        Runtime.getRuntime().availableProcessors(), 1L, false, false);
   }
 
   public TrainParameters withObjective(Objective value) {
     return new TrainParameters(value, tweedieVariancePower, learningRate, leafCount, minDataInLeaf, featureFraction,
-        baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic);
+        baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic, goss);
   }
 
   public TrainParameters withTweedieVariancePower(double value) {
     return new TrainParameters(objective, value, learningRate, leafCount, minDataInLeaf, featureFraction,
-        baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic);
+        baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic, goss);
   }
 
   public TrainParameters withLearningRate(double value) {
     return new TrainParameters(objective, tweedieVariancePower, value, leafCount, minDataInLeaf, featureFraction,
-        baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic);
+        baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic, goss);
   }
 
   public TrainParameters withLeafCount(int value) {
     return new TrainParameters(objective, tweedieVariancePower, learningRate, value, minDataInLeaf, featureFraction,
-        baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic);
+        baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic, goss);
   }
 
   public TrainParameters withMinDataInLeaf(int value) {
     return new TrainParameters(objective, tweedieVariancePower, learningRate, leafCount, value, featureFraction,
-        baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic);
+        baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic, goss);
   }
 
   public TrainParameters withFractions(double features, double bagging) {
     return new TrainParameters(objective, tweedieVariancePower, learningRate, leafCount, minDataInLeaf, features,
-        bagging, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic);
+        bagging, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic, goss);
   }
 
   public TrainParameters withLambdaL2(double value) {
     return new TrainParameters(objective, tweedieVariancePower, learningRate, leafCount, minDataInLeaf,
-        featureFraction, baggingFraction, value, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic);
+        featureFraction, baggingFraction, value, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic,
+        goss);
   }
 
   public TrainParameters withRounds(int maxRounds, int earlyStoppingRounds) {
     return new TrainParameters(objective, tweedieVariancePower, learningRate, leafCount, minDataInLeaf,
-        featureFraction, baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic);
+        featureFraction, baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic,
+        goss);
   }
 
   public TrainParameters withThreadCount(int value) {
     return new TrainParameters(objective, tweedieVariancePower, learningRate, leafCount, minDataInLeaf,
-        featureFraction, baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, value, seed, deterministic);
+        featureFraction, baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, value, seed, deterministic, goss);
   }
 
   public TrainParameters withSeed(long value) {
     return new TrainParameters(objective, tweedieVariancePower, learningRate, leafCount, minDataInLeaf,
-        featureFraction, baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, value, deterministic);
+        featureFraction, baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, value, deterministic,
+        goss);
   }
 
   public TrainParameters withDeterministic(boolean value) {
     return new TrainParameters(objective, tweedieVariancePower, learningRate, leafCount, minDataInLeaf,
-        featureFraction, baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, value);
+        featureFraction, baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, value, goss);
+  }
+
+  public TrainParameters withGoss(boolean value) {
+    return new TrainParameters(objective, tweedieVariancePower, learningRate, leafCount, minDataInLeaf,
+        featureFraction, baggingFraction, lambdaL2, maxRounds, earlyStoppingRounds, threadCount, seed, deterministic,
+        value);
   }
 
   /**
@@ -130,8 +142,8 @@ public record TrainParameters(
         .append(" num_leaves=").append(leafCount)
         .append(" min_data_in_leaf=").append(minDataInLeaf)
         .append(" feature_fraction=").append(format(featureFraction))
-        .append(" bagging_fraction=").append(format(baggingFraction))
-        .append(" bagging_freq=").append(baggingFraction < 1.0 ? 1 : 0)
+        .append(goss ? " data_sample_strategy=goss" : " bagging_fraction=" + format(baggingFraction)
+            + " bagging_freq=" + (baggingFraction < 1.0 ? 1 : 0))
         .append(" lambda_l2=").append(format(lambdaL2))
         .append(" num_threads=").append(threadCount)
         .append(" seed=").append(lightGbmSeed)
