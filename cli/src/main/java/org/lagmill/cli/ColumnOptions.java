@@ -1,8 +1,11 @@
 package org.lagmill.cli;
 
+import java.util.LinkedHashMap;
+import java.util.Map;
 import org.lagmill.ingest.CalendarFileReader;
 import org.lagmill.ingest.ClosuresFileReader;
 import org.lagmill.ingest.ColumnNames;
+import org.lagmill.ingest.KeyColumns;
 import org.lagmill.ingest.LongSalesReader;
 import org.lagmill.ingest.PriceFileReader;
 import org.lagmill.store.SeriesIdentity;
@@ -12,7 +15,9 @@ import picocli.CommandLine.Option;
  * The column-name options of every input file, shared by {@code ingest} and {@code append}: the one place they are
  * defined; the defaults are the readers' own (docs/formats.md). Each dated file has its own date columns
  * ({@code --sales-date-column}, {@code --calendar-date-column}, {@code --prices-from-column},
- * {@code --closures-from-column} and {@code --closures-until-column}); the plan file's are with its own options.
+ * {@code --closures-from-column} and {@code --closures-until-column}); the plan file's are with its own options. The
+ * key columns of prices, plan and closures may be named otherwise than the attributes ({@code --prices-key-column
+ * sku=article_code}, {@code --plan-key-column}, {@code --closures-key-column}).
  */
 final class ColumnOptions {
   @Option(names = "--series-id-column", paramLabel = "NAME", defaultValue = SeriesIdentity.SERIES_ID,
@@ -56,10 +61,24 @@ final class ColumnOptions {
       description = "last closed date of closures, included (default: ${DEFAULT-VALUE})")
   String closuresUntilColumn;
 
+  @Option(names = "--prices-key-column", paramLabel = "ATTRIBUTE=COLUMN", description = "a key column of prices "
+      + "named otherwise than the sales' attribute, e.g. sku=article_code; repeatable (default: key columns carry "
+      + "the attribute names)")
+  Map<String, String> pricesKeyColumns = new LinkedHashMap<>();
+
+  @Option(names = "--plan-key-column", paramLabel = "ATTRIBUTE=COLUMN", description = "a key column of the plan "
+      + "named otherwise than the sales' attribute; repeatable")
+  Map<String, String> planKeyColumns = new LinkedHashMap<>();
+
+  @Option(names = "--closures-key-column", paramLabel = "ATTRIBUTE=COLUMN", description = "a key column of closures "
+      + "named otherwise than the sales' attribute, e.g. shop=store_no; repeatable")
+  Map<String, String> closuresKeyColumns = new LinkedHashMap<>();
+
   ColumnNames names() {
     ColumnNames names = ColumnNames.DEFAULTS.withSeriesIdColumn(seriesIdColumn).withDateColumn(dateColumn)
         .withFromColumn(fromColumn).withPriceColumn(priceColumn).withUnitsColumn(unitsColumn)
-        .withClosuresColumns(closuresFromColumn, closuresUntilColumn);
+        .withClosuresColumns(closuresFromColumn, closuresUntilColumn)
+        .withKeyColumns(new KeyColumns(pricesKeyColumns, planKeyColumns, closuresKeyColumns));
     if (salesDateColumn != null) {
       names = names.withSalesDateColumn(salesDateColumn);
     }

@@ -71,7 +71,7 @@ final class CalendarAndPrices {
       throws IOException {
     PriceReadResult read = PriceFileReader.read(pricesFile, writer.firstDate(), writer.periodDays(),
         writer.attributes(),
-        writer.seriesCount(), columns.fromColumn(), columns.priceColumn());
+        writer.seriesCount(), columns.fromColumn(), columns.priceColumn(), columns.keyColumns().prices());
     warnings.addAll(read.warnings());
     writer.writePrices(read.prices());
   }
@@ -81,16 +81,18 @@ final class CalendarAndPrices {
       throws IOException {
     ClosuresFileReader.ClosuresReadResult read = ClosuresFileReader.read(closuresFile, writer.firstDate(),
         writer.periodDays(), writer.attributes(), writer.seriesCount(), columns.closuresFromColumn(),
-        columns.closuresUntilColumn());
+        columns.closuresUntilColumn(), columns.keyColumns().closures());
     warnings.addAll(read.warnings());
     writer.writeClosures(read.closures(), read.partlyClosedItemPeriods());
     return read.closures();
   }
 
   /** Reads and writes the plan file; call after the last series was added. */
-  static void writePlan(StoreWriter writer, PlanSource plan, List<String> warnings) throws IOException {
+  static void writePlan(StoreWriter writer, PlanSource plan, ColumnNames columns, List<String> warnings)
+      throws IOException {
     PlanFileReader.PlanReadResult read = PlanFileReader.read(plan.file(), writer.firstDate(), writer.periodDays(),
-        writer.dayCount(), writer.attributes(), writer.seriesCount(), plan.dateColumn(), plan.fromColumn());
+        writer.dayCount(), writer.attributes(), writer.seriesCount(), plan.dateColumn(), plan.fromColumn(),
+        columns.keyColumns().plan());
     warnings.addAll(read.warnings());
     writer.writePlan(read.plan());
   }

@@ -6,6 +6,7 @@ import java.nio.file.Path;
 import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.Map;
 import java.util.List;
 import java.util.Locale;
 import org.lagmill.io.Excerpts;
@@ -56,6 +57,13 @@ public final class ClosuresFileReader {
    */
   public static ClosuresReadResult read(Path file, LocalDate storeFirstDate, int periodDays,
       SeriesAttributes attributes, int seriesCount, String fromColumn, String untilColumn) {
+    return read(file, storeFirstDate, periodDays, attributes, seriesCount, fromColumn, untilColumn, Map.of());
+  }
+
+  /** As the other {@code read}, with key columns named otherwise than the attributes ({@link KeyColumns#closures()}). */
+  public static ClosuresReadResult read(Path file, LocalDate storeFirstDate, int periodDays,
+      SeriesAttributes attributes, int seriesCount, String fromColumn, String untilColumn,
+      Map<String, String> keyColumns) {
     Periods.requireValid(periodDays);
     try (CsvSource source = CsvSource.open(file)) {
       String[] header = source.readHeader();
@@ -65,8 +73,8 @@ public final class ClosuresFileReader {
       int reasonIndex = Arrays.asList(header).indexOf(REASON_COLUMN);
       int[] valueColumns = reasonIndex < 0 ? new int[] {fromIndex, untilIndex}
           : new int[] {fromIndex, untilIndex, reasonIndex};
-      SeriesKeys keys = SeriesKeys.allColumnsExcept(file, header, valueColumns, attributes, seriesCount, "closure",
-          false);
+      SeriesKeys keys = SeriesKeys.allColumnsExcept(file, KeyColumns.attributeHeader(file, header, keyColumns,
+          Setting.CLOSURES_KEY_COLUMN), valueColumns, attributes, seriesCount, "closure", false);
       long firstEpochDay = storeFirstDate.toEpochDay();
       IntArrayList[] rangesBySeries = new IntArrayList[seriesCount];
       long unknownKeyRowCount = 0;

@@ -8,6 +8,7 @@ import java.nio.file.Path;
 import java.time.LocalDate;
 import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.Map;
 import java.util.List;
 import org.lagmill.io.Excerpts;
 import org.lagmill.io.Setting;
@@ -78,6 +79,14 @@ public final class PlanFileReader {
    */
   public static PlanReadResult read(Path file, LocalDate storeFirstDate, int periodDays, int storeDayCount,
       SeriesAttributes attributes, int seriesCount, String dateColumn, String fromColumn) {
+    return read(file, storeFirstDate, periodDays, storeDayCount, attributes, seriesCount, dateColumn, fromColumn,
+        Map.of());
+  }
+
+  /** As the other {@code read}, with key columns named otherwise than the attributes ({@link KeyColumns#plan()}). */
+  public static PlanReadResult read(Path file, LocalDate storeFirstDate, int periodDays, int storeDayCount,
+      SeriesAttributes attributes, int seriesCount, String dateColumn, String fromColumn,
+      Map<String, String> keyColumns) {
     Periods.requireValid(periodDays);
     try (CsvSource source = CsvSource.open(file)) {
       String[] header = source.readHeader();
@@ -97,7 +106,8 @@ public final class PlanFileReader {
       Form form = dateIndex >= 0 ? Form.DATE : Form.FROM;
       int timeIndex = form == Form.DATE ? dateIndex : fromIndex;
       String timeColumn = header[timeIndex];
-      SeriesKeys keys = SeriesKeys.attributeColumns(header, new int[] {timeIndex}, attributes, seriesCount);
+      SeriesKeys keys = SeriesKeys.attributeColumns(KeyColumns.attributeHeader(file, header, keyColumns,
+          Setting.PLAN_KEY_COLUMN), new int[] {timeIndex}, attributes, seriesCount);
       IntArrayList valueColumnList = new IntArrayList();
       for (int c = 0; c < header.length; c++) {
         if (c != timeIndex && !keys.isKeyColumn(c)) {

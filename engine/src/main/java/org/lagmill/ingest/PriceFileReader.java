@@ -5,6 +5,7 @@ import it.unimi.dsi.fastutil.floats.FloatArrayList;
 import it.unimi.dsi.fastutil.ints.IntArrayList;
 import java.nio.file.Path;
 import java.time.LocalDate;
+import java.util.Map;
 import java.util.ArrayList;
 import java.util.List;
 import org.lagmill.io.Excerpts;
@@ -56,6 +57,15 @@ public final class PriceFileReader {
    */
   public static PriceReadResult read(Path file, LocalDate storeFirstDate, int periodDays, SeriesAttributes attributes,
       int seriesCount, String fromColumn, String priceColumn) {
+    return read(file, storeFirstDate, periodDays, attributes, seriesCount, fromColumn, priceColumn, Map.of());
+  }
+
+  /**
+   * As {@link #read(Path, LocalDate, int, SeriesAttributes, int, String, String)}, with key columns named otherwise
+   * than the attributes ({@link KeyColumns#prices()}).
+   */
+  public static PriceReadResult read(Path file, LocalDate storeFirstDate, int periodDays, SeriesAttributes attributes,
+      int seriesCount, String fromColumn, String priceColumn, Map<String, String> keyColumns) {
     Periods.requireValid(periodDays);
     if (seriesCount < 0) {
       throw new IllegalArgumentException("seriesCount must be >= 0, got " + seriesCount);
@@ -65,8 +75,8 @@ public final class PriceFileReader {
       Cells.requireDistinct(file, header);
       int fromIndex = Cells.requireColumn(file, header, fromColumn, Setting.PRICES_FROM_COLUMN.toString());
       int priceIndex = Cells.requireColumn(file, header, priceColumn, Setting.PRICES_PRICE_COLUMN.toString());
-      SeriesKeys keys = SeriesKeys.allColumnsExcept(file, header, new int[] {fromIndex, priceIndex}, attributes,
-          seriesCount, "price", true);
+      SeriesKeys keys = SeriesKeys.allColumnsExcept(file, KeyColumns.attributeHeader(file, header, keyColumns,
+          Setting.PRICES_KEY_COLUMN), new int[] {fromIndex, priceIndex}, attributes, seriesCount, "price", true);
 
       long firstEpochDay = storeFirstDate.toEpochDay();
       IntArrayList rowKeyIds = new IntArrayList();

@@ -258,7 +258,7 @@ public final class StoreAppend {
       long zeroFilledNow = newDays.zeroFills().count() - newDays.zeroFills().closedCount(closures, oldDayCount);
       writer.addZeroFilledItemDays((oldFill == null ? 0 : oldFill.zeroFilledItemDays()) + zeroFilledNow);
       if (options.plan() != null) {
-        CalendarAndPrices.writePlan(writer, options.plan(), warnings);
+        CalendarAndPrices.writePlan(writer, options.plan(), options.columns(), warnings);
       } else {
         // Kept as stored; series new to the store have no plan row until a plan file is appended.
         PlanTable plan = store.plan();

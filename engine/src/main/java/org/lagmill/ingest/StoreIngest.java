@@ -83,7 +83,7 @@ public final class StoreIngest {
               - longRead[0].zeroFills().closedCount(closures, 0));
         }
         if (options.plan() != null) {
-          CalendarAndPrices.writePlan(writer, options.plan(), warnings);
+          CalendarAndPrices.writePlan(writer, options.plan(), options.columns(), warnings);
         }
         manifest = writer.finish(sources(options));
       }

@@ -33,7 +33,8 @@ public enum Setting {
                                                                       "report"), BACKTEST_REPORT("backtest"), UNTIL(
                                                                           "until"), MATCH("match"), PLAN_CARRY_FORWARD(
                                                                               "plan-carry-forward"), CONFIG("config"), MEMBER("member"), FROM_BACKTEST(
-      "from-backtest");
+      "from-backtest"), PRICES_KEY_COLUMN("prices-key-column"), PLAN_KEY_COLUMN(
+      "plan-key-column"), CLOSURES_KEY_COLUMN("closures-key-column");
 
   /**
    * A task a front end offers, named in engine hints ({@code Command.APPEND + " " + Setting.PLAN + " FILE"}); the
