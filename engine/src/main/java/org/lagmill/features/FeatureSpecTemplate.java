@@ -52,7 +52,8 @@ public final class FeatureSpecTemplate {
     b.append("# lagmill feature spec for a store whose periods are ").append(Periods.count(periodDays, Periods.DAILY))
         .append(" long. Every key is optional; a key left out keeps\n")
         .append("# its default, shown here (with strategy: direct, left-out keys take the direct defaults instead).\n")
-        .append("# Use it with " + Setting.CONFIG + " FILE (train, backtest). docs/configuration.md explains each key.\n");
+        .append(
+            "# Use it with " + Setting.CONFIG + " FILE (train, backtest). docs/configuration.md explains each key.\n");
     for (Key key : KEYS) {
       b.append('\n');
       for (String line : wrap(key.meaning(), 116)) {
