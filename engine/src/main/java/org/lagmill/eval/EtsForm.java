@@ -30,7 +30,9 @@ public enum EtsForm {
 
   /** How the season enters the one-step forecast. */
   public enum Season {
-    NONE, ADDITIVE, MULTIPLICATIVE
+    NONE,
+    ADDITIVE,
+    MULTIPLICATIVE
   }
 
   private final boolean multiplicativeError;

@@ -20,7 +20,8 @@ import org.lagmill.store.SalesHistory;
 public final class OriginStatistics {
   /** How the weights were measured. */
   public enum WeightBasis {
-    SALES_VALUE, UNIT_VOLUME
+    SALES_VALUE,
+    UNIT_VOLUME
   }
 
   private static final int BLOCK_DAYS = 64;

@@ -10,9 +10,17 @@ import java.util.Locale;
  * {@link #OTHER}, so nothing is dropped from a sum.
  */
 public enum FeatureFamily {
-  RECENT_LEVEL("recent level"), WEEKLY_PATTERN("weekly pattern"), SEASON("season"), EVENTS(
-      "events and holidays"), PRICE(
-          "price"), PLAN("plan"), LAUNCH("launch"), SERIES("item and location"), OTHER("other");
+  RECENT_LEVEL("recent level"),
+  WEEKLY_PATTERN("weekly pattern"),
+  SEASON("season"),
+  EVENTS(
+      "events and holidays"),
+  PRICE(
+      "price"),
+  PLAN("plan"),
+  LAUNCH("launch"),
+  SERIES("item and location"),
+  OTHER("other");
 
   private final String label;
 

@@ -22,7 +22,8 @@ import org.lagmill.store.Periods;
 public final class FeatureSpec {
   /** How forecasts are produced: one model reads only what is known at the origin, or predictions are fed back. */
   public enum Strategy {
-    DIRECT, RECURSIVE;
+    DIRECT,
+    RECURSIVE;
 
     public String configName() { return name().toLowerCase(Locale.ROOT); }
 
@@ -33,7 +34,11 @@ public final class FeatureSpec {
 
   /** Statistics of a rolling window of units. STD is the sample standard deviation (divisor n − 1). */
   public enum RollingStat {
-    MEAN, STD, MIN, MAX, ZERO_SHARE;
+    MEAN,
+    STD,
+    MIN,
+    MAX,
+    ZERO_SHARE;
 
     public String configName() { return name().toLowerCase(Locale.ROOT); }
 
@@ -44,7 +49,11 @@ public final class FeatureSpec {
 
   /** Features derived from the date alone. */
   public enum CalendarFeature {
-    DAY_OF_WEEK, DAY_OF_MONTH, MONTH, WEEK_OF_YEAR, DAY_OF_YEAR;
+    DAY_OF_WEEK,
+    DAY_OF_MONTH,
+    MONTH,
+    WEEK_OF_YEAR,
+    DAY_OF_YEAR;
 
     public String configName() { return name().toLowerCase(Locale.ROOT); }
 
@@ -55,7 +64,12 @@ public final class FeatureSpec {
 
   /** Features of the shelf price; computed only when the history has prices. */
   public enum PriceFeature {
-    PRICE, PRICE_TO_MEAN, PRICE_TO_MAX, PRICE_CHANGE_7, PROMO, PRICE_TO_GROUP;
+    PRICE,
+    PRICE_TO_MEAN,
+    PRICE_TO_MAX,
+    PRICE_CHANGE_7,
+    PROMO,
+    PRICE_TO_GROUP;
 
     public String configName() { return name().toLowerCase(Locale.ROOT); }
 
@@ -66,7 +80,8 @@ public final class FeatureSpec {
 
   /** Features of the series' own history besides lags and rolling windows. */
   public enum SeriesFeature {
-    DAYS_SINCE_FIRST_SALE, ZERO_RUN;
+    DAYS_SINCE_FIRST_SALE,
+    ZERO_RUN;
 
     public String configName() { return name().toLowerCase(Locale.ROOT); }
 

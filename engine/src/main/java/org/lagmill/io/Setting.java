@@ -13,28 +13,60 @@ import java.util.regex.Pattern;
  * reads {@code ‹origins›}.
  */
 public enum Setting {
-  ORIGINS("origins"), STEP("step"), HORIZON("horizon"), MISSING_ROWS("missing-rows"), SALES_FORMAT(
-      "sales-format"), SERIES_ID_COLUMN("series-id-column"), DATE_COLUMN("date-column"), UNITS_COLUMN(
-          "units-column"), PRICES_FROM_COLUMN("prices-from-column"), PRICES_PRICE_COLUMN(
-              "prices-price-column"), CALENDAR_DATE_COLUMN("calendar-date-column"), CLOSURES_FROM_COLUMN(
-                  "closures-from-column"), CLOSURES_UNTIL_COLUMN("closures-until-column"), PLAN_DATE_COLUMN(
-                      "plan-date-column"), PLAN_FROM_COLUMN("plan-from-column"), SALES("sales"), CALENDAR(
-                          "calendar"), PRICES("prices"), CLOSURES("closures"), PLAN(
-                              "plan"), SHOWN_SERIES("show"), CHOSEN_SERIES("series"), SERIES_CONDITION(
-                                  "where"), HIERARCHY("hierarchy"), LEVELS("level"), SHARD("shard"), SCORING_PART(
-                                      "scoring-part"), SHARD_ATTRIBUTE(
-                                          "by"), NO_WAIT("no-wait"), MEMORY_LIMIT("memory-limit"), PERIOD(
-                                              "period"), DATE_WINDOW("date-window"), MODEL("model"), PARTITION_BY(
-                                                  "partition-by"), MACHINES("machines"), RANK("rank"), RANK_TIMEOUT(
-                                                      "rank-timeout"), SCENARIO_SERIES("series"), SCENARIO_DAYS(
-                                                          "days"), SCENARIO_FUTURE_DAYS("future-days"), SCENARIO_START(
-                                                              "start"), SCENARIO_PERIOD("period"), STORE(
-                                                                  "store"), REPORT(
-                                                                      "report"), BACKTEST_REPORT("backtest"), UNTIL(
-                                                                          "until"), MATCH("match"), PLAN_CARRY_FORWARD(
-                                                                              "plan-carry-forward"), CONFIG("config"), MEMBER("member"), FROM_BACKTEST(
-      "from-backtest"), PRICES_KEY_COLUMN("prices-key-column"), PLAN_KEY_COLUMN(
-      "plan-key-column"), CLOSURES_KEY_COLUMN("closures-key-column");
+  ORIGINS("origins"),
+  STEP("step"),
+  HORIZON("horizon"),
+  MISSING_ROWS("missing-rows"),
+  SALES_FORMAT("sales-format"),
+  SERIES_ID_COLUMN("series-id-column"),
+  DATE_COLUMN("date-column"),
+  UNITS_COLUMN("units-column"),
+  PRICES_FROM_COLUMN("prices-from-column"),
+  PRICES_PRICE_COLUMN("prices-price-column"),
+  CALENDAR_DATE_COLUMN("calendar-date-column"),
+  CLOSURES_FROM_COLUMN("closures-from-column"),
+  CLOSURES_UNTIL_COLUMN("closures-until-column"),
+  PLAN_DATE_COLUMN("plan-date-column"),
+  PLAN_FROM_COLUMN("plan-from-column"),
+  SALES("sales"),
+  CALENDAR("calendar"),
+  PRICES("prices"),
+  CLOSURES("closures"),
+  PLAN("plan"),
+  SHOWN_SERIES("show"),
+  CHOSEN_SERIES("series"),
+  SERIES_CONDITION("where"),
+  HIERARCHY("hierarchy"),
+  LEVELS("level"),
+  SHARD("shard"),
+  SCORING_PART("scoring-part"),
+  SHARD_ATTRIBUTE("by"),
+  NO_WAIT("no-wait"),
+  MEMORY_LIMIT("memory-limit"),
+  PERIOD("period"),
+  DATE_WINDOW("date-window"),
+  MODEL("model"),
+  PARTITION_BY("partition-by"),
+  MACHINES("machines"),
+  RANK("rank"),
+  RANK_TIMEOUT("rank-timeout"),
+  SCENARIO_SERIES("series"),
+  SCENARIO_DAYS("days"),
+  SCENARIO_FUTURE_DAYS("future-days"),
+  SCENARIO_START("start"),
+  SCENARIO_PERIOD("period"),
+  STORE("store"),
+  REPORT("report"),
+  BACKTEST_REPORT("backtest"),
+  UNTIL("until"),
+  MATCH("match"),
+  PLAN_CARRY_FORWARD("plan-carry-forward"),
+  CONFIG("config"),
+  MEMBER("member"),
+  FROM_BACKTEST("from-backtest"),
+  PRICES_KEY_COLUMN("prices-key-column"),
+  PLAN_KEY_COLUMN("plan-key-column"),
+  CLOSURES_KEY_COLUMN("closures-key-column");
 
   /**
    * A task a front end offers, named in engine hints ({@code Command.APPEND + " " + Setting.PLAN + " FILE"}); the
@@ -42,7 +74,13 @@ public enum Setting {
    * {@code ‹append command›}.
    */
   public enum Command {
-    SERIES, APPEND, BACKTEST, EVALUATE, FORECAST, DEMO, SHARD;
+    SERIES,
+    APPEND,
+    BACKTEST,
+    EVALUATE,
+    FORECAST,
+    DEMO,
+    SHARD;
 
     /** The neutral name: the constant in lower case, words joined by '-', e.g. {@code append}. */
     public String key() {

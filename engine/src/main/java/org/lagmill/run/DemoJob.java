@@ -45,7 +45,9 @@ import org.lagmill.training.TrainingPlan;
 public final class DemoJob {
   /** Demo sizes: series and days of history. */
   public enum Size {
-    SMALL(300, 730), MEDIUM(3000, 1095), LARGE(10000, 1460);
+    SMALL(300, 730),
+    MEDIUM(3000, 1095),
+    LARGE(10000, 1460);
 
     public final int seriesCount;
     public final int dayCount;

@@ -19,7 +19,9 @@ import java.time.temporal.TemporalAdjusters;
 final class HolidayCalendar {
   /** Which outlets a holiday closes: none, the full-range banner's, or both banners' (kiosks never close). */
   enum Closing {
-    NONE, FIRST_BANNER, BOTH_BANNERS
+    NONE,
+    FIRST_BANNER,
+    BOTH_BANNERS
   }
 
   /** A yearly public holiday: fixed day of a month, or the n-th (n = -1: last) given weekday of a month. */

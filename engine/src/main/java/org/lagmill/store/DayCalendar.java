@@ -10,7 +10,8 @@ package org.lagmill.store;
  */
 public interface DayCalendar {
   enum ColumnKind {
-    NUMERIC, CATEGORICAL
+    NUMERIC,
+    CATEGORICAL
   }
 
   /** Number of days covered from day index 0; 0 when no calendar was ingested. */

@@ -2,8 +2,14 @@ package org.lagmill.store;
 
 /** The binary files of a store directory; the kind number is written into each file's header. */
 enum FileKind {
-  UNITS(1, "units.bin"), SERIES(2, "series.bin"), ATTRIBUTES(3, "attributes.bin"), PRICES(4, "prices.bin"), CALENDAR(5,
-      "calendar.bin"), CLOSURES(6, "closures.bin"), PLAN(7, "plan.bin");
+  UNITS(1, "units.bin"),
+  SERIES(2, "series.bin"),
+  ATTRIBUTES(3, "attributes.bin"),
+  PRICES(4, "prices.bin"),
+  CALENDAR(5,
+      "calendar.bin"),
+  CLOSURES(6, "closures.bin"),
+  PLAN(7, "plan.bin");
 
   private final int kindNumber;
   private final String fileName;

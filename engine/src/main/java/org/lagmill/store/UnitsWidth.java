@@ -6,7 +6,9 @@ package org.lagmill.store;
  * one value fewer than their range) and -1 for the signed int width, which no units value can take.
  */
 public enum UnitsWidth {
-  BYTE(1, 0xFF), SHORT(2, 0xFFFF), INT(4, -1);
+  BYTE(1, 0xFF),
+  SHORT(2, 0xFFFF),
+  INT(4, -1);
 
   /** Largest units value a BYTE column holds; 255 is its unknown-day sentinel. */
   public static final int BYTE_MAX_UNITS = 254;
