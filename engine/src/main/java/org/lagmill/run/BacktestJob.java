@@ -88,7 +88,7 @@ public final class BacktestJob {
       BacktestRun backtest;
       CombinedBacktestResult[] combined = new CombinedBacktestResult[1];
       try (Stage stage = run.stage("backtest")) {
-        if (MemberPlans.combined(members)) {
+        if (combination) {
           List<String> names = new ArrayList<>();
           List<TrainingPlan> plans = new ArrayList<>();
           members.forEach(m -> {
