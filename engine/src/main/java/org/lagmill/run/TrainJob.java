@@ -100,20 +100,11 @@ public final class TrainJob {
     ModelDirectory.checkTarget(request.modelDir());
     run.record().configure("store", request.storeDir().toString()).configure("model", request.modelDir().toString())
         .configure("cutDate", opened.dateOf(plan.cutDayIndex()).toString()).configure("plan", plan.toString());
-    Outcome outcome;
-    Stage trainStage = run.stage("train");
-    try (ModelSet models = ModelTraining.train(opened, plan, trainStage.budget(), progress)) {
-      long learnerPeakBytes = trainStage.budget().peakBytes();
-      List<PartitionReport> reports = models.partitions().stream().map(ModelSet.Partition::report).toList();
-      trainStage.addRows(reports.stream().mapToLong(PartitionReport::trainingRowCount).sum()).close();
-      try (Stage saving = run.stage("save model")) {
-        ModelDirectory.save(models, request.modelDir(), opened, plan, opened.fingerprint());
-      }
-      run.record().result("partitions", reports);
-      outcome = new Outcome(List.of(), reports, learnerPeakBytes, opened.offHeapBytes(), request.modelDir());
-    } finally {
-      trainStage.close();
-    }
+    Trained trained = trainAndSave(run, "train", "save model", opened, plan, progress,
+        models -> ModelDirectory.save(models, request.modelDir(), opened, plan, opened.fingerprint()));
+    run.record().result("partitions", trained.reports());
+    Outcome outcome = new Outcome(List.of(), trained.reports(), trained.learnerPeakBytes(), opened.offHeapBytes(),
+        request.modelDir());
     run.record().write(request.modelDir());
     return outcome;
   }
@@ -141,24 +132,41 @@ public final class TrainJob {
       for (int m = 0; m < members.size(); m++) {
         MemberPlans.Member member = members.get(m);
         run.record().configure("plan " + (m + 1), member.plan().toString());
-        Stage trainStage = run.stage("train member " + (m + 1));
-        try (ModelSet models = ModelTraining.train(opened, member.plan(), trainStage.budget(), progress)) {
-          learnerPeakBytes = Math.max(learnerPeakBytes, trainStage.budget().peakBytes());
-          List<PartitionReport> memberReports = models.partitions().stream().map(ModelSet.Partition::report)
-              .toList();
-          trainStage.addRows(memberReports.stream().mapToLong(PartitionReport::trainingRowCount).sum()).close();
-          reports.addAll(memberReports);
-          try (Stage saving = run.stage("save member " + (m + 1))) {
-            writer.save(member.name(), models, opened, member.plan(), opened.fingerprint());
-          }
-        } finally {
-          trainStage.close();
-        }
+        Trained trained = trainAndSave(run, "train member " + (m + 1), "save member " + (m + 1), opened,
+            member.plan(), progress, models -> writer.save(member.name(), models, opened, member.plan(),
+                opened.fingerprint()));
+        learnerPeakBytes = Math.max(learnerPeakBytes, trained.learnerPeakBytes());
+        reports.addAll(trained.reports());
       }
       writer.finish();
     }
     run.record().result("partitions", reports);
     run.record().write(request.modelDir());
     return new Outcome(names, reports, learnerPeakBytes, opened.offHeapBytes(), request.modelDir());
+  }
+
+  /** What one training stage produced: its partitions' reports and the learner's peak off-heap bytes. */
+  private record Trained(List<PartitionReport> reports, long learnerPeakBytes) {}
+
+  /** Where a trained model set goes before it is closed. */
+  private interface Saving {
+    void save(ModelSet models) throws IOException;
+  }
+
+  /** Trains one plan in its own stage, then saves it in the next; the models are closed before returning. */
+  private static Trained trainAndSave(Run run, String trainStageName, String saveStageName, SalesStore opened,
+      TrainingPlan plan, ProgressListener progress, Saving saving) throws IOException {
+    Stage trainStage = run.stage(trainStageName);
+    try (ModelSet models = ModelTraining.train(opened, plan, trainStage.budget(), progress)) {
+      long learnerPeakBytes = trainStage.budget().peakBytes();
+      List<PartitionReport> reports = models.partitions().stream().map(ModelSet.Partition::report).toList();
+      trainStage.addRows(reports.stream().mapToLong(PartitionReport::trainingRowCount).sum()).close();
+      try (Stage saveStage = run.stage(saveStageName)) {
+        saving.save(models);
+      }
+      return new Trained(reports, learnerPeakBytes);
+    } finally {
+      trainStage.close();
+    }
   }
 }
