@@ -1,6 +1,5 @@
 package org.lagmill.cli;
 
-import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.Locale;
 import java.util.concurrent.Callable;
@@ -43,12 +42,8 @@ final class DemoCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
-    PrintWriter err = commandSpec.commandLine().getErr();
     DemoJob.Outcome outcome = DemoJob.run(new DemoJob.Request(outDir, parseSize(size), seed, "lagmill demo --size "
-        + size), ConsoleProgress.forCommand(quiet), warning -> {
-          err.println("warning: " + FlagNames.render(warning));
-          err.flush();
-        });
+        + size), ConsoleProgress.forCommand(quiet), Warnings.to(commandSpec.commandLine().getErr()));
     DemoPrinter.print(commandSpec.commandLine().getOut(), outcome);
     return ExitCodes.OK;
   }

@@ -55,10 +55,7 @@ final class ExplainCommand implements Callable<Integer> {
     PrintWriter out = commandSpec.commandLine().getOut();
     PrintWriter err = commandSpec.commandLine().getErr();
     List<DriverChart> charts = ExplainJob.run(new ExplainJob.Request(store.dir, model.dir, horizonDays, seriesIds,
-        planCarryForward, hierarchyOptions::hierarchy), warning -> {
-          err.println("warning: " + FlagNames.render(warning));
-          err.flush();
-        });
+        planCarryForward, hierarchyOptions::hierarchy), Warnings.to(err));
     if (json) {
       out.println(RunRecord.JSON.writeValueAsString(ExplainPrinter.document(charts)));
     } else {

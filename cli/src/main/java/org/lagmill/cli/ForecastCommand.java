@@ -87,12 +87,7 @@ final class ForecastCommand implements Callable<Integer> {
         new ForecastJob.Request(store.dir, model.dir, horizonDays, out, intervals,
             wide, report.dir, backtestDir, shown.seriesIds, chosenSeriesIds, conditions, planCarryForward,
             hierarchyOptions::hierarchy, "lagmill forecast --store " + store.dir + " --model " + model.dir),
-        warning -> {
-          if (!quiet) {
-            err.println("warning: " + FlagNames.render(warning));
-            err.flush();
-          }
-        });
+        quiet ? Warnings.none() : Warnings.to(err));
     if (!quiet) {
       ForecastPrinter.print(commandSpec.commandLine().getOut(), outcome);
     }
