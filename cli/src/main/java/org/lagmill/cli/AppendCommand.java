@@ -4,12 +4,7 @@ import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import org.lagmill.ingest.AppendOptions;
 import org.lagmill.ingest.IngestResult;
-import org.lagmill.ingest.StoreAppend;
-import org.lagmill.store.Periods;
-import org.lagmill.run.Run;
-import org.lagmill.run.Stage;
-import org.lagmill.store.StoreManifest;
-import org.lagmill.store.StoreUpdate;
+import org.lagmill.run.AppendJob;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -76,29 +71,9 @@ final class AppendCommand implements Callable<Integer> {
         .withSalesFormat(shape.format()).withMissingRows(shape.missingRows())
         .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures)
         .withPlan(plan.source());
-    try (Run run = Run.unlimited("append")) {
-      run.record().configure("store", store.toString())
-          .configure("sales", sales == null ? null : sales.toString())
-          .configure("missingRows", shape.missingRows().optionValue())
-          .configure("plan", plan.file == null ? null : plan.file.toString());
-      IngestResult result;
-      try (Stage stage = run.stage("append")) {
-        result = StoreAppend.append(options, new StoreUpdate.Policy(StoreUpdate.Mode.CHANGE, noWait.waits()),
-            stage.budget());
-        stage.addRows((long) result.manifest().seriesCount() * result.manifest().dayCount());
-      }
-      StoreManifest appended = result.manifest();
-      run.record().result("seriesCount", appended.seriesCount()).result("dayCount", appended.dayCount())
-          .result("fill", appended.fill()).result("warnings", FlagNames.render(result.warnings()));
-      run.record().write(store);
-      if (!quiet) {
-        IngestCommand.printWarnings(spec.commandLine().getErr(), result.warnings());
-        StoreManifest manifest = result.manifest();
-        spec.commandLine().getOut().printf("store %s now holds %d series x %s (%s .. %s)%n", store,
-            manifest.seriesCount(), Periods.count(manifest.dayCount(), manifest.periodDaysOrDaily()),
-            manifest.firstDate(), manifest.lastLocalDate());
-        IngestCommand.printFill(spec.commandLine().getOut(), manifest);
-      }
+    IngestResult result = AppendJob.run(options, noWait.waits());
+    if (!quiet) {
+      IngestPrinter.printAppended(spec.commandLine().getOut(), spec.commandLine().getErr(), result, store);
     }
     return ExitCodes.OK;
   }

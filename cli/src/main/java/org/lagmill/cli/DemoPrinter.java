@@ -22,7 +22,7 @@ final class DemoPrinter {
     }
     BacktestResult.OriginResult withheld = origins.get(origins.size() - 1);
     out.println();
-    IngestCommand.printFill(out, outcome.storeManifest());
+    IngestPrinter.printFill(out, outcome.storeManifest());
     out.println("lagmill demo: " + origins.size() + " forecast origins scored against baselines (WRMSSE, lower is "
         + "better)");
     out.printf(Locale.ROOT, "  model                  %.4f  (backtest origins %s: %.4f; withheld last 28 days from %s: "

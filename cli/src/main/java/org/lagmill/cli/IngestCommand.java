@@ -1,18 +1,10 @@
 package org.lagmill.cli;
 
-import java.io.PrintWriter;
 import java.nio.file.Path;
-import java.util.List;
 import java.util.concurrent.Callable;
-import org.lagmill.io.InvalidRequestException;
 import org.lagmill.ingest.IngestOptions;
-import org.lagmill.ingest.IngestResult;
-import org.lagmill.ingest.ShardIngest;
-import org.lagmill.ingest.StoreIngest;
+import org.lagmill.run.IngestJob;
 import org.lagmill.store.Periods;
-import org.lagmill.run.Run;
-import org.lagmill.run.Stage;
-import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreUpdate;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -96,87 +88,12 @@ final class IngestCommand implements Callable<Integer> {
         .withSalesFormat(shape.format()).withMissingRows(shape.missingRows())
         .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures)
         .withPlan(plan.source()).withPeriodDays(period == null ? null : Periods.parse("--period", period));
-    ShardIngest.Request request = shardRequest(shard, by);
-    try (Run run = Run.start("ingest", memoryLimit.bytes())) {
-      run.record().configure("shard", shard).configure("shardAttribute", by);
-      run.record().configure("sales", sales.toString())
-          .configure("calendar", calendar == null ? null : calendar.toString())
-          .configure("prices", prices == null ? null : prices.toString()).configure("store", store.toString())
-          .configure("plan", plan.file == null ? null : plan.file.toString())
-          .configure("missingRows", shape.missingRows().optionValue());
-      IngestResult result;
-      long peakOffHeapBytes;
-      try (Stage stage = run.stage("ingest")) {
-        StoreUpdate.Policy policy = new StoreUpdate.Policy(replace ? StoreUpdate.Mode.REPLACE
-            : StoreUpdate.Mode.CREATE, noWait.waits());
-        result = request == null ? StoreIngest.ingest(options, policy, stage.budget())
-            : ShardIngest.ingest(options, request, policy, stage.budget());
-        peakOffHeapBytes = stage.budget().peakBytes();
-        stage.addRows((long) result.manifest().seriesCount() * result.manifest().dayCount());
-      }
-      StoreManifest ingested = result.manifest();
-      run.record().result("seriesCount", ingested.seriesCount()).result("dayCount", ingested.dayCount())
-          .result("storeBytes", ingested.binaryBytes()).result("fill", ingested.fill())
-          .result("warnings", FlagNames.render(result.warnings()));
-      run.record().write(store);
-      if (!quiet) {
-        printWarnings(spec.commandLine().getErr(), result.warnings());
-        StoreManifest manifest = result.manifest();
-        spec.commandLine().getOut().printf("ingested %d series x %s (%s .. %s%s) into %s, %d bytes, peak off-heap "
-            + "%d bytes%n", manifest.seriesCount(), Periods.count(manifest.dayCount(), manifest.periodDaysOrDaily()),
-            manifest.firstDate(), manifest.lastLocalDate(), manifest.periodDaysOrDaily() == Periods.DAILY ? ""
-                : ", " + Periods.describe(manifest.periodDaysOrDaily()),
-            store, manifest.binaryBytes(),
-            peakOffHeapBytes);
-        StoreManifest.Shard part = manifest.shard();
-        if (part != null) {
-          spec.commandLine().getOut().printf("shard %d of %d by %s: %d of the input's %d series%n", part.part(),
-              part.partCount(), part.attribute(), manifest.seriesCount(), part.sourceSeriesCount());
-        }
-        if (result.periodNote() != null) {
-          spec.commandLine().getOut().println(FlagNames.render(result.periodNote()));
-        }
-        printFill(spec.commandLine().getOut(), manifest);
-      }
+    IngestJob.Outcome outcome = IngestJob.run(new IngestJob.Request(options, shard, by,
+        new StoreUpdate.Policy(replace ? StoreUpdate.Mode.REPLACE : StoreUpdate.Mode.CREATE, noWait.waits()),
+        memoryLimit.bytes()));
+    if (!quiet) {
+      IngestPrinter.printIngested(spec.commandLine().getOut(), spec.commandLine().getErr(), outcome, store);
     }
     return ExitCodes.OK;
-  }
-
-  /** The shard asked for with {@code --shard K/N --by ATTR}, or null for the whole input. */
-  static ShardIngest.Request shardRequest(String shard, String by) {
-    if (shard == null) {
-      if (by != null) {
-        throw new InvalidRequestException("--by " + by + " picks the shard of each series for --shard K/N; give "
-            + "--shard too, or leave both out to ingest every series");
-      }
-      return null;
-    }
-    java.util.regex.Matcher m = java.util.regex.Pattern.compile("(\\d{1,9})/(\\d{1,9})").matcher(shard);
-    if (!m.matches()) {
-      throw new InvalidRequestException("--shard '" + shard + "': expected K/N, shard K (from 0) of N, e.g. 0/3");
-    }
-    return new ShardIngest.Request(Integer.parseInt(m.group(1)), Integer.parseInt(m.group(2)), by);
-  }
-
-  /** One line with the manifest's fill counts, as ingest and append print them. */
-  static void printFill(PrintWriter out, StoreManifest manifest) {
-    StoreManifest.Fill fill = manifest.fill();
-    if (fill != null) {
-      out.printf("item-days filled with zero %,d, unknown %,d, closed %,d%s%n", fill.zeroFilledItemDays(),
-          fill.unknownItemDays(), fill.closedItemDays(), partlyClosed(fill));
-    }
-  }
-
-  /** ", N partly closed (kept open)" when a store of longer periods has periods closed on some days only. */
-  static String partlyClosed(StoreManifest.Fill fill) {
-    return fill.partlyClosedItemDays() == 0 ? ""
-        : String.format(java.util.Locale.ROOT, ", %,d partly closed (kept open)", fill.partlyClosedItemDays());
-  }
-
-  static void printWarnings(PrintWriter err, List<String> warnings) {
-    for (String warning : warnings) {
-      err.println("warning: " + FlagNames.render(warning));
-    }
-    err.flush();
   }
 }

@@ -78,7 +78,7 @@ final class InspectCommand implements Callable<Integer> {
     } else {
       out.printf("filled                %,d item-days with zero (no row in long sales), %,d unknown, %,d closed%s%n",
           fill.zeroFilledItemDays(), fill.unknownItemDays(), fill.closedItemDays(),
-          IngestCommand.partlyClosed(fill));
+          IngestPrinter.partlyClosed(fill));
     }
     out.printf("fingerprint           %s%n", summary.fingerprint());
     return ExitCodes.OK;

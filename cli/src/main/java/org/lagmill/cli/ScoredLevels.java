@@ -11,6 +11,6 @@ final class ScoredLevels {
   /** Prints the levels line and, when the store records them, its fill counts. */
   static void print(PrintWriter out, EvaluationResult result, StoreManifest manifest) {
     out.println(FlagNames.render(result.scoredLevelsLine()));
-    IngestCommand.printFill(out, manifest);
+    IngestPrinter.printFill(out, manifest);
   }
 }

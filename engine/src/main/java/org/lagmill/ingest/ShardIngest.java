@@ -7,6 +7,8 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.io.Setting;
 import org.lagmill.memory.MemoryBudget;
@@ -45,6 +47,9 @@ public final class ShardIngest {
    * @param attribute the attribute whose value picks each series' shard
    */
   public record Request(int part, int partCount, String attribute) {
+    /** {@code K/N}; nine digits at most, so both parse as int. */
+    private static final Pattern PART_OF_COUNT = Pattern.compile("(\\d{1,9})/(\\d{1,9})");
+
     public Request {
       new ShardAssignment(partCount);
       if (part < 0 || part >= partCount) {
@@ -55,6 +60,29 @@ public final class ShardIngest {
         throw new InvalidRequestException(Setting.SHARD + " needs " + Setting.SHARD_ATTRIBUTE
             + ", the attribute whose value picks each series' shard");
       }
+    }
+
+    /**
+     * The shard a request names as text {@code K/N} (part K from 0 of N) with the attribute, or null when neither is
+     * given (every series).
+     *
+     * @throws InvalidRequestException when the attribute comes without the shard, or the text is not {@code K/N}
+     */
+    public static Request parse(String shard, String attribute) {
+      if (shard == null) {
+        if (attribute != null) {
+          throw new InvalidRequestException(Setting.SHARD_ATTRIBUTE + " " + attribute + " picks the shard of each "
+              + "series for " + Setting.SHARD + " K/N; give " + Setting.SHARD + " too, or leave both out to ingest "
+              + "every series");
+        }
+        return null;
+      }
+      Matcher m = PART_OF_COUNT.matcher(shard);
+      if (!m.matches()) {
+        throw new InvalidRequestException(Setting.SHARD + " '" + shard + "': expected K/N, shard K (from 0) of N, "
+            + "e.g. 0/3");
+      }
+      return new Request(Integer.parseInt(m.group(1)), Integer.parseInt(m.group(2)), attribute);
     }
   }
 
