@@ -21,7 +21,8 @@ import org.lagmill.store.SeriesIdentity;
  * <p>Two row selections:
  * <ul>
  *   <li>{@link #training}: every series, days of a window, label = units; rows whose units are unknown are skipped,
- *       and with {@link FeatureSpec#skipPreLaunch()} a series' rows start at its first sale plus the longest lag;
+ *       and with {@link FeatureSpec#skipPreLaunch()} a series' rows start at its first sale plus the longest lag; a
+ *       {@link ZeroRowSampling} may keep only a hashed share of the rows with label 0, weighting each kept one up;
  *   <li>{@link #prediction}: chosen series, a run of target days that may pass the end of the history; the label is the
  *       units when known and NaN otherwise, and no row is skipped.
  * </ul>
@@ -47,6 +48,7 @@ public final class FeaturePass implements RowStream {
   private final int firstDayIndex;
   private final int lastDayIndex;
   private final float[] weightBySeries;
+  private final ZeroRowSampling zeroSampling;
   private final List<FeatureKernel> kernelList = new ArrayList<>();
   private final FeatureKernel[] kernels;
   private final int[] firstFeatureIndexes;
@@ -59,11 +61,19 @@ public final class FeaturePass implements RowStream {
   private final float[] strip;
   /** Rows of each listed series, by position in {@link #seriesIndexes}: what {@link #sampleSource} chooses by. */
   private final int[] rowCountBySeries;
+  /** Label-0 rows of each listed series before sampling, and those the {@link #zeroSampling} dropped. */
+  private final int[] zeroRowCountBySeries;
+  private final int[] droppedZeroRowCountBySeries;
   private final long rowCount;
+  private final long zeroRowCount;
+  private final long droppedZeroRowCount;
+  /** Set by {@link #selectRows} for the series it last selected: its label-0 rows, and those dropped. */
+  private int selectedZeroRowCount;
+  private int selectedDroppedRowCount;
   private final long tableHeapBytes;
 
   private FeaturePass(SalesHistory history, FeatureSpec spec, boolean training, int[] seriesIndexes, int firstDayIndex,
-      int lastDayIndex, float[] weightBySeries) {
+      int lastDayIndex, float[] weightBySeries, ZeroRowSampling zeroSampling) {
     this.history = history;
     this.spec = spec;
     this.training = training;
@@ -71,6 +81,7 @@ public final class FeaturePass implements RowStream {
     this.firstDayIndex = firstDayIndex;
     this.lastDayIndex = lastDayIndex;
     this.weightBySeries = weightBySeries;
+    this.zeroSampling = zeroSampling;
     int dayCount = history.dayCount();
     for (int window : spec.rollingWindowDays()) {
       if (window > dayCount) {
@@ -123,12 +134,24 @@ public final class FeaturePass implements RowStream {
     tables += rolling.allocate(context.readableUnits.length);
     this.tableHeapBytes = tables;
     this.rowCountBySeries = new int[seriesIndexes.length];
-    long rows = 0;
+    this.zeroRowCountBySeries = new int[seriesIndexes.length];
+    this.droppedZeroRowCountBySeries = new int[seriesIndexes.length];
     for (int i = 0; i < seriesIndexes.length; i++) {
       rowCountBySeries[i] = selectRows(seriesIndexes[i]);
-      rows += rowCountBySeries[i];
+      zeroRowCountBySeries[i] = selectedZeroRowCount;
+      droppedZeroRowCountBySeries[i] = selectedDroppedRowCount;
     }
-    this.rowCount = rows;
+    this.rowCount = sum(rowCountBySeries);
+    this.zeroRowCount = sum(zeroRowCountBySeries);
+    this.droppedZeroRowCount = sum(droppedZeroRowCountBySeries);
+  }
+
+  private static long sum(int[] counts) {
+    long total = 0;
+    for (int count : counts) {
+      total += count;
+    }
+    return total;
   }
 
   /**
@@ -136,7 +159,8 @@ public final class FeaturePass implements RowStream {
    * the scratch buffers with {@code full}, so it costs no setup and its rows are exactly {@code full}'s rows of those
    * series. Only one of the two may stream at a time.
    */
-  private FeaturePass(FeaturePass full, int[] seriesIndexes, int[] rowCountBySeries) {
+  private FeaturePass(FeaturePass full, int[] seriesIndexes, int[] rowCountBySeries, int[] zeroRowCountBySeries,
+      int[] droppedZeroRowCountBySeries) {
     this.history = full.history;
     this.spec = full.spec;
     this.training = full.training;
@@ -144,6 +168,7 @@ public final class FeaturePass implements RowStream {
     this.firstDayIndex = full.firstDayIndex;
     this.lastDayIndex = full.lastDayIndex;
     this.weightBySeries = full.weightBySeries;
+    this.zeroSampling = full.zeroSampling;
     this.kernels = full.kernels;
     this.firstFeatureIndexes = full.firstFeatureIndexes;
     this.schema = full.schema;
@@ -154,11 +179,11 @@ public final class FeaturePass implements RowStream {
     this.strip = full.strip;
     this.tableHeapBytes = full.tableHeapBytes;
     this.rowCountBySeries = rowCountBySeries;
-    long rows = 0;
-    for (int seriesRows : rowCountBySeries) {
-      rows += seriesRows;
-    }
-    this.rowCount = rows;
+    this.zeroRowCountBySeries = zeroRowCountBySeries;
+    this.droppedZeroRowCountBySeries = droppedZeroRowCountBySeries;
+    this.rowCount = sum(rowCountBySeries);
+    this.zeroRowCount = sum(zeroRowCountBySeries);
+    this.droppedZeroRowCount = sum(droppedZeroRowCountBySeries);
   }
 
   /**
@@ -177,6 +202,16 @@ public final class FeaturePass implements RowStream {
    */
   public static FeaturePass training(SalesHistory history, FeatureSpec spec, int[] seriesIndexes, int firstDayIndex,
       int lastDayIndex) {
+    return training(history, spec, seriesIndexes, firstDayIndex, lastDayIndex, ZeroRowSampling.KEEP_ALL);
+  }
+
+  /**
+   * As {@link #training(SalesHistory, FeatureSpec, int[], int, int)}, keeping only the zero-label rows
+   * {@code zeroSampling} keeps, each weighted by its {@link ZeroRowSampling#zeroRowWeight()} (times the series weight
+   * when there is one); rows with sales are all kept. {@link #rowCount()} counts the kept rows.
+   */
+  public static FeaturePass training(SalesHistory history, FeatureSpec spec, int[] seriesIndexes, int firstDayIndex,
+      int lastDayIndex, ZeroRowSampling zeroSampling) {
     if (firstDayIndex < 0 || lastDayIndex >= history.dayCount() || lastDayIndex < firstDayIndex) {
       throw new IllegalArgumentException("training days [" + firstDayIndex + ", " + lastDayIndex
           + "] are out of range: need 0 <= firstDayIndex <= lastDayIndex <= " + (history.dayCount() - 1)
@@ -193,7 +228,8 @@ public final class FeaturePass implements RowStream {
     if (last < first) {
       last = first - 1;
     }
-    return new FeaturePass(history, spec, true, checkedSeries(history, seriesIndexes), first, last, null);
+    return new FeaturePass(history, spec, true, checkedSeries(history, seriesIndexes), first, last, null,
+        zeroSampling);
   }
 
   /** Training rows over the spec's window ({@code fromDate}..{@code untilDate}, the whole history by default). */
@@ -214,7 +250,7 @@ public final class FeaturePass implements RowStream {
           + dayCount + " are out of range: need firstDayIndex >= 0 and dayCount >= 1");
     }
     return new FeaturePass(history, spec, false, checkedSeries(history, seriesIndexes), firstDayIndex,
-        firstDayIndex + dayCount - 1, null);
+        firstDayIndex + dayCount - 1, null, ZeroRowSampling.KEEP_ALL);
   }
 
   private static int[] checkedSeries(SalesHistory history, int[] seriesIndexes) {
@@ -235,7 +271,7 @@ public final class FeaturePass implements RowStream {
           + " series: " + history.seriesCount());
     }
     return new FeaturePass(history, spec, training, seriesIndexes, firstDayIndex, lastDayIndex,
-        weightBySeries.clone());
+        weightBySeries.clone(), zeroSampling);
   }
 
   /** The period holding the date (its day index in a daily store). */
@@ -293,11 +329,14 @@ public final class FeaturePass implements RowStream {
   }
 
   /**
-   * Loads series {@code s} into the context and fills {@link #rowDays}/{@link #rowLabels} with its rows.
+   * Loads series {@code s} into the context and fills {@link #rowDays}/{@link #rowLabels} with its rows; sets
+   * {@link #selectedZeroRowCount} and {@link #selectedDroppedRowCount} for it.
    *
    * @return the series' row count
    */
   private int selectRows(int s) {
+    selectedZeroRowCount = 0;
+    selectedDroppedRowCount = 0;
     int first = firstDayIndex;
     if (training && spec.skipPreLaunch()) {
       int firstSale = history.firstSaleDayIndex(s);
@@ -315,8 +354,15 @@ public final class FeaturePass implements RowStream {
     int rows = 0;
     for (int day = first; day <= lastDayIndex; day++) {
       int label = day < dayCount ? units[day] : SalesHistory.UNKNOWN_UNITS;
-      if (training && label < 0) {
-        continue;
+      if (training && label <= 0) {
+        if (label < 0) {
+          continue;
+        }
+        selectedZeroRowCount++;
+        if (!zeroSampling.keepsZeroRow(s, day)) {
+          selectedDroppedRowCount++;
+          continue;
+        }
       }
       rowDays[rows] = day;
       rowLabels[rows] = label < 0 ? Float.NaN : label;
@@ -368,11 +414,15 @@ public final class FeaturePass implements RowStream {
     Arrays.sort(chosen);
     int[] subsetSeries = new int[chosenCount];
     int[] subsetRows = new int[chosenCount];
+    int[] subsetZeroRows = new int[chosenCount];
+    int[] subsetDroppedRows = new int[chosenCount];
     for (int i = 0; i < chosenCount; i++) {
       subsetSeries[i] = seriesIndexes[chosen[i]];
       subsetRows[i] = rowCountBySeries[chosen[i]];
+      subsetZeroRows[i] = zeroRowCountBySeries[chosen[i]];
+      subsetDroppedRows[i] = droppedZeroRowCountBySeries[chosen[i]];
     }
-    return new FeaturePass(this, subsetSeries, subsetRows);
+    return new FeaturePass(this, subsetSeries, subsetRows, subsetZeroRows, subsetDroppedRows);
   }
 
   /** The series this pass streams, in stream order (a copy). */
@@ -390,13 +440,28 @@ public final class FeaturePass implements RowStream {
     return rowCount;
   }
 
+  /** Rows with label 0 this pass selected before zero-row sampling, kept or dropped (0 for a prediction pass). */
+  public long zeroRowCount() {
+    return zeroRowCount;
+  }
+
+  /** Rows with label 0 the zero-row sampling dropped: {@link #rowCount()} plus these is the count before it. */
+  public long droppedZeroRowCount() {
+    return droppedZeroRowCount;
+  }
+
+  /** Which zero-label rows this pass keeps ({@link ZeroRowSampling#KEEP_ALL} unless a training factory said). */
+  public ZeroRowSampling zeroSampling() {
+    return zeroSampling;
+  }
+
   /**
    * Heap bytes held for the whole pass: date and calendar tables, group mean prices, the per-series buffers and the
    * staging strip.
    */
   public long heapBytes() {
     return tableHeapBytes + context.heapBytes()
-        + 4L * (rowDays.length + rowLabels.length + strip.length + rowCountBySeries.length);
+        + 4L * (rowDays.length + rowLabels.length + strip.length + 3L * rowCountBySeries.length);
   }
 
   @Override
@@ -414,6 +479,8 @@ public final class FeaturePass implements RowStream {
         continue;
       }
       float weight = weightBySeries == null ? 1f : weightBySeries[s];
+      // 1 when every zero row is kept, so today's weights stay bit for bit
+      float zeroRowWeight = weight * zeroSampling.zeroRowWeight();
       for (FeatureKernel kernel : kernels) {
         kernel.beginSeries(context);
       }
@@ -426,7 +493,8 @@ public final class FeaturePass implements RowStream {
         int batchRow = batch.rowCount();
         int chunkRows = Math.min(Math.min(seriesRows - offset, batch.capacityRows() - batchRow), STRIP_ROWS);
         for (int i = 0; i < chunkRows; i++) {
-          batch.addRow(s, rowDays[offset + i], rowLabels[offset + i], weight);
+          float label = rowLabels[offset + i];
+          batch.addRow(s, rowDays[offset + i], label, label == 0f ? zeroRowWeight : weight);
         }
         for (int k = 0; k < kernels.length; k++) {
           kernels[k].compute(context, strip, featureCount, rowDays, offset, chunkRows, firstFeatureIndexes[k]);

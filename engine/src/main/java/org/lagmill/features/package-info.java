@@ -7,5 +7,7 @@
  * {@link org.lagmill.features.FeatureSpecYaml}) and {@link org.lagmill.features.FeaturePass} (training or prediction
  * rows, a {@link org.lagmill.features.RowStream} the learner consumes). Depends on {@code memory} and {@code store}
  * only; each feature family is one package-private kernel class (lag, rolling, calendar, price, series).
+ * {@link org.lagmill.features.ZeroRowSampling} is the one rule for which zero-sales training rows a pass keeps and
+ * what a kept one weighs.
  */
 package org.lagmill.features;

@@ -66,7 +66,8 @@ public enum Setting {
   FROM_BACKTEST("from-backtest"),
   PRICES_KEY_COLUMN("prices-key-column"),
   PLAN_KEY_COLUMN("plan-key-column"),
-  CLOSURES_KEY_COLUMN("closures-key-column");
+  CLOSURES_KEY_COLUMN("closures-key-column"),
+  ZERO_ROWS_KEPT("zero-rows-kept");
 
   /**
    * A task a front end offers, named in engine hints ({@code Command.APPEND + " " + Setting.PLAN + " FILE"}); the

@@ -18,7 +18,11 @@ final class ModelSections {
     if (training == null) {
       return Html.section("training", "Model details", Html.absent("No model was trained for this report."));
     }
-    StringBuilder b = new StringBuilder(Html.h3("Validation curve"));
+    StringBuilder b = new StringBuilder();
+    if (training.rowNotice() != null) {
+      b.append(Html.note(training.rowNotice()));
+    }
+    b.append(Html.h3("Validation curve"));
     TrainingSummary.ValidationCurve curve = training.validation();
     if (curve == null || curve.values().length == 0) {
       b.append(Html.absent("No validation curve was recorded."));

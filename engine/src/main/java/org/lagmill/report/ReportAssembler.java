@@ -31,6 +31,15 @@ public final class ReportAssembler {
 
   /** Validation curve of the largest partition and feature gain summed over partitions. */
   public static TrainingSummary training(List<PartitionReport> partitions) {
+    return training(partitions, partitions);
+  }
+
+  /**
+   * As {@link #training(List)} for {@code shown}, with the row notice (zero-sales rows dropped) summed over
+   * {@code trained}: every training of a run, the origins of a backtest say, of which {@code shown} is one.
+   */
+  public static TrainingSummary training(List<PartitionReport> shown, List<PartitionReport> trained) {
+    List<PartitionReport> partitions = shown;
     if (partitions.isEmpty()) {
       return null;
     }
@@ -53,7 +62,8 @@ public final class ReportAssembler {
     TrainingSummary.ValidationCurve curve = largest.validationCurve().length == 0 ? null
         : new TrainingSummary.ValidationCurve(largest.validationMetric(), largest.validationCurve(), null,
             largest.bestIteration());
-    return new TrainingSummary(curve, rows);
+    String dropped = PartitionReport.zeroRowsNotice(trained);
+    return new TrainingSummary(curve, rows, dropped == null ? null : "Training " + dropped + ".");
   }
 
   /** Per-level table averaged over the origins, the mean WRMSSE of the model and each baseline, and per origin. */

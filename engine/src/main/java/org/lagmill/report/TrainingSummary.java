@@ -8,11 +8,18 @@ import java.util.List;
  *
  * @param validation the metric on the validation days after each boosting iteration, or null
  * @param importance features with their total gain and split count, any order; empty when not recorded
+ * @param rowNotice what the training did to its rows that changes the model (zero-sales rows dropped and the weight
+ *     of those kept), one line, or null when it kept every row as it is
  */
-public record TrainingSummary(ValidationCurve validation, List<FeatureImportance> importance) {
+public record TrainingSummary(ValidationCurve validation, List<FeatureImportance> importance, String rowNotice) {
 
   public TrainingSummary {
     importance = importance == null ? List.of() : List.copyOf(importance);
+  }
+
+  /** A summary of a training that kept every row as it is. */
+  public TrainingSummary(ValidationCurve validation, List<FeatureImportance> importance) {
+    this(validation, importance, null);
   }
 
   /**

@@ -112,7 +112,8 @@ public final class BacktestRun {
   public void addTo(ReportData.Builder report, SalesHistory history, List<String> shownSeries) {
     report.accuracy(ReportAssembler.accuracy(result)).horizon(ReportAssembler.horizon(result));
     if (report.build().training() == null) {
-      report.training(ReportAssembler.training(lastPartitions()));
+      report.training(ReportAssembler.training(lastPartitions(), result.origins().stream()
+          .flatMap(origin -> origin.partitions().stream()).toList()));
     }
     SeriesChartBuilder.build(history, hierarchy.bind(history), lastOriginDayIndex, lastOriginForecasts,
         lastOriginDispersion, SeriesChartBuilder.DEFAULT_CONTEXT_DAYS, shownSeries)

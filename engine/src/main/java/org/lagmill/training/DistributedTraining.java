@@ -112,7 +112,10 @@ public final class DistributedTraining {
       double[] sums = exchange.sum(new double[] {total, values.length}, "sales values");
       weights = SalesValueWeights.weights(values, sums[0] / Math.max(1, sums[1]));
     }
-    FeaturePass trainingRows = FeaturePass.training(shard, plan.spec(), allSeries, 0, plan.trainingLastDayIndex());
+    // The sampling hashes shard-local series indexes: each rank keeps its own share, and the row count LightGBM is
+    // told is the sum over ranks of the rows each rank keeps (the exchange below).
+    FeaturePass trainingRows = FeaturePass.training(shard, plan.spec(), allSeries, 0, plan.trainingLastDayIndex(),
+        plan.zeroSampling());
     FeaturePass validationRows = FeaturePass.training(shard, plan.spec(), allSeries,
         plan.validationFirstDayIndex(), plan.cutDayIndex());
     if (weights != null) {
@@ -120,7 +123,8 @@ public final class DistributedTraining {
       validationRows = validationRows.withSeriesWeights(weights);
     }
     double[] counts = exchange.sum(new double[] {trainingRows.rowCount(), validationRows.rowCount(),
-        trainingRows.rowCount() == 0 ? 1 : 0}, "row counts");
+        trainingRows.rowCount() == 0 ? 1 : 0, trainingRows.zeroRowCount(), trainingRows.droppedZeroRowCount()},
+        "row counts");
     if (counts[2] > 0) {
       throw new InvalidRequestException((int) counts[2] + " of " + rankCount + " ranks hold no training rows"
           + (trainingRows.rowCount() == 0 ? " (this one among them)" : "") + "; LightGBM's distributed learner needs "
@@ -128,6 +132,8 @@ public final class DistributedTraining {
     }
     long totalTraining = (long) counts[0];
     long totalValidation = (long) counts[1];
+    long totalZeroRows = (long) counts[3];
+    long totalDroppedZeroRows = (long) counts[4];
     TrainParameters parameters = plan.trainParameters();
     ValidationSums reducer = new ValidationSums(exchange);
     try (LearnerNetwork network = LearnerNetwork.join(cluster.machines(), cluster.port(rank), networkTimeoutMinutes,
@@ -174,12 +180,17 @@ public final class DistributedTraining {
         double[] validationCurve = model.validationCurve();
         long refitRowCount = 0;
         int refitRounds = 0;
+        long refitDroppedZeroRows = 0;
         if (plan.refit() && totalValidation > 0) {
-          FeaturePass allRows = FeaturePass.training(shard, plan.spec(), allSeries, 0, plan.cutDayIndex());
+          FeaturePass allRows = FeaturePass.training(shard, plan.spec(), allSeries, 0, plan.cutDayIndex(),
+              plan.zeroSampling());
           if (weights != null) {
             allRows = allRows.withSeriesWeights(weights);
           }
-          refitRowCount = (long) exchange.sum(new double[] {allRows.rowCount()}, "refit row counts")[0];
+          double[] refitCounts = exchange.sum(new double[] {allRows.rowCount(), allRows.droppedZeroRowCount()},
+              "refit row counts");
+          refitRowCount = (long) refitCounts[0];
+          refitDroppedZeroRows = (long) refitCounts[1];
           refitRounds = ModelTraining.refitRounds(bestIteration, totalTraining, refitRowCount);
           long refitStart = System.nanoTime();
           Refit refit = refit(allRows, refitRowCount, refitRounds, plan, learner, exchange, budget, progress);
@@ -202,7 +213,8 @@ public final class DistributedTraining {
             iterationCount, validationCurve, parameters.objective().metricName(),
             ModelTraining.importance(trainingRows.schema(), model), datasetSeconds, trainSeconds,
             residentAfter == ProcessMemory.UNAVAILABLE ? 0 : residentAfter - residentBefore,
-            ProcessMemory.peakResidentBytes(), pooled, refitRowCount, refitRounds);
+            ProcessMemory.peakResidentBytes(), pooled, refitRowCount, refitRounds, totalZeroRows, totalDroppedZeroRows,
+            trainingRows.zeroSampling().zeroRowWeight(), refitDroppedZeroRows);
         float[] alphas = dispersion.alphas(pooled);
         StringBuilder rows = new StringBuilder();
         for (int s = 0; s < alphas.length; s++) {

@@ -83,7 +83,7 @@ public final class ModelDirectory {
           history.dateOf(plan.trainingLastDayIndex()).toString(), history.dateOf(plan.validationFirstDayIndex())
               .toString(),
           history.dateOf(plan.cutDayIndex()).toString(), plan.partitionAttribute(), reports, checksums,
-          ModelManifest.DISPERSION_FILE_NAME, crc32c(dispersionFile));
+          ModelManifest.DISPERSION_FILE_NAME, crc32c(dispersionFile), plan.zeroRowsKept());
       Files.write(temp.resolve(ModelManifest.FILE_NAME), SealedJson.seal(JSON.writeValueAsBytes(manifest)));
       StoreDirectories.publish(temp, dir);
       return manifest;

@@ -9,12 +9,20 @@ import java.util.Map;
  * @param featureSpecYaml the feature spec in its YAML form, so the directory is self-describing
  * @param modelFileChecksums CRC32C (hex) of each model file, verified when the directory is opened
  * @param dispersionFileChecksum CRC32C (hex) of the dispersion table; null only in format version 1
+ * @param zeroRowsKept share of the zero-sales training rows the models were trained on (each weighted by its
+ *     inverse); a manifest written before zero-row sampling existed reads as 1, every row
  */
 public record ModelManifest(int formatVersion, String createdAt, String storeFingerprint, String featureSpecYaml,
     Map<String, Object> trainParameters, Map<String, Object> datasetParameters, String trainingFirstDate,
     String trainingLastDate, String validationFirstDate, String validationLastDate, String partitionAttribute,
     List<PartitionReport> partitions, Map<String, String> modelFileChecksums, String dispersionFile,
-    String dispersionFileChecksum) {
+    String dispersionFileChecksum, Double zeroRowsKept) {
+
+  public ModelManifest {
+    if (zeroRowsKept == null) {
+      zeroRowsKept = TrainingPlan.ZERO_ROWS_KEPT_BY_DEFAULT;
+    }
+  }
 
   /** Written now: 2 = the manifest carries its own CRC32C and lists the dispersion table's. */
   public static final int FORMAT_VERSION_CURRENT = 2;

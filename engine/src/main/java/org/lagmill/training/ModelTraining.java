@@ -81,7 +81,7 @@ public final class ModelTraining {
       int partitionPosition, int[] seriesIndexes, float[] weights, DispersionEstimator dispersion, MemoryBudget budget,
       ProgressListener progress) {
     FeaturePass trainingRows = FeaturePass.training(history, plan.spec(), seriesIndexes, 0,
-        plan.trainingLastDayIndex());
+        plan.trainingLastDayIndex(), plan.zeroSampling());
     FeaturePass validationRows = FeaturePass.training(history, plan.spec(), seriesIndexes,
         plan.validationFirstDayIndex(), plan.cutDayIndex());
     if (weights != null) {
@@ -90,7 +90,9 @@ public final class ModelTraining {
     }
     if (trainingRows.rowCount() == 0) {
       throw new InvalidRequestException("partition " + value + " has no training rows: its series have no known"
-          + " sales after launch plus the longest lag before the validation window");
+          + " sales after launch plus the longest lag before the validation window" + (trainingRows
+              .droppedZeroRowCount() > 0 ? " that " + Setting.ZERO_ROWS_KEPT + " keeps (it dropped "
+                  + trainingRows.droppedZeroRowCount() + " rows with zero sales)" : ""));
     }
     String stage = "all".equals(value) ? "" : " " + value;
     DatasetBuilder builder = new DatasetBuilder(budget, plan.datasetParameters());
@@ -136,8 +138,10 @@ public final class ModelTraining {
       double[] validationCurve = model.validationCurve();
       long refitRowCount = 0;
       int refitRounds = 0;
+      long refitDroppedZeroRowCount = 0;
       if (plan.refit() && validationRowCount > 0) {
-        FeaturePass allRows = FeaturePass.training(history, plan.spec(), seriesIndexes, 0, plan.cutDayIndex());
+        FeaturePass allRows = FeaturePass.training(history, plan.spec(), seriesIndexes, 0, plan.cutDayIndex(),
+            plan.zeroSampling());
         if (weights != null) {
           allRows = allRows.withSeriesWeights(weights);
         }
@@ -147,13 +151,15 @@ public final class ModelTraining {
         model.close();
         model = refit;
         refitRowCount = allRows.rowCount();
+        refitDroppedZeroRowCount = allRows.droppedZeroRowCount();
         trainSeconds += (System.nanoTime() - refitStart) / 1e9;
       }
       PartitionReport report = new PartitionReport(value, modelFileName(value, partitionPosition),
           seriesIndexes.length, trainingRowCount, validationRowCount, featureCount, bestIteration, iterationCount,
           validationCurve, plan.trainParameters().objective().metricName(), importance(trainingRows.schema(), model),
           datasetSeconds, trainSeconds, residentAfter == ProcessMemory.UNAVAILABLE ? 0 : residentAfter - residentBefore,
-          ProcessMemory.peakResidentBytes(), pooled, refitRowCount, refitRounds);
+          ProcessMemory.peakResidentBytes(), pooled, refitRowCount, refitRounds, trainingRows.zeroRowCount(),
+          trainingRows.droppedZeroRowCount(), trainingRows.zeroSampling().zeroRowWeight(), refitDroppedZeroRowCount);
       return new ModelSet.Partition(value, seriesIndexes, model, report);
     } catch (RuntimeException | Error e) {
       model.close();

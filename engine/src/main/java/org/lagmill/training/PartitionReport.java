@@ -1,6 +1,7 @@
 package org.lagmill.training;
 
 import java.util.List;
+import java.util.Locale;
 
 /**
  * What training one model partition produced and cost; written to the model manifest and the report.
@@ -12,15 +13,64 @@ import java.util.List;
  * @param refitRowCount rows of every day up to the cut that the shipped model was trained on again, 0 when it was
  *     not refit (absent in model manifests written before refits existed)
  * @param refitRounds rounds of that refit: {@code bestIteration} scaled by {@code refitRowCount / trainingRowCount}
+ * @param zeroRowCount training rows with label 0 before zero-row sampling (kept or dropped; 0 in manifests written
+ *     before it existed)
+ * @param droppedZeroRowCount of those, the rows zero-row sampling dropped; {@code trainingRowCount} counts the kept
+ *     rows only
+ * @param zeroRowWeight the weight factor each kept zero row carried (1 / the kept share; 1 when none was dropped, and
+ *     in manifests written before sampling existed)
+ * @param refitDroppedZeroRowCount zero rows the refit's sampling dropped from every day up to the cut, 0 without one
  */
 public record PartitionReport(String partitionValue, String modelFile, int seriesCount, long trainingRowCount,
     long validationRowCount, int featureCount, int bestIteration, int iterationCount, double[] validationCurve,
     String validationMetric, List<FeatureImportanceRow> featureImportance, double datasetSeconds, double trainSeconds,
     long datasetResidentBytes, long peakResidentBytes, double pooledDispersion, long refitRowCount,
-    int refitRounds) {
+    int refitRounds, long zeroRowCount, long droppedZeroRowCount, double zeroRowWeight,
+    long refitDroppedZeroRowCount) {
+
+  public PartitionReport {
+    if (zeroRowWeight == 0) {
+      // absent from a manifest written before zero-row sampling: every row was kept at weight 1
+      zeroRowWeight = 1;
+    }
+  }
 
   /** Importance of one feature: total gain of its splits and how many splits use it. */
   public record FeatureImportanceRow(String feature, double gain, long splitCount) {}
+
+  /** Share of label-0 rows among the training rows before sampling, in [0, 1]. */
+  public double zeroRowShare() {
+    long before = trainingRowCount + droppedZeroRowCount;
+    return before == 0 ? 0 : zeroRowCount / (double) before;
+  }
+
+  /**
+   * What zero-row sampling did to these partitions, summed over them (the origins of a backtest, say), in one line:
+   * "dropped 1,234 of 2,000 training rows with zero sales (62 % of the 3,000 rows before sampling); each kept one
+   * weighs 4", plus the refit's drop when there was one; null when no row was dropped.
+   */
+  public static String zeroRowsNotice(List<PartitionReport> partitions) {
+    long dropped = 0;
+    long zeros = 0;
+    long before = 0;
+    long refitDropped = 0;
+    double weight = 1;
+    for (PartitionReport p : partitions) {
+      dropped += p.droppedZeroRowCount;
+      zeros += p.zeroRowCount;
+      before += p.trainingRowCount + p.droppedZeroRowCount;
+      refitDropped += p.refitDroppedZeroRowCount;
+      weight = Math.max(weight, p.zeroRowWeight);
+    }
+    if (dropped == 0 && refitDropped == 0) {
+      return null;
+    }
+    String line = String.format(Locale.ROOT, "dropped %,d of %,d training rows with zero sales (%.0f %% of the %,d"
+        + " rows before sampling); each kept one weighs %s", dropped, zeros, before == 0 ? 0 : 100.0 * zeros / before,
+        before, weight);
+    return refitDropped == 0 ? line : line + String.format(Locale.ROOT, "; the refit on every day dropped %,d",
+        refitDropped);
+  }
 
   /** Bytes of resident memory per training row that the Dataset took. */
   public double datasetBytesPerRow() {

@@ -1,6 +1,7 @@
 package org.lagmill.training;
 
 import org.lagmill.features.FeatureSpec;
+import org.lagmill.features.ZeroRowSampling;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.learner.DatasetParameters;
 import org.lagmill.learner.TrainParameters;
@@ -18,9 +19,13 @@ import org.lagmill.learner.TrainParameters;
  * @param refit after early stopping chose the best round count on the validation window, train again on every day up
  *     to the cut with that count scaled by the ratio of rows (the shipped model then learns the newest days); false
  *     ships the early-stopped model
+ * @param zeroRowsKept share in (0, 1] of the training rows with zero sales kept (each kept one weighted by its
+ *     inverse), chosen by a hash of series, day and the Dataset seed ({@link ZeroRowSampling}); the training rows of
+ *     a refit are sampled alike, the validation rows never; 1 keeps every row
  */
 public record TrainingPlan(FeatureSpec spec, TrainParameters trainParameters, DatasetParameters datasetParameters,
-    int cutDayIndex, int validationDays, String partitionAttribute, boolean salesValueWeights, boolean refit) {
+    int cutDayIndex, int validationDays, String partitionAttribute, boolean salesValueWeights, boolean refit,
+    double zeroRowsKept) {
   /**
    * Whether a plan refits on every day unless the user says otherwise: no. On two scenarios shaped differently the
    * early-stopped model forecast the next horizon better than its refit on every day, in every run (mean WRMSSE over
@@ -30,10 +35,30 @@ public record TrainingPlan(FeatureSpec spec, TrainParameters trainParameters, Da
    */
   public static final boolean REFIT_BY_DEFAULT = false;
 
+  /** Share of zero-sales training rows kept unless the user says otherwise: every one (today's route). */
+  public static final double ZERO_ROWS_KEPT_BY_DEFAULT = 1.0;
+
   public TrainingPlan {
     if (validationDays < 1) {
       throw new InvalidRequestException("validationDays must be >= 1, got " + validationDays);
     }
+    ZeroRowSampling.checkFraction(zeroRowsKept);
+    if (zeroRowsKept < 1 && !datasetParameters.useWeights()) {
+      // the inverse-probability weights are the point of sampling: LightGBM must read the weight field
+      datasetParameters = datasetParameters.withUseWeights(true);
+    }
+  }
+
+  /** A plan keeping every zero-sales training row. */
+  public TrainingPlan(FeatureSpec spec, TrainParameters trainParameters, DatasetParameters datasetParameters,
+      int cutDayIndex, int validationDays, String partitionAttribute, boolean salesValueWeights, boolean refit) {
+    this(spec, trainParameters, datasetParameters, cutDayIndex, validationDays, partitionAttribute, salesValueWeights,
+        refit, ZERO_ROWS_KEPT_BY_DEFAULT);
+  }
+
+  /** Which zero-sales training rows to keep: {@link #zeroRowsKept} under the Dataset's seed. */
+  public ZeroRowSampling zeroSampling() {
+    return ZeroRowSampling.of(zeroRowsKept, datasetParameters.seed());
   }
 
   /** First day of the validation window. */
@@ -48,16 +73,21 @@ public record TrainingPlan(FeatureSpec spec, TrainParameters trainParameters, Da
 
   public TrainingPlan withCutDayIndex(int dayIndex) {
     return new TrainingPlan(spec, trainParameters, datasetParameters, dayIndex, validationDays, partitionAttribute,
-        salesValueWeights, refit);
+        salesValueWeights, refit, zeroRowsKept);
   }
 
   public TrainingPlan withSpec(FeatureSpec value) {
     return new TrainingPlan(value, trainParameters, datasetParameters, cutDayIndex, validationDays, partitionAttribute,
-        salesValueWeights, refit);
+        salesValueWeights, refit, zeroRowsKept);
   }
 
   public TrainingPlan withRefit(boolean value) {
     return new TrainingPlan(spec, trainParameters, datasetParameters, cutDayIndex, validationDays, partitionAttribute,
-        salesValueWeights, value);
+        salesValueWeights, value, zeroRowsKept);
+  }
+
+  public TrainingPlan withZeroRowsKept(double value) {
+    return new TrainingPlan(spec, trainParameters, datasetParameters, cutDayIndex, validationDays, partitionAttribute,
+        salesValueWeights, refit, value);
   }
 }
