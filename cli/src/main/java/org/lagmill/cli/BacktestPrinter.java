@@ -9,6 +9,7 @@ import org.lagmill.eval.BacktestResult;
 import org.lagmill.eval.BaselineKind;
 import org.lagmill.eval.CombinedBacktestResult;
 import org.lagmill.report.ReportAssembler;
+import org.lagmill.training.PartitionReport;
 
 /** A backtest's console lines, for {@code backtest} and {@code demo}. */
 final class BacktestPrinter {
@@ -53,6 +54,11 @@ final class BacktestPrinter {
     out.printf(Locale.ROOT, "model WRMSSE %.4f ± %.4f over %d origins; skill against seasonal naive %.3f, against "
         + "ETS %.3f (model / baseline, lower is better)%n", result.meanModelWrmsse(), result.stdModelWrmsse(),
         result.origins().size(), result.skillRatioAgainstSeasonalNaive(), result.skillRatioAgainst(BaselineKind.ETS));
+    String dropped = PartitionReport.zeroRowsNotice(result.origins().stream()
+        .flatMap(origin -> origin.partitions().stream()).toList());
+    if (dropped != null) {
+      out.printf(Locale.ROOT, "training over the %d origins %s%n", result.origins().size(), dropped);
+    }
     if (result.meanModelWspl() != null) {
       out.printf(Locale.ROOT, "interval WSPL %.4f (negative binomial, estimated dispersion) vs %.4f (Poisson)%n",
           result.meanModelWspl(), result.meanPoissonWspl());

@@ -61,7 +61,7 @@ final class DistributedTrainRun {
         + shard.dateOf(plan.cutDayIndex()) + "\n" + "tree learner " + learner.lightGbmName() + "\n"
         + "train " + plan.trainParameters() + "\n" + "dataset " + plan.datasetParameters() + "\n"
         + "validation " + plan.validationDays() + ", weights " + plan.salesValueWeights() + ", refit " + plan.refit()
-        + "\n" + FeatureSpecYaml.format(plan.spec());
+        + ", zero rows kept " + plan.zeroRowsKept() + "\n" + FeatureSpecYaml.format(plan.spec());
     Duration timeout = Duration.ofSeconds(command.rankTimeoutSeconds);
     int networkMinutes = Math.max(1, (command.rankTimeoutSeconds + 59) / 60);
     PrintWriter out = command.commandSpec.commandLine().getOut();
@@ -133,6 +133,10 @@ final class DistributedTrainRun {
               report.validationCurve().length == 0 ? Double.NaN
                   : report.validationCurve()[Math.max(0, report.bestIteration() - 1)],
               result.modelSha256());
+          String dropped = PartitionReport.zeroRowsNotice(java.util.List.of(report));
+          if (dropped != null) {
+            out.printf(Locale.ROOT, "rank %d: over all ranks %s%n", rank, dropped);
+          }
           out.printf(Locale.ROOT, "rank %d: peak RSS %,d MB, learner off-heap peak %,d KB%s%n", rank,
               ProcessMemory.peakResidentBytes() >> 20, learnerPeakBytes >> 10,
               rank == 0 ? ", model written to " + command.model : "");

@@ -61,12 +61,15 @@ final class ModelCommand implements Callable<Integer> {
       document.put("trainParameters", manifest.trainParameters());
       document.put("datasetParameters", manifest.datasetParameters());
       document.put("partitionAttribute", manifest.partitionAttribute());
+      document.put("zeroRowsKept", manifest.zeroRowsKept());
       List<Map<String, Object>> partitions = new ArrayList<>();
       for (PartitionReport p : manifest.partitions()) {
         Map<String, Object> row = new LinkedHashMap<>();
         row.put("partitionValue", p.partitionValue());
         row.put("seriesCount", p.seriesCount());
         row.put("trainingRowCount", p.trainingRowCount());
+        row.put("droppedZeroRowCount", p.droppedZeroRowCount());
+        row.put("zeroRowWeight", p.zeroRowWeight());
         row.put("featureCount", p.featureCount());
         row.put("bestIteration", p.bestIteration());
         row.put("validationMetric", p.validationMetric());
@@ -88,12 +91,18 @@ final class ModelCommand implements Callable<Integer> {
         features.rollingStats().stream().map(FeatureSpec.RollingStat::configName).toList());
     out.printf("partitioned by       %s%n", manifest.partitionAttribute() == null ? "none (one model)"
         : manifest.partitionAttribute());
+    out.println("zero-sales rows kept " + (manifest.zeroRowsKept() == 1.0 ? "all"
+        : String.format(Locale.ROOT, "%s (each weighted %s)", manifest.zeroRowsKept(), 1 / manifest.zeroRowsKept())));
     out.println("training parameters  " + text(manifest.trainParameters()));
     out.println("dataset parameters   " + text(manifest.datasetParameters()));
     for (PartitionReport p : manifest.partitions()) {
       out.printf(Locale.ROOT, "partition %-10s %,d series, %,d training rows, %d features, best iteration %d of %d%n",
           p.partitionValue(), p.seriesCount(), p.trainingRowCount(), p.featureCount(), p.bestIteration(),
           p.iterationCount());
+      String dropped = PartitionReport.zeroRowsNotice(List.of(p));
+      if (dropped != null) {
+        out.println("  " + dropped);
+      }
     }
     int shown = all ? importance.size() : Math.min(LISTED_FEATURE_COUNT, importance.size());
     out.printf("features by share of gain (%d of %d, summed over partitions)%n", shown, importance.size());

@@ -15,6 +15,10 @@ final class TrainPrinter {
           + " %d, validation %s %.5f%n", r.partitionValue(), r.seriesCount(), r.trainingRowCount(), r.featureCount(),
           r.datasetBytesPerRow(), r.bestIteration(), r.iterationCount(), r.validationMetric(),
           r.validationCurve().length == 0 ? Double.NaN : r.validationCurve()[Math.max(0, r.bestIteration() - 1)]);
+      String dropped = PartitionReport.zeroRowsNotice(java.util.List.of(r));
+      if (dropped != null) {
+        out.println("  " + dropped);
+      }
     }
     long peak = ProcessMemory.peakResidentBytes();
     long rows = outcome.partitions().stream().mapToLong(PartitionReport::trainingRowCount).max().orElse(0);

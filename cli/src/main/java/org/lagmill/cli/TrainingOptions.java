@@ -99,6 +99,12 @@ final class TrainingOptions {
       description = "row weights: none or sales-value (the error metric's weights) (default: ${DEFAULT-VALUE})")
   String weights;
 
+  @Option(names = "--zero-rows-kept", paramLabel = "SHARE", defaultValue = "1",
+      description = "share in (0, 1] of the training rows with zero sales to keep, each kept one weighted by its "
+          + "inverse (a hash of series, day and --seed picks them; validation rows are never dropped); fewer rows make "
+          + "each boosting round cheaper (default: ${DEFAULT-VALUE}, every row; see docs/learner.md)")
+  double zeroRowsKept;
+
   @Option(names = "--sample-rows", converter = Counts.Positive.class,
       paramLabel = "N", defaultValue = "200000",
       description = "rows sampled to fix LightGBM's bin boundaries (default: ${DEFAULT-VALUE})")
@@ -140,7 +146,7 @@ final class TrainingOptions {
       TrainingPlan base = plan(spec, cutIndex);
       TrainingPlan plan = at < 0 ? base : new TrainingPlan(base.spec(), base.trainParameters(),
           base.datasetParameters(), base.cutDayIndex(), base.validationDays(), member.substring(at + 1),
-          base.salesValueWeights(), base.refit());
+          base.salesValueWeights(), base.refit(), base.zeroRowsKept());
       plans.add(new MemberPlans.Member(memberArgs.size() == 1 ? null : member, plan));
     }
     return plans;
@@ -161,7 +167,7 @@ final class TrainingOptions {
     DatasetParameters dataset = DatasetParameters.defaults().withSampleRowCount(sampleRowCount).withSeed(seed)
         .withDeterministic(deterministic).withUseWeights(salesValue).withThreadCount(threads);
     return new TrainingPlan(spec, train, dataset, cutDayIndex, spec.horizonDays(), partitionAttribute, salesValue,
-        refit == null ? TrainingPlan.REFIT_BY_DEFAULT : refit);
+        refit == null ? TrainingPlan.REFIT_BY_DEFAULT : refit, zeroRowsKept);
   }
 
   static Objective objective(String name) {

@@ -101,6 +101,47 @@ class DistributedTrainingTest {
   }
 
   @Test
+  void shouldTellLightGbmTheRanksSumOfSampledRows() throws Exception {
+    Path model = dir.resolve("sampled");
+    MainRun cluster = MainRun.of("cluster-local", "--workers", "3", "--", "train", "--store",
+        dir.resolve("shards").toString() + "/shard-{rank}", "--model", model.toString(), "--rounds", "5",
+        "--threads", "1", "--deterministic", "--rank-timeout", "60", "--zero-rows-kept", "0.4");
+    assertEquals(0, cluster.exitCode(), cluster.out() + cluster.err());
+    Pattern rows = Pattern.compile("rank \\d of 3: ([0-9,]+) of ([0-9,]+) training rows here");
+    Pattern dropped = Pattern.compile("over all ranks dropped ([0-9,]+) of ([0-9,]+) training rows with zero sales");
+    long localSum = 0;
+    Set<Long> totals = new HashSet<>();
+    Set<Long> droppedCounts = new HashSet<>();
+    Set<String> checksums = new HashSet<>();
+    for (String line : cluster.out().split("\n")) {
+      Matcher m = rows.matcher(line);
+      if (m.find()) {
+        localSum += Long.parseLong(m.group(1).replace(",", ""));
+        totals.add(Long.parseLong(m.group(2).replace(",", "")));
+      }
+      Matcher d = dropped.matcher(line);
+      if (d.find()) {
+        droppedCounts.add(Long.parseLong(d.group(1).replace(",", "")));
+      }
+      Matcher sha = SHA.matcher(line);
+      if (sha.find()) {
+        checksums.add(sha.group(1));
+      }
+    }
+    assertEquals(1, totals.size(), cluster.out());
+    assertEquals(1, droppedCounts.size(), "every rank reports the same drop: " + cluster.out());
+    assertEquals(1, checksums.size(), "every rank must hold the same model: " + cluster.out());
+    long total = totals.iterator().next();
+    assertEquals(total, localSum, "LightGBM's row count is the sum of the rows each rank keeps: " + cluster.out());
+    MainRun whole = MainRun.of("train", "--store", dir.resolve("store").toString(), "--model",
+        dir.resolve("whole").toString(), "--rounds", "1", "--threads", "1", "--quiet");
+    expectOk(whole);
+    long unsampled = com.fasterxml.jackson.databind.json.JsonMapper.builder().build().readTree(dir.resolve("whole")
+        .resolve("manifest.json").toFile()).get("partitions").get(0).get("trainingRowCount").asLong();
+    assertEquals(unsampled, total + droppedCounts.iterator().next(), cluster.out());
+  }
+
+  @Test
   void shouldEndEveryRankWithAClearErrorWhenOneIsKilled() throws Exception {
     String machines = ClusterLocalCommand.freeLoopbackMachines(3);
     List<Process> ranks = new ArrayList<>();
