@@ -17,6 +17,38 @@ public final class LearnerNetwork implements AutoCloseable {
 
   private LearnerNetwork() {}
 
+  /** The port LightGBM would listen on cannot be bound now; {@link #port()} names it. */
+  public static final class PortUnavailableException extends RuntimeException {
+    private static final long serialVersionUID = 1L;
+    private final int port;
+
+    PortUnavailableException(int port, java.io.IOException cause) {
+      super("port " + port + " cannot be bound: " + cause.getMessage(), cause);
+      this.port = port;
+    }
+
+    public int port() {
+      return port;
+    }
+  }
+
+  /**
+   * Fails fast when {@code localPort} cannot be bound the way LightGBM binds it: without address reuse, so a port
+   * whose last connection closed less than about a minute ago (TCP TIME-WAIT) counts as taken, as it does for
+   * LightGBM. Checked before the minutes of feature pass that precede {@link #join}, whose own failure would only
+   * say "Binding port failed" after them.
+   *
+   * @throws PortUnavailableException when the bind fails
+   */
+  public static void requireBindable(int localPort) {
+    try (java.net.ServerSocket socket = new java.net.ServerSocket()) {
+      socket.setReuseAddress(false);
+      socket.bind(new java.net.InetSocketAddress(localPort));
+    } catch (java.io.IOException e) {
+      throw new PortUnavailableException(localPort, e);
+    }
+  }
+
   /**
    * Joins the network; returns once every listed machine is connected (LightGBM retries for up to
    * {@code timeoutMinutes}).

@@ -87,6 +87,22 @@ public final class DistributedTraining {
    * @throws InvalidRequestException for a partitioned plan, or when some rank holds no training rows
    * @throws RankFailureException when another rank fails, leaves or disagrees
    */
+  /**
+   * Fails this rank, and through the exchange every other, before the feature pass when LightGBM could not listen on
+   * this rank's port: a re-run right after a finished one hits the port's TIME-WAIT, and LightGBM's own failure comes
+   * only after the Dataset's feature pass and says no more than "Binding port failed".
+   */
+  private static void requireLearnerPort(ClusterSpec cluster, int rank) {
+    try {
+      LearnerNetwork.requireBindable(cluster.port(rank));
+    } catch (LearnerNetwork.PortUnavailableException e) {
+      throw new RankFailureException("rank " + rank + " cannot listen on port " + e.port() + " for LightGBM's "
+          + "network (" + e.getCause().getMessage() + "): another process holds it, or a run that used it ended "
+          + "less than about a minute ago (the system keeps a closed connection's port for up to 60 s); wait a "
+          + "minute, or give this rank another port in " + Setting.MACHINES, e);
+    }
+  }
+
   public static Result train(SalesHistory shard, TrainingPlan plan, RankExchange exchange, ClusterSpec cluster,
       TreeLearner learner, int networkTimeoutMinutes, MemoryBudget budget, ProgressListener progress)
       throws IOException {
@@ -98,6 +114,7 @@ public final class DistributedTraining {
     ModelTraining.checkWindows(shard, plan);
     int rank = exchange.rank();
     int rankCount = exchange.rankCount();
+    requireLearnerPort(cluster, rank);
     int[] allSeries = new int[shard.seriesCount()];
     for (int s = 0; s < allSeries.length; s++) {
       allSeries[s] = s;
