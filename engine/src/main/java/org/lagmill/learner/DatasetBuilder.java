@@ -12,6 +12,7 @@ import org.lagmill.features.FeatureBatch;
 import org.lagmill.features.FeatureSchema;
 import org.lagmill.features.RowStream;
 import org.lagmill.memory.MemoryBudget;
+import org.lagmill.memory.NativeDoubleArray;
 import org.lagmill.memory.NativeFloatArray;
 import org.lagmill.memory.ProcessMemory;
 
@@ -60,7 +61,19 @@ public final class DatasetBuilder {
    * @throws IllegalArgumentException when the stream is empty, holds 2^31 rows or more, or has a NaN/infinite label
    */
   public TrainingDataset build(RowStream rows) {
-    return build(rows, rows.rowCount());
+    return build(rows, rows.rowCount(), null, null);
+  }
+
+  /**
+   * As {@link #build(RowStream)}, with every row starting from {@code startingModel}'s raw score (LightGBM's
+   * {@code init_score}) instead of LightGBM's own initial score: the Dataset a training continued from that model
+   * boosts on ({@link Trainer#continueFrom}). The raw scores are predicted batch by batch as the rows are pushed;
+   * they take 8 bytes per row from this builder's budget until LightGBM has copied them.
+   *
+   * @param startingModel trained on the same feature schema; not owned, must stay open while the Dataset is used
+   */
+  public TrainingDataset build(RowStream rows, TrainedModel startingModel) {
+    return build(rows, rows.rowCount(), null, java.util.Objects.requireNonNull(startingModel, "startingModel"));
   }
 
   /**
@@ -79,15 +92,15 @@ public final class DatasetBuilder {
       throw new IllegalArgumentException("rows over all ranks (" + distributedRowCount + ") cannot be fewer than "
           + "this rank's " + rows.rowCount());
     }
-    return build(rows, distributedRowCount, rankSum);
+    return build(rows, distributedRowCount, rankSum, null);
   }
 
-  private TrainingDataset build(RowStream rows, long distributedRowCount) {
-    return build(rows, distributedRowCount, null);
-  }
-
-  /** @param rankSum null on one machine */
-  private TrainingDataset build(RowStream rows, long distributedRowCount, RankSum rankSum) {
+  /**
+   * @param rankSum null on one machine
+   * @param startingModel whose raw scores the rows start from, or null
+   */
+  private TrainingDataset build(RowStream rows, long distributedRowCount, RankSum rankSum,
+      TrainedModel startingModel) {
     FeatureSchema schema = rows.schema();
     int rowCount = checkedRowCount(rows);
     int sampleRowCount = Math.min(parameters.sampleRowCount(), rowCount);
@@ -109,14 +122,14 @@ public final class DatasetBuilder {
           categoricalColumns);
       double weightSum;
       try {
-        weightSum = pushRowsAndFinish(handle, rows, batch, rowCount);
+        weightSum = pushRowsAndFinish(handle, rows, batch, rowCount, startingModel);
       } catch (RuntimeException | Error e) {
         lightgbmlib.LGBM_DatasetFree(handle);
         throw e;
       }
       DatasetStats stats = new DatasetStats(rowCount, schema.featureCount(), sampleRowCount,
           sample.keptValueCount(), residentBefore, ProcessMemory.residentBytes());
-      return new TrainingDataset(handle, schema, stats, false, weightSum, categoricalColumns);
+      return new TrainingDataset(handle, schema, stats, false, weightSum, categoricalColumns, startingModel);
     }
   }
 
@@ -170,6 +183,20 @@ public final class DatasetBuilder {
    * stopping. The reference must stay open while a Booster uses both.
    */
   public TrainingDataset createValidation(TrainingDataset reference, RowStream rows) {
+    return createValidation(reference, rows, null);
+  }
+
+  /**
+   * As {@link #createValidation(TrainingDataset, RowStream)}, with every row starting from {@code startingModel}'s
+   * raw score, as the rows of {@code reference} do: the validation rows of a continued training.
+   *
+   * @param startingModel the model {@code reference} starts from, or null when it starts from LightGBM's own score
+   */
+  public TrainingDataset createValidation(TrainingDataset reference, RowStream rows, TrainedModel startingModel) {
+    if (startingModel != reference.initialScoresFrom()) {
+      throw new IllegalArgumentException("validation rows must start from the same model as the training rows ("
+          + (reference.initialScoresFrom() == null ? "none" : "a starting model") + ")");
+    }
     FeatureSchema schema = rows.schema();
     if (!schema.equals(reference.schema())) {
       throw new IllegalArgumentException("validation rows have schema " + schema.names() + " but the training "
@@ -186,14 +213,15 @@ public final class DatasetBuilder {
     Native.check(returnCode, "LGBM_DatasetCreateByReference");
     double weightSum;
     try (FeatureBatch batch = newBatch(schema, rowCount)) {
-      weightSum = pushRowsAndFinish(handle, rows, batch, rowCount);
+      weightSum = pushRowsAndFinish(handle, rows, batch, rowCount, startingModel);
     } catch (RuntimeException | Error e) {
       lightgbmlib.LGBM_DatasetFree(handle);
       throw e;
     }
     DatasetStats stats = new DatasetStats(rowCount, schema.featureCount(), 0, 0, residentBefore,
         ProcessMemory.residentBytes());
-    return new TrainingDataset(handle, schema, stats, true, weightSum, reference.categoricalColumns());
+    return new TrainingDataset(handle, schema, stats, true, weightSum, reference.categoricalColumns(),
+        startingModel);
   }
 
   /**
@@ -314,12 +342,25 @@ public final class DatasetBuilder {
    * fields. Manual finish matters: left to itself, LightGBM finishes the Dataset as soon as a push ends at the last
    * row, and would silently ignore any push after that.
    */
-  /** @return the sum of the rows' weights, or the row count without weights (what LightGBM's metrics divide by) */
-  private double pushRowsAndFinish(SWIGTYPE_p_void handle, RowStream rows, FeatureBatch batch, int rowCount) {
+  /**
+   * @param startingModel whose raw score each row starts from (predicted per pushed batch), or null
+   * @return the sum of the rows' weights, or the row count without weights (what LightGBM's metrics divide by)
+   */
+  private double pushRowsAndFinish(SWIGTYPE_p_void handle, RowStream rows, FeatureBatch batch, int rowCount,
+      TrainedModel startingModel) {
     int featureCount = rows.schema().featureCount();
+    if (startingModel != null && startingModel.featureCount() != featureCount) {
+      throw new IllegalArgumentException("the starting model reads " + startingModel.featureCount() + " features but"
+          + " the rows hold " + featureCount + "; continue only from a model of the same feature definition");
+    }
+    if (startingModel != null && rowCount > NativeDoubleArray.MAX_LENGTH) {
+      throw new IllegalArgumentException("a continued training holds one raw score per row in one array of at most "
+          + NativeDoubleArray.MAX_LENGTH + " rows, got " + rowCount + "; train per partition");
+    }
     Native.check(lightgbmlib.LGBM_DatasetSetWaitForManualFinish(handle, 1), "LGBM_DatasetSetWaitForManualFinish");
     try (NativeFloatArray labels = new NativeFloatArray(budget, rowCount);
-        NativeFloatArray weights = new NativeFloatArray(budget, parameters.useWeights() ? rowCount : 0)) {
+        NativeFloatArray weights = new NativeFloatArray(budget, parameters.useWeights() ? rowCount : 0);
+        NativeDoubleArray initialScores = new NativeDoubleArray(budget, startingModel != null ? rowCount : 0)) {
       long[] pushedRows = {0};
       rows.stream(batch, full -> {
         int batchRows = full.rowCount();
@@ -329,6 +370,9 @@ public final class DatasetBuilder {
               + " rows; a RowStream must produce its rows in order and exactly rowCount() of them");
         }
         copyLabels(full, (int) pushedRows[0], labels, weights);
+        if (startingModel != null) {
+          startingModel.predictRawInto(full, initialScores.address(pushedRows[0]), parameters.threadCount());
+        }
         Native.check(lightgbmlib.LGBM_DatasetPushRows(handle, Native.voidPointer(full.valuesAddress()),
             lightgbmlibConstants.C_API_DTYPE_FLOAT32, batchRows, featureCount, (int) pushedRows[0]),
             "LGBM_DatasetPushRows");
@@ -341,6 +385,11 @@ public final class DatasetBuilder {
       Native.check(lightgbmlib.LGBM_DatasetMarkFinished(handle), "LGBM_DatasetMarkFinished");
       Native.check(lightgbmlib.LGBM_DatasetSetField(handle, "label", Native.voidPointer(labels.address()), rowCount,
           lightgbmlibConstants.C_API_DTYPE_FLOAT32), "LGBM_DatasetSetField(label)");
+      if (startingModel != null) {
+        // LightGBM keeps its own copy: the initial scores are float64 only
+        Native.check(lightgbmlib.LGBM_DatasetSetField(handle, "init_score", Native.voidPointer(initialScores
+            .address(0)), rowCount, lightgbmlibConstants.C_API_DTYPE_FLOAT64), "LGBM_DatasetSetField(init_score)");
+      }
       if (parameters.useWeights()) {
         Native.check(lightgbmlib.LGBM_DatasetSetField(handle, "weight", Native.voidPointer(weights.address()),
             rowCount, lightgbmlibConstants.C_API_DTYPE_FLOAT32), "LGBM_DatasetSetField(weight)");

@@ -1,5 +1,6 @@
 package org.lagmill.learner;
 
+import com.microsoft.ml.lightgbm.SWIGTYPE_p_double;
 import com.microsoft.ml.lightgbm.SWIGTYPE_p_p_void;
 import com.microsoft.ml.lightgbm.SWIGTYPE_p_void;
 import com.microsoft.ml.lightgbm.lightgbmlib;
@@ -25,6 +26,11 @@ final class Native {
     return new VoidPointer(address);
   }
 
+  /** A {@code double*} holding {@code address}, for LightGBM to write results into our own native memory. */
+  static SWIGTYPE_p_double doublePointer(long address) {
+    return new DoublePointer(address);
+  }
+
   /** Reads the handle a {@code LGBM_*Create*} call wrote into {@code out}, then frees {@code out}. */
   static SWIGTYPE_p_void takeHandle(SWIGTYPE_p_p_void out) {
     try {
@@ -36,6 +42,12 @@ final class Native {
 
   private static final class VoidPointer extends SWIGTYPE_p_void {
     VoidPointer(long address) {
+      super(address, false);
+    }
+  }
+
+  private static final class DoublePointer extends SWIGTYPE_p_double {
+    DoublePointer(long address) {
       super(address, false);
     }
   }

@@ -26,6 +26,8 @@ import org.lagmill.io.AtomicFiles;
  */
 public final class TrainedModel implements AutoCloseable {
   private final int bestIteration;
+  private final int startingIterationCount;
+  private final double startingValidationLoss;
   private final double[] validationCurve;
   private final double[] validationRmseCurve;
   private final int featureCount;
@@ -37,8 +39,20 @@ public final class TrainedModel implements AutoCloseable {
   private Objective objective;
 
   TrainedModel(SWIGTYPE_p_void booster, int bestIteration, double[] validationCurve, double[] validationRmseCurve) {
+    this(booster, bestIteration, validationCurve, validationRmseCurve, 0, Double.NaN);
+  }
+
+  /**
+   * @param startingIterationCount iterations at the front of the Booster taken over from the model training
+   *     continued from, 0 when trained from scratch
+   * @param startingValidationLoss the validation loss of those iterations alone, NaN when unknown
+   */
+  TrainedModel(SWIGTYPE_p_void booster, int bestIteration, double[] validationCurve, double[] validationRmseCurve,
+      int startingIterationCount, double startingValidationLoss) {
     this.booster = booster;
     this.bestIteration = bestIteration;
+    this.startingIterationCount = startingIterationCount;
+    this.startingValidationLoss = startingValidationLoss;
     this.validationCurve = validationCurve;
     this.validationRmseCurve = validationRmseCurve;
     SWIGTYPE_p_int out = lightgbmlib.new_intp();
@@ -107,13 +121,30 @@ public final class TrainedModel implements AutoCloseable {
 
   /**
    * 1-based iteration with the lowest validation loss (the last one when trained without validation rows); 0 when
-   * no split was possible at all and the model is the constant initial score.
+   * no split was possible at all and the model is the constant initial score. A continued training counts only the
+   * iterations it added: 0 when none beat the starting model on the validation rows.
    */
   public int bestIteration() {
     return bestIteration;
   }
 
-  /** Number of boosting iterations the Booster holds (equal to {@link #bestIteration()} after training). */
+  /**
+   * Iterations at the front of this model that a continued training took over from its starting model
+   * ({@link Trainer#continueFrom}); 0 for a model trained from scratch or loaded from a file.
+   */
+  public int startingIterationCount() {
+    return startingIterationCount;
+  }
+
+  /** The starting model's validation loss before a continued training added anything; NaN when not continued. */
+  public double startingValidationLoss() {
+    return startingValidationLoss;
+  }
+
+  /**
+   * Number of boosting iterations the Booster holds: {@link #startingIterationCount()} plus {@link #bestIteration()}
+   * after training.
+   */
   public int iterationCount() {
     SWIGTYPE_p_int out = lightgbmlib.new_intp();
     try {
@@ -188,6 +219,47 @@ public final class TrainedModel implements AutoCloseable {
   }
 
   /**
+   * Writes the raw score of each of the first {@code batch.rowCount()} rows of {@code batch} straight into native
+   * memory: what a continued training's Datasets start from.
+   *
+   * @param outAddress native address of at least {@code batch.rowCount()} doubles
+   * @param threadCount OpenMP threads: those of the Dataset being pushed. A prediction sets LightGBM's thread count
+   *     for the calls after it (its default when not given); a Dataset pushed with more threads than it was created
+   *     for indexes past its per-thread buffers (a crash seen here in SparseBin::Push)
+   */
+  void predictRawInto(FeatureBatch batch, long outAddress, int threadCount) {
+    SWIGTYPE_p_void handle = handle();
+    checkFeatureCount(batch);
+    int rowCount = batch.rowCount();
+    if (rowCount == 0) {
+      return;
+    }
+    SWIGTYPE_p_long_long resultCount = lightgbmlib.new_int64_tp();
+    try {
+      Native.check(lightgbmlib.LGBM_BoosterPredictForMat(handle, Native.voidPointer(batch.valuesAddress()),
+          lightgbmlibConstants.C_API_DTYPE_FLOAT32, rowCount, featureCount, 1,
+          lightgbmlibConstants.C_API_PREDICT_RAW_SCORE, 0, 0, "num_threads=" + threadCount, resultCount,
+          Native.doublePointer(outAddress)),
+          "LGBM_BoosterPredictForMat");
+      long written = lightgbmlib.int64_tp_value(resultCount);
+      if (written != rowCount) {
+        throw new LearnerException("LightGBM wrote " + written + " raw scores for " + rowCount + " rows");
+      }
+    } finally {
+      lightgbmlib.delete_int64_tp(resultCount);
+    }
+  }
+
+  /**
+   * As {@link #predictRaw} over the iterations {@code [firstIteration, firstIteration + iterationCount)} only
+   * (LightGBM's {@code start_iteration} and {@code num_iteration}): a continued model's added trees alone, or its
+   * starting trees alone.
+   */
+  void predictRawIterations(FeatureBatch batch, double[] out, int firstIteration, int iterationCount) {
+    predict(batch, out, lightgbmlibConstants.C_API_PREDICT_RAW_SCORE, firstIteration, iterationCount);
+  }
+
+  /**
    * Each feature's contribution to each row's raw score (LightGBM's SHAP values, predict type contrib), plus the
    * expected raw score over the training data (the bias) last: row {@code r} occupies
    * {@code out[r × (featureCount + 1) .. (r + 1) × (featureCount + 1))}, the bias at the end. LightGBM guarantees
@@ -230,13 +302,22 @@ public final class TrainedModel implements AutoCloseable {
     return objective;
   }
 
-  private void predict(FeatureBatch batch, double[] out, int predictType) {
-    SWIGTYPE_p_void handle = handle();
-    int rowCount = batch.rowCount();
+  private void checkFeatureCount(FeatureBatch batch) {
     if (batch.featureCount() != featureCount) {
       throw new IllegalArgumentException("batch has " + batch.featureCount() + " features but the model was trained on "
           + featureCount + "; predict with the feature definition the model was trained with");
     }
+  }
+
+  private void predict(FeatureBatch batch, double[] out, int predictType) {
+    // iteration count 0 = every iteration held, which is the best one: training rolled the rest back
+    predict(batch, out, predictType, 0, 0);
+  }
+
+  private void predict(FeatureBatch batch, double[] out, int predictType, int firstIteration, int iterationCount) {
+    SWIGTYPE_p_void handle = handle();
+    int rowCount = batch.rowCount();
+    checkFeatureCount(batch);
     int valuesPerRow = predictType == lightgbmlibConstants.C_API_PREDICT_CONTRIB ? featureCount + 1 : 1;
     long valueCount = (long) rowCount * valuesPerRow;
     if (out.length < valueCount) {
@@ -250,10 +331,9 @@ public final class TrainedModel implements AutoCloseable {
     SWIGTYPE_p_double result = lightgbmlib.new_doubleArray(valueCount);
     SWIGTYPE_p_long_long resultCount = lightgbmlib.new_int64_tp();
     try {
-      // num_iteration 0 = every iteration held, which is the best one: training rolled the rest back
       Native.check(lightgbmlib.LGBM_BoosterPredictForMat(handle, Native.voidPointer(batch.valuesAddress()),
-          lightgbmlibConstants.C_API_DTYPE_FLOAT32, rowCount, featureCount, 1, predictType, 0, 0, "", resultCount,
-          result), "LGBM_BoosterPredictForMat");
+          lightgbmlibConstants.C_API_DTYPE_FLOAT32, rowCount, featureCount, 1, predictType, firstIteration,
+          iterationCount, "", resultCount, result), "LGBM_BoosterPredictForMat");
       long written = lightgbmlib.int64_tp_value(resultCount);
       if (written != valueCount) {
         throw new LearnerException("LightGBM wrote " + written + " values for " + rowCount + " rows, expected "

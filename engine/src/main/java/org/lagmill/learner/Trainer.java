@@ -42,7 +42,34 @@ public final class Trainer {
    * @param validation validation rows binned like {@code training}, or null
    */
   public TrainedModel train(TrainingDataset training, TrainingDataset validation, TrainingListener listener) {
-    return train(training, validation, validation != null, null, parameters.toLightGbmString(), listener);
+    if (training.initialScoresFrom() != null) {
+      throw new IllegalArgumentException("the training rows start from a model's scores: continue from it with "
+          + "continueFrom, or build the Dataset without a starting model");
+    }
+    return train(training, validation, validation != null, null, parameters.toLightGbmString(), null, listener);
+  }
+
+  /**
+   * Continues boosting from {@code startingModel} (LightGBM's init model): the Datasets already start from its raw
+   * scores ({@link DatasetBuilder#build(org.lagmill.features.RowStream, TrainedModel)}), a new Booster on them takes
+   * its trees in front (LGBM_BoosterMerge), and boosting goes on with early stopping as in {@link #train}. Early
+   * stopping measures the added rounds against the starting model's own validation loss, so when no round beats it
+   * the returned model holds exactly the starting trees ({@link TrainedModel#bestIteration()} 0).
+   * {@link TrainParameters#maxRounds()} bounds the added rounds. The returned model holds the starting trees then the
+   * kept added ones; its {@link TrainedModel#startingIterationCount()} says how many came from the start.
+   *
+   * @param startingModel not owned; stays open and unchanged
+   * @param validation validation rows built from {@code training} with the same starting model, or null
+   */
+  public TrainedModel continueFrom(TrainedModel startingModel, TrainingDataset training, TrainingDataset validation,
+      TrainingListener listener) {
+    if (training.initialScoresFrom() != startingModel || validation != null
+        && validation.initialScoresFrom() != startingModel) {
+      throw new IllegalArgumentException("the Datasets of a continued training must start from the starting model's "
+          + "scores: build them with DatasetBuilder.build(rows, startingModel) and createValidation(.., startingModel)");
+    }
+    return train(training, validation, validation != null, null, parameters.toLightGbmString(), startingModel,
+        listener);
   }
 
   /**
@@ -67,7 +94,7 @@ public final class Trainer {
     }
     String parameterText = parameters.toLightGbmString() + " tree_learner=" + learner.lightGbmName()
         + " num_machines=" + machineCount + " max_cat_threshold=" + categoriesPerSplit(training);
-    return train(training, validation, validatingAnywhere, reducer, parameterText, listener);
+    return train(training, validation, validatingAnywhere, reducer, parameterText, null, listener);
   }
 
   /**
@@ -80,8 +107,9 @@ public final class Trainer {
     return DistributedBinning.categoriesPerSplit(training.largestCategoricalBinCount());
   }
 
+  /** @param startingModel the model whose trees go in front, or null to boost from scratch */
   private TrainedModel train(TrainingDataset training, TrainingDataset validation, boolean validating,
-      ValidationReducer reducer, String parameterText, TrainingListener listener) {
+      ValidationReducer reducer, String parameterText, TrainedModel startingModel, TrainingListener listener) {
     if (training.isValidation()) {
       throw new IllegalArgumentException("training data must be a training Dataset, got a validation Dataset");
     }
@@ -95,10 +123,18 @@ public final class Trainer {
     Native.check(returnCode, "LGBM_BoosterCreate");
     TrainedModel model;
     try {
+      int startingIterationCount = 0;
+      if (startingModel != null) {
+        // the order LightGBM's own bindings use for an init model: create on the Datasets that start from its
+        // scores, merge its trees in front, then add the validation data
+        Native.check(lightgbmlib.LGBM_BoosterMerge(booster, startingModel.handle()), "LGBM_BoosterMerge");
+        startingIterationCount = currentIteration(booster);
+      }
       if (validation != null) {
         Native.check(lightgbmlib.LGBM_BoosterAddValidData(booster, validation.handle()), "LGBM_BoosterAddValidData");
       }
-      model = boost(booster, validating, validation == null ? -1 : validation.weightSum(), reducer, listener);
+      model = boost(booster, validating, validation == null ? -1 : validation.weightSum(), reducer,
+          startingIterationCount, listener);
     } catch (RuntimeException | Error e) {
       lightgbmlib.LGBM_BoosterFree(booster);
       throw e;
@@ -116,9 +152,11 @@ public final class Trainer {
   /**
    * @param localWeightSum this rank's validation weight sum, or -1 when it holds no validation rows
    * @param reducer null on one machine
+   * @param startingIterationCount iterations merged in front from a starting model; the added rounds must beat
+   *     their validation loss to be kept
    */
   private TrainedModel boost(SWIGTYPE_p_void booster, boolean validating, double localWeightSum,
-      ValidationReducer reducer, TrainingListener listener) {
+      ValidationReducer reducer, int startingIterationCount, TrainingListener listener) {
     int maxRounds = parameters.maxRounds();
     int patience = validating && parameters.earlyStoppingRounds() > 0
         ? parameters.earlyStoppingRounds() : Integer.MAX_VALUE;
@@ -131,7 +169,13 @@ public final class Trainer {
     int trainedCount = 0;
     int bestIteration = 0;
     double bestLoss = Double.POSITIVE_INFINITY;
+    double startingLoss = Double.NaN;
     try {
+      if (startingIterationCount > 0 && validating && localWeightSum >= 0 && reducer == null) {
+        // LightGBM scores the validation rows from their initial scores before any round: the starting model's loss
+        startingLoss = evaluate(booster, evalCount, evals)[0];
+        bestLoss = startingLoss;
+      }
       for (int iteration = 1; iteration <= maxRounds; iteration++) {
         Native.check(lightgbmlib.LGBM_BoosterUpdateOneIter(booster, finished), "LGBM_BoosterUpdateOneIter");
         if (lightgbmlib.intp_value(finished) == 1) {
@@ -143,14 +187,9 @@ public final class Trainer {
         if (validating) {
           double rmse = Double.NaN;
           if (localWeightSum >= 0) {
-            Native.check(lightgbmlib.LGBM_BoosterGetEval(booster, VALIDATION_DATA_INDEX, evalCount, evals),
-                "LGBM_BoosterGetEval");
-            if (lightgbmlib.intp_value(evalCount) != METRIC_COUNT) {
-              throw new LearnerException("LightGBM evaluated " + lightgbmlib.intp_value(evalCount)
-                  + " metrics, expected " + METRIC_COUNT + " (" + parameters.objective().metricName() + ", rmse)");
-            }
-            loss = lightgbmlib.doubleArray_getitem(evals, 0);
-            rmse = lightgbmlib.doubleArray_getitem(evals, 1);
+            double[] metrics = evaluate(booster, evalCount, evals);
+            loss = metrics[0];
+            rmse = metrics[1];
           }
           if (reducer != null) {
             // LightGBM's metrics are weighted means over this rank's rows (rmse the root of one): weighted by each
@@ -176,7 +215,8 @@ public final class Trainer {
           break;
         }
       }
-      for (int held = currentIteration(booster); held > bestIteration; held--) {
+      // LightGBM never rolls back merged starting iterations: only added ones count here
+      for (int held = currentIteration(booster); held > startingIterationCount + bestIteration; held--) {
         Native.check(lightgbmlib.LGBM_BoosterRollbackOneIter(booster), "LGBM_BoosterRollbackOneIter");
       }
     } finally {
@@ -185,7 +225,18 @@ public final class Trainer {
       lightgbmlib.delete_doubleArray(evals);
     }
     return new TrainedModel(booster, bestIteration, Arrays.copyOf(curve, validating ? trainedCount : 0),
-        Arrays.copyOf(rmseCurve, validating ? trainedCount : 0));
+        Arrays.copyOf(rmseCurve, validating ? trainedCount : 0), startingIterationCount, startingLoss);
+  }
+
+  /** The validation rows' metrics now: the objective's own, then rmse. */
+  private double[] evaluate(SWIGTYPE_p_void booster, SWIGTYPE_p_int evalCount, SWIGTYPE_p_double evals) {
+    Native.check(lightgbmlib.LGBM_BoosterGetEval(booster, VALIDATION_DATA_INDEX, evalCount, evals),
+        "LGBM_BoosterGetEval");
+    if (lightgbmlib.intp_value(evalCount) != METRIC_COUNT) {
+      throw new LearnerException("LightGBM evaluated " + lightgbmlib.intp_value(evalCount) + " metrics, expected "
+          + METRIC_COUNT + " (" + parameters.objective().metricName() + ", rmse)");
+    }
+    return new double[] {lightgbmlib.doubleArray_getitem(evals, 0), lightgbmlib.doubleArray_getitem(evals, 1)};
   }
 
   private static int currentIteration(SWIGTYPE_p_void booster) {

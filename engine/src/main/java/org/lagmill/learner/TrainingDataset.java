@@ -19,11 +19,19 @@ public final class TrainingDataset implements AutoCloseable {
   private final boolean validation;
   private final double weightSum;
   private final int[] categoricalColumns;
+  private final TrainedModel initialScoresFrom;
   private SWIGTYPE_p_void handle;
 
   TrainingDataset(SWIGTYPE_p_void handle, FeatureSchema schema, DatasetStats stats, boolean validation,
       double weightSum, int[] categoricalColumns) {
+    this(handle, schema, stats, validation, weightSum, categoricalColumns, null);
+  }
+
+  /** @param initialScoresFrom the model whose raw scores the rows start from, or null (LightGBM's own start) */
+  TrainingDataset(SWIGTYPE_p_void handle, FeatureSchema schema, DatasetStats stats, boolean validation,
+      double weightSum, int[] categoricalColumns, TrainedModel initialScoresFrom) {
     this.handle = handle;
+    this.initialScoresFrom = initialScoresFrom;
     this.categoricalColumns = categoricalColumns.clone();
     this.weightSum = weightSum;
     this.schema = schema;
@@ -90,6 +98,15 @@ public final class TrainingDataset implements AutoCloseable {
   }
 
   public boolean isClosed() { return handle == null; }
+
+  /**
+   * The model whose raw scores each row starts from (LightGBM's {@code init_score}), set by
+   * {@link DatasetBuilder#build(org.lagmill.features.RowStream, TrainedModel)}; null when the rows start from
+   * LightGBM's own initial score. Not owned.
+   */
+  TrainedModel initialScoresFrom() {
+    return initialScoresFrom;
+  }
 
   SWIGTYPE_p_void handle() {
     if (handle == null) {
