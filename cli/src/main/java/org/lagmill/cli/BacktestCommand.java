@@ -19,7 +19,9 @@ import picocli.CommandLine.Spec;
         "as in production and score WRMSSE per level beside naive, seasonal naive, moving average, exponential",
         "smoothing, Croston and ETS (exponential smoothing with trend and season, chosen per series) baselines on",
         "the same days."},
-    footer = {"", "Example:", "  lagmill backtest --store stores/chain --origins 3 --step 28 --report runs/bt1"})
+    footer = {"", "Example:", "  lagmill backtest --store stores/chain --origins 3 --step 28 --report runs/bt1",
+        "  lagmill backtest --store stores/chain --origins 3 --report runs/bt2 \\",
+        "      --continue-origins --save-last-model models/last-origin"})
 final class BacktestCommand implements Callable<Integer> {
   @Spec
   CommandSpec commandSpec;
@@ -62,6 +64,15 @@ final class BacktestCommand implements Callable<Integer> {
       "score); point forecasts only, one plan"})
   Path scoringPart;
 
+  @Option(names = "--continue-origins", description = {"every origin after the first continues from the previous",
+      "origin's model (its trees, then added rounds until early stopping) instead of boosting from scratch;",
+      "one plan, not --member"})
+  boolean continueOrigins;
+
+  @Option(names = "--save-last-model", paramLabel = "DIR", description = {"save the last origin's model as a model",
+      "directory, as train writes one: lagmill train --continue-from DIR then adds the newest days; one plan"})
+  Path lastModelDir;
+
   @Mixin
   TrainingOptions training;
   @Mixin
@@ -73,7 +84,8 @@ final class BacktestCommand implements Callable<Integer> {
         memoryLimit.bytes(), reportDir, shown.seriesIds,
         (periodDays, cut) -> training.members(members, periodDays, cut),
         hierarchyOptions::hierarchy,
-        "lagmill backtest --store " + store.dir + " --origins " + originCount, scoringPart),
+        "lagmill backtest --store " + store.dir + " --origins " + originCount, scoringPart, continueOrigins,
+        lastModelDir),
         ConsoleProgress.forCommand(quiet));
     PrintWriter out = commandSpec.commandLine().getOut();
     if (json) {
@@ -83,6 +95,10 @@ final class BacktestCommand implements Callable<Integer> {
         BacktestPrinter.printMembers(out, outcome.combined());
       }
       BacktestPrinter.print(out, outcome.backtest().result());
+      BacktestPrinter.printContinued(out, outcome.backtest().result());
+      if (lastModelDir != null) {
+        out.println("last origin's model written to " + lastModelDir);
+      }
       ScoredLevels.print(out, outcome.firstOriginScores(), outcome.manifest());
       out.println("report written to " + outcome.reportHtml());
     }

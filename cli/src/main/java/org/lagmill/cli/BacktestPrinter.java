@@ -29,6 +29,18 @@ final class BacktestPrinter {
     out.println("chosen: " + combined.chosenName() + " (the report and the lines below describe it)");
   }
 
+  /** One line per partition of each origin that continued from an earlier origin's model: from where, the rounds. */
+  static void printContinued(PrintWriter out, BacktestResult result) {
+    for (BacktestResult.OriginResult origin : result.origins()) {
+      for (PartitionReport p : origin.partitions()) {
+        if (p.continued()) {
+          out.println(String.format(Locale.ROOT, "origin %s, model %s: ", origin.originDate(), p.partitionValue())
+              + TrainPrinter.continuation(p));
+        }
+      }
+    }
+  }
+
   /** The WRMSSE of the model and every baseline per origin, their means, skill ratios and interval scores. */
   static void print(PrintWriter out, BacktestResult result) {
     List<String> names = new ArrayList<>(result.meanBaselineWrmsse().keySet());

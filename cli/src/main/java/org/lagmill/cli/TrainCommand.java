@@ -23,7 +23,9 @@ import picocli.CommandLine.Spec;
         "  lagmill train --store stores/chain --model models/by-store \\",
         "      --partition-by store --until 2026-11-29",
         "  lagmill train --store stores/chain --model models/combined \\",
-        "      --from-backtest runs/members"})
+        "      --from-backtest runs/members",
+        "  lagmill train --store stores/chain --model models/week50 \\",
+        "      --continue-from models/last-origin"})
 final class TrainCommand implements Callable<Integer> {
   @Spec
   CommandSpec commandSpec;
@@ -55,6 +57,11 @@ final class TrainCommand implements Callable<Integer> {
   @Option(names = "--from-backtest", paramLabel = "DIR", description = {"train what a backtest of several --member",
       "specs chose: the member with the lowest mean WRMSSE, or all of them when their average scored lowest"})
   Path fromBacktest;
+
+  @Option(names = "--continue-from", paramLabel = "DIR", description = {"start from the trees of a saved model",
+      "(backtest --save-last-model, or last week's) and add rounds until early stopping, instead of boosting from",
+      "scratch; same feature spec, objective and --partition-by; one model, not --member"})
+  Path continueFrom;
 
   @Option(names = "--machines", paramLabel = "HOST:PORT,…", description = {"train one model over several machines,",
       "each holding one shard (lagmill shard), on LightGBM's distributed learner: every rank's host:port in rank",
@@ -94,7 +101,7 @@ final class TrainCommand implements Callable<Integer> {
     }
     List<String> chosenMembers = memberArgs;
     TrainJob.Request request = new TrainJob.Request(store.dir, model, until, memoryLimit.bytes(),
-        (periodDays, cut) -> training.members(chosenMembers, periodDays, cut));
+        (periodDays, cut) -> training.members(chosenMembers, periodDays, cut), continueFrom);
     if (machines != null || rank != null) {
       return TrainJob.open(request, (opened, plan, run) -> DistributedTrainRun.run(this, opened, plan, run));
     }

@@ -1,6 +1,7 @@
 package org.lagmill.cli;
 
 import java.io.PrintWriter;
+import java.util.Locale;
 import org.lagmill.memory.ProcessMemory;
 import org.lagmill.run.TrainJob;
 import org.lagmill.training.PartitionReport;
@@ -8,6 +9,15 @@ import org.lagmill.training.PartitionReport;
 /** A training's console lines: one per partition, then the memory it took and where the model went. */
 final class TrainPrinter {
   private TrainPrinter() {}
+
+  /** What a continued model started from and what it added, e.g. for a console line. */
+  static String continuation(PartitionReport r) {
+    String losses = r.startingValidationLoss() == null ? "" : String.format(Locale.ROOT,
+        "; validation %s %.5f before, %.5f after", r.validationMetric(), r.startingValidationLoss(),
+        r.bestIteration() == 0 ? r.startingValidationLoss() : r.validationCurve()[r.bestIteration() - 1]);
+    return String.format(Locale.ROOT, "continued from %s (%d rounds), added %d rounds (%d in all)%s",
+        r.continuedFrom(), r.startingRounds(), r.addedRounds(), r.iterationCount(), losses);
+  }
 
   static void print(PrintWriter out, TrainJob.Outcome outcome) {
     for (PartitionReport r : outcome.partitions()) {
@@ -18,6 +28,9 @@ final class TrainPrinter {
       String dropped = PartitionReport.zeroRowsNotice(java.util.List.of(r));
       if (dropped != null) {
         out.println("  " + dropped);
+      }
+      if (r.continued()) {
+        out.println("  " + continuation(r));
       }
     }
     long peak = ProcessMemory.peakResidentBytes();

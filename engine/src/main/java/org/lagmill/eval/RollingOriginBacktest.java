@@ -13,6 +13,7 @@ import org.lagmill.store.TruncatedHistory;
 import org.lagmill.training.ModelSet;
 import org.lagmill.training.ModelTraining;
 import org.lagmill.training.PartitionReport;
+import org.lagmill.training.StartingModels;
 import org.lagmill.training.TrainingPlan;
 
 /**
@@ -31,22 +32,97 @@ public final class RollingOriginBacktest {
 
   private RollingOriginBacktest() {}
 
+  /**
+   * What a backtest does with each origin's models besides forecasting with them.
+   *
+   * @param continueFromPreviousOrigin every origin after the first continues from the previous origin's models
+   *     (LightGBM's init model) instead of boosting from scratch. Leak-free as well: the previous models learned only
+   *     from days before the previous origin; this origin's training days hold theirs plus their validation window
+   * @param lastModels receives the last origin's models before they are closed (e.g. to save them), or null
+   */
+  public record OriginModels(boolean continueFromPreviousOrigin, LastModels lastModels) {
+    /** Every origin boosts from scratch and its models are closed after its forecast. */
+    public static final OriginModels FROM_SCRATCH = new OriginModels(false, null);
+  }
+
+  /** Receives the models of the last origin while they are open. */
+  @FunctionalInterface
+  public interface LastModels {
+    /**
+     * @param plan the plan they were trained with (cut the day before the origin, plan columns resolved)
+     * @param known the history up to the origin (exclusive) they were trained on
+     */
+    void accept(ModelSet models, TrainingPlan plan, SalesHistory known);
+  }
+
   public static BacktestResult run(SalesHistory history, TrainingPlan plan, BacktestSettings settings,
       MemoryBudget budget, ProgressListener progress, ForecastListener listener) {
+    return run(history, plan, settings, OriginModels.FROM_SCRATCH, budget, progress, listener);
+  }
+
+  /**
+   * As {@link #run(SalesHistory, TrainingPlan, BacktestSettings, MemoryBudget, ProgressListener, ForecastListener)},
+   * doing with each origin's models what {@code originModels} says. Continuing keeps one origin's models (trees only,
+   * a few MB) open until the next origin has trained.
+   */
+  public static BacktestResult run(SalesHistory history, TrainingPlan plan, BacktestSettings settings,
+      OriginModels originModels, MemoryBudget budget, ProgressListener progress, ForecastListener listener) {
     checkEarliestOrigin(history, plan, settings);
+    if (plan.startingModels() != null) {
+      throw new IllegalArgumentException("a backtest plan starts from scratch; continuing is an origin option");
+    }
     Evaluator evaluator = new Evaluator(history, settings.hierarchy(), settings.horizonDays());
     List<BacktestResult.OriginResult> origins = new ArrayList<>();
-    for (int k = 0; k < settings.originCount(); k++) {
-      int origin = settings.originDayIndex(history.dayCount(), k);
-      origins.add(runOrigin(history, plan, settings, evaluator, origin, budget, progress, listener));
+    ModelSet previous = null;
+    try {
+      for (int k = 0; k < settings.originCount(); k++) {
+        int origin = settings.originDayIndex(history.dayCount(), k);
+        TrainingPlan originPlan = plan.withCutDayIndex(origin - 1);
+        if (previous != null) {
+          originPlan = originPlan.withStartingModels(new StartingModels(previous, "the model of origin "
+              + history.dateOf(settings.originDayIndex(history.dayCount(), k - 1))));
+        }
+        boolean last = k == settings.originCount() - 1;
+        boolean keep = originModels.continueFromPreviousOrigin() && !last;
+        LastModels lastModels = last ? originModels.lastModels() : null;
+        ModelSet[] kept = new ModelSet[1];
+        try {
+          origins.add(runOrigin(history, originPlan, settings, evaluator, origin, budget, progress, listener,
+              (models, trainedPlan, known) -> {
+                if (lastModels != null) {
+                  lastModels.accept(models, trainedPlan, known);
+                }
+                kept[0] = keep ? models : null;
+                return keep;
+              }));
+        } finally {
+          // the previous origin's models were this origin's start: done with them, whatever happened
+          if (previous != null) {
+            previous.close();
+          }
+          previous = kept[0];
+        }
+      }
+    } finally {
+      if (previous != null) {
+        previous.close();
+      }
     }
     return summarise(origins, settings);
   }
 
+  /**
+   * One origin: train on the history before it, forecast, score.
+   *
+   * @param plan cut the day before {@code origin}
+   * @param models sees the origin's models after its forecast; if it keeps them it closes them, else they are
+   *     closed before this returns; null for none
+   */
   static BacktestResult.OriginResult runOrigin(SalesHistory history, TrainingPlan plan, BacktestSettings settings,
-      Evaluator evaluator, int origin, MemoryBudget budget, ProgressListener progress, ForecastListener listener) {
+      Evaluator evaluator, int origin, MemoryBudget budget, ProgressListener progress, ForecastListener listener,
+      ModelsKeeper models) {
     TruncatedHistory known = new TruncatedHistory(history, origin);
-    ModelForecast forecast = trainAndForecast(known, plan, origin, settings, budget, progress);
+    ModelForecast forecast = trainAndForecast(known, plan, settings, budget, progress, models);
     if (listener != null) {
       listener.onOrigin(origin, forecast.point(), forecast.dispersion());
     }
@@ -54,6 +130,13 @@ public final class RollingOriginBacktest {
     Map<String, EvaluationResult> baselines = scoreBaselines(known, settings.baselines(), settings.horizonDays(),
         evaluator, statistics);
     return score(history, settings, evaluator, statistics, origin, forecast, baselines);
+  }
+
+  /** Sees an origin's models once they have forecast. */
+  @FunctionalInterface
+  interface ModelsKeeper {
+    /** @return true when it keeps the models open (and closes them itself later) */
+    boolean accept(ModelSet models, TrainingPlan plan, SalesHistory known);
   }
 
   /**
@@ -92,7 +175,8 @@ public final class RollingOriginBacktest {
           evaluator, statistics);
       List<ModelForecast> forecasts = new ArrayList<>();
       for (int m = 0; m < plans.size(); m++) {
-        ModelForecast forecast = trainAndForecast(known, plans.get(m), origin, settings, budget, progress);
+        ModelForecast forecast = trainAndForecast(known, plans.get(m).withCutDayIndex(origin - 1), settings, budget,
+            progress, null);
         if (listener != null) {
           listener.onForecast(m, origin, forecast.point(), forecast.dispersion());
         }
@@ -125,17 +209,29 @@ public final class RollingOriginBacktest {
     }
   }
 
-  private static ModelForecast trainAndForecast(TruncatedHistory known, TrainingPlan plan, int origin,
-      BacktestSettings settings, MemoryBudget budget, ProgressListener progress) {
+  /**
+   * @param plan cut the day before the origin
+   * @param keeper sees the models after the forecast, or null; the models are closed here unless it keeps them
+   */
+  private static ModelForecast trainAndForecast(TruncatedHistory known, TrainingPlan plan, BacktestSettings settings,
+      MemoryBudget budget, ProgressListener progress, ModelsKeeper keeper) {
     long trainStart = System.nanoTime();
     List<PartitionReport> partitions = new ArrayList<>();
-    try (ModelSet models = ModelTraining.train(known, plan.withCutDayIndex(origin - 1), budget, progress)) {
+    ModelSet models = ModelTraining.train(known, plan, budget, progress);
+    boolean kept = false;
+    try {
       double trainSeconds = (System.nanoTime() - trainStart) / 1e9;
       long forecastStart = System.nanoTime();
       double[][] point = Forecaster.forecast(models, known, settings.horizonDays(), budget);
       float[] alphas = models.dispersionBySeries();
       models.partitions().forEach(p -> partitions.add(p.report()));
-      return new ModelForecast(point, alphas, partitions, trainSeconds, (System.nanoTime() - forecastStart) / 1e9);
+      double forecastSeconds = (System.nanoTime() - forecastStart) / 1e9;
+      kept = keeper != null && keeper.accept(models, plan.withSpec(models.spec()), known);
+      return new ModelForecast(point, alphas, partitions, trainSeconds, forecastSeconds);
+    } finally {
+      if (!kept) {
+        models.close();
+      }
     }
   }
 

@@ -67,7 +67,11 @@ public enum Setting {
   PRICES_KEY_COLUMN("prices-key-column"),
   PLAN_KEY_COLUMN("plan-key-column"),
   CLOSURES_KEY_COLUMN("closures-key-column"),
-  ZERO_ROWS_KEPT("zero-rows-kept");
+  ZERO_ROWS_KEPT("zero-rows-kept"),
+  REFIT("refit"),
+  CONTINUE_FROM("continue-from"),
+  CONTINUE_ORIGINS("continue-origins"),
+  SAVE_LAST_MODEL("save-last-model");
 
   /**
    * A task a front end offers, named in engine hints ({@code Command.APPEND + " " + Setting.PLAN + " FILE"}); the

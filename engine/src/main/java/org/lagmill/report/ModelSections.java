@@ -22,8 +22,11 @@ final class ModelSections {
     if (training.rowNotice() != null) {
       b.append(Html.note(training.rowNotice()));
     }
-    b.append(Html.h3("Validation curve"));
     TrainingSummary.ValidationCurve curve = training.validation();
+    if (training.continuation() != null) {
+      b.append(continuation(training.continuation(), curve));
+    }
+    b.append(Html.h3("Validation curve"));
     if (curve == null || curve.values().length == 0) {
       b.append(Html.absent("No validation curve was recorded."));
     } else {
@@ -55,6 +58,18 @@ final class ModelSections {
       b.append(importance(training.importance(), periodUnit));
     }
     return Html.section("training", "Model details", b.toString());
+  }
+
+  private static String continuation(TrainingSummary.Continuation continued, TrainingSummary.ValidationCurve curve) {
+    String loss = continued.startingValidationLoss() == null || curve == null ? ""
+        : " On the validation days the starting model's " + curve.metricName() + " was "
+            + ReportFormat.fixed(continued.startingValidationLoss(), 4) + "; the added rounds had to beat it.";
+    return Html.h3("Continued training") + Html.note("This model continued from " + continued.source() + " ("
+        + ReportFormat.count((long) continued.startingRounds()) + " rounds) instead of boosting from scratch and added "
+        + ReportFormat.count((long) continued.addedRounds()) + " rounds ("
+        + ReportFormat.count((long) continued.startingRounds()
+            + continued.addedRounds())
+        + " in all); the curve below counts the added rounds." + loss);
   }
 
   private static String importance(List<TrainingSummary.FeatureImportance> all, String periodUnit) {

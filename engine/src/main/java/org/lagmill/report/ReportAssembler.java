@@ -63,7 +63,10 @@ public final class ReportAssembler {
         : new TrainingSummary.ValidationCurve(largest.validationMetric(), largest.validationCurve(), null,
             largest.bestIteration());
     String dropped = PartitionReport.zeroRowsNotice(trained);
-    return new TrainingSummary(curve, rows, dropped == null ? null : "Training " + dropped + ".");
+    TrainingSummary.Continuation continuation = largest.continued() ? new TrainingSummary.Continuation(
+        largest.continuedFrom(), largest.startingRounds(), largest.addedRounds(), largest.startingValidationLoss())
+        : null;
+    return new TrainingSummary(curve, rows, dropped == null ? null : "Training " + dropped + ".", continuation);
   }
 
   /** Per-level table averaged over the origins, the mean WRMSSE of the model and each baseline, and per origin. */

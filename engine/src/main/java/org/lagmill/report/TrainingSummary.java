@@ -10,16 +10,41 @@ import java.util.List;
  * @param importance features with their total gain and split count, any order; empty when not recorded
  * @param rowNotice what the training did to its rows that changes the model (zero-sales rows dropped and the weight
  *     of those kept), one line, or null when it kept every row as it is
+ * @param continuation what the model continued from, or null when it was boosted from scratch
  */
-public record TrainingSummary(ValidationCurve validation, List<FeatureImportance> importance, String rowNotice) {
+public record TrainingSummary(ValidationCurve validation, List<FeatureImportance> importance, String rowNotice,
+    Continuation continuation) {
 
   public TrainingSummary {
     importance = importance == null ? List.of() : List.copyOf(importance);
   }
 
-  /** A summary of a training that kept every row as it is. */
+  /** A summary of a training that kept every row as it is and boosted from scratch. */
   public TrainingSummary(ValidationCurve validation, List<FeatureImportance> importance) {
-    this(validation, importance, null);
+    this(validation, importance, null, null);
+  }
+
+  /** A summary of a training that boosted from scratch. */
+  public TrainingSummary(ValidationCurve validation, List<FeatureImportance> importance, String rowNotice) {
+    this(validation, importance, rowNotice, null);
+  }
+
+  /**
+   * A model that continued from another one's trees instead of boosting from scratch.
+   *
+   * @param source where the starting model came from (a folder, or the backtest origin that trained it)
+   * @param startingRounds rounds of the starting model, in front of the added ones
+   * @param addedRounds rounds this training added (the validation curve covers those tried)
+   * @param startingValidationLoss the starting model's validation metric, or null when unknown
+   */
+  public record Continuation(String source, int startingRounds, int addedRounds, Double startingValidationLoss) {
+    public Continuation {
+      source = ReportData.requireText(source, "source");
+      if (startingRounds < 0 || addedRounds < 0) {
+        throw new IllegalArgumentException("round counts must be >= 0, got " + startingRounds + " and "
+            + addedRounds);
+      }
+    }
   }
 
   /**

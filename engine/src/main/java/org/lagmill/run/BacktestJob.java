@@ -1,6 +1,7 @@
 package org.lagmill.run;
 
 import java.io.IOException;
+import java.io.UncheckedIOException;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
@@ -10,6 +11,7 @@ import org.lagmill.eval.CombinedBacktestResult;
 import org.lagmill.eval.EvaluationResult;
 import org.lagmill.eval.Evaluator;
 import org.lagmill.eval.Hierarchy;
+import org.lagmill.eval.RollingOriginBacktest;
 import org.lagmill.io.AtomicFiles;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.io.Setting;
@@ -20,6 +22,7 @@ import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreSummary;
+import org.lagmill.training.ModelDirectory;
 import org.lagmill.training.TrainingPlan;
 
 /**
@@ -41,10 +44,24 @@ public final class BacktestJob {
    * @param commandLine shown in the report
    * @param scoringPart where to write this store's additive share of the scores ({@link BacktestScoringPart}), or
    *     null for none; one plan only
+   * @param continueOrigins every origin after the first continues from the previous origin's model instead of
+   *     boosting from scratch; one plan only
+   * @param lastModelDir where to save the last origin's model as a model directory (what a training continues
+   *     from), or null; one plan only
    */
   public record Request(Path storeDir, int originCount, Integer stepPeriods, Long memoryLimitBytes, Path reportDir,
       List<String> shownSeries, MemberPlans members,
-      Function<SalesHistory, Hierarchy> hierarchyOf, String commandLine, Path scoringPart) {}
+      Function<SalesHistory, Hierarchy> hierarchyOf, String commandLine, Path scoringPart, boolean continueOrigins,
+      Path lastModelDir) {
+
+    /** A backtest whose origins boost from scratch and whose models are not kept. */
+    public Request(Path storeDir, int originCount, Integer stepPeriods, Long memoryLimitBytes, Path reportDir,
+        List<String> shownSeries, MemberPlans members, Function<SalesHistory, Hierarchy> hierarchyOf,
+        String commandLine, Path scoringPart) {
+      this(storeDir, originCount, stepPeriods, memoryLimitBytes, reportDir, shownSeries, members, hierarchyOf,
+          commandLine, scoringPart, false, null);
+    }
+  }
 
   /**
    * What the backtest found.
@@ -63,6 +80,9 @@ public final class BacktestJob {
   public static Outcome run(Request request, ProgressListener progress) throws IOException {
     // Refused before the (long) backtest runs, not after it.
     RunReport.checkTarget(request.reportDir());
+    if (request.lastModelDir() != null) {
+      ModelDirectory.checkTarget(request.lastModelDir());
+    }
     ReportData.Builder report = RunReport.start(Setting.shown(Setting.Command.BACKTEST.toString()),
         request.commandLine(),
         request.storeDir().toString());
@@ -81,6 +101,20 @@ public final class BacktestJob {
       if (request.scoringPart() != null && combination) {
         throw new InvalidRequestException(Setting.SCORING_PART + " scores one plan: leave out the members");
       }
+      if ((request.continueOrigins() || request.lastModelDir() != null) && combination) {
+        throw new InvalidRequestException((request.continueOrigins() ? Setting.CONTINUE_ORIGINS
+            : Setting.SAVE_LAST_MODEL) + " works on one plan: combined models (members) can neither continue from an"
+            + " earlier origin nor be saved from a backtest yet; leave out the members");
+      }
+      run.record().configure("continueOrigins", request.continueOrigins());
+      RollingOriginBacktest.OriginModels originModels = new RollingOriginBacktest.OriginModels(
+          request.continueOrigins(), request.lastModelDir() == null ? null : (models, plan, known) -> {
+            try {
+              ModelDirectory.save(models, request.lastModelDir(), known, plan, opened.fingerprint());
+            } catch (IOException e) {
+              throw new UncheckedIOException("cannot save the last origin's model to " + request.lastModelDir(), e);
+            }
+          });
       StoreManifest manifest = opened.manifest();
       BacktestScoringPart.Collector scoringParts = request.scoringPart() == null ? null
           : new BacktestScoringPart.Collector(opened, new Evaluator(opened, hierarchy, first.spec().horizonDays()),
@@ -100,7 +134,7 @@ public final class BacktestJob {
               stage.budget(), progress, combined);
         } else {
           backtest = BacktestRun.run(opened, first, request.originCount(), stepPeriods, hierarchy, stage.budget(),
-              progress, scoringParts);
+              progress, scoringParts, originModels);
         }
         stage.addRows(backtest.result().origins().stream().flatMap(o -> o.partitions().stream())
             .mapToLong(p -> p.trainingRowCount()).sum());
@@ -117,6 +151,9 @@ public final class BacktestJob {
       EvaluationResult scores = backtest.result().origins().get(0).model();
       run.record().result("backtest", written).result("levelsScored", Setting.shown(scores.scoredLevelsLine()))
           .result("fill", opened.manifest().fill());
+      if (request.lastModelDir() != null) {
+        run.record().result("lastModel", request.lastModelDir().toString());
+      }
       run.record().write(request.reportDir());
       return new Outcome(backtest, combined[0], opened.manifest(), html, written);
     }

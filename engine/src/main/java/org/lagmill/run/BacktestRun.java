@@ -56,12 +56,23 @@ public final class BacktestRun {
   public static BacktestRun run(SalesHistory history, TrainingPlan plan, int originCount, int stepDays,
       Hierarchy hierarchy, MemoryBudget budget, ProgressListener progress,
       BacktestScoringPart.Collector scoringParts) {
+    return run(history, plan, originCount, stepDays, hierarchy, budget, progress, scoringParts,
+        RollingOriginBacktest.OriginModels.FROM_SCRATCH);
+  }
+
+  /**
+   * As {@link #run(SalesHistory, TrainingPlan, int, int, Hierarchy, MemoryBudget, ProgressListener,
+   * BacktestScoringPart.Collector)}, doing with each origin's models what {@code originModels} says.
+   */
+  public static BacktestRun run(SalesHistory history, TrainingPlan plan, int originCount, int stepDays,
+      Hierarchy hierarchy, MemoryBudget budget, ProgressListener progress,
+      BacktestScoringPart.Collector scoringParts, RollingOriginBacktest.OriginModels originModels) {
     BacktestSettings settings = new BacktestSettings(originCount, stepDays, plan.spec().horizonDays(),
         DEFAULT_BASELINES, hierarchy, ForecastTable.publishedQuantiles());
     int[] lastOrigin = {-1};
     double[][][] lastForecasts = new double[1][][];
     float[][] lastDispersion = new float[1][];
-    BacktestResult result = RollingOriginBacktest.run(history, plan, settings, budget, progress,
+    BacktestResult result = RollingOriginBacktest.run(history, plan, settings, originModels, budget, progress,
         (origin, point, dispersion) -> {
           lastOrigin[0] = origin;
           lastForecasts[0] = point;

@@ -15,6 +15,7 @@ import org.lagmill.training.ModelDirectory;
 import org.lagmill.training.ModelSet;
 import org.lagmill.training.ModelTraining;
 import org.lagmill.training.PartitionReport;
+import org.lagmill.training.StartingModels;
 import org.lagmill.training.TrainingPlan;
 
 /**
@@ -31,8 +32,17 @@ public final class TrainJob {
    * @param memoryLimitBytes the run's off-heap limit, or {@link org.lagmill.memory.MemoryBudget#UNLIMITED_BYTES}
    * @param members the training plans, once the store's period and the cut are known: one plain plan writes a model
    *     directory, several named members a combination ({@link ModelCombination})
+   * @param continueFrom a model directory to continue from (its trees first, then added rounds) instead of boosting
+   *     from scratch, or null; one plain plan only
    */
-  public record Request(Path storeDir, Path modelDir, LocalDate until, long memoryLimitBytes, MemberPlans members) {}
+  public record Request(Path storeDir, Path modelDir, LocalDate until, long memoryLimitBytes, MemberPlans members,
+      Path continueFrom) {
+
+    /** A training that boosts from scratch. */
+    public Request(Path storeDir, Path modelDir, LocalDate until, long memoryLimitBytes, MemberPlans members) {
+      this(storeDir, modelDir, until, memoryLimitBytes, members, null);
+    }
+  }
 
   /**
    * What was trained.
@@ -52,9 +62,16 @@ public final class TrainJob {
   }
 
   public static Outcome run(Request request, ProgressListener progress) throws Exception {
-    return openMembers(request, (opened, members, run) -> MemberPlans.combined(members)
-        ? trainMembers(request, opened, members, run, progress)
-        : trainOne(request, opened, members.get(0).plan(), run, progress));
+    return openMembers(request, (opened, members, run) -> {
+      if (!MemberPlans.combined(members)) {
+        return trainOne(request, opened, members.get(0).plan(), run, progress);
+      }
+      if (request.continueFrom() != null) {
+        throw new InvalidRequestException(Setting.CONTINUE_FROM + " continues one model: combined models (members)"
+            + " cannot continue yet; leave out the members");
+      }
+      return trainMembers(request, opened, members, run, progress);
+    });
   }
 
   /**
@@ -65,6 +82,10 @@ public final class TrainJob {
    */
   public static <T> T open(Request request, Training<T> training) throws Exception {
     return openMembers(request, (opened, members, run) -> {
+      if (request.continueFrom() != null) {
+        throw new InvalidRequestException(Setting.CONTINUE_FROM + " cannot be combined with " + Setting.MACHINES
+            + " yet: a distributed training boosts from scratch");
+      }
       if (MemberPlans.combined(members)) {
         throw new InvalidRequestException("a distributed training trains one feature spec, got " + members.size()
             + " members; train each member with its own " + Setting.CONFIG);
@@ -98,8 +119,30 @@ public final class TrainJob {
       ProgressListener progress) throws IOException {
     // refused before the training, not after it
     ModelDirectory.checkTarget(request.modelDir());
+    if (request.continueFrom() == null) {
+      return trainOne(request, opened, plan, run, progress, null);
+    }
+    Path from = request.continueFrom();
+    if (ModelCombination.isCombination(from)) {
+      throw new InvalidRequestException(Setting.CONTINUE_FROM + " " + from + " holds combined models (members), "
+          + "which cannot be continued from yet; give a single model's folder");
+    }
+    try (Stage opening = run.stage("open starting model");
+        ModelSet starting = ModelDirectory.open(from, opened)) {
+      opening.close();
+      return trainOne(request, opened, plan.withStartingModels(new StartingModels(starting, from.toString())), run,
+          progress, from);
+    }
+  }
+
+  /** @param continueFrom the folder of the starting models in {@code plan}, or null */
+  private static Outcome trainOne(Request request, SalesStore opened, TrainingPlan plan, Run run,
+      ProgressListener progress, Path continueFrom) throws IOException {
     run.record().configure("store", request.storeDir().toString()).configure("model", request.modelDir().toString())
         .configure("cutDate", opened.dateOf(plan.cutDayIndex()).toString()).configure("plan", plan.toString());
+    if (continueFrom != null) {
+      run.record().configure("continueFrom", continueFrom.toString());
+    }
     Trained trained = trainAndSave(run, "train", "save model", opened, plan, progress,
         models -> ModelDirectory.save(models, request.modelDir(), opened, plan, opened.fingerprint()));
     run.record().result("partitions", trained.reports());

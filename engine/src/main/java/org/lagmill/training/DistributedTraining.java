@@ -111,6 +111,10 @@ public final class DistributedTraining {
           Setting.PARTITION_BY + " cannot be combined with " + Setting.MACHINES + ": a distributed training "
               + "trains one model over every shard");
     }
+    if (plan.startingModels() != null) {
+      throw new InvalidRequestException(Setting.CONTINUE_FROM + " cannot be combined with " + Setting.MACHINES
+          + " yet: a distributed training boosts from scratch");
+    }
     ModelTraining.checkWindows(shard, plan);
     int rank = exchange.rank();
     int rankCount = exchange.rankCount();

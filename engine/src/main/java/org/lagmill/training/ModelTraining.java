@@ -14,6 +14,7 @@ import org.lagmill.learner.FeatureImportance;
 import org.lagmill.learner.TrainParameters;
 import org.lagmill.learner.TrainedModel;
 import org.lagmill.learner.Trainer;
+import org.lagmill.learner.TrainingListener;
 import org.lagmill.learner.TrainingDataset;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.memory.ProcessMemory;
@@ -36,6 +37,9 @@ public final class ModelTraining {
     plan = plan.withSpec(plan.spec().withPlanColumnsResolved(history.plan().columnNames()));
     checkWindows(history, plan);
     Map<String, int[]> partitionSeries = partitionSeries(history, plan.partitionAttribute());
+    if (plan.startingModels() != null) {
+      ContinuationCheck.check(plan, partitionSeries.keySet());
+    }
     float[] weights = plan.salesValueWeights()
         ? SalesValueWeights.compute(history, plan.validationFirstDayIndex()) : null;
     DispersionEstimator dispersion = new DispersionEstimator(history.seriesCount());
@@ -95,6 +99,8 @@ public final class ModelTraining {
                   + trainingRows.droppedZeroRowCount() + " rows with zero sales)" : ""));
     }
     String stage = "all".equals(value) ? "" : " " + value;
+    TrainedModel startingModel = plan.startingModels() == null ? null
+        : ContinuationCheck.startingModel(plan.startingModels(), value);
     DatasetBuilder builder = new DatasetBuilder(budget, plan.datasetParameters());
     long datasetStart = System.nanoTime();
     // The sample pass, the push of every training row, then one push of the validation rows (binned by reference).
@@ -109,23 +115,28 @@ public final class ModelTraining {
     int featureCount;
     ProgressRowStream reportedTrainingRows = new ProgressRowStream(trainingRows, progress);
     long residentAfter;
-    try (TrainingDataset training = builder.build(reportedTrainingRows)) {
+    try (TrainingDataset training = startingModel == null ? builder.build(reportedTrainingRows)
+        : builder.build(reportedTrainingRows, startingModel)) {
       residentAfter = ProcessMemory.residentBytes();
       trainingRowCount = training.rowCount();
       featureCount = training.featureCount();
       try (TrainingDataset validation = validationRowCount > 0
-          ? builder.createValidation(training, reportedTrainingRows.continuedBy(validationRows)) : null) {
+          ? builder.createValidation(training, reportedTrainingRows.continuedBy(validationRows), startingModel)
+          : null) {
         progress.endStage();
         datasetSeconds = (System.nanoTime() - datasetStart) / 1e9;
         long trainStart = System.nanoTime();
         progress.startStage("train" + stage, "iterations", plan.trainParameters().maxRounds());
-        model = new Trainer(plan.trainParameters()).train(training, validation, (iteration, seconds, loss) -> {
+        TrainingListener listener = (iteration, seconds, loss) -> {
           progress.advance(iteration);
           if (iteration % 25 == 0 || iteration == 1) {
             progress.note(String.format(java.util.Locale.ROOT, "iteration %d, validation %s %.5f, %.1f s",
                 iteration, plan.trainParameters().objective().metricName(), loss, seconds));
           }
-        });
+        };
+        Trainer trainer = new Trainer(plan.trainParameters());
+        model = startingModel == null ? trainer.train(training, validation, listener)
+            : trainer.continueFrom(startingModel, training, validation, listener);
         progress.endStage();
         trainSeconds = (System.nanoTime() - trainStart) / 1e9;
       }
@@ -159,7 +170,9 @@ public final class ModelTraining {
           validationCurve, plan.trainParameters().objective().metricName(), importance(trainingRows.schema(), model),
           datasetSeconds, trainSeconds, residentAfter == ProcessMemory.UNAVAILABLE ? 0 : residentAfter - residentBefore,
           ProcessMemory.peakResidentBytes(), pooled, refitRowCount, refitRounds, trainingRows.zeroRowCount(),
-          trainingRows.droppedZeroRowCount(), trainingRows.zeroSampling().zeroRowWeight(), refitDroppedZeroRowCount);
+          trainingRows.droppedZeroRowCount(), trainingRows.zeroSampling().zeroRowWeight(), refitDroppedZeroRowCount,
+          startingModel == null ? null : plan.startingModels().source(), model.startingIterationCount(),
+          Double.isNaN(model.startingValidationLoss()) ? null : model.startingValidationLoss());
       return new ModelSet.Partition(value, seriesIndexes, model, report);
     } catch (RuntimeException | Error e) {
       model.close();

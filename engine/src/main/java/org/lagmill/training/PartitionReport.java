@@ -1,5 +1,6 @@
 package org.lagmill.training;
 
+import com.fasterxml.jackson.annotation.JsonProperty;
 import java.util.List;
 import java.util.Locale;
 
@@ -20,19 +21,51 @@ import java.util.Locale;
  * @param zeroRowWeight the weight factor each kept zero row carried (1 / the kept share; 1 when none was dropped, and
  *     in manifests written before sampling existed)
  * @param refitDroppedZeroRowCount zero rows the refit's sampling dropped from every day up to the cut, 0 without one
+ * @param bestIteration the early-stopped round count; for a continued model the rounds it added to its starting
+ *     model's (0 when none beat the starting model on the validation rows)
+ * @param iterationCount rounds the model holds: {@code startingRounds + bestIteration} (without a refit)
+ * @param continuedFrom where the model this one continued from came from (its folder, or the backtest origin that
+ *     trained it); null for a model boosted from scratch (and in manifests written before continuing existed)
+ * @param startingRounds rounds taken over from that model, in front of the added ones; 0 when not continued
+ * @param startingValidationLoss that model's validation loss on this training's validation rows, which the added
+ *     rounds had to beat; null when not continued or without validation rows
  */
 public record PartitionReport(String partitionValue, String modelFile, int seriesCount, long trainingRowCount,
     long validationRowCount, int featureCount, int bestIteration, int iterationCount, double[] validationCurve,
     String validationMetric, List<FeatureImportanceRow> featureImportance, double datasetSeconds, double trainSeconds,
     long datasetResidentBytes, long peakResidentBytes, double pooledDispersion, long refitRowCount,
     int refitRounds, long zeroRowCount, long droppedZeroRowCount, double zeroRowWeight,
-    long refitDroppedZeroRowCount) {
+    long refitDroppedZeroRowCount, String continuedFrom, int startingRounds, Double startingValidationLoss) {
 
   public PartitionReport {
     if (zeroRowWeight == 0) {
       // absent from a manifest written before zero-row sampling: every row was kept at weight 1
       zeroRowWeight = 1;
     }
+  }
+
+  /** A report of a model boosted from scratch. */
+  public PartitionReport(String partitionValue, String modelFile, int seriesCount, long trainingRowCount,
+      long validationRowCount, int featureCount, int bestIteration, int iterationCount, double[] validationCurve,
+      String validationMetric, List<FeatureImportanceRow> featureImportance, double datasetSeconds,
+      double trainSeconds, long datasetResidentBytes, long peakResidentBytes, double pooledDispersion,
+      long refitRowCount, int refitRounds, long zeroRowCount, long droppedZeroRowCount, double zeroRowWeight,
+      long refitDroppedZeroRowCount) {
+    this(partitionValue, modelFile, seriesCount, trainingRowCount, validationRowCount, featureCount, bestIteration,
+        iterationCount, validationCurve, validationMetric, featureImportance, datasetSeconds, trainSeconds,
+        datasetResidentBytes, peakResidentBytes, pooledDispersion, refitRowCount, refitRounds, zeroRowCount,
+        droppedZeroRowCount, zeroRowWeight, refitDroppedZeroRowCount, null, 0, null);
+  }
+
+  /** Whether this model continued from a starting model instead of boosting from scratch. */
+  public boolean continued() {
+    return continuedFrom != null;
+  }
+
+  /** Rounds this training added: all of them for a model boosted from scratch. Written, never read back. */
+  @JsonProperty(value = "addedRounds", access = JsonProperty.Access.READ_ONLY)
+  public int addedRounds() {
+    return iterationCount - startingRounds;
   }
 
   /** Importance of one feature: total gain of its splits and how many splits use it. */

@@ -22,10 +22,13 @@ import org.lagmill.learner.TrainParameters;
  * @param zeroRowsKept share in (0, 1] of the training rows with zero sales kept (each kept one weighted by its
  *     inverse), chosen by a hash of series, day and the Dataset seed ({@link ZeroRowSampling}); the training rows of
  *     a refit are sampled alike, the validation rows never; 1 keeps every row
+ * @param startingModels models to continue from instead of boosting from scratch (LightGBM's init model), or null:
+ *     each partition's rows start from its starting model's raw scores and the added rounds stop early against that
+ *     model's own validation loss; not owned by the plan
  */
 public record TrainingPlan(FeatureSpec spec, TrainParameters trainParameters, DatasetParameters datasetParameters,
     int cutDayIndex, int validationDays, String partitionAttribute, boolean salesValueWeights, boolean refit,
-    double zeroRowsKept) {
+    double zeroRowsKept, StartingModels startingModels) {
   /**
    * Whether a plan refits on every day unless the user says otherwise: no. On two scenarios shaped differently the
    * early-stopped model forecast the next horizon better than its refit on every day, in every run (mean WRMSSE over
@@ -49,7 +52,15 @@ public record TrainingPlan(FeatureSpec spec, TrainParameters trainParameters, Da
     }
   }
 
-  /** A plan keeping every zero-sales training row. */
+  /** A plan boosting from scratch. */
+  public TrainingPlan(FeatureSpec spec, TrainParameters trainParameters, DatasetParameters datasetParameters,
+      int cutDayIndex, int validationDays, String partitionAttribute, boolean salesValueWeights, boolean refit,
+      double zeroRowsKept) {
+    this(spec, trainParameters, datasetParameters, cutDayIndex, validationDays, partitionAttribute, salesValueWeights,
+        refit, zeroRowsKept, null);
+  }
+
+  /** A plan keeping every zero-sales training row and boosting from scratch. */
   public TrainingPlan(FeatureSpec spec, TrainParameters trainParameters, DatasetParameters datasetParameters,
       int cutDayIndex, int validationDays, String partitionAttribute, boolean salesValueWeights, boolean refit) {
     this(spec, trainParameters, datasetParameters, cutDayIndex, validationDays, partitionAttribute, salesValueWeights,
@@ -73,21 +84,27 @@ public record TrainingPlan(FeatureSpec spec, TrainParameters trainParameters, Da
 
   public TrainingPlan withCutDayIndex(int dayIndex) {
     return new TrainingPlan(spec, trainParameters, datasetParameters, dayIndex, validationDays, partitionAttribute,
-        salesValueWeights, refit, zeroRowsKept);
+        salesValueWeights, refit, zeroRowsKept, startingModels);
   }
 
   public TrainingPlan withSpec(FeatureSpec value) {
     return new TrainingPlan(value, trainParameters, datasetParameters, cutDayIndex, validationDays, partitionAttribute,
-        salesValueWeights, refit, zeroRowsKept);
+        salesValueWeights, refit, zeroRowsKept, startingModels);
   }
 
   public TrainingPlan withRefit(boolean value) {
     return new TrainingPlan(spec, trainParameters, datasetParameters, cutDayIndex, validationDays, partitionAttribute,
-        salesValueWeights, value, zeroRowsKept);
+        salesValueWeights, value, zeroRowsKept, startingModels);
   }
 
   public TrainingPlan withZeroRowsKept(double value) {
     return new TrainingPlan(spec, trainParameters, datasetParameters, cutDayIndex, validationDays, partitionAttribute,
-        salesValueWeights, refit, value);
+        salesValueWeights, refit, value, startingModels);
+  }
+
+  /** This plan continuing from {@code value} (null: from scratch). */
+  public TrainingPlan withStartingModels(StartingModels value) {
+    return new TrainingPlan(spec, trainParameters, datasetParameters, cutDayIndex, validationDays, partitionAttribute,
+        salesValueWeights, refit, zeroRowsKept, value);
   }
 }

@@ -2,7 +2,9 @@
  * From a store and a plan to a trained model set: {@link org.lagmill.training.ModelTraining} trains a
  * {@link org.lagmill.training.ModelSet} as a {@link org.lagmill.training.TrainingPlan} says (one model per partition,
  * early stopping on the last horizon days before the cut, optional sales-value row weights, optionally a hashed share
- * of the zero-sales training rows weighted by its inverse, interval dispersions from those held-out days), and {@link org.lagmill.training.ModelDirectory} saves and opens it.
+ * of the zero-sales training rows weighted by its inverse, interval dispersions from those held-out days, optionally
+ * continuing from {@link org.lagmill.training.StartingModels} instead of boosting from scratch), and
+ * {@link org.lagmill.training.ModelDirectory} saves and opens it.
  *
  * <p>Sits between {@code learner} and {@code forecast}: may depend on {@code memory}, {@code store}, {@code features},
  * {@code learner} and {@code progress}; never on {@code ingest}, {@code forecast}, {@code eval} or {@code report}.
