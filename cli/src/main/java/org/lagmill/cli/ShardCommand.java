@@ -1,14 +1,9 @@
 package org.lagmill.cli;
 
-import java.io.PrintWriter;
 import java.nio.file.Path;
-import java.util.List;
 import java.util.concurrent.Callable;
-import org.lagmill.run.Run;
-import org.lagmill.run.Stage;
+import org.lagmill.run.ShardJob;
 import org.lagmill.store.ShardAssignment;
-import org.lagmill.store.StoreManifest;
-import org.lagmill.store.StoreSharding;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
@@ -47,18 +42,8 @@ final class ShardCommand implements Callable<Integer> {
 
   @Override
   public Integer call() throws Exception {
-    PrintWriter console = spec.commandLine().getOut();
-    try (Run run = Run.start("shard", memoryLimit.bytes());
-        Stage stage = run.stage("shard")) {
-      List<StoreManifest> manifests = StoreSharding.shard(store, parts, by, out, stage.budget());
-      for (StoreManifest manifest : manifests) {
-        console.printf("shard %d of %d: %d series, %d bytes in %s%n", manifest.shard().part(), parts,
-            manifest.seriesCount(), manifest.binaryBytes(),
-            out.resolve(StoreSharding.shardDirectoryName(manifest.shard().part())));
-      }
-      console.printf("split %d series by %s into %d shards, peak off-heap %d bytes%n",
-          manifests.get(0).shard().sourceSeriesCount(), by, parts, stage.budget().peakBytes());
-    }
+    ShardJob.Outcome outcome = ShardJob.run(new ShardJob.Request(store, parts, by, out, memoryLimit.bytes()));
+    ShardPrinter.print(spec.commandLine().getOut(), outcome, by);
     return ExitCodes.OK;
   }
 }
