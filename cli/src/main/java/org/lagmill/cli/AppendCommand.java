@@ -61,8 +61,8 @@ final class AppendCommand implements Callable<Integer> {
   @Mixin
   NoWaitOption noWait;
 
-  @Option(names = "--quiet", description = "print nothing on success, not even warnings")
-  boolean quiet;
+  @Mixin
+  QuietOption quiet;
 
   @Override
   public Integer call() throws Exception {
@@ -72,7 +72,7 @@ final class AppendCommand implements Callable<Integer> {
         .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures)
         .withPlan(plan.source());
     IngestResult result = AppendJob.run(options, noWait.waits());
-    if (!quiet) {
+    if (!quiet.on) {
       IngestPrinter.printAppended(spec.commandLine().getOut(), spec.commandLine().getErr(), result, store);
     }
     return ExitCodes.OK;

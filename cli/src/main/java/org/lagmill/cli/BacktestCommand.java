@@ -45,14 +45,14 @@ final class BacktestCommand implements Callable<Integer> {
   @Mixin
   ShownSeriesOption shown;
 
-  @Option(names = "--json", description = "print the backtest result as JSON")
-  boolean json;
+  @Mixin
+  JsonOption json;
 
   @Mixin
   MemoryLimitOption memoryLimit;
 
-  @Option(names = "--quiet", description = "print nothing but errors (and the JSON with --json)")
-  boolean quiet;
+  @Mixin
+  QuietOption quiet;
 
   @Option(names = "--member", paramLabel = "SPEC[@ATTRIBUTE]", description = "a member of a combined model: a "
       + "feature spec YAML, optionally @ the attribute to partition by (e.g. recursive.yaml@store); repeat it: each "
@@ -86,11 +86,11 @@ final class BacktestCommand implements Callable<Integer> {
         hierarchyOptions::hierarchy,
         "lagmill backtest --store " + store.dir + " --origins " + originCount, scoringPart, continueOrigins,
         lastModelDir),
-        ConsoleProgress.forCommand(quiet));
+        ConsoleProgress.forCommand(quiet.on));
     PrintWriter out = commandSpec.commandLine().getOut();
-    if (json) {
+    if (json.on) {
       out.println(RunRecord.JSON.writeValueAsString(outcome.written()));
-    } else if (!quiet) {
+    } else if (!quiet.on) {
       if (outcome.combined() != null) {
         BacktestPrinter.printMembers(out, outcome.combined());
       }

@@ -6,6 +6,7 @@ import java.util.concurrent.Callable;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.run.DemoJob;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
@@ -37,13 +38,13 @@ final class DemoCommand implements Callable<Integer> {
       + "${DEFAULT-VALUE})")
   long seed;
 
-  @Option(names = "--quiet", description = "print only the summary")
-  boolean quiet;
+  @Mixin
+  QuietOption quiet;
 
   @Override
   public Integer call() throws Exception {
     DemoJob.Outcome outcome = DemoJob.run(new DemoJob.Request(outDir, parseSize(size), seed, "lagmill demo --size "
-        + size), ConsoleProgress.forCommand(quiet), Warnings.to(commandSpec.commandLine().getErr()));
+        + size), ConsoleProgress.forCommand(quiet.on), Warnings.to(commandSpec.commandLine().getErr()));
     DemoPrinter.print(commandSpec.commandLine().getOut(), outcome);
     return ExitCodes.OK;
   }

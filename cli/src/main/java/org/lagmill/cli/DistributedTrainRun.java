@@ -79,7 +79,7 @@ final class DistributedTrainRun {
       DistributedTraining.Result result;
       try {
         result = DistributedTraining.train(shard, plan, exchange, cluster, learner, networkMinutes,
-            trainStage.budget(), ConsoleProgress.forCommand(command.quiet));
+            trainStage.budget(), ConsoleProgress.forCommand(command.quiet.on));
       } catch (RankFailureException e) {
         exchange.fail(e.getMessage());
         trainStage.close();
@@ -111,7 +111,7 @@ final class DistributedTrainRun {
         run.record().result("rank", rank).result("modelSha256", result.modelSha256())
             .result("categoriesPerSplit", binning.categoriesPerSplit())
             .result("categoricalsBinnedAsNumbers", binning.categoricalsBinnedAsNumbers());
-        if (binning.differsFromOneMachine() && rank == 0 && !command.quiet) {
+        if (binning.differsFromOneMachine() && rank == 0 && !command.quiet.on) {
           java.util.List<String> changes = new java.util.ArrayList<>();
           if (binning.categoriesPerSplit() != DistributedBinning.DEFAULT_CATEGORIES_PER_SPLIT) {
             changes.add(String.format(Locale.ROOT, "categorical splits may hold up to %d categories (one machine: %d),"
@@ -125,7 +125,7 @@ final class DistributedTrainRun {
           }
           out.println("distributed binning: " + String.join("; ", changes));
         }
-        if (!command.quiet) {
+        if (!command.quiet.on) {
           out.printf(Locale.ROOT, "rank %d of %d: %,d of %,d training rows here, best iteration %d of %d, validation "
               + "%s over all ranks %.5f, model SHA-256 %s (the same on every rank)%n", rank, cluster.rankCount(),
               result.localTrainingRowCount(), report.trainingRowCount(),

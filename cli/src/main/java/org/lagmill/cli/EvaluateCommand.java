@@ -27,8 +27,8 @@ final class EvaluateCommand implements Callable<Integer> {
   @Option(names = "--forecast", required = true, paramLabel = "FILE", description = "forecast CSV (.gz allowed)")
   Path forecast;
 
-  @Option(names = "--json", description = "print the result as JSON")
-  boolean json;
+  @Mixin
+  JsonOption json;
 
   @Mixin
   ReportOption report;
@@ -45,10 +45,10 @@ final class EvaluateCommand implements Callable<Integer> {
     PrintWriter out = commandSpec.commandLine().getOut();
     EvaluateJob.Outcome outcome = EvaluateJob.run(new EvaluateJob.Request(store, forecast, report.dir, scoringPart,
         hierarchyOptions::hierarchy, "lagmill evaluate --store " + store + " --forecast " + forecast));
-    if (outcome.reportHtml() != null && !json) {
+    if (outcome.reportHtml() != null && !json.on) {
       out.println("report written to " + outcome.reportHtml());
     }
-    if (json) {
+    if (json.on) {
       out.println(RunRecord.JSON.writeValueAsString(EvaluatePrinter.document(outcome)));
     } else {
       EvaluatePrinter.print(out, outcome);

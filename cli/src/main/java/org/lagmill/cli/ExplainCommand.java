@@ -44,8 +44,8 @@ final class ExplainCommand implements Callable<Integer> {
       + "key's last plan values forward (counted in a warning) instead of stopping")
   boolean planCarryForward;
 
-  @Option(names = "--json", description = "print every period's parts as JSON")
-  boolean json;
+  @Mixin
+  JsonOption json;
 
   @Mixin
   HierarchyOptions hierarchyOptions;
@@ -56,7 +56,7 @@ final class ExplainCommand implements Callable<Integer> {
     PrintWriter err = commandSpec.commandLine().getErr();
     List<DriverChart> charts = ExplainJob.run(new ExplainJob.Request(store.dir, model.dir, horizonDays, seriesIds,
         planCarryForward, hierarchyOptions::hierarchy), Warnings.to(err));
-    if (json) {
+    if (json.on) {
       out.println(RunRecord.JSON.writeValueAsString(ExplainPrinter.document(charts)));
     } else {
       ExplainPrinter.print(out, charts);

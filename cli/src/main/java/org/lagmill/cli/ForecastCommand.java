@@ -66,8 +66,8 @@ final class ForecastCommand implements Callable<Integer> {
       "key's last plan values forward (counted in a warning, run.json and the report) instead of stopping"})
   boolean planCarryForward;
 
-  @Option(names = "--quiet", description = "print nothing but errors")
-  boolean quiet;
+  @Mixin
+  QuietOption quiet;
 
   @Mixin
   HierarchyOptions hierarchyOptions;
@@ -87,8 +87,8 @@ final class ForecastCommand implements Callable<Integer> {
         new ForecastJob.Request(store.dir, model.dir, horizonDays, out, intervals,
             wide, report.dir, backtestDir, shown.seriesIds, chosenSeriesIds, conditions, planCarryForward,
             hierarchyOptions::hierarchy, "lagmill forecast --store " + store.dir + " --model " + model.dir),
-        quiet ? Warnings.none() : Warnings.to(err));
-    if (!quiet) {
+        quiet.on ? Warnings.none() : Warnings.to(err));
+    if (!quiet.on) {
       ForecastPrinter.print(commandSpec.commandLine().getOut(), outcome);
     }
     return ExitCodes.OK;

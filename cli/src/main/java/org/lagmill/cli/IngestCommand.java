@@ -69,8 +69,8 @@ final class IngestCommand implements Callable<Integer> {
   @Mixin
   MemoryLimitOption memoryLimit;
 
-  @Option(names = "--quiet", description = "print nothing on success, not even warnings")
-  boolean quiet;
+  @Mixin
+  QuietOption quiet;
 
   @Option(names = "--shard", paramLabel = "K/N", description = {"write only shard K of N (K from 0) straight from",
       "the files: the store lagmill shard --parts N --by ATTR would write as shard-K; needs --by"})
@@ -91,7 +91,7 @@ final class IngestCommand implements Callable<Integer> {
     IngestJob.Outcome outcome = IngestJob.run(new IngestJob.Request(options, shard, by,
         new StoreUpdate.Policy(replace ? StoreUpdate.Mode.REPLACE : StoreUpdate.Mode.CREATE, noWait.waits()),
         memoryLimit.bytes()));
-    if (!quiet) {
+    if (!quiet.on) {
       IngestPrinter.printIngested(spec.commandLine().getOut(), spec.commandLine().getErr(), outcome, store);
     }
     return ExitCodes.OK;

@@ -22,14 +22,14 @@ final class InspectCommand implements Callable<Integer> {
   @Mixin
   StoreOption store;
 
-  @Option(names = "--json", description = "print the summary as JSON")
-  boolean json;
+  @Mixin
+  JsonOption json;
 
   @Override
   public Integer call() throws Exception {
     StoreSummary summary = InspectJob.run(store.dir);
     PrintWriter out = spec.commandLine().getOut();
-    if (json) {
+    if (json.on) {
       InspectPrinter.printJson(out, summary);
     } else {
       InspectPrinter.print(out, store.dir, summary);

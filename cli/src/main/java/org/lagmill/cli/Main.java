@@ -5,6 +5,8 @@ import java.io.UncheckedIOException;
 import java.nio.file.FileSystemException;
 import java.nio.file.InvalidPathException;
 import java.nio.file.NoSuchFileException;
+import java.util.Locale;
+import java.util.ResourceBundle;
 import org.lagmill.ingest.InputFiles;
 import org.lagmill.ingest.InputFormatException;
 import org.lagmill.io.CorruptFileException;
@@ -65,6 +67,8 @@ public final class Main {
     for (Object sub : Subcommands.all()) {
       cli.addSubcommand(sub);
     }
+    // After the subcommands: picocli hands the bundle to every command registered at this moment.
+    cli.setResourceBundle(ResourceBundle.getBundle("org.lagmill.cli.OptionTexts", Locale.ROOT));
     HelpLayout.apply(cli);
     cli.setExecutionExceptionHandler((e, commandLine, parseResult) -> {
       Throwable t = e instanceof UncheckedIOException u ? u.getCause() : e;

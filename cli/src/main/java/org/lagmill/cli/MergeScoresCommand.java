@@ -15,6 +15,7 @@ import org.lagmill.eval.MergedScoring;
 import org.lagmill.eval.ScoringPart;
 import org.lagmill.run.RunRecord;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
@@ -34,8 +35,8 @@ final class MergeScoresCommand implements Callable<Integer> {
   @Parameters(arity = "1..*", paramLabel = "PART", description = "scoring part files, one per shard")
   List<Path> parts;
 
-  @Option(names = "--json", description = "print the result as JSON")
-  boolean json;
+  @Mixin
+  JsonOption json;
 
   @Override
   public Integer call() throws Exception {
@@ -48,7 +49,7 @@ final class MergeScoresCommand implements Callable<Integer> {
       read.add(ScoringPart.read(part));
     }
     EvaluationResult result = MergedScoring.merge(read);
-    if (json) {
+    if (json.on) {
       Map<String, Object> document = new LinkedHashMap<>();
       document.put("forecast", result);
       document.put("partCount", read.size());
@@ -71,7 +72,7 @@ final class MergeScoresCommand implements Callable<Integer> {
     List<EvaluationResult> origins = BacktestScoringPart.merge(read);
     double mean = BacktestScoringPart.meanWrmsse(origins);
     List<ScoringPart> first = read.get(0).origins();
-    if (json) {
+    if (json.on) {
       List<Map<String, Object>> rows = new ArrayList<>();
       for (int k = 0; k < origins.size(); k++) {
         Map<String, Object> row = new LinkedHashMap<>();

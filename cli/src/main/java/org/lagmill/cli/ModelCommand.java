@@ -41,8 +41,8 @@ final class ModelCommand implements Callable<Integer> {
   @Option(names = "--all", description = "list every feature, not only the 20 with the most gain")
   boolean all;
 
-  @Option(names = "--json", description = "print the same as JSON")
-  boolean json;
+  @Mixin
+  JsonOption json;
 
   @Override
   public Integer call() throws Exception {
@@ -51,7 +51,7 @@ final class ModelCommand implements Callable<Integer> {
         .toString());
     List<Map<String, Object>> importance = importance(manifest.partitions());
     PrintWriter out = spec.commandLine().getOut();
-    if (json) {
+    if (json.on) {
       Map<String, Object> document = new LinkedHashMap<>();
       document.put("model", model.dir.toString());
       document.put("createdAt", manifest.createdAt());

@@ -26,14 +26,14 @@ final class SeriesCommand implements Callable<Integer> {
       + "this text (case ignored)")
   String match;
 
-  @Option(names = "--json", description = "print a JSON array: each series' id and attributes")
-  boolean json;
+  @Mixin
+  JsonOption json;
 
   @Override
   public Integer call() throws Exception {
     SeriesJob.Listing listing = SeriesJob.run(store.dir, match);
     PrintWriter out = spec.commandLine().getOut();
-    if (json) {
+    if (json.on) {
       SeriesPrinter.printJson(out, listing);
     } else {
       SeriesPrinter.print(out, spec.commandLine().getErr(), listing, match);

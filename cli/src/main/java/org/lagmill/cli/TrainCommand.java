@@ -43,8 +43,8 @@ final class TrainCommand implements Callable<Integer> {
   @Mixin
   MemoryLimitOption memoryLimit;
 
-  @Option(names = "--quiet", description = "print nothing but errors")
-  boolean quiet;
+  @Mixin
+  QuietOption quiet;
 
   @Mixin
   TrainingOptions training;
@@ -92,7 +92,7 @@ final class TrainCommand implements Callable<Integer> {
       }
       BacktestChoice choice = BacktestChoice.read(fromBacktest);
       memberArgs = choice.memberNames();
-      if (!quiet) {
+      if (!quiet.on) {
         commandSpec.commandLine().getOut().printf(Locale.ROOT, "the backtest in %s chose %s (mean WRMSSE %.4f): "
             + "training %s%n", fromBacktest, choice.chosenName(), choice.meanWrmsse(), String.join(", ", memberArgs));
       }
@@ -105,8 +105,8 @@ final class TrainCommand implements Callable<Integer> {
     if (machines != null || rank != null) {
       return TrainJob.open(request, (opened, plan, run) -> DistributedTrainRun.run(this, opened, plan, run));
     }
-    TrainJob.Outcome outcome = TrainJob.run(request, ConsoleProgress.forCommand(quiet));
-    if (!quiet) {
+    TrainJob.Outcome outcome = TrainJob.run(request, ConsoleProgress.forCommand(quiet.on));
+    if (!quiet.on) {
       TrainPrinter.print(commandSpec.commandLine().getOut(), outcome);
     }
     return ExitCodes.OK;

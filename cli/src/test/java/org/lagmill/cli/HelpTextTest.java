@@ -1,12 +1,15 @@
 package org.lagmill.cli;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertNotNull;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.HashSet;
 import java.util.List;
+import java.util.Locale;
+import java.util.ResourceBundle;
 import java.util.Set;
 import org.junit.jupiter.api.Test;
 import picocli.CommandLine;
@@ -52,6 +55,24 @@ class HelpTextTest {
         }
       }
     }
+  }
+
+  @Test
+  void shouldShowEveryCommandsOwnTextOfASharedOption() {
+    ResourceBundle texts = ResourceBundle.getBundle("org.lagmill.cli.OptionTexts", Locale.ROOT);
+    CommandLine root = Main.commandLine();
+    for (String key : texts.keySet()) {
+      // lagmill.COMMAND.OPTION: a key naming no command or option would leave the option's own text in place unseen
+      String[] parts = key.split("\\.");
+      assertEquals(3, parts.length, key);
+      CommandLine command = root.getSubcommands().get(parts[1]);
+      assertNotNull(command, key);
+      OptionSpec option = command.getCommandSpec().findOption("--" + parts[2]);
+      assertNotNull(option, key);
+      assertEquals(texts.getString(key), String.join(" ", option.description()), key);
+    }
+    assertEquals("print nothing but errors", String.join(" ",
+        root.getSubcommands().get("train").getCommandSpec().findOption("--quiet").description()));
   }
 
   @Test
