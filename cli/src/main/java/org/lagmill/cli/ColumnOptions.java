@@ -5,6 +5,7 @@ import java.util.Map;
 import org.lagmill.ingest.CalendarFileReader;
 import org.lagmill.ingest.ClosuresFileReader;
 import org.lagmill.ingest.ColumnNames;
+import org.lagmill.ingest.ColumnNames.Column;
 import org.lagmill.ingest.KeyColumns;
 import org.lagmill.ingest.LongSalesReader;
 import org.lagmill.ingest.PriceFileReader;
@@ -75,15 +76,15 @@ final class ColumnOptions {
   Map<String, String> closuresKeyColumns = new LinkedHashMap<>();
 
   ColumnNames names() {
-    ColumnNames names = ColumnNames.DEFAULTS.withSeriesIdColumn(seriesIdColumn).withDateColumn(dateColumn)
-        .withFromColumn(fromColumn).withPriceColumn(priceColumn).withUnitsColumn(unitsColumn)
-        .withClosuresColumns(closuresFromColumn, closuresUntilColumn)
+    ColumnNames names = ColumnNames.DEFAULTS.with(Column.SERIES_ID, seriesIdColumn).withDateColumn(dateColumn)
+        .with(Column.PRICES_FROM, fromColumn).with(Column.PRICE, priceColumn).with(Column.UNITS, unitsColumn)
+        .with(Column.CLOSURES_FROM, closuresFromColumn).with(Column.CLOSURES_UNTIL, closuresUntilColumn)
         .withKeyColumns(new KeyColumns(pricesKeyColumns, planKeyColumns, closuresKeyColumns));
     if (salesDateColumn != null) {
-      names = names.withSalesDateColumn(salesDateColumn);
+      names = names.with(Column.SALES_DATE, salesDateColumn);
     }
     if (calendarDateColumn != null) {
-      names = names.withCalendarDateColumn(calendarDateColumn);
+      names = names.with(Column.CALENDAR_DATE, calendarDateColumn);
     }
     return names;
   }

@@ -1,5 +1,6 @@
 package org.lagmill.ingest;
 
+import java.util.Arrays;
 import java.util.Objects;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.io.Setting;
@@ -24,87 +25,76 @@ import org.lagmill.store.SeriesIdentity;
 public record ColumnNames(String seriesIdColumn, String dateColumn, String unitsColumn, String fromColumn,
     String priceColumn, String calendarDateColumn, String closuresFromColumn, String closuresUntilColumn,
     KeyColumns keyColumns) {
-  /** The documented defaults: series_id, date, units, from, price, and from, until for closures. */
-  public static final ColumnNames DEFAULTS = new ColumnNames(SeriesIdentity.SERIES_ID,
-      CalendarFileReader.DEFAULT_DATE_COLUMN, LongSalesReader.DEFAULT_UNITS_COLUMN,
-      PriceFileReader.DEFAULT_FROM_COLUMN, PriceFileReader.DEFAULT_PRICE_COLUMN,
-      CalendarFileReader.DEFAULT_DATE_COLUMN, ClosuresFileReader.DEFAULT_FROM_COLUMN,
-      ClosuresFileReader.DEFAULT_UNTIL_COLUMN, KeyColumns.NONE);
+  /**
+   * Each renamable column: the setting that renames it and its documented default, in the order of the record's
+   * components.
+   */
+  public enum Column {
+    SERIES_ID(Setting.SERIES_ID_COLUMN, SeriesIdentity.SERIES_ID),
+    SALES_DATE(Setting.DATE_COLUMN, CalendarFileReader.DEFAULT_DATE_COLUMN),
+    UNITS(Setting.UNITS_COLUMN, LongSalesReader.DEFAULT_UNITS_COLUMN),
+    PRICES_FROM(Setting.PRICES_FROM_COLUMN, PriceFileReader.DEFAULT_FROM_COLUMN),
+    PRICE(Setting.PRICES_PRICE_COLUMN, PriceFileReader.DEFAULT_PRICE_COLUMN),
+    CALENDAR_DATE(Setting.CALENDAR_DATE_COLUMN, CalendarFileReader.DEFAULT_DATE_COLUMN),
+    CLOSURES_FROM(Setting.CLOSURES_FROM_COLUMN, ClosuresFileReader.DEFAULT_FROM_COLUMN),
+    CLOSURES_UNTIL(Setting.CLOSURES_UNTIL_COLUMN, ClosuresFileReader.DEFAULT_UNTIL_COLUMN);
 
-  /** The six columns of sales, calendar and prices, with the closures' default columns. */
-  public ColumnNames(String seriesIdColumn, String dateColumn, String unitsColumn, String fromColumn,
-      String priceColumn, String calendarDateColumn) {
-    this(seriesIdColumn, dateColumn, unitsColumn, fromColumn, priceColumn, calendarDateColumn,
-        ClosuresFileReader.DEFAULT_FROM_COLUMN, ClosuresFileReader.DEFAULT_UNTIL_COLUMN, KeyColumns.NONE);
+    private final Setting setting;
+    private final String defaultName;
+
+    Column(Setting setting, String defaultName) {
+      this.setting = setting;
+      this.defaultName = defaultName;
+    }
   }
 
+  /** The documented defaults: series_id, date, units, from, price, and from, until for closures. */
+  public static final ColumnNames DEFAULTS = of(Arrays.stream(Column.values()).map(c -> c.defaultName)
+      .toArray(String[]::new), KeyColumns.NONE);
+
   public ColumnNames {
-    requireName(seriesIdColumn, Setting.SERIES_ID_COLUMN.toString(), SeriesIdentity.SERIES_ID);
-    requireName(dateColumn, Setting.DATE_COLUMN.toString(), CalendarFileReader.DEFAULT_DATE_COLUMN);
-    requireName(unitsColumn, Setting.UNITS_COLUMN.toString(), LongSalesReader.DEFAULT_UNITS_COLUMN);
-    requireName(fromColumn, Setting.PRICES_FROM_COLUMN.toString(), PriceFileReader.DEFAULT_FROM_COLUMN);
-    requireName(priceColumn, Setting.PRICES_PRICE_COLUMN.toString(), PriceFileReader.DEFAULT_PRICE_COLUMN);
-    requireName(calendarDateColumn, Setting.CALENDAR_DATE_COLUMN.toString(), CalendarFileReader.DEFAULT_DATE_COLUMN);
-    requireName(closuresFromColumn, Setting.CLOSURES_FROM_COLUMN.toString(), ClosuresFileReader.DEFAULT_FROM_COLUMN);
-    requireName(closuresUntilColumn, Setting.CLOSURES_UNTIL_COLUMN.toString(), ClosuresFileReader.DEFAULT_UNTIL_COLUMN);
+    String[] names = {seriesIdColumn, dateColumn, unitsColumn, fromColumn, priceColumn, calendarDateColumn,
+        closuresFromColumn, closuresUntilColumn};
+    for (Column column : Column.values()) {
+      requireName(names[column.ordinal()], column.setting, column.defaultName);
+    }
     Objects.requireNonNull(keyColumns, "keyColumns");
   }
 
-  private static void requireName(String name, String option, String defaultName) {
-    Objects.requireNonNull(name, option);
+  /**
+   * A column name as every input file's options need it: not null, not empty.
+   *
+   * @throws InvalidRequestException for an empty name, naming the setting and its default
+   */
+  static void requireName(String name, Setting setting, String defaultName) {
+    Objects.requireNonNull(name, setting.toString());
     if (name.isEmpty()) {
-      throw new InvalidRequestException(option + " must name a column, got an empty name; the default is "
+      throw new InvalidRequestException(setting + " must name a column, got an empty name; the default is "
           + defaultName);
     }
   }
 
-  public ColumnNames withSeriesIdColumn(String name) {
-    return new ColumnNames(name, dateColumn, unitsColumn, fromColumn, priceColumn, calendarDateColumn,
-        closuresFromColumn, closuresUntilColumn, keyColumns);
+  /** These names with {@code column} named {@code name}. */
+  public ColumnNames with(Column column, String name) {
+    String[] names = {seriesIdColumn, dateColumn, unitsColumn, fromColumn, priceColumn, calendarDateColumn,
+        closuresFromColumn, closuresUntilColumn};
+    names[column.ordinal()] = name;
+    return of(names, keyColumns);
   }
 
   /** The date column of long sales and of the calendar at once ({@code --date-column}). */
   public ColumnNames withDateColumn(String name) {
-    return new ColumnNames(seriesIdColumn, name, unitsColumn, fromColumn, priceColumn, name,
-        closuresFromColumn, closuresUntilColumn, keyColumns);
-  }
-
-  /** The date column of long sales only. */
-  public ColumnNames withSalesDateColumn(String name) {
-    return new ColumnNames(seriesIdColumn, name, unitsColumn, fromColumn, priceColumn, calendarDateColumn,
-        closuresFromColumn, closuresUntilColumn, keyColumns);
-  }
-
-  /** The date column of the calendar only. */
-  public ColumnNames withCalendarDateColumn(String name) {
-    return new ColumnNames(seriesIdColumn, dateColumn, unitsColumn, fromColumn, priceColumn, name,
-        closuresFromColumn, closuresUntilColumn, keyColumns);
-  }
-
-  public ColumnNames withUnitsColumn(String name) {
-    return new ColumnNames(seriesIdColumn, dateColumn, name, fromColumn, priceColumn, calendarDateColumn,
-        closuresFromColumn, closuresUntilColumn, keyColumns);
-  }
-
-  public ColumnNames withFromColumn(String name) {
-    return new ColumnNames(seriesIdColumn, dateColumn, unitsColumn, name, priceColumn, calendarDateColumn,
-        closuresFromColumn, closuresUntilColumn, keyColumns);
-  }
-
-  public ColumnNames withPriceColumn(String name) {
-    return new ColumnNames(seriesIdColumn, dateColumn, unitsColumn, fromColumn, name, calendarDateColumn,
-        closuresFromColumn, closuresUntilColumn, keyColumns);
-  }
-
-  /** The date columns of closures: first and last closed date. */
-  public ColumnNames withClosuresColumns(String fromName, String untilName) {
-    return new ColumnNames(seriesIdColumn, dateColumn, unitsColumn, fromColumn, priceColumn, calendarDateColumn,
-        fromName, untilName, keyColumns);
+    return with(Column.SALES_DATE, name).with(Column.CALENDAR_DATE, name);
   }
 
   /** Key columns of the prices, plan and closures files named otherwise than the attributes. */
   public ColumnNames withKeyColumns(KeyColumns value) {
     return new ColumnNames(seriesIdColumn, dateColumn, unitsColumn, fromColumn, priceColumn, calendarDateColumn,
         closuresFromColumn, closuresUntilColumn, value);
+  }
+
+  private static ColumnNames of(String[] names, KeyColumns keyColumns) {
+    return new ColumnNames(names[0], names[1], names[2], names[3], names[4], names[5], names[6], names[7],
+        keyColumns);
   }
 }

@@ -70,10 +70,6 @@ public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, 
     return columns.seriesIdColumn();
   }
 
-  public IngestOptions withSeriesIdColumn(String column) {
-    return withColumns(columns.withSeriesIdColumn(column));
-  }
-
   public IngestOptions withColumns(ColumnNames names) {
     return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, names, salesFormat, calendarSource,
         pricesSource, missingRows, closuresFile, plan, periodDays);

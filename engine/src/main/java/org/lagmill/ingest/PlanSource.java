@@ -15,8 +15,8 @@ import org.lagmill.io.Setting;
 public record PlanSource(Path file, String dateColumn, String fromColumn) {
   public PlanSource {
     Objects.requireNonNull(file, "file");
-    requireName(dateColumn, Setting.PLAN_DATE_COLUMN.toString(), PlanFileReader.DEFAULT_DATE_COLUMN);
-    requireName(fromColumn, Setting.PLAN_FROM_COLUMN.toString(), PlanFileReader.DEFAULT_FROM_COLUMN);
+    ColumnNames.requireName(dateColumn, Setting.PLAN_DATE_COLUMN, PlanFileReader.DEFAULT_DATE_COLUMN);
+    ColumnNames.requireName(fromColumn, Setting.PLAN_FROM_COLUMN, PlanFileReader.DEFAULT_FROM_COLUMN);
     if (dateColumn.equals(fromColumn)) {
       throw new InvalidRequestException(Setting.PLAN_DATE_COLUMN + " and " + Setting.PLAN_FROM_COLUMN
           + " both name '" + dateColumn
@@ -27,13 +27,5 @@ public record PlanSource(Path file, String dateColumn, String fromColumn) {
   /** A plan file with the default column names {@code date} and {@code from}. */
   public static PlanSource of(Path file) {
     return new PlanSource(file, PlanFileReader.DEFAULT_DATE_COLUMN, PlanFileReader.DEFAULT_FROM_COLUMN);
-  }
-
-  private static void requireName(String name, String option, String defaultName) {
-    Objects.requireNonNull(name, option);
-    if (name.isEmpty()) {
-      throw new InvalidRequestException(option + " must name a column, got an empty name; the default is "
-          + defaultName);
-    }
   }
 }

@@ -8,6 +8,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.HashSet;
 import java.util.List;
+import org.lagmill.ingest.ColumnNames.Column;
 import org.lagmill.io.Excerpts;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.io.Setting;
@@ -43,7 +44,7 @@ public final class StoreAppend {
   public static StoreManifest append(Path storeDir, Path salesFile, String seriesIdColumn, MemoryBudget budget)
       throws IOException {
     AppendOptions options = AppendOptions.of(storeDir, salesFile)
-        .withColumns(ColumnNames.DEFAULTS.withSeriesIdColumn(seriesIdColumn));
+        .withColumns(ColumnNames.DEFAULTS.with(Column.SERIES_ID, seriesIdColumn));
     return append(options, budget).manifest();
   }
 

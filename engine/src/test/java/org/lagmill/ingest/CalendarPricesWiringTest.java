@@ -13,6 +13,7 @@ import java.util.Map;
 import java.util.TreeMap;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.ingest.ColumnNames.Column;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.DayCalendar;
 import org.lagmill.store.SalesStore;
@@ -95,7 +96,8 @@ class CalendarPricesWiringTest {
       assertEquals(zero + ", line 4, column 4: price '0': expected a decimal number > 0", e.getMessage());
       Path renamed = temp.resolve("prices.csv");
       e = assertThrows(InputFormatException.class, () -> StoreIngest.ingest(IngestOptions.of(sales,
-          temp.resolve("store")).withPricesFile(renamed).withColumns(ColumnNames.DEFAULTS.withFromColumn("start")),
+          temp.resolve("store")).withPricesFile(renamed)
+          .withColumns(ColumnNames.DEFAULTS.with(Column.PRICES_FROM, "start")),
           budget));
       assertEquals(renamed + ", line 1: no column 'start' in header item,store,from,price: expected one (or name it "
           + "with ‹prices-from-column›)", e.getMessage());
@@ -131,7 +133,7 @@ class CalendarPricesWiringTest {
           """);
       IngestResult result = StoreAppend.append(AppendOptions.of(temp.resolve("store"), next)
           .withCalendarFile(calendar).withPricesFile(prices)
-          .withColumns(ColumnNames.DEFAULTS.withFromColumn("start")), budget);
+          .withColumns(ColumnNames.DEFAULTS.with(Column.PRICES_FROM, "start")), budget);
       // Unknown: oat_bar 03-03; tea_tin, not in the file, its 2 new days; jam_jar, new, its 3 earlier days and 03-05.
       assertEquals(List.of("2 price rows for unknown keys skipped (first: item=fig_pot, store=south_1)",
           "7 of 15 item-days (46.7 %) are unknown and are left out of training and scores; if they are days with no "

@@ -11,6 +11,7 @@ import java.nio.file.Path;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.ingest.ColumnNames.Column;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SalesStore;
@@ -143,7 +144,7 @@ class ClosuresIngestTest {
         + "s2,2025-03-01,2025-03-01\n");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       IngestResult result = StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store")).withClosuresFile(closures)
-          .withColumns(ColumnNames.DEFAULTS.withSalesDateColumn("day").withUnitsColumn("qty")), budget);
+          .withColumns(ColumnNames.DEFAULTS.with(Column.SALES_DATE, "day").with(Column.UNITS, "qty")), budget);
       assertEquals(new StoreManifest.Fill(5, 0, 5), result.manifest().fill());
       assertTrue(result.warnings().get(0).startsWith("read 5 item-days with no row in the long sales as zero sales"),
           result.warnings().toString());

@@ -14,6 +14,7 @@ import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.TestSeeds;
+import org.lagmill.ingest.ColumnNames.Column;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.StoreManifest;
@@ -75,7 +76,7 @@ class LongAppendTest {
           + first.plusDays((long) closedPeriod * periodDays) + "," + first.plusDays((long) closedPeriod * periodDays
               + periodDays - 1)
           + "\n");
-      ColumnNames columns = ColumnNames.DEFAULTS.withSalesDateColumn("day").withUnitsColumn("qty");
+      ColumnNames columns = ColumnNames.DEFAULTS.with(Column.SALES_DATE, "day").with(Column.UNITS, "qty");
       MissingRows policy = zero ? MissingRows.ZERO : MissingRows.UNKNOWN;
       try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
         IngestResult reference = StoreIngest.ingest(IngestOptions.of(whole, temp.resolve("whole" + round))
@@ -114,7 +115,7 @@ class LongAppendTest {
     Path overlap = Files.writeString(temp.resolve("next.csv"), "sku,shop,day,qty\nA,s1,2025-03-05,2\n"
         + "B,s1,2025-03-03,4\n");
     Path other = Files.writeString(temp.resolve("other.csv"), "sku,store,day,qty\nA,s1,2025-03-05,2\n");
-    ColumnNames columns = ColumnNames.DEFAULTS.withSalesDateColumn("day").withUnitsColumn("qty");
+    ColumnNames columns = ColumnNames.DEFAULTS.with(Column.SALES_DATE, "day").with(Column.UNITS, "qty");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store")).withColumns(columns), budget);
       InputFormatException e = assertThrows(InputFormatException.class, () -> StoreAppend.append(

@@ -13,6 +13,7 @@ import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.TestSeeds;
+import org.lagmill.ingest.ColumnNames.Column;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.RandomStoreData;
 import org.lagmill.store.SalesHistory;
@@ -64,7 +65,8 @@ class LongSalesIngestTest {
     Path wide = temp.resolve("wide.csv");
     Files.writeString(wide, WideCsv.of(RandomStoreData.ATTRIBUTE_NAMES, data.attributeValues,
         RandomStoreData.FIRST_DATE, data.units, 0, data.dayCount));
-    ColumnNames names = ColumnNames.DEFAULTS.withSeriesIdColumn("sku").withDateColumn("day").withUnitsColumn("qty");
+    ColumnNames names = ColumnNames.DEFAULTS.with(Column.SERIES_ID, "sku").withDateColumn("day").with(Column.UNITS,
+        "qty");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       InputFormatException e = assertThrows(InputFormatException.class,
           () -> StoreIngest.ingest(IngestOptions.of(longFile, temp.resolve("bad")), budget));

@@ -13,6 +13,7 @@ import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.TestSeeds;
+import org.lagmill.ingest.ColumnNames.Column;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SalesStore;
@@ -104,7 +105,7 @@ class MissingRowsIngestTest {
     Files.writeString(calendar, "date,holiday\n2025-01-01,1\n2025-01-02,0\n2025-01-03,0\n");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       IngestResult result = StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("s"))
-          .withColumns(ColumnNames.DEFAULTS.withSalesDateColumn("day")).withCalendarFile(calendar), budget);
+          .withColumns(ColumnNames.DEFAULTS.with(Column.SALES_DATE, "day")).withCalendarFile(calendar), budget);
       // B has no row before its first one (unknown) and none on 01-03 (zero); A none on 01-02 (zero).
       assertEquals(new StoreManifest.Fill(2, 1, 0), result.manifest().fill());
       try (SalesStore store = SalesStore.open(temp.resolve("s"), budget)) {

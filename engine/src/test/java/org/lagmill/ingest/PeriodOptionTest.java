@@ -8,6 +8,7 @@ import java.nio.file.Path;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.ingest.ColumnNames.Column;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.Periods;
 import org.lagmill.store.SalesStore;
@@ -31,7 +32,7 @@ class PeriodOptionTest {
   @TempDir
   Path temp;
 
-  private final ColumnNames columns = ColumnNames.DEFAULTS.withSalesDateColumn("day").withUnitsColumn("qty");
+  private final ColumnNames columns = ColumnNames.DEFAULTS.with(Column.SALES_DATE, "day").with(Column.UNITS, "qty");
 
   @Test
   void shouldSayWhichPeriodItDetectedAndWarnOnAnUnusualOne() throws Exception {

@@ -10,6 +10,7 @@ import java.nio.file.Path;
 import java.time.LocalDate;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.ingest.ColumnNames.Column;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.StoreGenerations;
@@ -116,7 +117,7 @@ class WeeklyStoreTest {
         """);
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store"))
-          .withColumns(ColumnNames.DEFAULTS.withDateColumn("week").withUnitsColumn("qty")), budget);
+          .withColumns(ColumnNames.DEFAULTS.withDateColumn("week").with(Column.UNITS, "qty")), budget);
       try (SalesStore store = SalesStore.open(temp.resolve("store"), budget)) {
         assertEquals(7, store.periodDays());
         assertEquals(4, store.dayCount());
