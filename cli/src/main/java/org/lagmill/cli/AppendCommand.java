@@ -47,13 +47,7 @@ final class AppendCommand implements Callable<Integer> {
   Path closures;
 
   @Mixin
-  ColumnOptions columns;
-
-  @Mixin
-  SalesShapeOptions shape;
-
-  @Mixin
-  PlanOptions plan;
+  InputOptions input;
 
   @Mixin
   DateWindowOption dateWindow;
@@ -67,10 +61,7 @@ final class AppendCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     dateWindow.apply();
-    AppendOptions options = AppendOptions.of(store, sales).withColumns(columns.names())
-        .withSalesFormat(shape.format()).withMissingRows(shape.missingRows())
-        .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures)
-        .withPlan(plan.source());
+    AppendOptions options = new AppendOptions(store, input.inputs(sales, calendar, prices, closures));
     IngestResult result = AppendJob.run(options, noWait.waits());
     if (!quiet.on) {
       IngestPrinter.printAppended(spec.commandLine().getOut(), spec.commandLine().getErr(), result, store);

@@ -50,13 +50,7 @@ final class IngestCommand implements Callable<Integer> {
   Path closures;
 
   @Mixin
-  ColumnOptions columns;
-
-  @Mixin
-  SalesShapeOptions shape;
-
-  @Mixin
-  PlanOptions plan;
+  InputOptions input;
 
   @Option(names = "--period", paramLabel = "PERIOD", description = {"the store's period: day, week or a number of",
       "days; checked against the sales dates (default: detected, from the most common gap between long sales'",
@@ -83,11 +77,8 @@ final class IngestCommand implements Callable<Integer> {
   @Override
   public Integer call() throws Exception {
     dateWindow.apply();
-    IngestOptions options = IngestOptions.of(sales, store)
-        .withColumns(columns.names())
-        .withSalesFormat(shape.format()).withMissingRows(shape.missingRows())
-        .withCalendarFile(calendar).withPricesFile(prices).withClosuresFile(closures)
-        .withPlan(plan.source()).withPeriodDays(period == null ? null : Periods.parse("--period", period));
+    IngestOptions options = IngestOptions.of(input.inputs(sales, calendar, prices, closures), store)
+        .withPeriodDays(period == null ? null : Periods.parse("--period", period));
     IngestJob.Outcome outcome = IngestJob.run(new IngestJob.Request(options, shard, by,
         new StoreUpdate.Policy(replace ? StoreUpdate.Mode.REPLACE : StoreUpdate.Mode.CREATE, noWait.waits()),
         memoryLimit.bytes()));

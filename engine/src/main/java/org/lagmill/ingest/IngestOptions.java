@@ -11,35 +11,32 @@ import org.lagmill.store.SeriesAttributes;
 /**
  * What {@link StoreIngest} reads and where it writes.
  *
- * @param salesFile the sales CSV, wide or long (optionally {@code .gz})
- * @param calendarFile optional calendar CSV, or null; read with {@link CalendarFileReader} unless a calendar source is
- *     given
- * @param pricesFile optional prices CSV, or null; read with {@link PriceFileReader} unless a prices source is given
+ * @param inputs the sales file (required) and the optional calendar, prices, closures and plan files, with the
+ *     column names and the sales format; the calendar and prices files are read with {@link CalendarFileReader} and
+ *     {@link PriceFileReader} unless a source is given
  * @param storeDir the store directory to create or replace
- * @param columns the column names the readers look for
- * @param salesFormat wide, long, or auto (decided from the sales file's header)
- * @param calendarSource builds the calendar from the finished list of series, or null; takes precedence over
- *     {@code calendarFile} (which is then only recorded as a source)
+ * @param calendarSource builds the calendar from the finished list of series, or null; takes precedence over the
+ *     calendar file (which is then only recorded as a source)
  * @param pricesSource builds the price table (indexed by series) from the finished list of series, or null; takes
- *     precedence over {@code pricesFile}
- * @param missingRows what a day with no row means in long sales (ignored for wide sales, whose empty cells are
- *     unknown)
+ *     precedence over the prices file
  * @param periodDays the period given with {@code --period} (checked against the dates), or null to detect it
- * @param closuresFile optional closures CSV (days on which series could not sell), or null
- * @param plan optional plan file (known-future drivers) with its column names, or null
  */
-public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, Path storeDir, ColumnNames columns,
-    SalesFormat salesFormat, Function<SeriesAttributes, DayCalendar> calendarSource,
-    Function<SeriesAttributes, PriceTable> pricesSource, MissingRows missingRows, Path closuresFile,
-    PlanSource plan, Integer periodDays) {
+public record IngestOptions(SalesInputs inputs, Path storeDir, Function<SeriesAttributes, DayCalendar> calendarSource,
+    Function<SeriesAttributes, PriceTable> pricesSource, Integer periodDays) {
+  public IngestOptions {
+    Objects.requireNonNull(inputs, "inputs");
+    Objects.requireNonNull(inputs.salesFile(), "salesFile");
+    Objects.requireNonNull(storeDir, "storeDir");
+  }
 
-  /** Period detected from the sales file. */
-  public IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, Path storeDir, ColumnNames columns,
-      SalesFormat salesFormat, Function<SeriesAttributes, DayCalendar> calendarSource,
-      Function<SeriesAttributes, PriceTable> pricesSource, MissingRows missingRows, Path closuresFile,
-      PlanSource plan) {
-    this(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, calendarSource, pricesSource,
-        missingRows, closuresFile, plan, null);
+  /** These inputs, the period detected from the sales file. */
+  public static IngestOptions of(SalesInputs inputs, Path storeDir) {
+    return new IngestOptions(inputs, storeDir, null, null, null);
+  }
+
+  /** Sales only, default column names, format decided from the header. */
+  public static IngestOptions of(Path salesFile, Path storeDir) {
+    return of(SalesInputs.of(salesFile), storeDir);
   }
 
   /**
@@ -47,63 +44,8 @@ public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, 
    * from them.
    */
   public IngestOptions withPeriodDays(Integer days) {
-    return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, calendarSource,
-        pricesSource, missingRows, closuresFile, plan, days == null ? null : Periods.requireValid(days));
-  }
-
-  public IngestOptions {
-    Objects.requireNonNull(salesFile, "salesFile");
-    Objects.requireNonNull(storeDir, "storeDir");
-    Objects.requireNonNull(columns, "columns");
-    Objects.requireNonNull(salesFormat, "salesFormat");
-    Objects.requireNonNull(missingRows, "missingRows");
-  }
-
-  /** Sales only, default column names, format decided from the header. */
-  public static IngestOptions of(Path salesFile, Path storeDir) {
-    return new IngestOptions(salesFile, null, null, storeDir, ColumnNames.DEFAULTS, SalesFormat.AUTO, null, null,
-        MissingRows.DEFAULT, null, null);
-  }
-
-  /** The column naming each series ({@code --series-id-column}). */
-  public String seriesIdColumn() {
-    return columns.seriesIdColumn();
-  }
-
-  public IngestOptions withColumns(ColumnNames names) {
-    return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, names, salesFormat, calendarSource,
-        pricesSource, missingRows, closuresFile, plan, periodDays);
-  }
-
-  public IngestOptions withSalesFormat(SalesFormat format) {
-    return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, format, calendarSource,
-        pricesSource, missingRows, closuresFile, plan, periodDays);
-  }
-
-  public IngestOptions withCalendarFile(Path file) {
-    return new IngestOptions(salesFile, file, pricesFile, storeDir, columns, salesFormat, calendarSource,
-        pricesSource, missingRows, closuresFile, plan, periodDays);
-  }
-
-  public IngestOptions withPricesFile(Path file) {
-    return new IngestOptions(salesFile, calendarFile, file, storeDir, columns, salesFormat, calendarSource,
-        pricesSource, missingRows, closuresFile, plan, periodDays);
-  }
-
-  public IngestOptions withClosuresFile(Path file) {
-    return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, calendarSource,
-        pricesSource, missingRows, file, plan, periodDays);
-  }
-
-  /** A plan file read once the series are known, or null for none. */
-  public IngestOptions withPlan(PlanSource source) {
-    return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, calendarSource,
-        pricesSource, missingRows, closuresFile, source, periodDays);
-  }
-
-  public IngestOptions withMissingRows(MissingRows policy) {
-    return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, calendarSource,
-        pricesSource, policy, closuresFile, plan, periodDays);
+    return new IngestOptions(inputs, storeDir, calendarSource, pricesSource,
+        days == null ? null : Periods.requireValid(days));
   }
 
   /** A calendar already parsed, aligned to day 0 = the first sales date. */
@@ -113,8 +55,7 @@ public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, 
 
   /** A calendar built once the series are known (a keyed column needs the store's attribute codes). */
   public IngestOptions withCalendar(Function<SeriesAttributes, DayCalendar> source) {
-    return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, source,
-        pricesSource, missingRows, closuresFile, plan, periodDays);
+    return new IngestOptions(inputs, storeDir, source, pricesSource, periodDays);
   }
 
   /** A price table already built, indexed by series in the sales file's row order, days from the first sales date. */
@@ -124,7 +65,6 @@ public record IngestOptions(Path salesFile, Path calendarFile, Path pricesFile, 
 
   /** A price table built once the series are known (the price reader maps its keys to series indexes). */
   public IngestOptions withPrices(Function<SeriesAttributes, PriceTable> source) {
-    return new IngestOptions(salesFile, calendarFile, pricesFile, storeDir, columns, salesFormat, calendarSource,
-        source, missingRows, closuresFile, plan, periodDays);
+    return new IngestOptions(inputs, storeDir, calendarSource, source, periodDays);
   }
 }

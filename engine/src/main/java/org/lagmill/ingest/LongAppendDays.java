@@ -24,12 +24,12 @@ import org.lagmill.store.SeriesIdentity;
 final class LongAppendDays {
   private LongAppendDays() {}
 
-  static AppendedDays read(SalesStore store, AppendOptions options, MemoryBudget budget) {
-    Path file = options.salesFile();
-    ColumnNames columns = options.columns();
+  static AppendedDays read(SalesStore store, SalesInputs inputs, MemoryBudget budget) {
+    Path file = inputs.salesFile();
+    ColumnNames columns = inputs.columns();
     SeriesAttributes attributes = store.attributes();
     int storeSeriesCount = store.seriesCount();
-    boolean zero = options.missingRows() == MissingRows.ZERO;
+    boolean zero = inputs.missingRows() == MissingRows.ZERO;
     int[][] unitsBySeries = new int[storeSeriesCount][];
     int[][] firstRowDayBySeries = new int[1][];
     List<String[]> newAttributes = new ArrayList<>();
@@ -89,7 +89,7 @@ final class LongAppendDays {
       }
     };
     LongSalesRead read = LongSalesReader.read(file, columns.dateColumn(), columns.unitsColumn(),
-        columns.seriesIdColumn(), options.missingRows(),
+        columns.seriesIdColumn(), inputs.missingRows(),
         new LongSalesReader.Frame(store.dateOf(store.dayCount()), store.periodDays(), store.firstDate()), budget,
         sink);
     int dayCount = read.header().dayCount();

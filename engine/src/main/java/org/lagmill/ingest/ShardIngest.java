@@ -92,14 +92,15 @@ public final class ShardIngest {
    */
   public static IngestResult ingest(IngestOptions options, Request request, StoreUpdate.Policy policy,
       MemoryBudget budget) throws IOException {
-    ColumnNames columns = options.columns();
-    SalesFormat format = options.salesFormat().resolve(options.salesFile(), columns.dateColumn(),
+    SalesInputs inputs = options.inputs();
+    ColumnNames columns = inputs.columns();
+    SalesFormat format = inputs.salesFormat().resolve(inputs.salesFile(), columns.dateColumn(),
         columns.unitsColumn());
     if (options.pricesSource() != null || options.calendarSource() != null) {
       throw new IllegalArgumentException("a shard ingest reads prices and the calendar from files");
     }
-    String sourceName = INPUT_SOURCE_PREFIX + org.lagmill.io.PathNames.nameOf(options.salesFile()) + " crc32c "
-        + crc32c(options.salesFile());
+    String sourceName = INPUT_SOURCE_PREFIX + org.lagmill.io.PathNames.nameOf(inputs.salesFile()) + " crc32c "
+        + crc32c(inputs.salesFile());
     try (StoreUpdate update = StoreUpdate.begin(options.storeDir(), policy);
         MemoryBudget stage = budget.child("ingest")) {
       List<String> warnings = new ArrayList<>();
@@ -119,23 +120,23 @@ public final class ShardIngest {
           periodNote[0] = longRead[0].periodNote();
         }
         CalendarAndPrices.Scope scope = new CalendarAndPrices.Scope(whole, whole.seriesCount(), kept);
-        if (options.pricesFile() != null) {
-          CalendarAndPrices.writePrices(writer, scope, options.pricesFile(), columns, warnings);
+        if (inputs.pricesFile() != null) {
+          CalendarAndPrices.writePrices(writer, scope, inputs.pricesFile(), columns, warnings);
         }
-        if (options.calendarFile() != null) {
-          CalendarAndPrices.writeCalendar(writer, scope, options.calendarFile(), columns, warnings);
+        if (inputs.calendarFile() != null) {
+          CalendarAndPrices.writeCalendar(writer, scope, inputs.calendarFile(), columns, warnings);
         }
-        ClosureTable closures = options.closuresFile() == null ? ClosureTable.EMPTY
-            : CalendarAndPrices.writeClosures(writer, scope, options.closuresFile(), columns, warnings);
+        ClosureTable closures = inputs.closuresFile() == null ? ClosureTable.EMPTY
+            : CalendarAndPrices.writeClosures(writer, scope, inputs.closuresFile(), columns, warnings);
         if (longRead[0] != null) {
           warnings.addAll(longRead[0].warnings());
           ZeroFills fills = longRead[0].zeroFills().restrictedTo(kept);
           writer.addZeroFilledItemDays(fills.count() - fills.closedCount(closures, 0));
         }
-        if (options.plan() != null) {
-          CalendarAndPrices.writePlan(writer, scope, options.plan(), warnings);
+        if (inputs.plan() != null) {
+          CalendarAndPrices.writePlan(writer, scope, inputs.plan(), warnings);
         }
-        manifest = writer.finish(StoreIngest.sources(options));
+        manifest = writer.finish(StoreIngest.sources(inputs));
       }
       FillWarnings.add(manifest, manifest.fill().zeroFilledItemDays(), warnings);
       update.commit();
@@ -190,16 +191,17 @@ public final class ShardIngest {
   /** Pass 1 registers every row's attributes; pass 2 writes this part's rows. The writer is closed on failure. */
   private static StoreWriter writeWide(IngestOptions options, Request request, Path dir, MemoryBudget budget,
       Selection selection, String[] periodNote) throws IOException {
+    SalesInputs inputs = options.inputs();
     int periodDays;
     List<String> names;
     java.time.LocalDate firstDate;
     int dayCount;
-    try (WideSalesReader reader = WideSalesReader.open(options.salesFile(), options.seriesIdColumn())) {
+    try (WideSalesReader reader = WideSalesReader.open(inputs.salesFile(), inputs.columns().seriesIdColumn())) {
       periodDays = StoreIngest.widePeriodDays(options, reader, periodNote);
       names = reader.attributeNames();
       firstDate = reader.firstDate();
       dayCount = reader.dayCount();
-      selection.begin(names, request, options.salesFile());
+      selection.begin(names, request, inputs.salesFile());
       String[] attributeValues = new String[names.size()];
       int[] units = new int[dayCount];
       while (reader.next(attributeValues, units)) {
@@ -210,13 +212,13 @@ public final class ShardIngest {
         }
       }
       if (selection.whole.seriesCount() == 0) {
-        throw new InputFormatException(options.salesFile(), reader.lineNumber() + 1, 0,
+        throw new InputFormatException(inputs.salesFile(), reader.lineNumber() + 1, 0,
             "expected at least one series row after the header, found none");
       }
     }
     selection.requireSeries(request);
     StoreWriter writer = new StoreWriter(dir, firstDate, periodDays, dayCount, names, budget);
-    try (WideSalesReader reader = WideSalesReader.open(options.salesFile(), options.seriesIdColumn())) {
+    try (WideSalesReader reader = WideSalesReader.open(inputs.salesFile(), inputs.columns().seriesIdColumn())) {
       writer.seedAttributeValues(selection.whole);
       int[] kept = selection.keptSeries();
       String[] attributeValues = new String[names.size()];
@@ -230,7 +232,7 @@ public final class ShardIngest {
         }
       }
       if (next != kept.length) {
-        throw new IOException(options.salesFile() + " changed while it was read: " + next + " of " + kept.length
+        throw new IOException(inputs.salesFile() + " changed while it was read: " + next + " of " + kept.length
             + " series of the shard found in the second pass");
       }
       return writer;
@@ -243,15 +245,16 @@ public final class ShardIngest {
   /** Reads long sales once, keeping this part's series until the dictionaries are known. */
   private static StoreWriter writeLong(IngestOptions options, Request request, Path dir, MemoryBudget budget,
       Selection selection, LongSalesRead[] readOut) throws IOException {
-    ColumnNames columns = options.columns();
-    StoreWriterSink writerSink = new StoreWriterSink(options.salesFile(), dir, columns.seriesIdColumn(), budget);
+    SalesInputs inputs = options.inputs();
+    ColumnNames columns = inputs.columns();
+    StoreWriterSink writerSink = new StoreWriterSink(inputs.salesFile(), dir, columns.seriesIdColumn(), budget);
     List<String[]> keptValues = new ArrayList<>();
     List<int[]> keptUnits = new ArrayList<>();
     SeriesSink sink = new SeriesSink() {
       @Override
       public void begin(LongSalesHeader header) {
         writerSink.begin(header);
-        selection.begin(writerSink.writer().attributes().attributeNames(), request, options.salesFile());
+        selection.begin(writerSink.writer().attributes().attributeNames(), request, inputs.salesFile());
       }
 
       @Override
@@ -260,7 +263,7 @@ public final class ShardIngest {
         try {
           keep = selection.admit(attributeValues);
         } catch (IllegalArgumentException e) {
-          throw new InputFormatException(options.salesFile(), 0, 0, e.getMessage(), e);
+          throw new InputFormatException(inputs.salesFile(), 0, 0, e.getMessage(), e);
         }
         if (keep) {
           keptValues.add(attributeValues.clone());
@@ -269,8 +272,8 @@ public final class ShardIngest {
       }
     };
     try {
-      readOut[0] = LongSalesReader.read(options.salesFile(), columns.dateColumn(), columns.unitsColumn(),
-          columns.seriesIdColumn(), options.missingRows(), options.periodDays() == null ? null
+      readOut[0] = LongSalesReader.read(inputs.salesFile(), columns.dateColumn(), columns.unitsColumn(),
+          columns.seriesIdColumn(), inputs.missingRows(), options.periodDays() == null ? null
               : LongSalesReader.Frame.ofPeriod(options.periodDays()),
           budget, sink);
       selection.requireSeries(request);

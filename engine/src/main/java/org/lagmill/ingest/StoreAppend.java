@@ -8,7 +8,6 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.HashSet;
 import java.util.List;
-import org.lagmill.ingest.ColumnNames.Column;
 import org.lagmill.io.Excerpts;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.io.Setting;
@@ -43,8 +42,8 @@ public final class StoreAppend {
   /** As {@link #append(AppendOptions, MemoryBudget)} with sales only; returns the manifest. */
   public static StoreManifest append(Path storeDir, Path salesFile, String seriesIdColumn, MemoryBudget budget)
       throws IOException {
-    AppendOptions options = AppendOptions.of(storeDir, salesFile)
-        .withColumns(ColumnNames.DEFAULTS.with(Column.SERIES_ID, seriesIdColumn));
+    AppendOptions options = new AppendOptions(storeDir, SalesInputs.of(salesFile)
+        .withColumns(ColumnNames.DEFAULTS.with(ColumnNames.Column.SERIES_ID, seriesIdColumn)));
     return append(options, budget).manifest();
   }
 
@@ -71,10 +70,11 @@ public final class StoreAppend {
    */
   public static IngestResult append(AppendOptions options, StoreUpdate.Policy policy, MemoryBudget budget)
       throws IOException {
+    SalesInputs inputs = options.inputs();
     Path storeDir = options.storeDir();
-    Path salesFile = options.salesFile();
-    if (salesFile == null && options.calendarFile() == null && options.pricesFile() == null
-        && options.closuresFile() == null && options.plan() == null) {
+    Path salesFile = inputs.salesFile();
+    if (salesFile == null && inputs.calendarFile() == null && inputs.pricesFile() == null
+        && inputs.closuresFile() == null && inputs.plan() == null) {
       throw new InvalidRequestException("nothing to append: give " + Setting.SALES + ", " + Setting.CALENDAR + ", "
           + Setting.PRICES + ", " + Setting.CLOSURES + " or "
           + Setting.PLAN.toString());
@@ -88,13 +88,13 @@ public final class StoreAppend {
         AppendedDays newDays;
         if (salesFile == null) {
           newDays = AppendedDays.none(store.seriesCount());
-        } else if (options.salesFormat().resolve(salesFile, options.columns().dateColumn(),
-            options.columns().unitsColumn()) == SalesFormat.LONG) {
-          newDays = LongAppendDays.read(store, options, stage);
+        } else if (inputs.salesFormat().resolve(salesFile, inputs.columns().dateColumn(),
+            inputs.columns().unitsColumn()) == SalesFormat.LONG) {
+          newDays = LongAppendDays.read(store, inputs, stage);
         } else {
-          newDays = readWide(store, salesFile, options);
+          newDays = readWide(store, salesFile, inputs);
         }
-        result = rewrite(store, temp, newDays, options, stage);
+        result = rewrite(store, temp, newDays, inputs, stage);
       }
       update.commit();
       return result;
@@ -102,8 +102,8 @@ public final class StoreAppend {
   }
 
   /** A wide file's days, which must start at the store's next period and keep its step. */
-  private static AppendedDays readWide(SalesStore store, Path salesFile, AppendOptions options) throws IOException {
-    try (WideSalesReader reader = WideSalesReader.open(salesFile, options.columns().seriesIdColumn())) {
+  private static AppendedDays readWide(SalesStore store, Path salesFile, SalesInputs inputs) throws IOException {
+    try (WideSalesReader reader = WideSalesReader.open(salesFile, inputs.columns().seriesIdColumn())) {
       LocalDate expectedFirst = store.dateOf(store.dayCount());
       int periodDays = store.periodDays();
       if (!reader.firstDate().equals(expectedFirst)) {
@@ -207,7 +207,7 @@ public final class StoreAppend {
     }
   }
 
-  private static IngestResult rewrite(SalesStore store, Path temp, AppendedDays newDays, AppendOptions options,
+  private static IngestResult rewrite(SalesStore store, Path temp, AppendedDays newDays, SalesInputs inputs,
       MemoryBudget budget) throws IOException {
     int oldDayCount = store.dayCount();
     int dayCount = oldDayCount + newDays.dayCount();
@@ -238,19 +238,19 @@ public final class StoreAppend {
       }
       StoreManifest.Fill oldFill = store.manifest().fill();
       List<String> warnings = new ArrayList<>(newDays.warnings());
-      if (options.pricesFile() != null) {
-        CalendarAndPrices.writePrices(writer, options.pricesFile(), options.columns(), warnings);
+      if (inputs.pricesFile() != null) {
+        CalendarAndPrices.writePrices(writer, inputs.pricesFile(), inputs.columns(), warnings);
       } else {
         writer.writePrices(extended(store.prices(), store.seriesCount()));
       }
-      if (options.calendarFile() != null) {
-        CalendarAndPrices.writeCalendar(writer, options.calendarFile(), options.columns(), warnings);
+      if (inputs.calendarFile() != null) {
+        CalendarAndPrices.writeCalendar(writer, inputs.calendarFile(), inputs.columns(), warnings);
       } else {
         writer.writeCalendar(store.calendar());
       }
       ClosureTable closures;
-      if (options.closuresFile() != null) {
-        closures = CalendarAndPrices.writeClosures(writer, options.closuresFile(), options.columns(), warnings);
+      if (inputs.closuresFile() != null) {
+        closures = CalendarAndPrices.writeClosures(writer, inputs.closuresFile(), inputs.columns(), warnings);
       } else {
         closures = extended(store.closures(), store.seriesCount());
         writer.writeClosures(closures, oldFill == null ? 0 : oldFill.partlyClosedItemDays());
@@ -258,8 +258,8 @@ public final class StoreAppend {
       // A day with no row that a closure covers counts as closed, as at ingest.
       long zeroFilledNow = newDays.zeroFills().count() - newDays.zeroFills().closedCount(closures, oldDayCount);
       writer.addZeroFilledItemDays((oldFill == null ? 0 : oldFill.zeroFilledItemDays()) + zeroFilledNow);
-      if (options.plan() != null) {
-        CalendarAndPrices.writePlan(writer, options.plan(), options.columns(), warnings);
+      if (inputs.plan() != null) {
+        CalendarAndPrices.writePlan(writer, inputs.plan(), inputs.columns(), warnings);
       } else {
         // Kept as stored; series new to the store have no plan row until a plan file is appended.
         PlanTable plan = store.plan();
@@ -267,15 +267,14 @@ public final class StoreAppend {
         writer.writePlan(PlanTable.withSeriesKeys(plan, s -> s < oldSeriesCount ? plan.keyOf(s) : PlanTable.NO_KEY));
       }
       String uncovered = uncoveredNewSeries(newDays.newSeriesAttributes().size(),
-          options.pricesFile() == null && !store.prices().isEmpty(),
-          options.closuresFile() == null && !store.closures().isEmpty(),
-          options.plan() == null && !store.plan().isEmpty());
+          inputs.pricesFile() == null && !store.prices().isEmpty(),
+          inputs.closuresFile() == null && !store.closures().isEmpty(),
+          inputs.plan() == null && !store.plan().isEmpty());
       if (uncovered != null) {
         warnings.add(uncovered);
       }
       List<StoreManifest.SourceFile> sources = new ArrayList<>(store.manifest().sources());
-      sources.addAll(StoreIngest.sourcesOf(options.salesFile(), options.calendarFile(), options.pricesFile(),
-          options.closuresFile(), options.plan() == null ? null : options.plan().file()));
+      sources.addAll(StoreIngest.sources(inputs));
       StoreManifest manifest = writer.finish(sources);
       FillWarnings.add(manifest, zeroFilledNow, warnings);
       if (!closures.isEmpty()) {

@@ -44,8 +44,9 @@ public final class StoreIngest {
    */
   public static IngestResult ingest(IngestOptions options, StoreUpdate.Policy policy, MemoryBudget budget)
       throws IOException {
-    ColumnNames columns = options.columns();
-    SalesFormat format = options.salesFormat().resolve(options.salesFile(), columns.dateColumn(),
+    SalesInputs inputs = options.inputs();
+    ColumnNames columns = inputs.columns();
+    SalesFormat format = inputs.salesFormat().resolve(inputs.salesFile(), columns.dateColumn(),
         columns.unitsColumn());
     try (StoreUpdate update = StoreUpdate.begin(options.storeDir(), policy);
         MemoryBudget stage = budget.child("ingest")) {
@@ -67,29 +68,29 @@ public final class StoreIngest {
         }
         if (options.pricesSource() != null) {
           writer.writePrices(options.pricesSource().apply(writer.attributes()));
-        } else if (options.pricesFile() != null) {
-          CalendarAndPrices.writePrices(writer, options.pricesFile(), columns, warnings);
+        } else if (inputs.pricesFile() != null) {
+          CalendarAndPrices.writePrices(writer, inputs.pricesFile(), columns, warnings);
         }
         if (options.calendarSource() != null) {
           writer.writeCalendar(options.calendarSource().apply(writer.attributes()));
-        } else if (options.calendarFile() != null) {
-          CalendarAndPrices.writeCalendar(writer, options.calendarFile(), columns, warnings);
+        } else if (inputs.calendarFile() != null) {
+          CalendarAndPrices.writeCalendar(writer, inputs.calendarFile(), columns, warnings);
         }
-        ClosureTable closures = options.closuresFile() == null ? ClosureTable.EMPTY
-            : CalendarAndPrices.writeClosures(writer, options.closuresFile(), options.columns(), warnings);
+        ClosureTable closures = inputs.closuresFile() == null ? ClosureTable.EMPTY
+            : CalendarAndPrices.writeClosures(writer, inputs.closuresFile(), columns, warnings);
         if (longRead[0] != null) {
           warnings.addAll(longRead[0].warnings());
           writer.addZeroFilledItemDays(longRead[0].zeroFilledItemDays()
               - longRead[0].zeroFills().closedCount(closures, 0));
         }
-        if (options.plan() != null) {
-          CalendarAndPrices.writePlan(writer, options.plan(), options.columns(), warnings);
+        if (inputs.plan() != null) {
+          CalendarAndPrices.writePlan(writer, inputs.plan(), columns, warnings);
         }
-        manifest = writer.finish(sources(options));
+        manifest = writer.finish(sources(inputs));
       }
       // A new store's zero fills are all this run's.
       FillWarnings.add(manifest, manifest.fill().zeroFilledItemDays(), warnings);
-      if (options.closuresFile() != null) {
+      if (inputs.closuresFile() != null) {
         try (SalesStore built = SalesStore.openUnpublished(temp, stage.child("closed-day check"))) {
           ClosedDaySales.warn(built, warnings);
         }
@@ -102,14 +103,15 @@ public final class StoreIngest {
   /** Streams a wide file into a new writer; the writer is closed when this fails. */
   private static StoreWriter writeWide(IngestOptions options, Path dir, MemoryBudget budget, String[] periodNote)
       throws IOException {
-    try (WideSalesReader reader = WideSalesReader.open(options.salesFile(), options.seriesIdColumn())) {
+    SalesInputs inputs = options.inputs();
+    try (WideSalesReader reader = WideSalesReader.open(inputs.salesFile(), inputs.columns().seriesIdColumn())) {
       int periodDays = widePeriodDays(options, reader, periodNote);
       StoreWriter writer = new StoreWriter(dir, reader.firstDate(), periodDays, reader.dayCount(),
           reader.attributeNames(), budget);
       try {
         copyRows(reader, writer);
         if (writer.seriesCount() == 0) {
-          throw new InputFormatException(options.salesFile(), reader.lineNumber() + 1, 0,
+          throw new InputFormatException(inputs.salesFile(), reader.lineNumber() + 1, 0,
               "expected at least one series row after the header, found none");
         }
         return writer;
@@ -125,9 +127,10 @@ public final class StoreIngest {
    * {@code periodNote[0]}.
    */
   static int widePeriodDays(IngestOptions options, WideSalesReader reader, String[] periodNote) {
+    SalesInputs inputs = options.inputs();
     Integer given = options.periodDays();
     if (given != null && reader.dayCount() > 1 && reader.periodDays() != given) {
-      throw new InputFormatException(options.salesFile(), 1, 0, "date columns " + reader.periodDays() + " days "
+      throw new InputFormatException(inputs.salesFile(), 1, 0, "date columns " + reader.periodDays() + " days "
           + "apart: expected the step given with " + Setting.PERIOD + ", " + given + (given == 1 ? " day" : " days"));
     }
     int periodDays = given != null ? given : reader.periodDays();
@@ -143,11 +146,12 @@ public final class StoreIngest {
    */
   private static StoreWriter writeLong(IngestOptions options, Path dir, MemoryBudget budget, LongSalesRead[] readOut)
       throws IOException {
-    ColumnNames columns = options.columns();
-    StoreWriterSink sink = new StoreWriterSink(options.salesFile(), dir, columns.seriesIdColumn(), budget);
+    SalesInputs inputs = options.inputs();
+    ColumnNames columns = inputs.columns();
+    StoreWriterSink sink = new StoreWriterSink(inputs.salesFile(), dir, columns.seriesIdColumn(), budget);
     try {
-      LongSalesRead read = LongSalesReader.read(options.salesFile(), columns.dateColumn(), columns.unitsColumn(),
-          columns.seriesIdColumn(), options.missingRows(), options.periodDays() == null ? null
+      LongSalesRead read = LongSalesReader.read(inputs.salesFile(), columns.dateColumn(), columns.unitsColumn(),
+          columns.seriesIdColumn(), inputs.missingRows(), options.periodDays() == null ? null
               : LongSalesReader.Frame.ofPeriod(options.periodDays()),
           budget, sink);
       readOut[0] = read;
@@ -186,15 +190,11 @@ public final class StoreIngest {
     }
   }
 
-  static List<StoreManifest.SourceFile> sources(IngestOptions options) throws IOException {
-    return sourcesOf(options.salesFile(), options.calendarFile(), options.pricesFile(), options.closuresFile(),
-        options.plan() == null ? null : options.plan().file());
-  }
-
-  /** The given files (nulls skipped) with their sizes, as the manifest records them. */
-  static List<StoreManifest.SourceFile> sourcesOf(Path... files) throws IOException {
+  /** The input files given (sales, calendar, prices, closures, plan) with their sizes, as the manifest records them. */
+  static List<StoreManifest.SourceFile> sources(SalesInputs inputs) throws IOException {
     List<StoreManifest.SourceFile> sources = new ArrayList<>();
-    for (Path file : files) {
+    for (Path file : new Path[] {inputs.salesFile(), inputs.calendarFile(), inputs.pricesFile(),
+        inputs.closuresFile(), inputs.plan() == null ? null : inputs.plan().file()}) {
       if (file != null) {
         sources.add(new StoreManifest.SourceFile(file.getFileName().toString(), Files.size(file)));
       }

@@ -5,8 +5,9 @@
  *
  * <p>Entry points: {@link org.lagmill.ingest.StoreIngest#ingest} (with {@link org.lagmill.ingest.IngestOptions}) builds
  * or replaces a store; {@link org.lagmill.ingest.StoreAppend#append} (with {@link org.lagmill.ingest.AppendOptions})
- * adds the next days and may replace calendar and prices. Both return an {@link org.lagmill.ingest.IngestResult}: the
- * published manifest and the readers' warnings.
+ * adds the next days and may replace calendar and prices. Both options hold a {@link org.lagmill.ingest.SalesInputs}
+ * (the input files and how to read them). Both return an {@link org.lagmill.ingest.IngestResult}: the published
+ * manifest and the readers' warnings.
  *
  * <p>Readers, one per file kind:
  * <ul>
@@ -17,8 +18,9 @@
  *   <li>{@link org.lagmill.ingest.PriceFileReader}: price change points per series, keyed by series attributes.
  * </ul>
  * {@link org.lagmill.ingest.SalesFormat} decides wide or long from the header; {@link org.lagmill.ingest.ColumnNames}
- * holds the renamable column names; {@link org.lagmill.ingest.CsvSource} is the strict UTF-8, gzip-aware CSV input the
- * long, calendar and price readers share. {@code SeriesKeys} is the one matcher of the key columns of dated per-key
+ * holds the renamable column names (each with its setting and default in {@code ColumnNames.Column});
+ * {@link org.lagmill.ingest.CsvSource} is the strict UTF-8, gzip-aware CSV input the long, calendar and price readers
+ * share. {@code SeriesKeys} is the one matcher of the key columns of dated per-key
  * files (prices, plan, closures) to the series they cover.
  */
 package org.lagmill.ingest;

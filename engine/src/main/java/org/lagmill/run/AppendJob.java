@@ -23,9 +23,9 @@ public final class AppendJob {
   public static IngestResult run(AppendOptions options, boolean waitForLock) throws IOException {
     try (Run run = Run.unlimited("append")) {
       run.record().configure("store", options.storeDir().toString())
-          .configure("sales", IngestJob.pathText(options.salesFile()))
-          .configure("missingRows", options.missingRows().optionValue())
-          .configure("plan", options.plan() == null ? null : options.plan().file().toString());
+          .configure("sales", IngestJob.pathText(options.inputs().salesFile()))
+          .configure("missingRows", options.inputs().missingRows().optionValue())
+          .configure("plan", IngestJob.planText(options.inputs()));
       IngestResult result;
       try (Stage stage = run.stage("append")) {
         result = StoreAppend.append(options, new StoreUpdate.Policy(StoreUpdate.Mode.CHANGE, waitForLock),

@@ -17,6 +17,8 @@ import org.lagmill.forecast.Forecaster;
 import org.lagmill.forecast.HorizonCoverage;
 import org.lagmill.ingest.IngestOptions;
 import org.lagmill.ingest.PlanSource;
+import org.lagmill.ingest.SalesInputs;
+import org.lagmill.ingest.SalesInputs.SideFile;
 import org.lagmill.ingest.StoreIngest;
 import org.lagmill.io.Setting;
 import org.lagmill.learner.DatasetParameters;
@@ -105,11 +107,11 @@ public final class DemoJob {
         stage.addRows(itemDays);
       }
       try (Stage stage = run.stage("ingest")) {
-        StoreIngest.ingest(IngestOptions.of(data.resolve(ScenarioGenerator.SALES_FILE), storeDir)
-            .withCalendarFile(data.resolve(ScenarioGenerator.CALENDAR_FILE))
-            .withPricesFile(data.resolve(ScenarioGenerator.PRICES_FILE))
+        StoreIngest.ingest(IngestOptions.of(SalesInputs.of(data.resolve(ScenarioGenerator.SALES_FILE))
+            .with(SideFile.CALENDAR, data.resolve(ScenarioGenerator.CALENDAR_FILE))
+            .with(SideFile.PRICES, data.resolve(ScenarioGenerator.PRICES_FILE))
             .withPlan(PlanSource.of(data.resolve(ScenarioGenerator.PLAN_FILE)))
-            .withClosuresFile(data.resolve(ScenarioGenerator.CLOSURES_FILE)), stage.budget());
+            .with(SideFile.CLOSURES, data.resolve(ScenarioGenerator.CLOSURES_FILE)), storeDir), stage.budget());
         stage.addRows(itemDays);
       }
       ReportData.Builder report = RunReport

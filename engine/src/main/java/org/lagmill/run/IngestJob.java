@@ -5,6 +5,7 @@ import java.nio.file.Path;
 import java.util.List;
 import org.lagmill.ingest.IngestOptions;
 import org.lagmill.ingest.IngestResult;
+import org.lagmill.ingest.SalesInputs;
 import org.lagmill.ingest.ShardIngest;
 import org.lagmill.ingest.StoreIngest;
 import org.lagmill.io.Setting;
@@ -46,14 +47,13 @@ public final class IngestJob {
    */
   public static Outcome run(Request request) throws IOException {
     IngestOptions options = request.options();
+    SalesInputs inputs = options.inputs();
     ShardIngest.Request shard = ShardIngest.Request.parse(request.shard(), request.shardAttribute());
     try (Run run = Run.start("ingest", request.memoryLimitBytes())) {
       run.record().configure("shard", request.shard()).configure("shardAttribute", request.shardAttribute())
-          .configure("sales", options.salesFile().toString())
-          .configure("calendar", pathText(options.calendarFile()))
-          .configure("prices", pathText(options.pricesFile())).configure("store", options.storeDir().toString())
-          .configure("plan", options.plan() == null ? null : options.plan().file().toString())
-          .configure("missingRows", options.missingRows().optionValue());
+          .configure("sales", inputs.salesFile().toString()).configure("calendar", pathText(inputs.calendarFile()))
+          .configure("prices", pathText(inputs.pricesFile())).configure("store", options.storeDir().toString())
+          .configure("plan", planText(inputs)).configure("missingRows", inputs.missingRows().optionValue());
       IngestResult result;
       long peakOffHeapBytes;
       try (Stage stage = run.stage("ingest")) {
@@ -79,6 +79,11 @@ public final class IngestJob {
   /** The warnings as run.json keeps them: with the mentions the front end shows. */
   static List<String> shown(IngestResult result) {
     return result.warnings().stream().map(Setting::shown).toList();
+  }
+
+  /** The plan file as run.json records it, or null. */
+  static String planText(SalesInputs inputs) {
+    return inputs.plan() == null ? null : inputs.plan().file().toString();
   }
 
   /** A path as run.json records it, or null. */

@@ -18,6 +18,8 @@ import org.lagmill.features.FeatureBatch;
 import org.lagmill.features.FeaturePass;
 import org.lagmill.features.FeatureSpec;
 import org.lagmill.ingest.IngestOptions;
+import org.lagmill.ingest.SalesInputs;
+import org.lagmill.ingest.SalesInputs.SideFile;
 import org.lagmill.ingest.StoreIngest;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesStore;
@@ -55,7 +57,8 @@ class DailyRunGoldenTest {
     writeData(sales, calendar, prices);
     Path storeDir = temp.resolve("store");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-      StoreIngest.ingest(IngestOptions.of(sales, storeDir).withCalendarFile(calendar).withPricesFile(prices), budget);
+      StoreIngest.ingest(IngestOptions
+          .of(SalesInputs.of(sales).with(SideFile.CALENDAR, calendar).with(SideFile.PRICES, prices), storeDir), budget);
       MessageDigest store = MessageDigest.getInstance("SHA-256");
       for (String name : List.of("units.bin", "series.bin", "attributes.bin", "prices.bin", "calendar.bin")) {
         store.update(Files.readAllBytes(StoreGenerations.readableDir(storeDir).resolve(name)));

@@ -17,6 +17,8 @@ import org.junit.jupiter.params.provider.Arguments;
 import org.junit.jupiter.params.provider.MethodSource;
 import org.lagmill.ingest.IngestOptions;
 import org.lagmill.ingest.PlanSource;
+import org.lagmill.ingest.SalesInputs;
+import org.lagmill.ingest.SalesInputs.SideFile;
 import org.lagmill.ingest.StoreIngest;
 import org.lagmill.io.CorruptFileException;
 import org.lagmill.memory.MemoryBudget;
@@ -25,12 +27,12 @@ import org.lagmill.report.ReportData;
 import org.lagmill.report.ReportJson;
 import org.lagmill.store.ArraySalesHistory;
 import org.lagmill.store.SalesStore;
-import org.lagmill.store.StoreManifest;
 import org.lagmill.store.StoreGenerations;
-import org.lagmill.training.SmallHistories;
+import org.lagmill.store.StoreManifest;
 import org.lagmill.training.ModelDirectory;
 import org.lagmill.training.ModelSet;
 import org.lagmill.training.ModelTraining;
+import org.lagmill.training.SmallHistories;
 import org.lagmill.training.TrainingPlan;
 
 /**
@@ -63,9 +65,11 @@ class FlippedByteTest {
       Path closures = Files.writeString(fixture.resolve("closures.csv"), "store,from,until\nNV-01,2026-01-10,"
           + "2026-01-11\n");
       Path planFile = Files.writeString(fixture.resolve("plan.csv"), "item,from,promo\nPNT-D1-0001,2026-01-05,1\n");
-      StoreIngest.ingest(IngestOptions.of(TINY.resolve("sales.csv"), store).withCalendarFile(TINY.resolve(
-          "calendar.csv")).withPricesFile(TINY.resolve("prices.csv")).withClosuresFile(closures)
-          .withPlan(PlanSource.of(planFile)), budget);
+      StoreIngest.ingest(IngestOptions.of(SalesInputs.of(TINY.resolve("sales.csv"))
+          .with(SideFile.CALENDAR, TINY.resolve(
+              "calendar.csv"))
+          .with(SideFile.PRICES, TINY.resolve("prices.csv")).with(SideFile.CLOSURES, closures)
+          .withPlan(PlanSource.of(planFile)), store), budget);
       try (ModelSet trained = ModelTraining.train(history, plan, budget, ProgressListener.SILENT)) {
         ModelDirectory.save(trained, model, history, plan, "fp");
       }

@@ -14,6 +14,7 @@ import java.util.TreeMap;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.ingest.ColumnNames.Column;
+import org.lagmill.ingest.SalesInputs.SideFile;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.DayCalendar;
 import org.lagmill.store.SalesStore;
@@ -48,8 +49,9 @@ class CalendarPricesWiringTest {
   }
 
   private IngestResult ingestGood(MemoryBudget budget) throws IOException {
-    return StoreIngest.ingest(IngestOptions.of(write("sales.csv", SALES), temp.resolve("store"))
-        .withCalendarFile(write("calendar.csv", CALENDAR)).withPricesFile(write("prices.csv", PRICES)), budget);
+    return StoreIngest.ingest(IngestOptions.of(SalesInputs.of(write("sales.csv", SALES))
+        .with(SideFile.CALENDAR, write("calendar.csv", CALENDAR)).with(SideFile.PRICES, write("prices.csv", PRICES)),
+        temp.resolve("store")), budget);
   }
 
   /** The docs/formats/prices.md example: 2.10 on 03-01 .. 03-03 and 2.50 from 03-04; tea_tin no price until 03-03. */
@@ -87,18 +89,21 @@ class CalendarPricesWiringTest {
       Path sales = temp.resolve("sales.csv");
       Path gap = write("gap.csv", CALENDAR.replace("2024-03-02,", "2024-03-04,"));
       InputFormatException e = assertThrows(InputFormatException.class, () -> StoreIngest.ingest(
-          IngestOptions.of(sales, temp.resolve("store")).withCalendarFile(gap), budget));
+          IngestOptions.of(SalesInputs.of(sales).with(SideFile.CALENDAR, gap), temp.resolve("store")), budget));
       assertEquals(gap + ", line 4, column 1: calendar gap: expected 2024-03-02, found 2024-03-04", e.getMessage());
       assertEquals(4, e.lineNumber());
       Path zero = write("zero.csv", PRICES.replace("4.00", "0"));
       e = assertThrows(InputFormatException.class, () -> StoreIngest.ingest(
-          IngestOptions.of(sales, temp.resolve("store")).withPricesFile(zero), budget));
+          IngestOptions.of(SalesInputs.of(sales).with(SideFile.PRICES, zero), temp.resolve("store")), budget));
       assertEquals(zero + ", line 4, column 4: price '0': expected a decimal number > 0", e.getMessage());
       Path renamed = temp.resolve("prices.csv");
-      e = assertThrows(InputFormatException.class, () -> StoreIngest.ingest(IngestOptions.of(sales,
-          temp.resolve("store")).withPricesFile(renamed)
-          .withColumns(ColumnNames.DEFAULTS.with(Column.PRICES_FROM, "start")),
-          budget));
+      e = assertThrows(InputFormatException.class,
+          () -> StoreIngest.ingest(
+              IngestOptions.of(
+                  SalesInputs.of(sales).with(SideFile.PRICES, renamed)
+                      .withColumns(ColumnNames.DEFAULTS.with(Column.PRICES_FROM, "start")),
+                  temp.resolve("store")),
+              budget));
       assertEquals(renamed + ", line 1: no column 'start' in header item,store,from,price: expected one (or name it "
           + "with ‹prices-from-column›)", e.getMessage());
       assertSameContents(before, contents(temp.resolve("store")));
@@ -131,9 +136,9 @@ class CalendarPricesWiringTest {
           fig_pot,south_1,2024-03-04,5.00
           fig_pot,south_1,2024-03-05,5.50
           """);
-      IngestResult result = StoreAppend.append(AppendOptions.of(temp.resolve("store"), next)
-          .withCalendarFile(calendar).withPricesFile(prices)
-          .withColumns(ColumnNames.DEFAULTS.with(Column.PRICES_FROM, "start")), budget);
+      IngestResult result = StoreAppend.append(new AppendOptions(temp.resolve("store"), SalesInputs.of(next)
+          .with(SideFile.CALENDAR, calendar).with(SideFile.PRICES, prices)
+          .withColumns(ColumnNames.DEFAULTS.with(Column.PRICES_FROM, "start"))), budget);
       // Unknown: oat_bar 03-03; tea_tin, not in the file, its 2 new days; jam_jar, new, its 3 earlier days and 03-05.
       assertEquals(List.of("2 price rows for unknown keys skipped (first: item=fig_pot, store=south_1)",
           "7 of 15 item-days (46.7 %) are unknown and are left out of training and scores; if they are days with no "
@@ -179,12 +184,12 @@ class CalendarPricesWiringTest {
       Path next = write("next.csv", "item,store,region,2024-03-04\noat_bar,north_1,Northvale,1\n");
       Path prices = write("prices-bad.csv", PRICES + "tea_tin,south_1,2024-03-03,4.20\n");
       InputFormatException e = assertThrows(InputFormatException.class, () -> StoreAppend.append(
-          AppendOptions.of(temp.resolve("store"), next).withPricesFile(prices), budget));
+          new AppendOptions(temp.resolve("store"), SalesInputs.of(next).with(SideFile.PRICES, prices)), budget));
       assertEquals(prices + ", line 6: duplicate price for item=tea_tin, store=south_1 from 2024-03-03: lines 4 and 6,"
           + " expected one", e.getMessage());
       Path calendar = write("calendar-bad.csv", CALENDAR.replace("2024-02-29", "2024-03-02"));
       e = assertThrows(InputFormatException.class, () -> StoreAppend.append(
-          AppendOptions.of(temp.resolve("store"), next).withCalendarFile(calendar), budget));
+          new AppendOptions(temp.resolve("store"), SalesInputs.of(next).with(SideFile.CALENDAR, calendar)), budget));
       assertEquals(calendar + ", line 3, column 1: calendar dates not ascending: expected 2024-03-03, found "
           + "2024-03-01", e.getMessage());
       assertSameContents(before, contents(temp.resolve("store")));

@@ -12,6 +12,7 @@ import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.TestSeeds;
+import org.lagmill.ingest.SalesInputs.SideFile;
 import org.lagmill.memory.MemoryBudget;
 
 /**
@@ -77,8 +78,8 @@ class ClosedDaySalesTest {
       Path closuresFile = Files.writeString(dir.resolve("closures.csv"), closures);
       String context = "seed " + MASTER_SEED + " round " + round + "\n" + sales + closures;
       try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-        IngestResult result = StoreIngest.ingest(IngestOptions.of(salesFile, dir.resolve("store"))
-            .withClosuresFile(closuresFile), budget);
+        IngestResult result = StoreIngest.ingest(IngestOptions.of(SalesInputs.of(salesFile)
+            .with(SideFile.CLOSURES, closuresFile), dir.resolve("store")), budget);
         List<String> said = result.warnings().stream().filter(w -> w.contains("fall on days the closures declare"))
             .toList();
         if (expected == 0) {
@@ -100,7 +101,8 @@ class ClosedDaySalesTest {
     Path next = Files.writeString(temp.resolve("next.csv"), "sku,shop,2024-01-03\na,n,5\nb,s,6\n");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       Path store = temp.resolve("store");
-      assertTrue(StoreIngest.ingest(IngestOptions.of(first, store).withClosuresFile(closures), budget).warnings()
+      assertTrue(StoreIngest
+          .ingest(IngestOptions.of(SalesInputs.of(first).with(SideFile.CLOSURES, closures), store), budget).warnings()
           .get(0).startsWith("1 item-days with sales above 0 fall on days the closures declare closed"));
       IngestResult appended = StoreAppend.append(AppendOptions.of(store, next), budget);
       assertTrue(appended.warnings().get(0).startsWith("2 item-days with sales above 0"), appended.warnings()

@@ -12,6 +12,7 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.ingest.ColumnNames.Column;
+import org.lagmill.ingest.SalesInputs.SideFile;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SalesStore;
@@ -44,8 +45,8 @@ class ClosuresIngestTest {
     Path chain = Files.writeString(temp.resolve("chain.csv"), "from,until\n2025-03-02,2025-03-02\n"
         + "2025-02-20,2025-02-21\n");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-      IngestResult result = StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store"))
-          .withClosuresFile(closures), budget);
+      IngestResult result = StoreIngest.ingest(IngestOptions.of(SalesInputs.of(sales)
+          .with(SideFile.CLOSURES, closures), temp.resolve("store")), budget);
       // s1: 2 item-days on 03-04; A/s2: 03-05, 03-06 within the sales days (03-07 .. 03-09 lie after them).
       assertEquals(new StoreManifest.Fill(0, 0, 4), result.manifest().fill());
       // A/s2 sold 1 on 03-05 and 4 on 03-06, both declared closed (delisted): 2 item-days said.
@@ -78,7 +79,8 @@ class ClosuresIngestTest {
         assertFalse(store.isClosed(a2, 9));
         assertFalse(store.isClosed(a1, 2));
       }
-      StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("chain")).withClosuresFile(chain), budget);
+      StoreIngest.ingest(IngestOptions.of(SalesInputs.of(sales).with(SideFile.CLOSURES, chain), temp.resolve("chain")),
+          budget);
       try (SalesStore store = SalesStore.open(temp.resolve("chain"), budget)) {
         assertEquals(3, store.manifest().fill().closedItemDays(), "no key column closes every series");
         for (int s = 0; s < 3; s++) {
@@ -105,8 +107,8 @@ class ClosuresIngestTest {
     Path closures = Files.writeString(temp.resolve("closures.csv"), "shop,from,until\ns2,2025-03-06,2025-03-08\n");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store")), budget);
-      IngestResult result = StoreAppend.append(new AppendOptions(temp.resolve("store"), null, null, null,
-          ColumnNames.DEFAULTS, closures, null), budget);
+      IngestResult result = StoreAppend.append(new AppendOptions(temp.resolve("store"),
+          SalesInputs.of(null).with(SideFile.CLOSURES, closures)), budget);
       assertEquals(6, result.manifest().dayCount());
       assertEquals(1, result.manifest().fill().closedItemDays());
       try (SalesStore store = SalesStore.open(temp.resolve("store"), budget)) {
@@ -116,7 +118,7 @@ class ClosuresIngestTest {
         assertTrue(store.isClosed(a2, 7));
       }
       IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> StoreAppend.append(
-          new AppendOptions(temp.resolve("store"), null, null, null, ColumnNames.DEFAULTS, null, null), budget));
+          AppendOptions.of(temp.resolve("store"), null), budget));
       assertEquals("nothing to append: give ‹sales›, ‹calendar›, ‹prices›, ‹closures› or ‹plan›", e.getMessage());
       assertEquals(0, budget.heldBytes());
     }
@@ -143,8 +145,9 @@ class ClosuresIngestTest {
     Path closures = Files.writeString(temp.resolve("shut.csv"), "shop,from,until\ns1,2025-03-03,2025-03-04\n"
         + "s2,2025-03-01,2025-03-01\n");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-      IngestResult result = StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store")).withClosuresFile(closures)
-          .withColumns(ColumnNames.DEFAULTS.with(Column.SALES_DATE, "day").with(Column.UNITS, "qty")), budget);
+      IngestResult result = StoreIngest.ingest(IngestOptions.of(SalesInputs.of(sales).with(SideFile.CLOSURES, closures)
+          .withColumns(ColumnNames.DEFAULTS.with(Column.SALES_DATE, "day").with(Column.UNITS, "qty")),
+          temp.resolve("store")), budget);
       assertEquals(new StoreManifest.Fill(5, 0, 5), result.manifest().fill());
       assertTrue(result.warnings().get(0).startsWith("read 5 item-days with no row in the long sales as zero sales"),
           result.warnings().toString());
@@ -158,7 +161,7 @@ class ClosuresIngestTest {
     Path closures = Files.writeString(temp.resolve("closures.csv"), "shop,from,until\ns1,2025-03-04,2025-03-02\n");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       InputFormatException e = assertThrows(InputFormatException.class, () -> StoreIngest.ingest(
-          IngestOptions.of(sales, temp.resolve("store")).withClosuresFile(closures), budget));
+          IngestOptions.of(SalesInputs.of(sales).with(SideFile.CLOSURES, closures), temp.resolve("store")), budget));
       assertEquals(closures + ", line 2, column 3: until '2025-03-02' is before from '2025-03-04': expected a date "
           + "on or after it", e.getMessage());
     }

@@ -9,6 +9,7 @@ import java.nio.file.Path;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.ingest.SalesInputs.SideFile;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesStore;
 
@@ -39,10 +40,11 @@ class KeyColumnsIngestTest {
     ColumnNames mapped = ColumnNames.DEFAULTS.withKeyColumns(new KeyColumns(Map.of("sku", "article_code", "shop",
         "store_no"), Map.of("shop", "branch"), Map.of("shop", "branch")));
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-      StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("own")).withPricesFile(ownPrices)
-          .withPlan(PlanSource.of(ownPlan)).withClosuresFile(ownClosures), budget);
-      StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("exported")).withPricesFile(exportedPrices)
-          .withPlan(PlanSource.of(exportedPlan)).withClosuresFile(exportedClosures).withColumns(mapped), budget);
+      StoreIngest.ingest(IngestOptions.of(SalesInputs.of(sales).with(SideFile.PRICES, ownPrices)
+          .withPlan(PlanSource.of(ownPlan)).with(SideFile.CLOSURES, ownClosures), temp.resolve("own")), budget);
+      StoreIngest.ingest(IngestOptions.of(SalesInputs.of(sales).with(SideFile.PRICES, exportedPrices)
+          .withPlan(PlanSource.of(exportedPlan)).with(SideFile.CLOSURES, exportedClosures).withColumns(mapped),
+          temp.resolve("exported")), budget);
       try (SalesStore own = SalesStore.open(temp.resolve("own"), budget.child("own"));
           SalesStore exported = SalesStore.open(temp.resolve("exported"), budget.child("exported"))) {
         int checked = 0;
@@ -69,7 +71,9 @@ class KeyColumnsIngestTest {
         Map.of()));
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       InputFormatException e = assertThrows(InputFormatException.class, () -> StoreIngest.ingest(
-          IngestOptions.of(sales, temp.resolve("store")).withPricesFile(prices).withColumns(mapped), budget));
+          IngestOptions.of(SalesInputs.of(sales).with(SideFile.PRICES, prices).withColumns(mapped),
+              temp.resolve("store")),
+          budget));
       assertEquals(prices + ", line 1: ‹prices-key-column› sku=article_code names no column of the file: expected "
           + "'article_code' among [from, price, shop, sku]", e.getMessage());
       assertTrue(!Files.exists(temp.resolve("store")));

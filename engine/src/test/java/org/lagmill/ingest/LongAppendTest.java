@@ -15,6 +15,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.TestSeeds;
 import org.lagmill.ingest.ColumnNames.Column;
+import org.lagmill.ingest.SalesInputs.SideFile;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.StoreManifest;
@@ -79,14 +80,15 @@ class LongAppendTest {
       ColumnNames columns = ColumnNames.DEFAULTS.with(Column.SALES_DATE, "day").with(Column.UNITS, "qty");
       MissingRows policy = zero ? MissingRows.ZERO : MissingRows.UNKNOWN;
       try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-        IngestResult reference = StoreIngest.ingest(IngestOptions.of(whole, temp.resolve("whole" + round))
-            .withColumns(columns).withMissingRows(policy).withClosuresFile(closures), budget);
-        StoreIngest.ingest(IngestOptions.of(first1, temp.resolve("parts" + round)).withColumns(columns)
-            .withMissingRows(policy).withClosuresFile(closures), budget);
+        IngestResult reference = StoreIngest.ingest(IngestOptions.of(SalesInputs.of(whole)
+            .withColumns(columns).withMissingRows(policy).with(SideFile.CLOSURES, closures),
+            temp.resolve("whole" + round)), budget);
+        StoreIngest.ingest(IngestOptions.of(SalesInputs.of(first1).withColumns(columns)
+            .withMissingRows(policy).with(SideFile.CLOSURES, closures), temp.resolve("parts" + round)), budget);
         // Closures are kept per series: a series new in the second part is closed only when the closures file
         // comes again with the append (docs/formats/closures.md).
-        IngestResult appended = StoreAppend.append(AppendOptions.of(temp.resolve("parts" + round), rest)
-            .withColumns(columns).withMissingRows(policy).withClosuresFile(closures), budget);
+        IngestResult appended = StoreAppend.append(new AppendOptions(temp.resolve("parts" + round), SalesInputs.of(rest)
+            .withColumns(columns).withMissingRows(policy).with(SideFile.CLOSURES, closures)), budget);
         StoreManifest expected = reference.manifest();
         assertEquals(expected.dayCount(), appended.manifest().dayCount(), where);
         assertEquals(expected.fill(), appended.manifest().fill(), where);
@@ -117,18 +119,19 @@ class LongAppendTest {
     Path other = Files.writeString(temp.resolve("other.csv"), "sku,store,day,qty\nA,s1,2025-03-05,2\n");
     ColumnNames columns = ColumnNames.DEFAULTS.with(Column.SALES_DATE, "day").with(Column.UNITS, "qty");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-      StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store")).withColumns(columns), budget);
+      StoreIngest.ingest(IngestOptions.of(SalesInputs.of(sales).withColumns(columns), temp.resolve("store")), budget);
       InputFormatException e = assertThrows(InputFormatException.class, () -> StoreAppend.append(
-          AppendOptions.of(temp.resolve("store"), overlap).withColumns(columns), budget));
+          new AppendOptions(temp.resolve("store"), SalesInputs.of(overlap).withColumns(columns)), budget));
       assertEquals(overlap + ", line 3, column 3: day '2025-03-03' is before 2025-03-04: expected dates from "
           + "2025-03-04 on (the period after the store's last)", e.getMessage());
       e = assertThrows(InputFormatException.class, () -> StoreAppend.append(
-          AppendOptions.of(temp.resolve("store"), other).withColumns(columns), budget));
+          new AppendOptions(temp.resolve("store"), SalesInputs.of(other).withColumns(columns)), budget));
       assertEquals(other + ", line 1: expected the attribute columns of the store [sku, shop], found [sku, store]",
           e.getMessage());
       // A sparse week: B sold nothing, A sold on 03-06 only. Zero-filled: A 03-04, 03-05; B 03-04 .. 03-06.
       Path week = Files.writeString(temp.resolve("week.csv"), "sku,shop,day,qty\nA,s1,2025-03-06,3\n");
-      IngestResult result = StoreAppend.append(AppendOptions.of(temp.resolve("store"), week).withColumns(columns),
+      IngestResult result = StoreAppend.append(
+          new AppendOptions(temp.resolve("store"), SalesInputs.of(week).withColumns(columns)),
           budget);
       assertTrue(result.warnings().get(0).startsWith("read 5 item-days with no row in the long sales as zero"),
           result.warnings().toString());

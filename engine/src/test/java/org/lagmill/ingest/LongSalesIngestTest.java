@@ -45,7 +45,8 @@ class LongSalesIngestTest {
       try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
         StoreIngest.ingest(IngestOptions.of(wide, temp.resolve("w" + round)), budget);
         // The long file leaves out some unknown days: read them as unknown, as the wide file's empty cells are.
-        StoreIngest.ingest(IngestOptions.of(longFile, temp.resolve("l" + round)).withMissingRows(MissingRows.UNKNOWN),
+        StoreIngest.ingest(
+            IngestOptions.of(SalesInputs.of(longFile).withMissingRows(MissingRows.UNKNOWN), temp.resolve("l" + round)),
             budget);
         try (SalesStore w = SalesStore.open(temp.resolve("w" + round), budget);
             SalesStore l = SalesStore.open(temp.resolve("l" + round), budget)) {
@@ -74,13 +75,13 @@ class LongSalesIngestTest {
           + "expected ISO date column headers (wide) or the columns 'date' and 'units' (long; rename with "
           + "‹date-column›, ‹units-column›)", e.getMessage());
       InputFormatException forced = assertThrows(InputFormatException.class, () -> StoreIngest.ingest(
-          IngestOptions.of(wide, temp.resolve("bad")).withSalesFormat(SalesFormat.LONG), budget));
+          IngestOptions.of(SalesInputs.of(wide).withSalesFormat(SalesFormat.LONG), temp.resolve("bad")), budget));
       // a long header is quoted as a bounded excerpt
       String header = Files.readAllLines(wide).get(0);
       assertEquals(wide + ", line 1: no column 'date' in header " + header.substring(0, 60) + "… (" + header.length()
           + " characters): expected one (or name it with ‹date-column›)", forced.getMessage());
-      StoreIngest.ingest(IngestOptions.of(longFile, temp.resolve("l")).withColumns(names)
-          .withMissingRows(MissingRows.UNKNOWN), budget);
+      StoreIngest.ingest(IngestOptions.of(SalesInputs.of(longFile).withColumns(names)
+          .withMissingRows(MissingRows.UNKNOWN), temp.resolve("l")), budget);
       StoreIngest.ingest(IngestOptions.of(wide, temp.resolve("w")), budget);
       try (SalesStore w = SalesStore.open(temp.resolve("w"), budget);
           SalesStore l = SalesStore.open(temp.resolve("l"), budget)) {

@@ -14,6 +14,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.TestSeeds;
 import org.lagmill.ingest.ColumnNames.Column;
+import org.lagmill.ingest.SalesInputs.SideFile;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SalesStore;
@@ -82,8 +83,8 @@ class MissingRowsIngestTest {
     // and 01-05 the most common gap, and so the store's period, would be two days).
     Files.writeString(sparse, "sku,shop,date,units\nA,s1,2025-01-01,1\nA,s1,2025-01-05,2\nB,s1,2025-01-02,1\n");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-      IngestResult result = StoreIngest.ingest(IngestOptions.of(sparse, temp.resolve("u"))
-          .withMissingRows(MissingRows.UNKNOWN), budget);
+      IngestResult result = StoreIngest.ingest(IngestOptions.of(SalesInputs.of(sparse)
+          .withMissingRows(MissingRows.UNKNOWN), temp.resolve("u")), budget);
       // A: days 2..4 unknown (3); B: days 1, 3, 4, 5 unknown (4): 7 of 10.
       assertEquals(new StoreManifest.Fill(0, 7, 0), result.manifest().fill());
       assertEquals(List.of("7 of 10 item-days (70.0 %) are unknown and are left out of training and scores; if "
@@ -104,8 +105,9 @@ class MissingRowsIngestTest {
     Path calendar = temp.resolve("calendar.csv");
     Files.writeString(calendar, "date,holiday\n2025-01-01,1\n2025-01-02,0\n2025-01-03,0\n");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-      IngestResult result = StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("s"))
-          .withColumns(ColumnNames.DEFAULTS.with(Column.SALES_DATE, "day")).withCalendarFile(calendar), budget);
+      IngestResult result = StoreIngest.ingest(IngestOptions.of(SalesInputs.of(sales)
+          .withColumns(ColumnNames.DEFAULTS.with(Column.SALES_DATE, "day")).with(SideFile.CALENDAR, calendar),
+          temp.resolve("s")), budget);
       // B has no row before its first one (unknown) and none on 01-03 (zero); A none on 01-02 (zero).
       assertEquals(new StoreManifest.Fill(2, 1, 0), result.manifest().fill());
       try (SalesStore store = SalesStore.open(temp.resolve("s"), budget)) {

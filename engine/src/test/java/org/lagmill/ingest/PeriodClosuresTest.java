@@ -12,6 +12,7 @@ import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.TestSeeds;
+import org.lagmill.ingest.SalesInputs.SideFile;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SalesStore;
@@ -53,8 +54,8 @@ class PeriodClosuresTest {
         s1,2023-12-28,2024-01-01,stock count
         """);
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-      IngestResult result = StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store"))
-          .withClosuresFile(closures), budget);
+      IngestResult result = StoreIngest.ingest(IngestOptions.of(SalesInputs.of(sales)
+          .with(SideFile.CLOSURES, closures), temp.resolve("store")), budget);
       assertEquals(List.of("4 item-weeks partly closed (the closures cover some of their days, not all) are kept "
           + "open: their sales are those of the open days, and a forecast for one is not reduced; a week counts as "
           + "closed only when every day of it is closed",
@@ -160,8 +161,8 @@ class PeriodClosuresTest {
       Path sales = Files.writeString(temp.resolve("sales" + round + ".csv"), csv.toString());
       Path closures = Files.writeString(temp.resolve("closures" + round + ".csv"), closuresCsv.toString());
       try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-        IngestResult result = StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store" + round))
-            .withClosuresFile(closures), budget);
+        IngestResult result = StoreIngest.ingest(IngestOptions.of(SalesInputs.of(sales)
+            .with(SideFile.CLOSURES, closures), temp.resolve("store" + round)), budget);
         long partial = 0;
         long closedInSales = 0;
         try (SalesStore store = SalesStore.open(temp.resolve("store" + round), budget)) {

@@ -38,7 +38,8 @@ class PeriodOptionTest {
   void shouldSayWhichPeriodItDetectedAndWarnOnAnUnusualOne() throws Exception {
     Path sales = Files.writeString(temp.resolve("till.csv"), SPARSE);
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-      IngestResult detected = StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("a")).withColumns(columns),
+      IngestResult detected = StoreIngest.ingest(
+          IngestOptions.of(SalesInputs.of(sales).withColumns(columns), temp.resolve("a")),
           budget);
       // Gaps between the distinct dates 03-01, 03-03, 03-05, 03-09: 2, 2, 4.
       assertEquals("period every 2 days: detected from the sales dates, the most common gap between consecutive "
@@ -49,8 +50,9 @@ class PeriodOptionTest {
           + "are daily (or weekly) sales with some days missing, give ‹period› day (or ‹period› week)",
           detected.warnings().get(0));
 
-      IngestResult daily = StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("b")).withColumns(columns)
-          .withPeriodDays(1), budget);
+      IngestResult daily = StoreIngest
+          .ingest(IngestOptions.of(SalesInputs.of(sales).withColumns(columns), temp.resolve("b"))
+              .withPeriodDays(1), budget);
       assertEquals("period daily: given with ‹period›", daily.periodNote());
       assertEquals(9, daily.manifest().dayCount());
       // A: 03-02 .. 03-04, 03-06 .. 03-08 zero (6); B: 03-04, 03-06 .. 03-09 zero (5), 03-01, 03-02 unknown.
@@ -72,7 +74,7 @@ class PeriodOptionTest {
     Path wide = Files.writeString(temp.resolve("wide.csv"), "sku,shop,2025-03-03,2025-03-10\nA,s1,1,2\n");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       InputFormatException e = assertThrows(InputFormatException.class, () -> StoreIngest.ingest(
-          IngestOptions.of(sales, temp.resolve("a")).withColumns(columns).withPeriodDays(7), budget));
+          IngestOptions.of(SalesInputs.of(sales).withColumns(columns), temp.resolve("a")).withPeriodDays(7), budget));
       assertEquals(sales + ", line 3, column 3: day '2025-03-03' is off the file's step of 7 days (given with "
           + "‹period›, from 2025-03-01): expected 2025-03-01 or 2025-03-08", e.getMessage());
       e = assertThrows(InputFormatException.class, () -> StoreIngest.ingest(IngestOptions.of(wide, temp.resolve("b"))

@@ -38,8 +38,8 @@ class PlanIngestTest {
     Path plan = Files.writeString(temp.resolve("plan.csv"), "valid_from,sku,deal,end_cap\n"
         + "2025-03-24,A,0,0\n2025-03-12,A,0.2,1\n2025-04-07,A,0.3,0\n2025-01-06,A,0,0\n2025-03-10,Q,1,1\n");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-      IngestResult result = StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store"))
-          .withPlan(new PlanSource(plan, "date", "valid_from")), budget);
+      IngestResult result = StoreIngest.ingest(IngestOptions.of(SalesInputs.of(sales)
+          .withPlan(new PlanSource(plan, "date", "valid_from")), temp.resolve("store")), budget);
       assertEquals(List.of("1 plan rows for unknown keys skipped (first: sku=Q)",
           "1 plan dates are not the first day of a week: each holds for the week containing it",
           "1 of 3 series match no plan row: their plan features read 0 (nothing planned)"), result.warnings());
@@ -82,8 +82,8 @@ class PlanIngestTest {
     Path plan = Files.writeString(temp.resolve("plan.csv"), "date,leaflet\n2025-03-02,1\n2025-03-04,1\n"
         + "2025-03-05,2\n2025-02-27,5\n");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-      IngestResult result = StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store"))
-          .withPlan(PlanSource.of(plan)), budget);
+      IngestResult result = StoreIngest.ingest(IngestOptions.of(SalesInputs.of(sales)
+          .withPlan(PlanSource.of(plan)), temp.resolve("store")), budget);
       assertEquals(List.of(), result.warnings());
       try (SalesStore store = SalesStore.open(temp.resolve("store"), budget)) {
         float[] leaflet = new float[7];
@@ -106,7 +106,8 @@ class PlanIngestTest {
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       StoreManifest ingested = StoreIngest.ingest(IngestOptions.of(sales, store), budget).manifest();
       assertEquals(null, ingested.file("plan.bin"), "a store without a plan has no plan.bin");
-      IngestResult appended = StoreAppend.append(AppendOptions.of(store, null).withPlan(PlanSource.of(plan)),
+      IngestResult appended = StoreAppend.append(
+          new AppendOptions(store, SalesInputs.of(null).withPlan(PlanSource.of(plan))),
           budget);
       assertEquals(4, appended.manifest().dayCount());
       try (SalesStore opened = SalesStore.open(store, budget)) {
@@ -135,7 +136,7 @@ class PlanIngestTest {
       StoreIngest.ingest(IngestOptions.of(sales, store), budget);
       byte[] before = StoreSnapshot.bytes(store);
       InputFormatException e = assertThrows(InputFormatException.class, () -> StoreAppend.append(
-          AppendOptions.of(store, null).withPlan(PlanSource.of(plan)), budget));
+          new AppendOptions(store, SalesInputs.of(null).withPlan(PlanSource.of(plan))), budget));
       assertEquals(plan + ", line 3, column 3: plan column 'promo' holds 'yes': expected a number such as 1, 0 or "
           + "0.25", e.getMessage());
       assertArrayEquals(before, StoreSnapshot.bytes(store));
@@ -171,7 +172,7 @@ class PlanIngestTest {
     Path store = temp.resolve("bad-store");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       InputFormatException e = assertThrows(InputFormatException.class, () -> StoreIngest.ingest(
-          IngestOptions.of(sales, store).withPlan(PlanSource.of(plan)), budget));
+          IngestOptions.of(SalesInputs.of(sales).withPlan(PlanSource.of(plan)), store), budget));
       assertEquals(plan + ", " + expected, e.getMessage());
       assertEquals(0, budget.heldBytes());
     }

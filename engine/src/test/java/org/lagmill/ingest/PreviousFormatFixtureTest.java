@@ -11,6 +11,7 @@ import java.util.stream.Stream;
 import org.junit.jupiter.api.Tag;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.ingest.SalesInputs.SideFile;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.StoreAssertions;
@@ -40,8 +41,9 @@ class PreviousFormatFixtureTest {
     }
     Path fresh = temp.resolve("fresh");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-      StoreIngest.ingest(IngestOptions.of(TINY.resolve("sales.csv"), fresh).withCalendarFile(TINY.resolve(
-          "calendar.csv")).withPricesFile(TINY.resolve("prices.csv")), budget);
+      StoreIngest
+          .ingest(IngestOptions.of(SalesInputs.of(TINY.resolve("sales.csv")).with(SideFile.CALENDAR, TINY.resolve(
+              "calendar.csv")).with(SideFile.PRICES, TINY.resolve("prices.csv")), fresh), budget);
       try (SalesStore old = SalesStore.open(copy, budget); SalesStore now = SalesStore.open(fresh, budget)) {
         assertEquals(StoreManifest.FORMAT_VERSION_OLDEST, old.manifest().formatVersion());
         assertEquals(StoreManifest.FORMAT_VERSION_CURRENT, now.manifest().formatVersion());

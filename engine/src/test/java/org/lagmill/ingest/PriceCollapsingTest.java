@@ -13,6 +13,7 @@ import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.TestSeeds;
+import org.lagmill.ingest.SalesInputs.SideFile;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.PriceTable;
 import org.lagmill.store.SalesStore;
@@ -47,7 +48,8 @@ class PriceCollapsingTest {
         A,s1,2025-02-10,1.99
         """);
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-      StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store")).withPricesFile(prices), budget);
+      StoreIngest.ingest(IngestOptions.of(SalesInputs.of(sales).with(SideFile.PRICES, prices), temp.resolve("store")),
+          budget);
       try (SalesStore store = SalesStore.open(temp.resolve("store"), budget)) {
         PriceTable table = store.prices();
         assertEquals(4, table.changeCount(0));
@@ -119,7 +121,8 @@ class PriceCollapsingTest {
     Path pricesFile = Files.writeString(dir.resolve("prices.csv"), "sku,shop,from,price\n" + String.join("\n", lines)
         + "\n");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-      StoreIngest.ingest(IngestOptions.of(salesFile, dir.resolve("store")).withPricesFile(pricesFile), budget);
+      StoreIngest.ingest(
+          IngestOptions.of(SalesInputs.of(salesFile).with(SideFile.PRICES, pricesFile), dir.resolve("store")), budget);
       try (SalesStore store = SalesStore.open(dir.resolve("store"), budget)) {
         for (int k = 0; k < seriesCount; k++) {
           int s = store.attributes().seriesIndexOf("k" + (k / shopCount) + "/shop" + (k % shopCount));

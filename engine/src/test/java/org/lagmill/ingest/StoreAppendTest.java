@@ -13,6 +13,7 @@ import java.util.Random;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.TestSeeds;
+import org.lagmill.ingest.SalesInputs.SideFile;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.ArraySalesHistory;
 import org.lagmill.store.RandomStoreData;
@@ -151,7 +152,7 @@ class StoreAppendTest {
     Files.writeString(again, "sku,shop,2024-01-05\na,n,1\nb,s,1\nc,n,1\nd,s,1\ne,n,1\n");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       Path store = temp.resolve("store");
-      StoreIngest.ingest(IngestOptions.of(first, store).withClosuresFile(closures), budget);
+      StoreIngest.ingest(IngestOptions.of(SalesInputs.of(first).with(SideFile.CLOSURES, closures), store), budget);
       IngestResult kept = StoreAppend.append(AppendOptions.of(store, next), budget);
       // (The new series' unknown first days raise the store's unknown-share warning after it.)
       assertEquals("2 series new to the store have no closures from the stored files, which were matched to "
@@ -162,7 +163,8 @@ class StoreAppendTest {
         assertTrue(opened.isClosed(opened.attributes().seriesIndexOf("a/n"), 3));
         assertTrue(!opened.isClosed(c, 3), "the stored closures do not reach the new series");
       }
-      IngestResult covered = StoreAppend.append(AppendOptions.of(store, again).withClosuresFile(closures), budget);
+      IngestResult covered = StoreAppend
+          .append(new AppendOptions(store, SalesInputs.of(again).with(SideFile.CLOSURES, closures)), budget);
       assertTrue(covered.warnings().stream().noneMatch(w -> w.contains("new to the store")), covered.warnings()
           .toString());
       try (SalesStore opened = SalesStore.open(store, budget.child("read"))) {

@@ -15,6 +15,7 @@ import java.util.List;
 import java.util.Map;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.ingest.SalesInputs.SideFile;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SalesStore;
@@ -35,8 +36,9 @@ class TinyFixtureIngestTest {
     assertTrue(Files.isDirectory(TINY), "run from the engine module: " + TINY.toAbsolutePath());
     JsonNode expected = new ObjectMapper().readTree(TINY.resolve("expected.json").toFile());
     Path storeDir = temp.resolve("store");
-    IngestOptions options = IngestOptions.of(TINY.resolve("sales.csv"), storeDir)
-        .withCalendarFile(TINY.resolve("calendar.csv")).withPricesFile(TINY.resolve("prices.csv"));
+    IngestOptions options = IngestOptions.of(SalesInputs.of(TINY.resolve("sales.csv"))
+        .with(SideFile.CALENDAR, TINY.resolve("calendar.csv")).with(SideFile.PRICES, TINY.resolve("prices.csv")),
+        storeDir);
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       IngestResult result = StoreIngest.ingest(options, budget);
       assertEquals(List.of(expected.get("priceRowsForUnknownKeys").asLong()

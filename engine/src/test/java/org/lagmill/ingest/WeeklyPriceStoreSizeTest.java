@@ -6,6 +6,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.lagmill.ingest.SalesInputs.SideFile;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.scenario.ScenarioGenerator;
 import org.lagmill.scenario.ScenarioSpec;
@@ -37,8 +38,9 @@ class WeeklyPriceStoreSizeTest {
     Path weeklyPrices = temp.resolve("weekly").resolve(ScenarioGenerator.PRICES_FILE);
     long weeklyRowCount = Files.lines(weeklyPrices).count() - 1;
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-      StoreIngest.ingest(IngestOptions.of(data.resolve(ScenarioGenerator.SALES_FILE), temp.resolve("store"))
-          .withCalendarFile(data.resolve(ScenarioGenerator.CALENDAR_FILE)).withPricesFile(weeklyPrices), budget);
+      StoreIngest.ingest(IngestOptions.of(SalesInputs.of(data.resolve(ScenarioGenerator.SALES_FILE))
+          .with(SideFile.CALENDAR, data.resolve(ScenarioGenerator.CALENDAR_FILE)).with(SideFile.PRICES, weeklyPrices),
+          temp.resolve("store")), budget);
       try (SalesStore store = SalesStore.open(temp.resolve("store"), budget)) {
         double itemDays = (double) store.seriesCount() * store.dayCount();
         double pricesBytesPerItemDay = Files

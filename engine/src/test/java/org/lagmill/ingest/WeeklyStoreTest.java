@@ -11,6 +11,7 @@ import java.time.LocalDate;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.ingest.ColumnNames.Column;
+import org.lagmill.ingest.SalesInputs.SideFile;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.SalesStore;
 import org.lagmill.store.StoreGenerations;
@@ -57,8 +58,8 @@ class WeeklyStoreTest {
         jam,s1,2024-01-19,1.10
         """);
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-      StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store")).withCalendarFile(calendar)
-          .withPricesFile(prices), budget);
+      StoreIngest.ingest(IngestOptions.of(SalesInputs.of(sales).with(SideFile.CALENDAR, calendar)
+          .with(SideFile.PRICES, prices), temp.resolve("store")), budget);
       Path weeklyManifest = StoreGenerations.readableDir(temp.resolve("store")).resolve("manifest.json");
       assertTrue(Files.readString(weeklyManifest).contains("\"periodDays\" : 7"));
       try (SalesStore store = SalesStore.open(temp.resolve("store"), budget)) {
@@ -116,8 +117,9 @@ class WeeklyStoreTest {
         s1,jam,2024-01-08,
         """);
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-      StoreIngest.ingest(IngestOptions.of(sales, temp.resolve("store"))
-          .withColumns(ColumnNames.DEFAULTS.withDateColumn("week").with(Column.UNITS, "qty")), budget);
+      StoreIngest.ingest(IngestOptions.of(SalesInputs.of(sales)
+          .withColumns(ColumnNames.DEFAULTS.withDateColumn("week").with(Column.UNITS, "qty")), temp.resolve("store")),
+          budget);
       try (SalesStore store = SalesStore.open(temp.resolve("store"), budget)) {
         assertEquals(7, store.periodDays());
         assertEquals(4, store.dayCount());
@@ -156,11 +158,11 @@ class WeeklyStoreTest {
     Path gap = write("gap.csv", "date,fair\n2024-01-01,1\n2024-01-15,0\n");
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
       InputFormatException e = assertThrows(InputFormatException.class, () -> StoreIngest.ingest(
-          IngestOptions.of(sales, temp.resolve("store")).withCalendarFile(shifted), budget));
+          IngestOptions.of(SalesInputs.of(sales).with(SideFile.CALENDAR, shifted), temp.resolve("store")), budget));
       assertEquals(shifted + ", line 2, column 1: calendar date 2023-12-27 is off the store's step of 7 days from its"
           + " first date 2024-01-01: expected 2023-12-25 or 2024-01-01", e.getMessage());
       e = assertThrows(InputFormatException.class, () -> StoreIngest.ingest(
-          IngestOptions.of(sales, temp.resolve("store")).withCalendarFile(gap), budget));
+          IngestOptions.of(SalesInputs.of(sales).with(SideFile.CALENDAR, gap), temp.resolve("store")), budget));
       assertEquals(gap + ", line 3, column 1: calendar gap: expected 2024-01-08, found 2024-01-15", e.getMessage());
     }
   }

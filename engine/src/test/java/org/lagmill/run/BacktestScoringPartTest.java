@@ -20,6 +20,8 @@ import org.lagmill.eval.Evaluator;
 import org.lagmill.eval.Hierarchy;
 import org.lagmill.eval.RollingOriginBacktest;
 import org.lagmill.ingest.IngestOptions;
+import org.lagmill.ingest.SalesInputs;
+import org.lagmill.ingest.SalesInputs.SideFile;
 import org.lagmill.ingest.StoreIngest;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.memory.MemoryBudget;
@@ -60,9 +62,9 @@ class BacktestScoringPartTest {
     Map<String, double[]> forecastById = new HashMap<>();
     List<BacktestScoringPart> parts = new ArrayList<>();
     try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
-      StoreIngest.ingest(IngestOptions.of(data.resolve(ScenarioGenerator.SALES_FILE), whole)
-          .withCalendarFile(data.resolve(ScenarioGenerator.CALENDAR_FILE))
-          .withPricesFile(data.resolve(ScenarioGenerator.PRICES_FILE)), budget);
+      StoreIngest.ingest(IngestOptions.of(SalesInputs.of(data.resolve(ScenarioGenerator.SALES_FILE))
+          .with(SideFile.CALENDAR, data.resolve(ScenarioGenerator.CALENDAR_FILE))
+          .with(SideFile.PRICES, data.resolve(ScenarioGenerator.PRICES_FILE)), whole), budget);
       StoreSharding.shard(whole, PARTS, "article", shards, budget);
       for (int part = 0; part < PARTS; part++) {
         try (SalesStore shard = SalesStore.open(shards.resolve(StoreSharding.shardDirectoryName(part)), budget)) {

@@ -16,6 +16,8 @@ import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.ingest.AppendOptions;
 import org.lagmill.ingest.IngestOptions;
 import org.lagmill.ingest.IngestResult;
+import org.lagmill.ingest.SalesInputs;
+import org.lagmill.ingest.SalesInputs.SideFile;
 import org.lagmill.ingest.ShardIngest;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.memory.MemoryBudget;
@@ -40,8 +42,9 @@ class IngestJobTest {
     Path prices = Files.writeString(temp.resolve("prices.csv"), "item,store,from,price\na,n,2024-01-01,2.5\n"
         + "z,n,2024-01-01,1.0\n");
     Path store = temp.resolve("store");
-    IngestJob.Outcome outcome = IngestJob.run(request(IngestOptions.of(sales, store).withPricesFile(prices), null,
-        null));
+    IngestJob.Outcome outcome = IngestJob
+        .run(request(IngestOptions.of(SalesInputs.of(sales).with(SideFile.PRICES, prices), store), null,
+            null));
 
     IngestResult result = outcome.result();
     assertEquals(3, result.manifest().seriesCount());
