@@ -1,9 +1,15 @@
 package org.lagmill.training;
 
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.dataformat.yaml.YAMLFactory;
 import java.util.Collection;
+import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Locale;
 import java.util.Objects;
+import java.util.Set;
 import org.lagmill.features.FeatureSpecYaml;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.io.Setting;
@@ -17,6 +23,8 @@ import org.lagmill.learner.TrainedModel;
  * otherwise, naming what differs.
  */
 final class ContinuationCheck {
+  private static final ObjectMapper YAML = new ObjectMapper(new YAMLFactory());
+
   private ContinuationCheck() {}
 
   /**
@@ -74,15 +82,30 @@ final class ContinuationCheck {
     return partitionAttribute == null ? "nothing (one model)" : "'" + partitionAttribute + "'";
   }
 
-  /** The first line where two texts differ, as "found … expected …" (whole texts when one is a prefix). */
+  /**
+   * The first setting (top-level key of the specs' YAML form) whose value differs, as "its KEY is A where this
+   * training's is B"; a key one of them lacks reads "(not set)".
+   */
   static String firstDifference(String starting, String wanted) {
-    String[] a = starting.split("\n", -1);
-    String[] b = wanted.split("\n", -1);
-    for (int i = 0; i < Math.min(a.length, b.length); i++) {
-      if (!a[i].equals(b[i])) {
-        return "its spec has '" + a[i].strip() + "' where this training's has '" + b[i].strip() + "'";
+    try {
+      JsonNode a = YAML.readTree(starting);
+      JsonNode b = YAML.readTree(wanted);
+      Set<String> keys = new LinkedHashSet<>();
+      a.fieldNames().forEachRemaining(keys::add);
+      b.fieldNames().forEachRemaining(keys::add);
+      for (String key : keys) {
+        if (!Objects.equals(a.get(key), b.get(key))) {
+          return "its " + key + " is " + shownValue(a.get(key)) + " where this training's is " + shownValue(b.get(
+              key));
+        }
       }
+    } catch (JsonProcessingException e) {
+      throw new IllegalStateException("a feature spec's own YAML form does not parse: " + e.getOriginalMessage(), e);
     }
-    return "its spec has " + a.length + " lines, this training's " + b.length;
+    return "they differ in a way their YAML forms do not show";
+  }
+
+  private static String shownValue(JsonNode value) {
+    return value == null ? "(not set)" : value.toString();
   }
 }
