@@ -17,8 +17,11 @@ import java.util.Map;
  * the run records) and the backtest's mean WRMSSE, for docs/benchmarks.md.
  *
  * <p>Run: {@code java -cp bench/target/lagmill-bench.jar org.lagmill.bench.WeeklyJobHarness SERIES DAYS WORK_DIR
- * [CLI_JAR] [extra training options…]}; CLI_JAR defaults to {@code cli/target/lagmill.jar}. Extra options (e.g.
- * {@code --learning-rate 0.1}) go to both backtest and train, to measure a lever against the default route.
+ * [CLI_JAR] [--route continued] [extra training options…]}; CLI_JAR defaults to {@code cli/target/lagmill.jar}.
+ * Extra options (e.g. {@code --learning-rate 0.1}) go to both backtest and train, to measure a lever against the
+ * default route. {@code --route continued} (the harness's own option) runs the continued route: each backtest origin
+ * after the first continues from the previous origin's model, the backtest saves its last origin's model, and the
+ * final fit continues from it, so the final fit only adds rounds for the newest days.
  */
 public final class WeeklyJobHarness {
   private static final ObjectMapper JSON = new ObjectMapper();
@@ -34,7 +37,18 @@ public final class WeeklyJobHarness {
     int dayCount = Integer.parseInt(args[1]);
     Path work = Path.of(args[2]);
     Path jar = Path.of(args.length > 3 ? args[3] : "cli/target/lagmill.jar");
-    List<String> extra = args.length > 4 ? List.of(args).subList(4, args.length) : List.of();
+    List<String> extra = new ArrayList<>(args.length > 4 ? List.of(args).subList(4, args.length) : List.of());
+    boolean continued = false;
+    int route = extra.indexOf("--route");
+    if (route >= 0) {
+      if (route + 1 >= extra.size() || !List.of("scratch", "continued").contains(extra.get(route + 1))) {
+        throw new IllegalArgumentException("--route takes scratch or continued, got " + extra.subList(route + 1,
+            extra.size()));
+      }
+      continued = extra.get(route + 1).equals("continued");
+      extra.subList(route, route + 2).clear();
+    }
+    Path lastOrigin = work.resolve("last-origin");
     Files.createDirectories(work);
     List<StageFigures> stages = new ArrayList<>();
     Path data = work.resolve("data");
@@ -48,6 +62,9 @@ public final class WeeklyJobHarness {
     List<String> backtest = new ArrayList<>(List.of("backtest", "--store", store.toString(), "--origins", "3",
         "--report", work.resolve("backtest").toString(), "--quiet"));
     backtest.addAll(extra);
+    if (continued) {
+      backtest.addAll(List.of("--continue-origins", "--save-last-model", lastOrigin.toString()));
+    }
     StageFigures backtestStage = measure(jar, work, "backtest (3 origins)", backtest, "");
     JsonNode backtestResult = JSON.readTree(work.resolve("backtest").resolve("backtest.json").toFile());
     stages.add(new StageFigures(backtestStage.name(), backtestStage.seconds(), backtestStage.peakResidentBytes(),
@@ -55,6 +72,9 @@ public final class WeeklyJobHarness {
     List<String> train = new ArrayList<>(List.of("train", "--store", store.toString(), "--model",
         work.resolve("model").toString(), "--quiet"));
     train.addAll(extra);
+    if (continued) {
+      train.addAll(List.of("--continue-from", lastOrigin.toString()));
+    }
     StageFigures trainStage = measure(jar, work, "final fit", train, "");
     JsonNode trainRecord = JSON.readTree(work.resolve("model").resolve("run.json").toFile());
     stages.add(new StageFigures(trainStage.name(), trainStage.seconds(), trainStage.peakResidentBytes(),
@@ -63,9 +83,10 @@ public final class WeeklyJobHarness {
         "--model", work.resolve("model").toString(), "--intervals", "--out", work.resolve("forecast.csv").toString(),
         "--quiet"), ""));
     double total = stages.stream().mapToDouble(StageFigures::seconds).sum();
-    System.out.printf(Locale.ROOT, "%d series x %d days = %.1f M item-days, options %s%n", seriesCount, dayCount,
-        seriesCount * (double) dayCount / 1e6, extra.isEmpty() ? "(defaults)" : String.join(" ", extra));
-    System.out.println("| stage | wall s | peak RSS MB | boosting rounds (best / refit) |");
+    System.out.printf(Locale.ROOT, "%d series x %d days = %.1f M item-days, %s route, options %s%n", seriesCount,
+        dayCount, seriesCount * (double) dayCount / 1e6, continued ? "continued" : "from-scratch",
+        extra.isEmpty() ? "(defaults)" : String.join(" ", extra));
+    System.out.println("| stage | wall s | peak RSS MB | boosting rounds (best / refit; continued: start + added) |");
     System.out.println("|---|---|---|---|");
     for (StageFigures s : stages) {
       System.out.printf(Locale.ROOT, "| %s | %.1f | %d | %s |%n", s.name(), s.seconds(), s.peakResidentBytes() >> 20,
@@ -94,7 +115,10 @@ public final class WeeklyJobHarness {
     return new StageFigures(name, result.seconds(), result.peakResidentBytes(), rounds);
   }
 
-  /** "best / refit" rounds of every origin's partitions, e.g. "412/433, 380/401, 510/536". */
+  /**
+   * "best / refit" rounds of every origin's partitions, e.g. "412/433, 380/401, 510/536"; a continued partition shows
+   * its starting rounds plus the rounds it added, e.g. "315+140".
+   */
   private static String roundsOfBacktest(JsonNode backtestResult) {
     List<String> perOrigin = new ArrayList<>();
     for (JsonNode origin : backtestResult.path("origins")) {
@@ -106,7 +130,8 @@ public final class WeeklyJobHarness {
   private static String rounds(JsonNode partitions) {
     List<String> parts = new ArrayList<>();
     for (JsonNode p : partitions) {
-      parts.add(p.path("bestIteration").asInt() + "/" + p.path("refitRounds").asInt());
+      parts.add(p.path("continuedFrom").isTextual() ? p.path("startingRounds").asInt() + "+" + p.path("addedRounds")
+          .asInt() : p.path("bestIteration").asInt() + "/" + p.path("refitRounds").asInt());
     }
     return String.join(" + ", parts);
   }
