@@ -7,6 +7,7 @@ import java.util.Locale;
 import java.util.concurrent.Callable;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.run.BacktestChoice;
+import org.lagmill.run.DistributedTrainJob;
 import org.lagmill.run.TrainJob;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -103,11 +104,29 @@ final class TrainCommand implements Callable<Integer> {
     TrainJob.Request request = new TrainJob.Request(store.dir, model, until, memoryLimit.bytes(),
         (periodDays, cut) -> training.members(chosenMembers, periodDays, cut), continueFrom);
     if (machines != null || rank != null) {
-      return TrainJob.open(request, (opened, plan, run) -> DistributedTrainRun.run(this, opened, plan, run));
+      return trainRank(request);
     }
     TrainJob.Outcome outcome = TrainJob.run(request, ConsoleProgress.forCommand(quiet.on));
     if (!quiet.on) {
       TrainPrinter.print(commandSpec.commandLine().getOut(), outcome);
+    }
+    return ExitCodes.OK;
+  }
+
+  /**
+   * This process's rank of a distributed training. When another rank dies while this one waits inside LightGBM, the
+   * exchange's reader thread prints the cause and ends the process at once with {@link ExitCodes#RANK_FAILED}.
+   */
+  private int trainRank(TrainJob.Request request) throws Exception {
+    DistributedTrainJob.Outcome outcome = DistributedTrainJob.run(new DistributedTrainJob.Request(request, machines,
+        rank, treeLearner, rankTimeoutSeconds), ConsoleProgress.forCommand(quiet.on), message -> {
+          System.err.println("lagmill: rank " + rank + " stops: " + FlagNames.render(message));
+          System.err.flush();
+          System.out.flush();
+          Runtime.getRuntime().halt(ExitCodes.RANK_FAILED);
+        });
+    if (!quiet.on) {
+      DistributedTrainPrinter.print(commandSpec.commandLine().getOut(), outcome);
     }
     return ExitCodes.OK;
   }

@@ -58,4 +58,23 @@ class TinyFixtureCommandsTest {
       assertEquals(List.of(), left.toList(), "no store and no temporary directory");
     }
   }
+
+  @Test
+  void shouldNameTheFlagsWhenARanksRequestIsRefused() {
+    Path store = temp.resolve("store");
+    assertEquals(0, MainRun.of("ingest", "--sales", TINY.resolve("sales.csv").toString(), "--store",
+        store.toString(), "--quiet").exitCode());
+    String machines = "127.0.0.1:12400,127.0.0.1:12410";
+    MainRun noRank = MainRun.of("train", "--store", store.toString(), "--model", temp.resolve("m").toString(),
+        "--machines", machines);
+    assertEquals(ExitCodes.USAGE_ERROR, noRank.exitCode(), noRank.err());
+    assertEquals("lagmill: --machines and --rank go together: give every rank the same --machines list and its own "
+        + "--rank\n", noRank.err());
+    MainRun whole = MainRun.of("train", "--store", store.toString(), "--model", temp.resolve("m").toString(),
+        "--machines", machines, "--rank", "0", "--tree-learner", "voting");
+    assertEquals(ExitCodes.USAGE_ERROR, whole.exitCode(), whole.err());
+    assertEquals("lagmill: rank 0 of 2 needs shard 0 of a store split in 2 (lagmill shard --parts 2); --store "
+        + store + " is a whole store\n", whole.err());
+    assertTrue(!Files.exists(temp.resolve("m")), "no model directory");
+  }
 }

@@ -55,9 +55,9 @@ public final class TrainJob {
   public record Outcome(List<String> memberNames, List<PartitionReport> partitions, long learnerPeakBytes,
       long storeOffHeapBytes, Path modelDir) {}
 
-  /** Training done elsewhere on the opened store and plan, under the job's run (the distributed ranks). */
+  /** Training done elsewhere on the opened store and plan, under the job's run ({@link DistributedTrainJob}). */
   @FunctionalInterface
-  public interface Training<T> {
+  interface Training<T> {
     T train(SalesStore opened, TrainingPlan plan, Run run) throws Exception;
   }
 
@@ -80,7 +80,7 @@ public final class TrainJob {
    *
    * @throws InvalidRequestException when the request names several members: elsewhere-training takes one plan
    */
-  public static <T> T open(Request request, Training<T> training) throws Exception {
+  static <T> T open(Request request, Training<T> training) throws Exception {
     return openMembers(request, (opened, members, run) -> {
       if (request.continueFrom() != null) {
         throw new InvalidRequestException(Setting.CONTINUE_FROM + " cannot be combined with " + Setting.MACHINES

@@ -8,6 +8,7 @@
  * <p>Entry points, one per command that runs the pipeline or reads or writes a store:
  * {@link org.lagmill.run.IngestJob}, {@link org.lagmill.run.AppendJob}, {@link org.lagmill.run.ShardJob},
  * {@link org.lagmill.run.InspectJob}, {@link org.lagmill.run.SeriesJob}, {@link org.lagmill.run.TrainJob},
+ * {@link org.lagmill.run.DistributedTrainJob} (one rank of {@code train} over several machines),
  * {@link org.lagmill.run.ForecastJob}, {@link org.lagmill.run.EvaluateJob}, {@link org.lagmill.run.BacktestJob},
  * {@link org.lagmill.run.ExplainJob}, {@link org.lagmill.run.DemoJob}. Each takes a request of plain values, writes
  * every file itself and returns what a front end prints; warnings go to a sink as engine text with setting mentions.
