@@ -72,6 +72,9 @@ final class ModelCommand implements Callable<Integer> {
         row.put("zeroRowWeight", p.zeroRowWeight());
         row.put("featureCount", p.featureCount());
         row.put("bestIteration", p.bestIteration());
+        row.put("iterationCount", p.iterationCount());
+        row.put("continuedFrom", p.continuedFrom());
+        row.put("startingRounds", p.startingRounds());
         row.put("validationMetric", p.validationMetric());
         partitions.add(row);
       }
@@ -102,6 +105,9 @@ final class ModelCommand implements Callable<Integer> {
       String dropped = PartitionReport.zeroRowsNotice(List.of(p));
       if (dropped != null) {
         out.println("  " + dropped);
+      }
+      if (p.continued()) {
+        out.println("  " + TrainPrinter.continuation(p));
       }
     }
     int shown = all ? importance.size() : Math.min(LISTED_FEATURE_COUNT, importance.size());

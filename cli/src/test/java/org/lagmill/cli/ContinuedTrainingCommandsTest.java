@@ -82,6 +82,10 @@ class ContinuedTrainingCommandsTest {
     assertEquals(startingTrees, finalTrees.subList(0, startingRounds));
     expectOk(MainRun.of("forecast", "--store", store.toString(), "--model", finalModel.toString(), "--out",
         dir.resolve("f.csv").toString(), "--quiet"));
+    MainRun described = MainRun.of("model", "--model", finalModel.toString());
+    expectOk(described);
+    assertTrue(described.out().contains("  continued from " + last + " (" + startingRounds + " rounds), added "),
+        described.out());
 
     // another feature spec is refused before anything is written
     Path otherSpec = Files.writeString(dir.resolve("other.yaml"), "horizonDays: 28\nlagDays: [28, 35]\n"
