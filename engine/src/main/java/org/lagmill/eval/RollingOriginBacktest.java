@@ -87,7 +87,7 @@ public final class RollingOriginBacktest {
         LastModels lastModels = last ? originModels.lastModels() : null;
         ModelSet[] kept = new ModelSet[1];
         try {
-          origins.add(runOrigin(history, originPlan, settings, evaluator, origin, budget, progress, listener,
+          origins.add(runOrigin(history, originPlan, settings, evaluator, origin, budget, progress, listener, keep,
               (models, trainedPlan, known) -> {
                 if (lastModels != null) {
                   lastModels.accept(models, trainedPlan, known);
@@ -115,14 +115,15 @@ public final class RollingOriginBacktest {
    * One origin: train on the history before it, forecast, score.
    *
    * @param plan cut the day before {@code origin}
+   * @param keepRowScores the models keep their rows' scores, for the next origin to continue from
    * @param models sees the origin's models after its forecast; if it keeps them it closes them, else they are
    *     closed before this returns; null for none
    */
   static BacktestResult.OriginResult runOrigin(SalesHistory history, TrainingPlan plan, BacktestSettings settings,
       Evaluator evaluator, int origin, MemoryBudget budget, ProgressListener progress, ForecastListener listener,
-      ModelsKeeper models) {
+      boolean keepRowScores, ModelsKeeper models) {
     TruncatedHistory known = new TruncatedHistory(history, origin);
-    ModelForecast forecast = trainAndForecast(known, plan, settings, budget, progress, models);
+    ModelForecast forecast = trainAndForecast(known, plan, settings, budget, progress, keepRowScores, models);
     if (listener != null) {
       listener.onOrigin(origin, forecast.point(), forecast.dispersion());
     }
@@ -176,7 +177,7 @@ public final class RollingOriginBacktest {
       List<ModelForecast> forecasts = new ArrayList<>();
       for (int m = 0; m < plans.size(); m++) {
         ModelForecast forecast = trainAndForecast(known, plans.get(m).withCutDayIndex(origin - 1), settings, budget,
-            progress, null);
+            progress, false, null);
         if (listener != null) {
           listener.onForecast(m, origin, forecast.point(), forecast.dispersion());
         }
@@ -211,13 +212,14 @@ public final class RollingOriginBacktest {
 
   /**
    * @param plan cut the day before the origin
+   * @param keepRowScores the models keep their training and validation rows' scores ({@link ModelTraining})
    * @param keeper sees the models after the forecast, or null; the models are closed here unless it keeps them
    */
   private static ModelForecast trainAndForecast(TruncatedHistory known, TrainingPlan plan, BacktestSettings settings,
-      MemoryBudget budget, ProgressListener progress, ModelsKeeper keeper) {
+      MemoryBudget budget, ProgressListener progress, boolean keepRowScores, ModelsKeeper keeper) {
     long trainStart = System.nanoTime();
     List<PartitionReport> partitions = new ArrayList<>();
-    ModelSet models = ModelTraining.train(known, plan, budget, progress);
+    ModelSet models = ModelTraining.train(known, plan, budget, progress, keepRowScores);
     boolean kept = false;
     try {
       double trainSeconds = (System.nanoTime() - trainStart) / 1e9;

@@ -61,7 +61,7 @@ public final class DatasetBuilder {
    * @throws IllegalArgumentException when the stream is empty, holds 2^31 rows or more, or has a NaN/infinite label
    */
   public TrainingDataset build(RowStream rows) {
-    return build(rows, rows.rowCount(), null, null);
+    return build(rows, rows.rowCount(), null, null, false);
   }
 
   /**
@@ -73,7 +73,20 @@ public final class DatasetBuilder {
    * @param startingModel trained on the same feature schema; not owned, must stay open while the Dataset is used
    */
   public TrainingDataset build(RowStream rows, TrainedModel startingModel) {
-    return build(rows, rows.rowCount(), null, java.util.Objects.requireNonNull(startingModel, "startingModel"));
+    return build(rows, StartingScores.predicted(startingModel), false);
+  }
+
+  /**
+   * As {@link #build(RowStream)}, with every row starting from {@code start}'s raw scores when it is given (carried
+   * over where {@link StartingScores#carried()} holds the row, else predicted), and, with {@code recordRows}, each
+   * row's series and day recorded so that the model trained on this Dataset keeps every row's score
+   * ({@link TrainedModel#rowScores()}) for the next continued training: 16 bytes per row from this builder's budget,
+   * held until that model is closed.
+   *
+   * @param start where the rows' starting scores come from, or null to start from LightGBM's own score
+   */
+  public TrainingDataset build(RowStream rows, StartingScores start, boolean recordRows) {
+    return build(rows, rows.rowCount(), null, start, recordRows);
   }
 
   /**
@@ -92,15 +105,16 @@ public final class DatasetBuilder {
       throw new IllegalArgumentException("rows over all ranks (" + distributedRowCount + ") cannot be fewer than "
           + "this rank's " + rows.rowCount());
     }
-    return build(rows, distributedRowCount, rankSum, null);
+    return build(rows, distributedRowCount, rankSum, null, false);
   }
 
   /**
    * @param rankSum null on one machine
-   * @param startingModel whose raw scores the rows start from, or null
+   * @param start where the rows' starting raw scores come from, or null
+   * @param recordRows record each row's series and day for the trained model to keep the rows' scores
    */
-  private TrainingDataset build(RowStream rows, long distributedRowCount, RankSum rankSum,
-      TrainedModel startingModel) {
+  private TrainingDataset build(RowStream rows, long distributedRowCount, RankSum rankSum, StartingScores start,
+      boolean recordRows) {
     FeatureSchema schema = rows.schema();
     int rowCount = checkedRowCount(rows);
     int sampleRowCount = Math.min(parameters.sampleRowCount(), rowCount);
@@ -120,17 +134,47 @@ public final class DatasetBuilder {
       }
       SWIGTYPE_p_void handle = createFromSample(sample, schema, sampleRowCount, rowCount, distributedRowCount,
           categoricalColumns);
-      double weightSum;
-      try {
-        weightSum = pushRowsAndFinish(handle, rows, batch, rowCount, startingModel);
-      } catch (RuntimeException | Error e) {
-        lightgbmlib.LGBM_DatasetFree(handle);
-        throw e;
-      }
-      DatasetStats stats = new DatasetStats(rowCount, schema.featureCount(), sampleRowCount,
-          sample.keptValueCount(), residentBefore, ProcessMemory.residentBytes());
-      return new TrainingDataset(handle, schema, stats, false, weightSum, categoricalColumns, startingModel);
+      return pushRowsAndWrap(handle, rows, batch, rowCount, start, recordRows, false, categoricalColumns,
+          sampleRowCount, sample.keptValueCount(), residentBefore);
     }
+  }
+
+  /**
+   * Pushes the rows into the created Dataset {@code handle} and wraps it; frees it on failure.
+   *
+   * @param start where the rows' starting raw scores come from, or null
+   */
+  private TrainingDataset pushRowsAndWrap(SWIGTYPE_p_void handle, RowStream rows, FeatureBatch batch, int rowCount,
+      StartingScores start, boolean recordRows, boolean validation, int[] categoricalColumns, int sampleRowCount,
+      long sampleValueCount, long residentBefore) {
+    TrainedModel startingModel = start == null ? null : start.model();
+    RowScores.Rows recorded = null;
+    StartingScoreFiller filler = null;
+    double weightSum;
+    try {
+      recorded = recordRows ? new RowScores.Rows(budget, rowCount) : null;
+      filler = start == null ? null : new StartingScoreFiller(start, parameters.threadCount(), budget);
+      weightSum = pushRowsAndFinish(handle, rows, batch, rowCount, filler, recorded);
+    } catch (RuntimeException | Error e) {
+      if (recorded != null) {
+        recorded.close();
+      }
+      lightgbmlib.LGBM_DatasetFree(handle);
+      throw e;
+    } finally {
+      if (filler != null) {
+        filler.close();
+      }
+    }
+    DatasetStats stats = new DatasetStats(rowCount, rows.schema().featureCount(), sampleRowCount, sampleValueCount,
+        residentBefore, ProcessMemory.residentBytes());
+    TrainingDataset dataset = new TrainingDataset(handle, rows.schema(), stats, validation, weightSum,
+        categoricalColumns, startingModel);
+    dataset.holdRecordedRows(recorded);
+    if (filler != null) {
+      dataset.countStartingScores(filler.carriedRowCount(), filler.predictedRowCount());
+    }
+    return dataset;
   }
 
   /**
@@ -193,6 +237,20 @@ public final class DatasetBuilder {
    * @param startingModel the model {@code reference} starts from, or null when it starts from LightGBM's own score
    */
   public TrainingDataset createValidation(TrainingDataset reference, RowStream rows, TrainedModel startingModel) {
+    return createValidation(reference, rows, startingModel == null ? null : StartingScores.predicted(startingModel),
+        false);
+  }
+
+  /**
+   * As {@link #createValidation(TrainingDataset, RowStream)}, the rows starting from {@code start} as those of
+   * {@code reference} do and, with {@code recordRows}, their series and days recorded as by
+   * {@link #build(RowStream, StartingScores, boolean)}.
+   *
+   * @param start where the rows' starting scores come from (the model {@code reference} starts from), or null
+   */
+  public TrainingDataset createValidation(TrainingDataset reference, RowStream rows, StartingScores start,
+      boolean recordRows) {
+    TrainedModel startingModel = start == null ? null : start.model();
     if (startingModel != reference.initialScoresFrom()) {
       throw new IllegalArgumentException("validation rows must start from the same model as the training rows ("
           + (reference.initialScoresFrom() == null ? "none" : "a starting model") + ")");
@@ -211,17 +269,10 @@ public final class DatasetBuilder {
     int returnCode = lightgbmlib.LGBM_DatasetCreateByReference(reference.handle(), rowCount, out);
     SWIGTYPE_p_void handle = Native.takeHandle(out);
     Native.check(returnCode, "LGBM_DatasetCreateByReference");
-    double weightSum;
     try (FeatureBatch batch = newBatch(schema, rowCount)) {
-      weightSum = pushRowsAndFinish(handle, rows, batch, rowCount, startingModel);
-    } catch (RuntimeException | Error e) {
-      lightgbmlib.LGBM_DatasetFree(handle);
-      throw e;
+      return pushRowsAndWrap(handle, rows, batch, rowCount, start, recordRows, true, reference.categoricalColumns(),
+          0, 0, residentBefore);
     }
-    DatasetStats stats = new DatasetStats(rowCount, schema.featureCount(), 0, 0, residentBefore,
-        ProcessMemory.residentBytes());
-    return new TrainingDataset(handle, schema, stats, true, weightSum, reference.categoricalColumns(),
-        startingModel);
   }
 
   /**
@@ -343,11 +394,13 @@ public final class DatasetBuilder {
    * row, and would silently ignore any push after that.
    */
   /**
-   * @param startingModel whose raw score each row starts from (predicted per pushed batch), or null
+   * @param filler writes each row's starting raw score, or null to start from LightGBM's own score
+   * @param recorded receives each row's series and day, or null
    * @return the sum of the rows' weights, or the row count without weights (what LightGBM's metrics divide by)
    */
   private double pushRowsAndFinish(SWIGTYPE_p_void handle, RowStream rows, FeatureBatch batch, int rowCount,
-      TrainedModel startingModel) {
+      StartingScoreFiller filler, RowScores.Rows recorded) {
+    TrainedModel startingModel = filler == null ? null : filler.model();
     int featureCount = rows.schema().featureCount();
     if (startingModel != null && startingModel.featureCount() != featureCount) {
       throw new IllegalArgumentException("the starting model reads " + startingModel.featureCount() + " features but"
@@ -370,8 +423,11 @@ public final class DatasetBuilder {
               + " rows; a RowStream must produce its rows in order and exactly rowCount() of them");
         }
         copyLabels(full, (int) pushedRows[0], labels, weights);
-        if (startingModel != null) {
-          startingModel.predictRawInto(full, initialScores.address(pushedRows[0]), parameters.threadCount());
+        if (filler != null) {
+          filler.fill(full, initialScores, (int) pushedRows[0]);
+        }
+        if (recorded != null) {
+          recorded.record(full, (int) pushedRows[0]);
         }
         Native.check(lightgbmlib.LGBM_DatasetPushRows(handle, Native.voidPointer(full.valuesAddress()),
             lightgbmlibConstants.C_API_DTYPE_FLOAT32, batchRows, featureCount, (int) pushedRows[0]),

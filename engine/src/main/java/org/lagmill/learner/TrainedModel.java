@@ -37,6 +37,7 @@ public final class TrainedModel implements AutoCloseable {
 
   private SWIGTYPE_p_void booster;
   private Objective objective;
+  private RowScores rowScores;
 
   TrainedModel(SWIGTYPE_p_void booster, int bestIteration, double[] validationCurve, double[] validationRmseCurve) {
     this(booster, bestIteration, validationCurve, validationRmseCurve, 0, Double.NaN);
@@ -228,15 +229,24 @@ public final class TrainedModel implements AutoCloseable {
    *     for indexes past its per-thread buffers (a crash seen here in SparseBin::Push)
    */
   void predictRawInto(FeatureBatch batch, long outAddress, int threadCount) {
-    SWIGTYPE_p_void handle = handle();
     checkFeatureCount(batch);
-    int rowCount = batch.rowCount();
+    predictRawRows(batch.valuesAddress(), batch.rowCount(), outAddress, threadCount);
+  }
+
+  /**
+   * Raw scores of {@code rowCount} row-major float32 rows of {@link #featureCount()} features at
+   * {@code valuesAddress}, written as float64 at {@code outAddress}: part of a batch, without copying it.
+   */
+  void predictRawRows(long valuesAddress, int rowCount, long outAddress, int threadCount) {
+    SWIGTYPE_p_void handle = handle();
     if (rowCount == 0) {
       return;
     }
     SWIGTYPE_p_long_long resultCount = lightgbmlib.new_int64_tp();
     try {
-      Native.check(lightgbmlib.LGBM_BoosterPredictForMat(handle, Native.voidPointer(batch.valuesAddress()),
+      // num_threads on every call: a prediction otherwise leaves OpenMP at its own thread count, and the next push
+      // of a Dataset built with fewer threads crashed
+      Native.check(lightgbmlib.LGBM_BoosterPredictForMat(handle, Native.voidPointer(valuesAddress),
           lightgbmlibConstants.C_API_DTYPE_FLOAT32, rowCount, featureCount, 1,
           lightgbmlibConstants.C_API_PREDICT_RAW_SCORE, 0, 0, "num_threads=" + threadCount, resultCount,
           Native.doublePointer(outAddress)),
@@ -355,8 +365,28 @@ public final class TrainedModel implements AutoCloseable {
     return booster;
   }
 
+  /**
+   * The raw scores this model gave the rows it was trained and validated on, kept when its Datasets recorded their
+   * rows ({@link DatasetBuilder#build(org.lagmill.features.RowStream, StartingScores, boolean)}) so that a training
+   * continued from it need not predict them; null otherwise. Owned by this model, freed by {@link #close()}.
+   */
+  public RowScores rowScores() {
+    return rowScores;
+  }
+
+  void attachRowScores(RowScores scores) {
+    if (rowScores != null) {
+      rowScores.close();
+    }
+    rowScores = scores;
+  }
+
   @Override
   public void close() {
+    if (rowScores != null) {
+      rowScores.close();
+      rowScores = null;
+    }
     if (booster != null) {
       SWIGTYPE_p_void freed = booster;
       booster = null;

@@ -140,6 +140,9 @@ public final class Trainer {
       throw e;
     }
     try {
+      if (training.recordsRows()) {
+        keepRowScores(model, training, validation);
+      }
       // without this, each model kept after training (one per partition) held its training state (≈ 50 B/row)
       model.dropTrainingState();
     } catch (RuntimeException | Error e) {
@@ -147,6 +150,30 @@ public final class Trainer {
       throw e;
     }
     return model;
+  }
+
+  /**
+   * Hands the Datasets' recorded rows to {@code model} with the score its Booster holds for each, at the kept
+   * iteration (rolling back takes each dropped tree's output off every row's score): the next training continued from
+   * this model starts from them ({@link StartingScores}). Must run before the training state is dropped.
+   */
+  private void keepRowScores(TrainedModel model, TrainingDataset training, TrainingDataset validation) {
+    RowScores.Rows trainingRows = training.takeRecordedRows();
+    RowScores.Rows validationRows = validation == null ? null : validation.takeRecordedRows();
+    try {
+      boolean logLink = parameters.objective().hasLogLink();
+      trainingRows.fillScores(model.handle(), 0, logLink);
+      if (validationRows != null) {
+        validationRows.fillScores(model.handle(), VALIDATION_DATA_INDEX, logLink);
+      }
+    } catch (RuntimeException | Error e) {
+      trainingRows.close();
+      if (validationRows != null) {
+        validationRows.close();
+      }
+      throw e;
+    }
+    model.attachRowScores(new RowScores(trainingRows, validationRows));
   }
 
   /**

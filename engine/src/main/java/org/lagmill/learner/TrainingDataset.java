@@ -21,6 +21,9 @@ public final class TrainingDataset implements AutoCloseable {
   private final int[] categoricalColumns;
   private final TrainedModel initialScoresFrom;
   private SWIGTYPE_p_void handle;
+  private RowScores.Rows recordedRows;
+  private long carriedStartingScoreCount;
+  private long predictedStartingScoreCount;
 
   TrainingDataset(SWIGTYPE_p_void handle, FeatureSchema schema, DatasetStats stats, boolean validation,
       double weightSum, int[] categoricalColumns) {
@@ -108,6 +111,38 @@ public final class TrainingDataset implements AutoCloseable {
     return initialScoresFrom;
   }
 
+  /** Starting scores carried over from the starting model's own rows ({@link StartingScores}); 0 from scratch. */
+  public long carriedStartingScoreCount() {
+    return carriedStartingScoreCount;
+  }
+
+  /** Starting scores predicted by the starting model; 0 from scratch. */
+  public long predictedStartingScoreCount() {
+    return predictedStartingScoreCount;
+  }
+
+  void countStartingScores(long carried, long predicted) {
+    carriedStartingScoreCount = carried;
+    predictedStartingScoreCount = predicted;
+  }
+
+  /** Whether the builder recorded each row's series and day, for the trained model to keep the rows' scores. */
+  boolean recordsRows() {
+    return recordedRows != null;
+  }
+
+  /** @param rows this Dataset's rows' keys, owned from now on (freed by {@link #close()} unless taken) */
+  void holdRecordedRows(RowScores.Rows rows) {
+    recordedRows = rows;
+  }
+
+  /** The recorded rows, handed over to the caller (who closes them); null when none were recorded. */
+  RowScores.Rows takeRecordedRows() {
+    RowScores.Rows rows = recordedRows;
+    recordedRows = null;
+    return rows;
+  }
+
   SWIGTYPE_p_void handle() {
     if (handle == null) {
       throw new IllegalStateException("training dataset is closed");
@@ -117,6 +152,10 @@ public final class TrainingDataset implements AutoCloseable {
 
   @Override
   public void close() {
+    if (recordedRows != null) {
+      recordedRows.close();
+      recordedRows = null;
+    }
     if (handle != null) {
       SWIGTYPE_p_void freed = handle;
       handle = null;

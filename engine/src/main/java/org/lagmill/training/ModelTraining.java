@@ -12,6 +12,7 @@ import org.lagmill.io.Setting;
 import org.lagmill.learner.DatasetBuilder;
 import org.lagmill.learner.FeatureImportance;
 import org.lagmill.learner.TrainParameters;
+import org.lagmill.learner.StartingScores;
 import org.lagmill.learner.TrainedModel;
 import org.lagmill.learner.Trainer;
 import org.lagmill.learner.TrainingListener;
@@ -33,6 +34,17 @@ public final class ModelTraining {
 
   public static ModelSet train(SalesHistory history, TrainingPlan plan, MemoryBudget budget,
       ProgressListener progress) {
+    return train(history, plan, budget, progress, false);
+  }
+
+  /**
+   * As {@link #train(SalesHistory, TrainingPlan, MemoryBudget, ProgressListener)}; with {@code keepRowScores} each
+   * partition's model keeps the raw score it gave every training and validation row ({@link TrainedModel#rowScores()},
+   * 16 bytes per row until the models are closed), so that a training continued from these models carries them over
+   * instead of predicting them. A refit's model keeps none (it was trained on other rows).
+   */
+  public static ModelSet train(SalesHistory history, TrainingPlan plan, MemoryBudget budget,
+      ProgressListener progress, boolean keepRowScores) {
     // The plan columns trained on are fixed in the models' spec, so a forecast reads exactly these.
     plan = plan.withSpec(plan.spec().withPlanColumnsResolved(history.plan().columnNames()));
     checkWindows(history, plan);
@@ -47,7 +59,7 @@ public final class ModelTraining {
     try {
       for (Map.Entry<String, int[]> entry : partitionSeries.entrySet()) {
         partitions.add(trainPartition(history, plan, entry.getKey(), partitions.size(), entry.getValue(), weights,
-            dispersion, budget, progress));
+            dispersion, budget, progress, keepRowScores && !plan.refit()));
         if (partitionSeries.size() > 1) {
           // The finished partition's bin sample (tens of MB of heap arrays) is garbage now; collecting it before the
           // next Dataset lets the heap shrink instead of growing partition after partition, so the run's peak
@@ -83,7 +95,7 @@ public final class ModelTraining {
 
   private static ModelSet.Partition trainPartition(SalesHistory history, TrainingPlan plan, String value,
       int partitionPosition, int[] seriesIndexes, float[] weights, DispersionEstimator dispersion, MemoryBudget budget,
-      ProgressListener progress) {
+      ProgressListener progress, boolean recordRows) {
     FeaturePass trainingRows = FeaturePass.training(history, plan.spec(), seriesIndexes, 0,
         plan.trainingLastDayIndex(), plan.zeroSampling());
     FeaturePass validationRows = FeaturePass.training(history, plan.spec(), seriesIndexes,
@@ -101,6 +113,8 @@ public final class ModelTraining {
     String stage = "all".equals(value) ? "" : " " + value;
     TrainedModel startingModel = plan.startingModels() == null ? null
         : ContinuationCheck.startingModel(plan.startingModels(), value);
+    // the starting model's own rows keep their scores when it kept them; only the newer days are predicted
+    StartingScores start = startingModel == null ? null : StartingScores.of(startingModel, seriesIndexes);
     DatasetBuilder builder = new DatasetBuilder(budget, plan.datasetParameters());
     long datasetStart = System.nanoTime();
     // The sample pass, the push of every training row, then one push of the validation rows (binned by reference).
@@ -115,15 +129,17 @@ public final class ModelTraining {
     int featureCount;
     ProgressRowStream reportedTrainingRows = new ProgressRowStream(trainingRows, progress);
     long residentAfter;
-    try (TrainingDataset training = startingModel == null ? builder.build(reportedTrainingRows)
-        : builder.build(reportedTrainingRows, startingModel)) {
+    try (TrainingDataset training = builder.build(reportedTrainingRows, start, recordRows)) {
       residentAfter = ProcessMemory.residentBytes();
       trainingRowCount = training.rowCount();
       featureCount = training.featureCount();
       try (TrainingDataset validation = validationRowCount > 0
-          ? builder.createValidation(training, reportedTrainingRows.continuedBy(validationRows), startingModel)
+          ? builder.createValidation(training, reportedTrainingRows.continuedBy(validationRows), start, recordRows)
           : null) {
         progress.endStage();
+        if (start != null) {
+          progress.note(startingScoresNote(training, validation));
+        }
         datasetSeconds = (System.nanoTime() - datasetStart) / 1e9;
         long trainStart = System.nanoTime();
         progress.startStage("train" + stage, "iterations", plan.trainParameters().maxRounds());
@@ -178,6 +194,18 @@ public final class ModelTraining {
       model.close();
       throw e;
     }
+  }
+
+  /** How many rows' starting scores were carried over from the starting model's rows, and how many predicted. */
+  private static String startingScoresNote(TrainingDataset training, TrainingDataset validation) {
+    long carried = training.carriedStartingScoreCount();
+    long predicted = training.predictedStartingScoreCount();
+    if (validation != null) {
+      carried += validation.carriedStartingScoreCount();
+      predicted += validation.predictedStartingScoreCount();
+    }
+    return "starting scores: " + carried + " rows carried over from the starting model's training, " + predicted
+        + " predicted";
   }
 
   /**
