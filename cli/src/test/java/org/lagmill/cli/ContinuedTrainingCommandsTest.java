@@ -70,6 +70,10 @@ class ContinuedTrainingCommandsTest {
     JsonNode run = RunRecord.JSON.readTree(finalModel.resolve("run.json").toFile());
     assertTrue(run.toString().contains("\"continueFrom\":\"" + last + "\""), run.toString());
     assertTrue(run.toString().contains("\"startingRounds\":" + startingRounds), run.toString());
+    // the backtest saved the scores of the last origin's rows beside its model, and the final fit read them
+    assertTrue(Files.isRegularFile(last.resolve("model.txt.row-scores")), "row scores saved beside the model");
+    String scoresLine = run.path("results").path("startingRowScores").get(0).asText();
+    assertTrue(scoresLine.matches("partition all: [1-9][0-9]* saved row scores read"), scoresLine);
     JsonNode finalManifest = RunRecord.JSON.readTree(finalModel.resolve("manifest.json").toFile());
     JsonNode finalPartition = finalManifest.get("partitions").get(0);
     assertEquals(last.toString(), finalPartition.get("continuedFrom").asText());

@@ -87,7 +87,9 @@ public final class RollingOriginBacktest {
         LastModels lastModels = last ? originModels.lastModels() : null;
         ModelSet[] kept = new ModelSet[1];
         try {
-          origins.add(runOrigin(history, originPlan, settings, evaluator, origin, budget, progress, listener, keep,
+          // a saved last model keeps its rows' scores too: a final fit continued from it carries them over
+          origins.add(runOrigin(history, originPlan, settings, evaluator, origin, budget, progress, listener,
+              keep || lastModels != null,
               (models, trainedPlan, known) -> {
                 if (lastModels != null) {
                   lastModels.accept(models, trainedPlan, known);

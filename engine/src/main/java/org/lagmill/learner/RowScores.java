@@ -1,6 +1,14 @@
 package org.lagmill.learner;
 
 import com.microsoft.ml.lightgbm.SWIGTYPE_p_long_long;
+import java.io.IOException;
+import java.nio.ByteBuffer;
+import java.nio.ByteOrder;
+import java.nio.channels.FileChannel;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardOpenOption;
+import java.util.zip.CRC32C;
 import com.microsoft.ml.lightgbm.SWIGTYPE_p_void;
 import com.microsoft.ml.lightgbm.lightgbmlib;
 import org.lagmill.features.FeatureBatch;
@@ -53,6 +61,109 @@ public final class RowScores implements AutoCloseable {
    */
   public Cursor cursor(int[] seriesOrder) {
     return new Cursor(seriesOrder);
+  }
+
+  /**
+   * Writes these scores to {@code file} (created; it must not exist): a header, each run's series, days and scores in
+   * native byte order, then a CRC-32C of everything before it. {@link #read} opens it again.
+   */
+  public void write(Path file) throws IOException {
+    try (FileChannel out = FileChannel.open(file, StandardOpenOption.CREATE_NEW, StandardOpenOption.WRITE)) {
+      CRC32C checksum = new CRC32C();
+      ByteBuffer header = ByteBuffer.allocate(HEADER_BYTES).order(ByteOrder.LITTLE_ENDIAN);
+      header.putInt(MAGIC).putInt(FORMAT_VERSION).putInt(ByteOrder.nativeOrder() == ByteOrder.LITTLE_ENDIAN ? 0 : 1)
+          .putInt(training.length()).putInt(validation == null ? -1 : validation.length()).flip();
+      writeChecked(out, header, checksum);
+      training.write(out, checksum);
+      if (validation != null) {
+        validation.write(out, checksum);
+      }
+      ByteBuffer trailer = ByteBuffer.allocate(Long.BYTES).order(ByteOrder.LITTLE_ENDIAN);
+      trailer.putLong(checksum.getValue()).flip();
+      writeFully(out, trailer);
+      out.force(true);
+    }
+  }
+
+  /**
+   * Reads scores {@link #write} wrote, into memory reserved from {@code budget}.
+   *
+   * @throws IOException when the file is missing, cut short, of another format or byte order, or its checksum
+   *     does not match (the message says which)
+   */
+  public static RowScores read(Path file, MemoryBudget budget) throws IOException {
+    try (FileChannel in = FileChannel.open(file, StandardOpenOption.READ)) {
+      CRC32C checksum = new CRC32C();
+      ByteBuffer header = ByteBuffer.allocate(HEADER_BYTES).order(ByteOrder.LITTLE_ENDIAN);
+      readChecked(in, header, checksum, file);
+      header.flip();
+      int magic = header.getInt();
+      int version = header.getInt();
+      int bigEndian = header.getInt();
+      int trainingLength = header.getInt();
+      int validationLength = header.getInt();
+      if (magic != MAGIC || version != FORMAT_VERSION) {
+        throw new IOException(file + " is not a row scores file of format " + FORMAT_VERSION);
+      }
+      if ((bigEndian == 1) != (ByteOrder.nativeOrder() == ByteOrder.BIG_ENDIAN)) {
+        throw new IOException(file + " was written on a machine of the other byte order");
+      }
+      long expectedBytes = HEADER_BYTES + ROW_BYTES * ((long) trainingLength + Math.max(0, validationLength))
+          + Long.BYTES;
+      if (trainingLength < 0 || Files.size(file) != expectedBytes) {
+        throw new IOException(file + " holds " + Files.size(file) + " bytes, its header promises " + expectedBytes);
+      }
+      Rows trainingRows = new Rows(budget, trainingLength);
+      Rows validationRows = null;
+      try {
+        trainingRows.read(in, checksum, file);
+        if (validationLength >= 0) {
+          validationRows = new Rows(budget, validationLength);
+          validationRows.read(in, checksum, file);
+        }
+        ByteBuffer trailer = ByteBuffer.allocate(Long.BYTES).order(ByteOrder.LITTLE_ENDIAN);
+        readFully(in, trailer, file);
+        if (trailer.flip().getLong() != checksum.getValue()) {
+          throw new IOException(file + " is damaged: its checksum does not match its contents");
+        }
+        return new RowScores(trainingRows, validationRows);
+      } catch (IOException | RuntimeException | Error e) {
+        trainingRows.close();
+        if (validationRows != null) {
+          validationRows.close();
+        }
+        throw e;
+      }
+    }
+  }
+
+  private static final int MAGIC = 0x5352_4D4C;
+  private static final int FORMAT_VERSION = 1;
+  private static final int HEADER_BYTES = 5 * Integer.BYTES;
+  private static final long ROW_BYTES = 2L * Integer.BYTES + Double.BYTES;
+
+  private static void writeChecked(FileChannel out, ByteBuffer bytes, CRC32C checksum) throws IOException {
+    checksum.update(bytes.duplicate());
+    writeFully(out, bytes);
+  }
+
+  private static void writeFully(FileChannel out, ByteBuffer bytes) throws IOException {
+    while (bytes.hasRemaining()) {
+      out.write(bytes);
+    }
+  }
+
+  private static void readChecked(FileChannel in, ByteBuffer into, CRC32C checksum, Path file) throws IOException {
+    readFully(in, into, file);
+    checksum.update(into.duplicate().flip());
+  }
+
+  private static void readFully(FileChannel in, ByteBuffer into, Path file) throws IOException {
+    while (into.hasRemaining()) {
+      if (in.read(into) < 0) {
+        throw new IOException(file + " ends early");
+      }
+    }
   }
 
   @Override
@@ -208,6 +319,18 @@ public final class RowScores implements AutoCloseable {
           scores.set(row, Math.log(scores.get(row)));
         }
       }
+    }
+
+    void write(FileChannel out, CRC32C checksum) throws IOException {
+      writeChecked(out, series.bytes(), checksum);
+      writeChecked(out, days.bytes(), checksum);
+      writeChecked(out, scores.bytes(), checksum);
+    }
+
+    void read(FileChannel in, CRC32C checksum, Path file) throws IOException {
+      readChecked(in, series.bytes(), checksum, file);
+      readChecked(in, days.bytes(), checksum, file);
+      readChecked(in, scores.bytes(), checksum, file);
     }
 
     @Override

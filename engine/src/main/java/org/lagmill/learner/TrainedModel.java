@@ -374,7 +374,13 @@ public final class TrainedModel implements AutoCloseable {
     return rowScores;
   }
 
-  void attachRowScores(RowScores scores) {
+  /**
+   * Gives this model the scores it gave its own training and validation rows (closing any it held): from its training
+   * ({@link Trainer}) or read from where they were saved beside it ({@link RowScores#read}).
+   *
+   * @param scores owned by this model from now on
+   */
+  public void attachRowScores(RowScores scores) {
     if (rowScores != null) {
       rowScores.close();
     }

@@ -1,5 +1,8 @@
 package org.lagmill.memory;
 
+import java.nio.ByteBuffer;
+import java.nio.ByteOrder;
+
 /**
  * A fixed-length array of float64 in native memory, reserved from a {@link MemoryBudget}: values native code writes
  * and reads in place (LightGBM writes raw scores into it and reads a Dataset's initial scores from it), so no value
@@ -56,6 +59,15 @@ public final class NativeDoubleArray implements AutoCloseable {
     }
     memory.checkOpen();
     return memory.view().addressOffset() + index * Double.BYTES;
+  }
+
+  /**
+   * The array's bytes as a fresh buffer (position 0, limit the byte size, native order) over the same memory: for
+   * bulk file reads and writes and checksums without copying through the heap. Valid until {@link #close()}.
+   */
+  public ByteBuffer bytes() {
+    memory.checkOpen();
+    return memory.byteBuffer().duplicate().order(ByteOrder.nativeOrder()).clear();
   }
 
   @Override

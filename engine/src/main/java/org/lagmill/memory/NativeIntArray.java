@@ -1,5 +1,7 @@
 package org.lagmill.memory;
 
+import java.nio.ByteBuffer;
+import java.nio.ByteOrder;
 import org.agrona.concurrent.UnsafeBuffer;
 
 /**
@@ -64,6 +66,15 @@ public final class NativeIntArray implements AutoCloseable {
     for (int i = 0; i < count; i++) {
       dst[dstOffset + i] = view.getInt((from + i) * Integer.BYTES);
     }
+  }
+
+  /**
+   * The array's bytes as a fresh buffer (position 0, limit the byte size, native order) over the same memory: for
+   * bulk file reads and writes and checksums without copying through the heap. Valid until {@link #close()}.
+   */
+  public ByteBuffer bytes() {
+    memory.checkOpen();
+    return memory.byteBuffer().duplicate().order(ByteOrder.nativeOrder()).clear();
   }
 
   @Override

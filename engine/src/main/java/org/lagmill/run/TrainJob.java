@@ -7,6 +7,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.lagmill.io.InvalidRequestException;
 import org.lagmill.io.Setting;
+import org.lagmill.memory.MemoryBudget;
 import org.lagmill.progress.ProgressListener;
 import org.lagmill.store.Periods;
 import org.lagmill.store.SalesStore;
@@ -127,9 +128,15 @@ public final class TrainJob {
       throw new InvalidRequestException(Setting.CONTINUE_FROM + " " + from + " holds combined models (members), "
           + "which cannot be continued from yet; give a single model's folder");
     }
-    try (Stage opening = run.stage("open starting model");
+    // the saved row scores stay with the starting models for the whole training: a budget spanning the stages
+    try (MemoryBudget scoresBudget = run.budget().child("starting row scores");
+        Stage opening = run.stage("open starting model");
         ModelSet starting = ModelDirectory.open(from, opened)) {
+      List<String> scoreLines = ModelDirectory.attachRowScores(starting, from, opened.fingerprint(), scoresBudget);
+      scoreLines.forEach(line -> progress.note("starting model " + line));
+      run.record().result("startingRowScores", scoreLines);
       opening.close();
+      // closing the models (first) gives the scores' memory back before their budget closes
       return trainOne(request, opened, plan.withStartingModels(new StartingModels(starting, from.toString())), run,
           progress, from);
     }

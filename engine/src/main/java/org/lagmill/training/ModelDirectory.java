@@ -27,7 +27,9 @@ import org.lagmill.io.OutputRefusedException;
 import org.lagmill.io.OutputTargets;
 import org.lagmill.io.Setting;
 import org.lagmill.io.SealedJson;
+import org.lagmill.learner.RowScores;
 import org.lagmill.learner.TrainedModel;
+import org.lagmill.memory.MemoryBudget;
 import org.lagmill.store.CorruptStoreException;
 import org.lagmill.store.SalesHistory;
 import org.lagmill.store.SeriesIdentity;
@@ -73,6 +75,9 @@ public final class ModelDirectory {
         Path file = temp.resolve(partition.report().modelFile());
         partition.model().saveTo(file);
         checksums.put(partition.report().modelFile(), crc32c(file));
+        if (partition.model().rowScores() != null) {
+          partition.model().rowScores().write(temp.resolve(rowScoresFileName(partition.report().modelFile())));
+        }
         reports.add(partition.report());
       }
       Path dispersionFile = temp.resolve(ModelManifest.DISPERSION_FILE_NAME);
@@ -219,6 +224,49 @@ public final class ModelDirectory {
       throw e;
     }
     return new ModelSet(spec, manifest.partitionAttribute(), partitions, dispersion);
+  }
+
+  /**
+   * The file beside a partition's model file holding the raw scores its model gave its training and validation rows
+   * ({@link RowScores}), when the training kept them (a backtest's last origin saved for a continued final fit).
+   */
+  static String rowScoresFileName(String modelFile) {
+    return modelFile + ".row-scores";
+  }
+
+  /**
+   * Gives each model of {@code models}, opened from {@code dir}, the row scores saved beside it, so that a training
+   * continued from it carries them over instead of predicting them. They are taken only from a directory trained on
+   * the store {@code history} is now (the same fingerprint): a row's score is only right for the units it was computed
+   * from. Scores that are absent, from another store state or unreadable are left out, and the returned text says
+   * which and why; the training then predicts those rows' starting scores (the same result, slower).
+   *
+   * @return one line per partition saying whether its scores were carried and, if not, why
+   */
+  public static List<String> attachRowScores(ModelSet models, Path dir, String storeFingerprint, MemoryBudget budget)
+      throws IOException {
+    ModelManifest manifest = readManifest(dir);
+    boolean sameStore = storeFingerprint != null && storeFingerprint.equals(manifest.storeFingerprint());
+    List<String> lines = new ArrayList<>();
+    for (ModelSet.Partition partition : models.partitions()) {
+      Path file = dir.resolve(rowScoresFileName(partition.report().modelFile()));
+      String name = "partition " + partition.value();
+      if (!Files.exists(file)) {
+        lines.add(name + ": no saved row scores, every starting score is predicted");
+      } else if (!sameStore) {
+        lines.add(name + ": the row scores saved with the model were computed on another state of the store (its "
+            + "fingerprint differs), so every starting score is predicted");
+      } else {
+        try {
+          partition.model().attachRowScores(RowScores.read(file, budget));
+          lines.add(name + ": " + partition.model().rowScores().rowCount() + " saved row scores read");
+        } catch (IOException e) {
+          lines.add(name + ": the saved row scores cannot be used (" + e.getMessage() + "), so every starting score "
+              + "is predicted");
+        }
+      }
+    }
+    return lines;
   }
 
   private static void writeDispersion(Path file, List<SeriesDispersion> rows) throws IOException {

@@ -6,10 +6,14 @@ import static org.junit.jupiter.api.Assertions.assertNull;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import org.lagmill.TestSeeds;
 import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
 import org.lagmill.features.FeatureBatch;
 import org.lagmill.features.FeaturePass;
 import org.lagmill.learner.Objective;
@@ -180,6 +184,67 @@ class CarriedRowScoresTest {
   }
 
   @Test
+  void shouldSaveTheScoresBesideTheModelAndReadThemOnlyForTheSameStore(@TempDir Path dir) throws IOException {
+    ArraySalesHistory history = SmallHistories.history(SEED + 4, 30, 190, 10);
+    TrainingPlan first = plan(FIRST_CUT_DAY_INDEX, "store", Objective.TWEEDIE, 1);
+    TrainingPlan next = plan(NEXT_CUT_DAY_INDEX, "store", Objective.TWEEDIE, 1);
+    Path modelDir = dir.resolve("last-origin");
+    try (MemoryBudget budget = MemoryBudget.unlimited("test");
+        ModelSet trained = ModelTraining.train(history, first, budget, ProgressListener.SILENT, true)) {
+      ModelDirectory.save(trained, modelDir, history, first, "store-state-1");
+      List<String> expected = new ArrayList<>();
+      for (ModelSet.Partition partition : trained.partitions()) {
+        Path file = modelDir.resolve(ModelDirectory.rowScoresFileName(partition.report().modelFile()));
+        // header, 16 bytes per row, checksum
+        assertEquals(20 + 16 * partition.model().rowScores().rowCount() + 8, Files.size(file));
+        expected.add("partition " + partition.value() + ": " + partition.model().rowScores().rowCount()
+            + " saved row scores read");
+      }
+
+      try (ModelSet opened = ModelDirectory.open(modelDir, history)) {
+        assertEquals(expected, ModelDirectory.attachRowScores(opened, modelDir, "store-state-1", budget));
+        Notes notes = new Notes();
+        try (ModelSet continued = ModelTraining.train(history, next.withStartingModels(new StartingModels(opened,
+            modelDir.toString())), budget, notes)) {
+          List<String> carried = notes.texts.stream().filter(t -> t.startsWith("starting scores")).toList();
+          assertEquals(3, carried.size());
+          for (int p = 0; p < 3; p++) {
+            long trainingRows = FeaturePass.training(history, next.spec(), continued.partitions().get(p)
+                .seriesIndexes(), 0, next.trainingLastDayIndex()).rowCount();
+            assertTrue(carried.get(p).startsWith("starting scores: " + trainingRows + " rows carried over"),
+                carried.get(p));
+          }
+        }
+      }
+      try (ModelSet opened = ModelDirectory.open(modelDir, history)) {
+        List<String> other = ModelDirectory.attachRowScores(opened, modelDir, "store-state-2", budget);
+        assertEquals("partition " + opened.partitions().get(0).value() + ": the row scores saved with the model were "
+            + "computed on another state of the store (its fingerprint differs), so every starting score is "
+            + "predicted", other.get(0));
+        assertNull(opened.partitions().get(0).model().rowScores());
+      }
+
+      // one byte changed in the middle of the first partition's scores
+      Path damaged = modelDir.resolve(ModelDirectory.rowScoresFileName(trained.partitions().get(0).report()
+          .modelFile()));
+      byte[] bytes = Files.readAllBytes(damaged);
+      bytes[bytes.length / 2] ^= 0x10;
+      Files.write(damaged, bytes);
+      try (ModelSet opened = ModelDirectory.open(modelDir, history)) {
+        List<String> lines = ModelDirectory.attachRowScores(opened, modelDir, "store-state-1", budget);
+        assertEquals("partition " + opened.partitions().get(0).value() + ": the saved row scores cannot be used ("
+            + damaged + " is damaged: its checksum does not match its contents), so every starting score is "
+            + "predicted", lines.get(0));
+        assertNull(opened.partitions().get(0).model().rowScores());
+        assertNotNull(opened.partitions().get(1).model().rowScores());
+      }
+      // only the trained models' own scores are still held: every opened set gave its scores back
+      assertEquals(trained.partitions().stream().mapToLong(p -> p.model().rowScores().offHeapBytes()).sum(),
+          budget.heldBytes());
+    }
+  }
+
+  @Test
   void shouldRefuseToCarryScoresOfRowsWhoseFeaturesChanged() {
     ArraySalesHistory history = SmallHistories.history(SEED + 2, 12, 190, 10);
     // the same series and days with other units: the rows' lags differ from what the model saw; small batches so
@@ -190,7 +255,8 @@ class CarriedRowScoresTest {
             ProgressListener.SILENT, true)) {
       TrainingPlan nextPlan = plan(NEXT_CUT_DAY_INDEX, null, Objective.TWEEDIE, 1);
       TrainingPlan next = new TrainingPlan(nextPlan.spec(), nextPlan.trainParameters(), nextPlan.datasetParameters()
-          .withBatchRowCount(64), NEXT_CUT_DAY_INDEX, HORIZON_DAYS, null, false, false, 1, new StartingModels(start,
+          .withBatchRowCount(64), NEXT_CUT_DAY_INDEX, HORIZON_DAYS, null, false, false, 1,
+          new StartingModels(start,
               "the first cut"));
       IllegalStateException refused = assertThrows(IllegalStateException.class, () -> ModelTraining.train(
           rewritten, next, budget, ProgressListener.SILENT).close());
