@@ -139,6 +139,8 @@ public final class ModelTraining {
         progress.endStage();
         if (start != null) {
           progress.note(startingScoresNote(training, validation));
+          // both Datasets now hold the starting scores: the carried copy is not needed for the boosting
+          startingModel.releaseRowScores();
         }
         datasetSeconds = (System.nanoTime() - datasetStart) / 1e9;
         long trainStart = System.nanoTime();

@@ -9,11 +9,14 @@ import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.stream.IntStream;
 import org.junit.jupiter.api.Test;
 import org.lagmill.TestSeeds;
+import org.lagmill.features.FeaturePass;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.progress.ProgressListener;
 import org.lagmill.store.ArraySalesHistory;
+import org.lagmill.store.TruncatedHistory;
 import org.lagmill.training.PartitionReport;
 import org.lagmill.training.SmallHistories;
 import org.lagmill.training.TrainingPlan;
@@ -83,5 +86,58 @@ class ContinuedBacktestTest {
             + "origin on is read, origin " + origin + ", series " + s + ", seed " + SEED);
       }
     }
+  }
+
+  /**
+   * A weekly store's continued backtest: with the validation weeks equal to the step between origins, every origin
+   * after the first carries the scores of all its training rows (the previous origin's training and validation rows)
+   * and predicts only its validation rows, which are weeks the previous model never saw.
+   */
+  @Test
+  void shouldCarryEachOriginsScoresToTheNextOnAWeeklyStore() {
+    ArraySalesHistory weekly = SmallHistories.asWeeks(SmallHistories.history(SEED + 2, 18, 200, 10));
+    TrainingPlan small = SmallHistories.plan(SmallHistories.spec(HORIZON_DAYS), 25, 0, HORIZON_DAYS, null);
+    TrainingPlan plan = new TrainingPlan(small.spec(), small.trainParameters().withRounds(25, 4),
+        small.datasetParameters(), 0, HORIZON_DAYS, null, false, false);
+    BacktestSettings settings = new BacktestSettings(3, HORIZON_DAYS, HORIZON_DAYS, List.of(BaselineKind.NAIVE),
+        HIERARCHY, new double[0]);
+    List<String> notes = new ArrayList<>();
+    ProgressListener noteTaker = new ProgressListener() {
+      @Override
+      public void startStage(String stageName, String unitName, long totalUnits) {}
+
+      @Override
+      public void advance(long doneUnits) {}
+
+      @Override
+      public void note(String text) {
+        if (text.startsWith("starting scores")) {
+          notes.add(text);
+        }
+      }
+
+      @Override
+      public void endStage() {}
+    };
+    try (MemoryBudget budget = MemoryBudget.unlimited("test")) {
+      RollingOriginBacktest.run(weekly, plan, settings, new RollingOriginBacktest.OriginModels(true, null), budget,
+          noteTaker, null);
+      // the held scores were given back with their models
+      assertEquals(0, budget.heldBytes());
+    }
+    int[] everySeries = IntStream.range(0, weekly.seriesCount()).toArray();
+    List<String> expected = new ArrayList<>();
+    for (int k = 1; k < 3; k++) {
+      int origin = settings.originDayIndex(weekly.dayCount(), k);
+      TrainingPlan originPlan = plan.withCutDayIndex(origin - 1);
+      TruncatedHistory known = new TruncatedHistory(weekly, origin);
+      long trainingRows = FeaturePass.training(known, plan.spec(), everySeries, 0, originPlan.trainingLastDayIndex())
+          .rowCount();
+      long validationRows = FeaturePass.training(known, plan.spec(), everySeries, originPlan
+          .validationFirstDayIndex(), originPlan.cutDayIndex()).rowCount();
+      expected.add("starting scores: " + trainingRows + " rows carried over from the starting model's training, "
+          + validationRows + " predicted");
+    }
+    assertEquals(expected, notes, "seed " + SEED);
   }
 }

@@ -28,7 +28,7 @@ import org.lagmill.store.SalesHistory;
  * for that row (the slow obvious reference: predicting each row again); a training continued from it carries those
  * scores over for every row the model saw and predicts only the newer days, and ends as the training that predicted
  * every starting score. Histories from {@link SmallHistories}: unknown days, pre-launch zeros, a series never
- * launched and one launched 3 days before the end.
+ * launched and one launched 3 days before the end; daily and read as weeks.
  */
 class CarriedRowScoresTest {
   private static final long SEED = TestSeeds.master(72_431L);
@@ -153,6 +153,8 @@ class CarriedRowScoresTest {
         expectedPredicted.add("starting scores: 0 rows carried over from the starting model's training, "
             + (trainingRows + validationRows) + " predicted");
         ModelSet.Partition other = predicted.partitions().get(p);
+        // released once the continued training's Datasets held them, not kept through its boosting
+        assertNull(withScores.partitions().get(p).model().rowScores(), context);
         assertEquals(other.report().iterationCount(), partition.report().iterationCount(), context);
         assertEquals(other.report().bestIteration(), partition.report().bestIteration(), context);
         FeaturePass forecastRows = FeaturePass.prediction(history, next.spec(), partition.seriesIndexes(),
@@ -181,6 +183,14 @@ class CarriedRowScoresTest {
     ArraySalesHistory history = SmallHistories.history(SEED + 1, 30, 190, 10);
     assertCarriedContinuationMatchesPredicted(history, null, 1);
     assertCarriedContinuationMatchesPredicted(history, "store", 0.5);
+  }
+
+  @Test
+  void shouldCarryScoresOnAWeeklyStoreKeyedByWeek() {
+    // rows keyed by week index, partitions by region (two stores in one, one alone)
+    ArraySalesHistory weekly = SmallHistories.asWeeks(SmallHistories.history(SEED + 5, 30, 190, 10));
+    assertModelKeepsEveryRowsScore(weekly, "region", Objective.TWEEDIE, 1);
+    assertCarriedContinuationMatchesPredicted(weekly, "region", 1);
   }
 
   @Test

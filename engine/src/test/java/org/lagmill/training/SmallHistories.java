@@ -16,6 +16,7 @@ import org.lagmill.store.ArrayPriceTable;
 import org.lagmill.store.ArraySalesHistory;
 import org.lagmill.store.ArraySeriesAttributes;
 import org.lagmill.store.DayCalendar;
+import org.lagmill.store.Periods;
 import org.lagmill.store.SalesHistory;
 
 /**
@@ -83,6 +84,19 @@ public final class SmallHistories {
         new ArrayDayCalendar.Column("payday", DayCalendar.ColumnKind.NUMERIC, null, "region", payday)));
     return new ArraySalesHistory(FIRST_DATE, units, ArraySeriesAttributes.of(ATTRIBUTES, values),
         new ArrayPriceTable(changeDays, changePrices), calendar);
+  }
+
+  /**
+   * The same series, units, prices and calendar read as a weekly store: index k is the week starting {@code k} weeks
+   * after the first date (a Monday), so row keys, lags and windows count weeks, not days.
+   */
+  public static ArraySalesHistory asWeeks(SalesHistory daily) {
+    int[][] units = new int[daily.seriesCount()][daily.dayCount()];
+    for (int s = 0; s < units.length; s++) {
+      daily.readUnits(s, 0, units[s], 0, daily.dayCount());
+    }
+    return new ArraySalesHistory(daily.firstDate(), Periods.WEEKLY, units, daily.attributes(), daily.prices(),
+        daily.calendar());
   }
 
   /**
