@@ -23,15 +23,9 @@ class BacktestScoringPartCommandsTest {
 
   @Test
   void shouldMergeEveryShardsBacktestPartOriginByOrigin(@TempDir Path dir) throws IOException {
-    Path scenario = dir.resolve("scenario");
-    expectOk(MainRun.of("generate", "--out", scenario.toString(), "--series", "36", "--days", "160", "--seed",
-        "5"));
-    Path store = dir.resolve("store");
-    expectOk(MainRun.of("ingest", "--sales", scenario.resolve("sales.csv").toString(), "--calendar",
-        scenario.resolve("calendar.csv").toString(), "--prices", scenario.resolve("prices.csv").toString(),
-        "--store", store.toString(), "--quiet"));
-    expectOk(MainRun.of("shard", "--store", store.toString(), "--parts", "2", "--by", "article", "--out",
-        dir.resolve("shards").toString()));
+    Path store = GeneratedScenario.generateAndIngest(dir.resolve("scenario"), dir.resolve("store"), 36, 160, 5, false);
+    MainRun.of("shard", "--store", store.toString(), "--parts", "2", "--by", "article", "--out",
+        dir.resolve("shards").toString()).expectOk();
     Path config = Files.writeString(dir.resolve("spec.yaml"), """
         horizonDays: 7
         strategy: direct
@@ -42,19 +36,19 @@ class BacktestScoringPartCommandsTest {
     List<String> merge = new ArrayList<>(List.of("merge-scores"));
     for (int part = 0; part < 2; part++) {
       Path partFile = dir.resolve("part-" + part + ".json");
-      expectOk(MainRun.of("backtest", "--store", dir.resolve("shards/shard-" + part).toString(), "--config",
+      MainRun.of("backtest", "--store", dir.resolve("shards/shard-" + part).toString(), "--config",
           config.toString(), "--origins", "2", "--rounds", "5", "--deterministic", "--threads", "1", "--report",
           dir.resolve("bt-" + part).toString(), "--hierarchy", "district>outlet", "--hierarchy",
-          "section>family>article", "--scoring-part", partFile.toString(), "--quiet"));
+          "section>family>article", "--scoring-part", partFile.toString(), "--quiet").expectOk();
       assertEquals("lagmill-backtest-scoring-part", JSON.readTree(partFile.toFile()).get("kind").asText());
       merge.add(partFile.toString());
     }
     MainRun text = MainRun.of(merge.toArray(new String[0]));
-    expectOk(text);
+    text.expectOk();
     assertTrue(text.out().startsWith("2 backtest scoring parts, 2 origins, horizon 7\n"), text.out());
     merge.add("--json");
     MainRun json = MainRun.of(merge.toArray(new String[0]));
-    expectOk(json);
+    json.expectOk();
     JsonNode merged = JSON.readTree(json.out());
     JsonNode origins = merged.get("origins");
     assertEquals(2, origins.size());
@@ -70,9 +64,5 @@ class BacktestScoringPartCommandsTest {
         dir.resolve("bt-members").toString(), "--scoring-part", dir.resolve("members.json").toString());
     assertEquals(2, members.exitCode(), members.out() + members.err());
     assertTrue(members.err().contains("--scoring-part scores one plan: leave out the members"), members.err());
-  }
-
-  private static void expectOk(MainRun run) {
-    assertEquals(0, run.exitCode(), "stdout: " + run.out() + " stderr: " + run.err());
   }
 }

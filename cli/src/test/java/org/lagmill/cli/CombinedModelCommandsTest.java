@@ -29,12 +29,7 @@ class CombinedModelCommandsTest {
 
   @BeforeAll
   static void ingest() throws Exception {
-    Path data = dir.resolve("data");
-    expectOk(MainRun.of("generate", "--out", data.toString(), "--series", "10", "--days", "420", "--seed", "5"));
-    store = dir.resolve("store");
-    expectOk(MainRun.of("ingest", "--sales", data.resolve("sales.csv").toString(), "--calendar",
-        data.resolve("calendar.csv").toString(), "--prices", data.resolve("prices.csv").toString(), "--closures",
-        data.resolve("closures.csv").toString(), "--store", store.toString(), "--quiet"));
+    store = GeneratedScenario.generateAndIngest(dir.resolve("data"), dir.resolve("store"), 10, 420, 5, true);
     direct = Files.writeString(dir.resolve("direct.yaml"), "strategy: direct\nhorizonDays: 14\nlagDays: [14, 21]\n"
         + "rollingWindowDays: [7, 28]\n");
     recursive = Files.writeString(dir.resolve("recursive.yaml"), "horizonDays: 14\nlagDays: [1, 2, 7, 14]\n"
@@ -44,14 +39,14 @@ class CombinedModelCommandsTest {
   @Test
   void shouldForecastTheMeanOfItsMembersTrainedAlone() throws Exception {
     Path combined = dir.resolve("combined");
-    expectOk(MainRun.of(args("train", "--store", store.toString(), "--model", combined.toString(), "--member",
-        direct.toString(), "--member", recursive.toString())));
+    MainRun.of(args("train", "--store", store.toString(), "--model", combined.toString(), "--member",
+        direct.toString(), "--member", recursive.toString())).expectOk();
     assertTrue(Files.isRegularFile(combined.resolve("combination.json")));
     List<double[]> forecasts = new ArrayList<>();
     for (Path spec : List.of(direct, recursive)) {
       Path alone = dir.resolve("alone-" + spec.getFileName());
-      expectOk(MainRun.of(args("train", "--store", store.toString(), "--model", alone.toString(), "--config",
-          spec.toString())));
+      MainRun.of(args("train", "--store", store.toString(), "--model", alone.toString(), "--config",
+          spec.toString())).expectOk();
       forecasts.add(forecastColumn(alone, "alone"));
     }
     double[] mean = forecastColumn(combined, "combined");
@@ -72,22 +67,22 @@ class CombinedModelCommandsTest {
   @Test
   void shouldTrainWhatTheBacktestChose() throws Exception {
     Path report = dir.resolve("bt");
-    expectOk(MainRun.of(args("backtest", "--store", store.toString(), "--origins", "2", "--report", report.toString(),
-        "--member", direct.toString(), "--member", recursive.toString())));
+    MainRun.of(args("backtest", "--store", store.toString(), "--origins", "2", "--report", report.toString(),
+        "--member", direct.toString(), "--member", recursive.toString())).expectOk();
     JsonNode backtest = RunRecord.JSON.readTree(report.resolve("backtest.json").toFile());
     String chosen = backtest.path("chosenName").asText();
     Path model = dir.resolve("chosen");
     MainRun trained = MainRun.of("train", "--store", store.toString(), "--model", model.toString(),
         "--from-backtest", report.toString(), "--rounds", "8", "--deterministic", "--threads", "1");
-    expectOk(trained);
+    trained.expectOk();
     assertTrue(trained.out().contains("the backtest in " + report + " chose " + chosen), trained.out());
     boolean average = chosen.equals("average of members");
     assertEquals(average, Files.isRegularFile(model.resolve("combination.json")), chosen);
     assertEquals(!average, Files.isRegularFile(model.resolve("manifest.json")), chosen);
 
     Path single = dir.resolve("single-bt");
-    expectOk(MainRun.of(args("backtest", "--store", store.toString(), "--origins", "2", "--report",
-        single.toString())));
+    MainRun.of(args("backtest", "--store", store.toString(), "--origins", "2", "--report",
+        single.toString())).expectOk();
     MainRun refused = MainRun.of("train", "--store", store.toString(), "--model", dir.resolve("never").toString(),
         "--from-backtest", single.toString());
     assertEquals(ExitCodes.USAGE_ERROR, refused.exitCode(), refused.err());
@@ -106,14 +101,10 @@ class CombinedModelCommandsTest {
   /** The forecast column of the long forecast file a model writes for the store, row by row. */
   private static double[] forecastColumn(Path model, String name) throws Exception {
     Path out = dir.resolve(name + "-" + model.getFileName() + ".csv");
-    expectOk(MainRun.of("forecast", "--store", store.toString(), "--model", model.toString(), "--out",
-        out.toString(), "--quiet"));
+    MainRun.of("forecast", "--store", store.toString(), "--model", model.toString(), "--out",
+        out.toString(), "--quiet").expectOk();
     List<String> lines = Files.readAllLines(out);
     int column = List.of(lines.get(0).split(",")).indexOf("forecast");
     return lines.stream().skip(1).mapToDouble(line -> Double.parseDouble(line.split(",")[column])).toArray();
-  }
-
-  private static void expectOk(MainRun run) {
-    assertEquals(0, run.exitCode(), "stderr: " + run.err());
   }
 }

@@ -23,21 +23,16 @@ class ContinuedTrainingCommandsTest {
 
   @Test
   void shouldContinueTheFinalFitFromTheBacktestsLastModel(@TempDir Path dir) throws Exception {
-    Path data = dir.resolve("data");
-    expectOk(MainRun.of("generate", "--out", data.toString(), "--series", "12", "--days", "420", "--seed", "7"));
-    Path store = dir.resolve("store");
-    expectOk(MainRun.of("ingest", "--sales", data.resolve("sales.csv").toString(), "--calendar",
-        data.resolve("calendar.csv").toString(), "--prices", data.resolve("prices.csv").toString(), "--store",
-        store.toString(), "--quiet"));
+    Path store = GeneratedScenario.generateAndIngest(dir.resolve("data"), dir.resolve("store"), 12, 420, 7, false);
 
     Path last = dir.resolve("last-origin");
     MainRun continued = MainRun.of(args("backtest", "--store", store.toString(), "--origins", "2", "--report",
         dir.resolve("bt-continued").toString(), "--continue-origins", "--save-last-model", last.toString(),
         "--json"));
-    expectOk(continued);
+    continued.expectOk();
     MainRun scratch = MainRun.of(args("backtest", "--store", store.toString(), "--origins", "2", "--report",
         dir.resolve("bt-scratch").toString(), "--json"));
-    expectOk(scratch);
+    scratch.expectOk();
     JsonNode continuedOrigins = RunRecord.JSON.readTree(continued.out()).get("origins");
     JsonNode scratchOrigins = RunRecord.JSON.readTree(scratch.out()).get("origins");
     // the first origin has nothing to continue from: the same training, the same score
@@ -63,7 +58,7 @@ class ContinuedTrainingCommandsTest {
     Path finalModel = dir.resolve("final");
     MainRun trained = MainRun.of(args("train", "--store", store.toString(), "--model", finalModel.toString(),
         "--continue-from", last.toString()));
-    expectOk(trained);
+    trained.expectOk();
     int startingRounds = second.get("iterationCount").asInt();
     assertTrue(trained.out().contains("continued from " + last + " (" + startingRounds + " rounds), added "),
         trained.out());
@@ -84,10 +79,10 @@ class ContinuedTrainingCommandsTest {
     assertEquals(startingRounds, startingTrees.size());
     assertEquals(finalPartition.get("iterationCount").asInt(), finalTrees.size());
     assertEquals(startingTrees, finalTrees.subList(0, startingRounds));
-    expectOk(MainRun.of("forecast", "--store", store.toString(), "--model", finalModel.toString(), "--out",
-        dir.resolve("f.csv").toString(), "--quiet"));
+    MainRun.of("forecast", "--store", store.toString(), "--model", finalModel.toString(), "--out",
+        dir.resolve("f.csv").toString(), "--quiet").expectOk();
     MainRun described = MainRun.of("model", "--model", finalModel.toString());
-    expectOk(described);
+    described.expectOk();
     assertTrue(described.out().contains("  continued from " + last + " (" + startingRounds + " rounds), added "),
         described.out());
 
@@ -120,9 +115,5 @@ class ContinuedTrainingCommandsTest {
     String[] all = Arrays.copyOf(first, first.length + QUICK.length);
     System.arraycopy(QUICK, 0, all, first.length, QUICK.length);
     return all;
-  }
-
-  private static void expectOk(MainRun run) {
-    assertEquals(0, run.exitCode(), "stderr: " + run.err());
   }
 }

@@ -48,14 +48,10 @@ class DistributedBinningRegressionTest {
   }
 
   private static String trainTwoRanks(String name, int series, int days) {
-    Path data = dir.resolve(name + "-data");
-    expectOk(MainRun.of("generate", "--out", data.toString(), "--series", "" + series, "--days", "" + days,
-        "--seed", "42"));
-    expectOk(MainRun.of("ingest", "--sales", data.resolve("sales.csv").toString(), "--calendar",
-        data.resolve("calendar.csv").toString(), "--prices", data.resolve("prices.csv").toString(), "--store",
-        dir.resolve(name + "-store").toString(), "--quiet"));
-    expectOk(MainRun.of("shard", "--store", dir.resolve(name + "-store").toString(), "--parts", "2", "--by",
-        "article", "--out", dir.resolve(name + "-shards").toString()));
+    Path store = GeneratedScenario.generateAndIngest(dir.resolve(name + "-data"), dir.resolve(name + "-store"), series,
+        days, 42, false);
+    MainRun.of("shard", "--store", store.toString(), "--parts", "2", "--by", "article", "--out",
+        dir.resolve(name + "-shards").toString()).expectOk();
     MainRun cluster = MainRun.of("cluster-local", "--workers", "2", "--", "train", "--store",
         dir.resolve(name + "-shards").toString() + "/shard-{rank}", "--model", dir.resolve(name + "-model")
             .toString(),
@@ -75,9 +71,5 @@ class DistributedBinningRegressionTest {
     assertEquals(2, ranks, cluster.out());
     assertEquals(1, checksums.size(), "both ranks must hold the same model: " + cluster.out());
     return cluster.out();
-  }
-
-  private static void expectOk(MainRun run) {
-    assertEquals(0, run.exitCode(), "stderr: " + run.err());
   }
 }

@@ -38,13 +38,9 @@ class DistributedTrainingTest {
 
   @BeforeAll
   static void shardAStore() throws IOException {
-    expectOk(MainRun.of("generate", "--out", dir.resolve("data").toString(), "--series", "" + SERIES, "--days",
-        "330", "--seed", "21"));
-    expectOk(MainRun.of("ingest", "--sales", dir.resolve("data/sales.csv").toString(), "--calendar",
-        dir.resolve("data/calendar.csv").toString(), "--prices", dir.resolve("data/prices.csv").toString(),
-        "--store", dir.resolve("store").toString(), "--quiet"));
-    expectOk(MainRun.of("shard", "--store", dir.resolve("store").toString(), "--parts", "3", "--by", "article",
-        "--out", dir.resolve("shards").toString()));
+    GeneratedScenario.generateAndIngest(dir.resolve("data"), dir.resolve("store"), SERIES, 330, 21, false);
+    MainRun.of("shard", "--store", dir.resolve("store").toString(), "--parts", "3", "--by", "article",
+        "--out", dir.resolve("shards").toString()).expectOk();
   }
 
   @Test
@@ -75,7 +71,7 @@ class DistributedTrainingTest {
 
     MainRun single = MainRun.of("train", "--store", dir.resolve("store").toString(), "--model",
         dir.resolve("single").toString(), "--rounds", "40", "--threads", "1", "--deterministic");
-    expectOk(single);
+    single.expectOk();
     Matcher singleLoss = SINGLE_LOSS.matcher(single.out());
     assertTrue(singleLoss.find(), single.out());
     double expected = Double.parseDouble(singleLoss.group(1));
@@ -89,7 +85,7 @@ class DistributedTrainingTest {
       Path forecast = dir.resolve("f-" + part + ".csv");
       MainRun forecastRun = MainRun.of("forecast", "--store", dir.resolve("shards/shard-" + part).toString(),
           "--model", model.toString(), "--out", forecast.toString(), "--intervals");
-      expectOk(forecastRun);
+      forecastRun.expectOk();
       assertTrue(!forecastRun.err().contains("another version of the store"), forecastRun.err());
       List<String> lines = Files.readAllLines(forecast);
       for (String line : lines.subList(1, lines.size())) {
@@ -135,7 +131,7 @@ class DistributedTrainingTest {
     assertEquals(total, localSum, "LightGBM's row count is the sum of the rows each rank keeps: " + cluster.out());
     MainRun whole = MainRun.of("train", "--store", dir.resolve("store").toString(), "--model",
         dir.resolve("whole").toString(), "--rounds", "1", "--threads", "1", "--quiet");
-    expectOk(whole);
+    whole.expectOk();
     long unsampled = com.fasterxml.jackson.databind.json.JsonMapper.builder().build().readTree(dir.resolve("whole")
         .resolve("manifest.json").toFile()).get("partitions").get(0).get("trainingRowCount").asLong();
     assertEquals(unsampled, total + droppedCounts.iterator().next(), cluster.out());
@@ -227,9 +223,5 @@ class DistributedTrainingTest {
     reader.setDaemon(true);
     reader.start();
     return process;
-  }
-
-  private static void expectOk(MainRun run) {
-    assertEquals(0, run.exitCode(), "stderr: " + run.err());
   }
 }

@@ -31,17 +31,15 @@ class IngestShardTest {
 
   @Test
   void shouldWriteEachShardAsShardWritesItFromTheWholeStore() throws IOException {
-    Path scenario = dir.resolve("scenario");
-    expectOk(MainRun.of("generate", "--out", scenario.toString(), "--series", "72", "--days", "120", "--seed",
-        "17"));
+    Path scenario = GeneratedScenario.generate(dir.resolve("scenario"), 72, 120, 17);
     Path longSales = dir.resolve("sales-long.csv");
     Files.write(longSales, toLong(Files.readAllLines(scenario.resolve("sales.csv"))), StandardCharsets.UTF_8);
     for (Path sales : new Path[] {scenario.resolve("sales.csv"), longSales}) {
       String name = sales.getFileName().toString().replace(".csv", "");
       Path whole = dir.resolve(name + "-whole");
-      expectOk(MainRun.of(ingest(scenario, sales, whole).toArray(new String[0])));
-      expectOk(MainRun.of("shard", "--store", whole.toString(), "--parts", "" + PARTS, "--by", "article", "--out",
-          dir.resolve(name + "-shards").toString()));
+      MainRun.of(ingest(scenario, sales, whole).toArray(new String[0])).expectOk();
+      MainRun.of("shard", "--store", whole.toString(), "--parts", "" + PARTS, "--by", "article", "--out",
+          dir.resolve(name + "-shards").toString()).expectOk();
       int seriesOverShards = 0;
       for (int part = 0; part < PARTS; part++) {
         Path direct = dir.resolve(name + "-direct-" + part);
@@ -49,7 +47,7 @@ class IngestShardTest {
         args.remove("--quiet");
         args.addAll(List.of("--shard", part + "/" + PARTS, "--by", "article"));
         MainRun run = MainRun.of(args.toArray(new String[0]));
-        expectOk(run);
+        run.expectOk();
         Path split = dir.resolve(name + "-shards/shard-" + part);
         Path splitGeneration = generation(split);
         Path directGeneration = generation(direct);
@@ -81,8 +79,7 @@ class IngestShardTest {
 
   @Test
   void shouldRefuseAShardRequestThatCannotBeMet() throws IOException {
-    Path scenario = dir.resolve("small");
-    expectOk(MainRun.of("generate", "--out", scenario.toString(), "--series", "12", "--days", "30", "--seed", "3"));
+    Path scenario = GeneratedScenario.generate(dir.resolve("small"), 12, 30, 3);
     Path sales = scenario.resolve("sales.csv");
     MainRun unknown = MainRun.of("ingest", "--sales", sales.toString(), "--store", dir.resolve("x1").toString(),
         "--shard", "0/2", "--by", "colour");
@@ -146,9 +143,5 @@ class IngestShardTest {
     try (Stream<Path> files = Files.list(folder)) {
       return files.findAny().isEmpty();
     }
-  }
-
-  private static void expectOk(MainRun run) {
-    assertEquals(0, run.exitCode(), "stdout: " + run.out() + " stderr: " + run.err());
   }
 }

@@ -1,5 +1,7 @@
 package org.lagmill.cli;
 
+import static org.junit.jupiter.api.Assertions.assertEquals;
+
 import java.io.ByteArrayOutputStream;
 import java.io.PrintStream;
 import java.nio.charset.StandardCharsets;
@@ -28,5 +30,14 @@ record MainRun(int exitCode, String out, String err) {
       System.setOut(oldOut);
       System.setErr(oldErr);
     }
+  }
+
+  /**
+   * Asserts that the command succeeded (exit code 0), with both streams in the failure message because a command may
+   * explain its failure on either; returns this run so a command can be run, checked and kept in one statement.
+   */
+  MainRun expectOk() {
+    assertEquals(0, exitCode, "stdout: " + out + "\nstderr: " + err);
+    return this;
   }
 }

@@ -25,31 +25,29 @@ class PipelineCommandsTest {
 
   @Test
   void shouldRunTheWholePipeline(@TempDir Path dir) throws IOException {
-    Path scenario = dir.resolve("scenario");
-    expectOk(MainRun.of("generate", "--out", scenario.toString(), "--series", "" + SERIES, "--days", "" + DAYS,
-        "--seed", "11"));
+    Path scenario = GeneratedScenario.generate(dir.resolve("scenario"), SERIES, DAYS, 11);
     Path shortSales = dir.resolve("sales-short.csv");
     Files.write(shortSales, dropLastColumns(Files.readAllLines(scenario.resolve("sales.csv")), HORIZON));
     Path storeA = dir.resolve("A");
     Path storeB = dir.resolve("B");
-    expectOk(MainRun.of("ingest", "--sales", shortSales.toString(), "--calendar",
+    MainRun.of("ingest", "--sales", shortSales.toString(), "--calendar",
         scenario.resolve("calendar.csv").toString(), "--prices", scenario.resolve("prices.csv").toString(), "--store",
-        storeA.toString(), "--quiet"));
-    expectOk(MainRun.of("ingest", "--sales", scenario.resolve("sales.csv").toString(), "--calendar",
+        storeA.toString(), "--quiet").expectOk();
+    MainRun.of("ingest", "--sales", scenario.resolve("sales.csv").toString(), "--calendar",
         scenario.resolve("calendar.csv").toString(), "--prices", scenario.resolve("prices.csv").toString(),
-        "--store", storeB.toString(), "--quiet"));
+        "--store", storeB.toString(), "--quiet").expectOk();
 
     Path model = dir.resolve("M");
-    expectOk(MainRun.of("train", "--store", storeA.toString(), "--model", model.toString(), "--rounds", "10",
-        "--deterministic", "--threads", "1", "--quiet"));
+    MainRun.of("train", "--store", storeA.toString(), "--model", model.toString(), "--rounds", "10",
+        "--deterministic", "--threads", "1", "--quiet").expectOk();
     for (String name : List.of("manifest.json", "model.txt", "run.json")) {
       assertTrue(Files.isRegularFile(model.resolve(name)), name);
     }
 
     Path forecast = dir.resolve("f.csv");
     Path report = dir.resolve("R");
-    expectOk(MainRun.of("forecast", "--store", storeA.toString(), "--model", model.toString(), "--out",
-        forecast.toString(), "--intervals", "--report", report.toString(), "--quiet"));
+    MainRun.of("forecast", "--store", storeA.toString(), "--model", model.toString(), "--out",
+        forecast.toString(), "--intervals", "--report", report.toString(), "--quiet").expectOk();
     List<String> lines = Files.readAllLines(forecast);
     assertEquals(1 + SERIES * HORIZON, lines.size());
     String header = lines.get(0);
@@ -59,20 +57,20 @@ class PipelineCommandsTest {
 
     MainRun evaluated = MainRun.of("evaluate", "--store", storeB.toString(), "--forecast", forecast.toString(),
         "--json");
-    expectOk(evaluated);
+    evaluated.expectOk();
     double wrmsse = JSON.readTree(evaluated.out()).get("forecast").get("wrmsse").asDouble(Double.NaN);
     assertTrue(Double.isFinite(wrmsse) && wrmsse > 0, evaluated.out());
 
     Path backtest = dir.resolve("BT");
     MainRun backtested = MainRun.of("backtest", "--store", storeB.toString(), "--origins", "2", "--rounds", "5",
         "--deterministic", "--threads", "1", "--report", backtest.toString(), "--json", "--quiet");
-    expectOk(backtested);
+    backtested.expectOk();
     JsonNode result = JSON.readTree(backtested.out());
     assertEquals(2, result.get("origins").size(), backtested.out());
     assertTrue(Double.isFinite(result.get("meanModelWrmsse").asDouble(Double.NaN)), backtested.out());
     Path html = backtest.resolve("report.html");
     Files.delete(html);
-    expectOk(MainRun.of("report", "--run", backtest.toString()));
+    MainRun.of("report", "--run", backtest.toString()).expectOk();
     assertTrue(Files.size(html) > 1000);
 
     // the forecast's report carries the backtest's accuracy, and says the backtest's store runs further
@@ -80,7 +78,7 @@ class PipelineCommandsTest {
     MainRun forecastWithBacktest = MainRun.of("forecast", "--store", storeA.toString(), "--model", model.toString(),
         "--out", dir.resolve("fa.csv").toString(), "--report", withAccuracy.toString(), "--backtest",
         backtest.toString());
-    expectOk(forecastWithBacktest);
+    forecastWithBacktest.expectOk();
     assertTrue(forecastWithBacktest.err().contains("warning: the backtest's store ends "), forecastWithBacktest.err());
     JsonNode copied = JSON.readTree(withAccuracy.resolve("report.json").toFile()).get("report").get("accuracy");
     JsonNode original = JSON.readTree(backtest.resolve("report.json").toFile()).get("report").get("accuracy");
@@ -91,7 +89,7 @@ class PipelineCommandsTest {
     Path evaluation = dir.resolve("EV");
     MainRun evaluatedWithReport = MainRun.of("evaluate", "--store", storeB.toString(), "--forecast",
         forecast.toString(), "--json", "--report", evaluation.toString());
-    expectOk(evaluatedWithReport);
+    evaluatedWithReport.expectOk();
     JsonNode scored = JSON.readTree(evaluatedWithReport.out()).get("forecast");
     JsonNode reported = JSON.readTree(evaluation.resolve("report.json").toFile()).get("report").get("accuracy");
     assertEquals(scored.get("wrmsse").asDouble(), reported.get("modelWrmsse").asDouble(), 0);
@@ -114,7 +112,7 @@ class PipelineCommandsTest {
     MainRun combined = MainRun.of("backtest", "--store", storeB.toString(), "--origins", "2", "--rounds", "5",
         "--deterministic", "--threads", "1", "--report", combinedDir.toString(), "--member", memberA.toString(),
         "--member", memberB.toString(), "--json", "--quiet");
-    expectOk(combined);
+    combined.expectOk();
     JsonNode members = JSON.readTree(combined.out());
     assertEquals(2, members.get("members").size(), combined.out());
     assertEquals(2, members.get("combination").get("origins").size(), combined.out());
@@ -172,9 +170,5 @@ class PipelineCommandsTest {
       out.add(line.substring(0, end));
     }
     return out;
-  }
-
-  private static void expectOk(MainRun run) {
-    assertEquals(0, run.exitCode(), "stderr: " + run.err());
   }
 }

@@ -24,9 +24,7 @@ class ShardCommandsTest {
 
   @Test
   void shouldMergeShardScoresIntoTheWholeStoresScore(@TempDir Path dir) throws IOException {
-    Path scenario = dir.resolve("scenario");
-    expectOk(MainRun.of("generate", "--out", scenario.toString(), "--series", "36", "--days", "300", "--seed",
-        "5"));
+    Path scenario = GeneratedScenario.generate(dir.resolve("scenario"), 36, 300, 5);
     Path shortSales = dir.resolve("sales-short.csv");
     List<String> wide = Files.readAllLines(scenario.resolve("sales.csv"));
     List<String> cut = new ArrayList<>();
@@ -41,27 +39,27 @@ class ShardCommandsTest {
     Path storeA = dir.resolve("A");
     Path storeB = dir.resolve("B");
     for (Path[] pair : new Path[][] {{shortSales, storeA}, {scenario.resolve("sales.csv"), storeB}}) {
-      expectOk(MainRun.of("ingest", "--sales", pair[0].toString(), "--calendar",
+      MainRun.of("ingest", "--sales", pair[0].toString(), "--calendar",
           scenario.resolve("calendar.csv").toString(), "--prices", scenario.resolve("prices.csv").toString(),
-          "--store", pair[1].toString(), "--quiet"));
+          "--store", pair[1].toString(), "--quiet").expectOk();
     }
     MainRun sharded = MainRun.of("shard", "--store", storeA.toString(), "--parts", "" + PARTS, "--by", "article",
         "--out", dir.resolve("A-shards").toString());
-    expectOk(sharded);
+    sharded.expectOk();
     assertTrue(sharded.out().contains("split 36 series by article into 3 shards"), sharded.out());
-    expectOk(MainRun.of("shard", "--store", storeB.toString(), "--parts", "" + PARTS, "--by", "article", "--out",
-        dir.resolve("B-shards").toString()));
+    MainRun.of("shard", "--store", storeB.toString(), "--parts", "" + PARTS, "--by", "article", "--out",
+        dir.resolve("B-shards").toString()).expectOk();
 
     Path model = dir.resolve("M");
-    expectOk(MainRun.of("train", "--store", storeA.toString(), "--model", model.toString(), "--rounds", "8",
-        "--deterministic", "--threads", "1", "--quiet"));
+    MainRun.of("train", "--store", storeA.toString(), "--model", model.toString(), "--rounds", "8",
+        "--deterministic", "--threads", "1", "--quiet").expectOk();
     List<String> whole = new ArrayList<>();
     List<String> merge = new ArrayList<>(List.of("merge-scores", "--json"));
     String[] hierarchy = {"--hierarchy", "district>outlet", "--hierarchy", "section>family>article"};
     for (int part = 0; part < PARTS; part++) {
       Path forecast = dir.resolve("f-" + part + ".csv");
-      expectOk(MainRun.of("forecast", "--store", dir.resolve("A-shards/shard-" + part).toString(), "--model",
-          model.toString(), "--out", forecast.toString(), "--intervals", "--quiet"));
+      MainRun.of("forecast", "--store", dir.resolve("A-shards/shard-" + part).toString(), "--model",
+          model.toString(), "--out", forecast.toString(), "--intervals", "--quiet").expectOk();
       List<String> lines = Files.readAllLines(forecast);
       whole.addAll(part == 0 ? lines : lines.subList(1, lines.size()));
       Path scoring = dir.resolve("part-" + part + ".json");
@@ -69,7 +67,7 @@ class ShardCommandsTest {
           dir.resolve("B-shards/shard-" + part).toString(), "--forecast", forecast.toString(), "--scoring-part",
           scoring.toString(), "--json"));
       evaluate.addAll(List.of(hierarchy));
-      expectOk(MainRun.of(evaluate.toArray(new String[0])));
+      MainRun.of(evaluate.toArray(new String[0])).expectOk();
       merge.add(scoring.toString());
     }
     Path wholeForecast = dir.resolve("f-all.csv");
@@ -78,9 +76,9 @@ class ShardCommandsTest {
         wholeForecast.toString(), "--json"));
     evaluateWhole.addAll(List.of(hierarchy));
     MainRun single = MainRun.of(evaluateWhole.toArray(new String[0]));
-    expectOk(single);
+    single.expectOk();
     MainRun merged = MainRun.of(merge.toArray(new String[0]));
-    expectOk(merged);
+    merged.expectOk();
     JsonNode expected = JSON.readTree(single.out()).get("forecast");
     JsonNode actual = JSON.readTree(merged.out()).get("forecast");
     assertEquals(expected.get("wrmsse").asDouble(), actual.get("wrmsse").asDouble(), 1e-9, merged.out());
@@ -104,9 +102,5 @@ class ShardCommandsTest {
     assertEquals(2, tooMany.exitCode(), tooMany.err());
     assertTrue(tooMany.err().contains("would hold no series"), tooMany.err());
     assertTrue(Files.notExists(dir.resolve("none")));
-  }
-
-  private static void expectOk(MainRun run) {
-    assertEquals(0, run.exitCode(), "stderr: " + run.err());
   }
 }

@@ -52,26 +52,26 @@ class SmallCommandsTest {
     Path sales = dir.resolve("sales.csv");
     Files.writeString(sales, csv.append('\n'));
     store = dir.resolve("store");
-    expectOk(MainRun.of("ingest", "--sales", sales.toString(), "--store", store.toString(), "--quiet"));
+    MainRun.of("ingest", "--sales", sales.toString(), "--store", store.toString(), "--quiet").expectOk();
     model = dir.resolve("model");
-    expectOk(MainRun.of("train", "--store", store.toString(), "--model", model.toString(), "--horizon", "7",
+    MainRun.of("train", "--store", store.toString(), "--model", model.toString(), "--horizon", "7",
         "--lags", "7,14", "--windows", "7,14", "--rounds", "5", "--deterministic", "--threads", "1",
-        "--memory-limit", "512m", "--quiet"));
+        "--memory-limit", "512m", "--quiet").expectOk();
   }
 
   @Test
   void shouldListSeriesWithTheirAttributes() throws IOException {
     MainRun all = MainRun.of("series", "--store", store.toString());
-    expectOk(all);
+    all.expectOk();
     assertEquals("series\tsku\tshop\tdept", all.out().lines().findFirst().orElseThrow());
     assertEquals(1 + SERIES.length, all.out().lines().count());
     MainRun south = MainRun.of("series", "--store", store.toString(), "--match", "SOUTH");
-    expectOk(south);
+    south.expectOk();
     assertEquals(List.of("series\tsku\tshop\tdept", "k3/south/fresh\tk3\tsouth\tfresh", "k4/south/dry\tk4\tsouth\tdry"),
         south.out().lines().toList());
     assertEquals("2 of 6 series contain \"SOUTH\"", south.err().strip());
     MainRun json = MainRun.of("series", "--store", store.toString(), "--match", "frozen", "--json");
-    expectOk(json);
+    json.expectOk();
     JsonNode rows = JSON.readTree(json.out());
     assertEquals(1, rows.size());
     assertEquals("k6/east/frozen", rows.get(0).get("series").asText());
@@ -81,8 +81,8 @@ class SmallCommandsTest {
   @Test
   void shouldForecastOnlyTheChosenSeriesWithTheSameNumbers() throws IOException {
     Path full = dir.resolve("full.csv");
-    expectOk(MainRun.of("forecast", "--store", store.toString(), "--model", model.toString(), "--out",
-        full.toString(), "--quiet"));
+    MainRun.of("forecast", "--store", store.toString(), "--model", model.toString(), "--out",
+        full.toString(), "--quiet").expectOk();
     Map<String, String> fullRows = new HashMap<>();
     for (String line : Files.readAllLines(full).subList(1, 1 + SERIES.length * 7)) {
       fullRows.put(line.substring(0, line.lastIndexOf(',')), line);
@@ -91,7 +91,7 @@ class SmallCommandsTest {
     MainRun run = MainRun.of("forecast", "--store", store.toString(), "--model", model.toString(), "--out",
         part.toString(), "--series", "k2/north/dry", "--where", "dept=fresh", "--where", "shop=south", "--where",
         "shop=east");
-    expectOk(run);
+    run.expectOk();
     assertTrue(run.out().contains("forecast 3 series x 7 days"), run.out());
     List<String> lines = Files.readAllLines(part);
     assertEquals("sku,shop,dept,date,forecast", lines.get(0));
@@ -131,11 +131,11 @@ class SmallCommandsTest {
   @Test
   void shouldPrintATemplateThatChecksAsTheDefaults() throws IOException {
     MainRun template = MainRun.of("config", "--template");
-    expectOk(template);
+    template.expectOk();
     Path file = dir.resolve("features.yaml");
     Files.writeString(file, template.out());
     MainRun check = MainRun.of("config", "--check", file.toString());
-    expectOk(check);
+    check.expectOk();
     assertTrue(check.out().contains("lagDays:"), check.out());
     MainRun neither = MainRun.of("config");
     assertEquals(ExitCodes.USAGE_ERROR, neither.exitCode());
@@ -146,13 +146,13 @@ class SmallCommandsTest {
   @Test
   void shouldShowTheModelsFeaturesWindowsAndImportance() throws IOException {
     MainRun text = MainRun.of("model", "--model", model.toString());
-    expectOk(text);
+    text.expectOk();
     assertTrue(text.out().contains("lags                 [7, 14]"), text.out());
     assertTrue(text.out().contains("rolling windows      [7, 14], ending 1 period before the row"), text.out());
     assertTrue(text.out().contains("learned from         2025-02-03 .. "), text.out());
     assertTrue(text.out().contains("features by share of gain"), text.out());
     MainRun json = MainRun.of("model", "--model", model.toString(), "--json");
-    expectOk(json);
+    json.expectOk();
     JsonNode importance = JSON.readTree(json.out()).get("importance");
     double shares = 0;
     for (JsonNode row : importance) {
@@ -165,12 +165,12 @@ class SmallCommandsTest {
   @Test
   void shouldExplainAForecastInPartsThatAddUpToIt() throws IOException {
     Path full = dir.resolve("explained.csv");
-    expectOk(MainRun.of("forecast", "--store", store.toString(), "--model", model.toString(), "--out",
-        full.toString(), "--series", "k4/south/dry", "--quiet"));
+    MainRun.of("forecast", "--store", store.toString(), "--model", model.toString(), "--out",
+        full.toString(), "--series", "k4/south/dry", "--quiet").expectOk();
     List<String> rows = Files.readAllLines(full);
     MainRun json = MainRun.of("explain", "--store", store.toString(), "--model", model.toString(), "--series",
         "k4/south/dry", "--level", "total", "--level", "shop", "--json");
-    expectOk(json);
+    json.expectOk();
     JsonNode charts = JSON.readTree(json.out());
     assertEquals(List.of("total", "shop: south", "series k4/south/dry"), List.of(charts.get(0).get("title").asText(),
         charts.get(1).get("title").asText(), charts.get(2).get("title").asText()));
@@ -193,13 +193,13 @@ class SmallCommandsTest {
     }
     MainRun text = MainRun.of("explain", "--store", store.toString(), "--model", model.toString(), "--level",
         "total");
-    expectOk(text);
+    text.expectOk();
     assertTrue(text.out().startsWith("total (6 series), "), text.out());
     assertTrue(text.out().contains("  base level "), text.out());
     Path report = dir.resolve("report");
-    expectOk(MainRun.of("forecast", "--store", store.toString(), "--model", model.toString(), "--out",
+    MainRun.of("forecast", "--store", store.toString(), "--model", model.toString(), "--out",
         dir.resolve("r.csv").toString(), "--report", report.toString(), "--level", "total", "--level", "shop",
-        "--show", "k1/north/fresh", "--quiet"));
+        "--show", "k1/north/fresh", "--quiet").expectOk();
     JsonNode drivers = JSON.readTree(report.resolve("report.json").toFile()).get("report").get("drivers");
     assertEquals(3, drivers.size());
     assertEquals("series k1/north/fresh", drivers.get(2).get("title").asText());
@@ -222,9 +222,5 @@ class SmallCommandsTest {
     assertEquals(ExitCodes.USAGE_ERROR, run.exitCode());
     assertTrue(run.err().contains("'2x' is not a size in bytes; write a whole number, optionally followed by k, m, "
         + "g or t (1024-based, as java -Xmx), e.g. 512m or 2g"), run.err());
-  }
-
-  private static void expectOk(MainRun run) {
-    assertEquals(0, run.exitCode(), run.err());
   }
 }

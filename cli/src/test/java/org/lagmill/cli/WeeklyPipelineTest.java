@@ -65,28 +65,28 @@ class WeeklyPipelineTest {
     MainRun ingested = MainRun.of("ingest", "--sales", shortSales.toString(), "--calendar", calendar.toString(),
         "--date-column", "week_start", "--prices", prices.toString(), "--plan", plan.toString(),
         "--plan-date-column", "week_of", "--store", storeA.toString());
-    expectOk(ingested);
+    ingested.expectOk();
     assertTrue(ingested.out().startsWith("ingested 24 series x 142 weeks (2022-01-03 .. 2024-09-16, weekly)"),
         ingested.out());
     assertTrue(ingested.err().contains("warning: " + (WEEKS + FUTURE_WEEKS) + " plan dates are not the first day of a "
         + "week: each holds for the week containing it"), ingested.err());
-    expectOk(MainRun.of("ingest", "--sales", full.toString(), "--calendar", calendar.toString(), "--date-column",
+    MainRun.of("ingest", "--sales", full.toString(), "--calendar", calendar.toString(), "--date-column",
         "week_start", "--prices", prices.toString(), "--plan", plan.toString(), "--plan-date-column", "week_of",
-        "--store", storeB.toString(), "--quiet"));
+        "--store", storeB.toString(), "--quiet").expectOk();
 
     Path backtest = dir.resolve("BT");
     MainRun backtested = MainRun.of("backtest", "--store", storeB.toString(), "--config", config.toString(),
         "--origins", "2", "--rounds", "10", "--deterministic", "--threads", "1", "--report", backtest.toString(),
         "--json", "--quiet");
-    expectOk(backtested);
+    backtested.expectOk();
     JsonNode result = JSON.readTree(backtested.out());
     assertEquals(2, result.get("origins").size(), backtested.out());
     assertEquals("2024-07-29", result.get("origins").get(0).get("originDate").asText(), backtested.out());
     assertEquals("2024-09-23", result.get("origins").get(1).get("originDate").asText(), backtested.out());
 
     Path model = dir.resolve("M");
-    expectOk(MainRun.of("train", "--store", storeA.toString(), "--config", config.toString(), "--model",
-        model.toString(), "--rounds", "20", "--deterministic", "--threads", "1", "--quiet"));
+    MainRun.of("train", "--store", storeA.toString(), "--config", config.toString(), "--model",
+        model.toString(), "--rounds", "20", "--deterministic", "--threads", "1", "--quiet").expectOk();
     String specYaml = JSON.readTree(model.resolve("manifest.json").toFile()).get("featureSpecYaml").asText();
     assertEquals(List.of("end_cap", "flyer"), FeatureSpecYaml.parse(specYaml, "manifest").planColumns(),
         "the model records its plan columns: " + specYaml);
@@ -94,7 +94,7 @@ class WeeklyPipelineTest {
     Path report = dir.resolve("R");
     MainRun forecasted = MainRun.of("forecast", "--store", storeA.toString(), "--model", model.toString(), "--out",
         forecast.toString(), "--intervals", "--report", report.toString());
-    expectOk(forecasted);
+    forecasted.expectOk();
     assertTrue(forecasted.out().contains("forecast 24 series x 8 weeks (2024-09-23 .. 2024-11-11)"),
         forecasted.out());
     List<String> lines = Files.readAllLines(forecast);
@@ -108,7 +108,7 @@ class WeeklyPipelineTest {
 
     MainRun evaluated = MainRun.of("evaluate", "--store", storeB.toString(), "--forecast", forecast.toString(),
         "--json");
-    expectOk(evaluated);
+    evaluated.expectOk();
     JsonNode scores = JSON.readTree(evaluated.out());
     double model0 = scores.get("forecast").get("wrmsse").asDouble(Double.NaN);
     double seasonal = scores.get("baselineWrmsse").get("seasonal naive").asDouble(Double.NaN);
@@ -117,7 +117,7 @@ class WeeklyPipelineTest {
     // The data have a strong yearly cycle, so last year's week (season 52) beats last week's value.
     assertTrue(seasonal < naive, context + ": seasonal naive " + seasonal + " vs naive " + naive);
     MainRun text = MainRun.of("evaluate", "--store", storeB.toString(), "--forecast", forecast.toString());
-    expectOk(text);
+    text.expectOk();
     assertTrue(text.out().contains("2024-09-23 .. 2024-11-11, 8 weeks"), text.out());
 
     // A plan appended alone that ends with the horizon's second week stops the forecast; carried forward, it runs.
@@ -126,7 +126,7 @@ class WeeklyPipelineTest {
         + "market," + FIRST_WEEK.plusWeeks(WEEKS - HORIZON + 1) + ",0,1\n");
     MainRun appended = MainRun.of("append", "--store", storeA.toString(), "--plan", shortPlan.toString(),
         "--plan-date-column", "week_of");
-    expectOk(appended);
+    appended.expectOk();
     assertTrue(appended.err().contains("warning: 8 of 24 series match no plan row: their plan features read 0 "
         + "(nothing planned)"), appended.err());
     MainRun uncovered = MainRun.of("forecast", "--store", storeA.toString(), "--model", model.toString(), "--out",
@@ -139,15 +139,15 @@ class WeeklyPipelineTest {
     Path carriedOut = dir.resolve("carried.csv");
     MainRun carried = MainRun.of("forecast", "--store", storeA.toString(), "--model", model.toString(), "--out",
         carriedOut.toString(), "--plan-carry-forward");
-    expectOk(carried);
+    carried.expectOk();
     assertTrue(carried.err().contains("warning: plan values carried forward for 96 series-weeks: the plan ends with "
         + "the week of 2024-09-30, so 16 series with plan rows read their last plan values over the last 6 weeks of "
         + "the horizon"), carried.err());
     JsonNode carriedRun = JSON.readTree(dir.resolve("carried.csv.run.json").toFile());
     assertEquals(96, carriedRun.get("results").get("planCarriedSeriesPeriods").asLong(), carriedRun.toString());
     Path storeC = dir.resolve("C");
-    expectOk(MainRun.of("ingest", "--sales", shortSales.toString(), "--calendar", calendar.toString(),
-        "--date-column", "week_start", "--store", storeC.toString(), "--quiet"));
+    MainRun.of("ingest", "--sales", shortSales.toString(), "--calendar", calendar.toString(),
+        "--date-column", "week_start", "--store", storeC.toString(), "--quiet").expectOk();
     MainRun noPlan = MainRun.of("forecast", "--store", storeC.toString(), "--model", model.toString(), "--out",
         dir.resolve("no-plan.csv").toString());
     assertEquals(2, noPlan.exitCode(), noPlan.err());
@@ -155,7 +155,7 @@ class WeeklyPipelineTest {
         + "ingest or append one with those columns (lagmill append --store DIR --plan FILE)"), noPlan.err());
 
     Files.delete(backtest.resolve("report.html"));
-    expectOk(MainRun.of("report", "--run", backtest.toString()));
+    MainRun.of("report", "--run", backtest.toString()).expectOk();
     assertTrue(Files.size(backtest.resolve("report.html")) > 1000);
 
     // By hand: with 52 weeks to a season, seasonal naive forecasts week 142 + k with the units of week 90 + k, read
@@ -176,10 +176,6 @@ class WeeklyPipelineTest {
         }
       }
     }
-  }
-
-  private static void expectOk(MainRun run) {
-    assertEquals(0, run.exitCode(), "stdout: " + run.out() + "\nstderr: " + run.err());
   }
 
   private static String banner(int shop) {

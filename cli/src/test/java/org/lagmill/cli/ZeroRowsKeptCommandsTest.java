@@ -21,17 +21,12 @@ class ZeroRowsKeptCommandsTest {
 
   @Test
   void shouldSayWhatItDroppedEverywhereAndRefuseBadShares(@TempDir Path dir) throws IOException {
-    Path scenario = dir.resolve("scenario");
-    expectOk(MainRun.of("generate", "--out", scenario.toString(), "--series", "30", "--days", "300", "--seed", "5"));
-    Path store = dir.resolve("S");
-    expectOk(MainRun.of("ingest", "--sales", scenario.resolve("sales.csv").toString(), "--calendar",
-        scenario.resolve("calendar.csv").toString(), "--prices", scenario.resolve("prices.csv").toString(), "--store",
-        store.toString(), "--quiet"));
+    Path store = GeneratedScenario.generateAndIngest(dir.resolve("scenario"), dir.resolve("S"), 30, 300, 5, false);
 
     Path model = dir.resolve("M");
     MainRun trained = MainRun.of("train", "--store", store.toString(), "--model", model.toString(), "--rounds", "5",
         "--deterministic", "--threads", "1", "--zero-rows-kept", "0.25");
-    expectOk(trained);
+    trained.expectOk();
     assertTrue(trained.out().contains("training rows with zero sales") && trained.out().contains("each kept one "
         + "weighs 4.0"), trained.out());
     JsonNode manifest = JSON.readTree(Files.readString(model.resolve("manifest.json")));
@@ -40,13 +35,13 @@ class ZeroRowsKeptCommandsTest {
     assertTrue(partition.get("droppedZeroRowCount").asLong() > 0, partition.toString());
     assertEquals(4.0, partition.get("zeroRowWeight").asDouble(), partition.toString());
     MainRun described = MainRun.of("model", "--model", model.toString());
-    expectOk(described);
+    described.expectOk();
     assertTrue(described.out().contains("zero-sales rows kept 0.25 (each weighted 4.0)"), described.out());
 
     Path backtest = dir.resolve("BT");
     MainRun backtested = MainRun.of("backtest", "--store", store.toString(), "--origins", "2", "--rounds", "5",
         "--deterministic", "--threads", "1", "--report", backtest.toString(), "--zero-rows-kept", "0.5");
-    expectOk(backtested);
+    backtested.expectOk();
     assertTrue(backtested.out().contains("training over the 2 origins dropped "), backtested.out());
     JsonNode report = JSON.readTree(backtest.resolve("report.json").toFile()).get("report").get("training");
     assertTrue(report.get("rowNotice").asText().startsWith("Training dropped "), report.toString());
@@ -61,9 +56,5 @@ class ZeroRowsKeptCommandsTest {
           + " to keep, got "), run.err());
       assertFalse(Files.exists(refused.resolve("manifest.json")), bad);
     }
-  }
-
-  private static void expectOk(MainRun run) {
-    assertEquals(0, run.exitCode(), "stderr: " + run.err());
   }
 }
