@@ -20,6 +20,7 @@ import org.lagmill.learner.Objective;
 import org.lagmill.learner.RowScores;
 import org.lagmill.memory.MemoryBudget;
 import org.lagmill.progress.ProgressListener;
+import org.lagmill.progress.RecordedNotes;
 import org.lagmill.store.ArraySalesHistory;
 import org.lagmill.store.SalesHistory;
 
@@ -41,25 +42,6 @@ class CarriedRowScoresTest {
         partition);
     return new TrainingPlan(plan.spec(), plan.trainParameters().withRounds(40, 5).withObjective(objective),
         plan.datasetParameters(), cutDayIndex, HORIZON_DAYS, partition, false, false, zeroRowsKept);
-  }
-
-  /** Progress notes, in order. */
-  private static final class Notes implements ProgressListener {
-    final List<String> texts = new ArrayList<>();
-
-    @Override
-    public void startStage(String stageName, String unitName, long totalUnits) {}
-
-    @Override
-    public void advance(long doneUnits) {}
-
-    @Override
-    public void note(String text) {
-      texts.add(text);
-    }
-
-    @Override
-    public void endStage() {}
   }
 
   /** Every row of {@code rows}: the kept score against the model's prediction, to 1e-9 relative. */
@@ -129,8 +111,8 @@ class CarriedRowScoresTest {
     String context = "seed " + SEED + ", partition by " + partitionBy + ", zero rows kept " + zeroRowsKept;
     TrainingPlan first = plan(FIRST_CUT_DAY_INDEX, partitionBy, Objective.TWEEDIE, zeroRowsKept);
     TrainingPlan next = plan(NEXT_CUT_DAY_INDEX, partitionBy, Objective.TWEEDIE, zeroRowsKept);
-    Notes carriedNotes = new Notes();
-    Notes predictedNotes = new Notes();
+    RecordedNotes carriedNotes = new RecordedNotes();
+    RecordedNotes predictedNotes = new RecordedNotes();
     try (MemoryBudget budget = MemoryBudget.unlimited("test");
         ModelSet withScores = ModelTraining.train(history, first, budget, ProgressListener.SILENT, true);
         ModelSet withoutScores = ModelTraining.train(history, first, budget, ProgressListener.SILENT, false);
@@ -171,10 +153,8 @@ class CarriedRowScoresTest {
           assertEquals(b[r], a[r], 1e-6 * Math.max(1, Math.abs(b[r])), context + ", forecast row " + r);
         }
       }
-      assertEquals(expectedCarried, carriedNotes.texts.stream().filter(t -> t.startsWith("starting scores"))
-          .toList(), context);
-      assertEquals(expectedPredicted, predictedNotes.texts.stream().filter(t -> t.startsWith("starting scores"))
-          .toList(), context);
+      assertEquals(expectedCarried, carriedNotes.startingWith("starting scores"), context);
+      assertEquals(expectedPredicted, predictedNotes.startingWith("starting scores"), context);
     }
   }
 
@@ -213,10 +193,10 @@ class CarriedRowScoresTest {
 
       try (ModelSet opened = ModelDirectory.open(modelDir, history)) {
         assertEquals(expected, ModelDirectory.attachRowScores(opened, modelDir, "store-state-1", budget));
-        Notes notes = new Notes();
+        RecordedNotes notes = new RecordedNotes();
         try (ModelSet continued = ModelTraining.train(history, next.withStartingModels(new StartingModels(opened,
             modelDir.toString())), budget, notes)) {
-          List<String> carried = notes.texts.stream().filter(t -> t.startsWith("starting scores")).toList();
+          List<String> carried = notes.startingWith("starting scores");
           assertEquals(3, carried.size());
           for (int p = 0; p < 3; p++) {
             long trainingRows = FeaturePass.training(history, next.spec(), continued.partitions().get(p)
