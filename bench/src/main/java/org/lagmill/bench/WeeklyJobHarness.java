@@ -3,6 +3,7 @@ package org.lagmill.bench;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import java.io.IOException;
+import java.lang.management.ManagementFactory;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -101,7 +102,11 @@ public final class WeeklyJobHarness {
   private static StageFigures measure(Path jar, Path work, String name, List<String> lagmillArgs, String rounds)
       throws IOException, InterruptedException {
     Path tmp = Files.createDirectories(work.resolve("jvm-tmp"));
-    List<String> command = new ArrayList<>(List.of("java", "-Xmx1g",
+    // the launcher's flags (./lagmill): a 1 GiB heap, and the JVM's cap on direct buffers lifted to the machine's
+    // memory so that lagmill's own off-heap budget is the one limit
+    long machineBytes = ((com.sun.management.OperatingSystemMXBean) ManagementFactory.getOperatingSystemMXBean())
+        .getTotalMemorySize();
+    List<String> command = new ArrayList<>(List.of("java", "-Xmx1g", "-XX:MaxDirectMemorySize=" + machineBytes,
         "--add-exports", "java.base/jdk.internal.misc=ALL-UNNAMED", "--add-opens", "java.base/java.nio=ALL-UNNAMED",
         "--add-opens", "java.base/sun.nio.ch=ALL-UNNAMED", "-Djava.io.tmpdir=" + tmp, "-jar", jar.toString()));
     command.addAll(lagmillArgs);

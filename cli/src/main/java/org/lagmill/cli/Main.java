@@ -116,6 +116,12 @@ public final class Main {
     if (t instanceof NoSuchFileException n) {
       return "no such file: " + n.getFile() + (n.getReason() == null ? "" : " (" + n.getReason() + ")");
     }
+    if (t instanceof OutOfMemoryError && String.valueOf(t.getMessage()).contains("direct buffer memory")) {
+      // the JVM's own cap on direct buffers, not the heap and not lagmill's budget: more heap is the wrong advice
+      return "the Java process reached its cap on direct memory (" + t.getMessage() + "), outside lagmill's off-heap"
+          + " budget; the launcher lifts the cap to the machine's memory: run through ./lagmill, or give java"
+          + " -XX:MaxDirectMemorySize=SIZE (e.g. 16g; by default it equals -Xmx)";
+    }
     if (t instanceof OutOfMemoryError) {
       return "the Java process ran out of memory (" + t.getMessage() + "), outside lagmill's off-heap budget; give it"
           + " more heap with LAGMILL_HEAP (e.g. LAGMILL_HEAP=4g, the launcher's default is 1g) or run on fewer series";

@@ -18,6 +18,14 @@ class ExitCodeMappingTest {
     assertEquals("the Java process ran out of memory (Java heap space), outside lagmill's off-heap budget; give it"
         + " more heap with LAGMILL_HEAP (e.g. LAGMILL_HEAP=4g, the launcher's default is 1g) or run on fewer series",
         Main.message(heap));
+    // the JVM's direct-memory cap is named as such: more heap is not the remedy (measured at 59M item-days)
+    OutOfMemoryError direct = new OutOfMemoryError("Cannot reserve 186302444 bytes of direct buffer memory "
+        + "(allocated: 942849948, limit: 1073741824)");
+    assertEquals(ExitCodes.JVM_OUT_OF_MEMORY, Main.exitCodeOf(direct));
+    assertEquals("the Java process reached its cap on direct memory (Cannot reserve 186302444 bytes of direct buffer"
+        + " memory (allocated: 942849948, limit: 1073741824)), outside lagmill's off-heap budget; the launcher lifts"
+        + " the cap to the machine's memory: run through ./lagmill, or give java -XX:MaxDirectMemorySize=SIZE (e.g."
+        + " 16g; by default it equals -Xmx)", Main.message(direct));
     MemoryBudgetExceededException budget = new MemoryBudgetExceededException("lagmill/train", 10, 95, 100);
     assertEquals(ExitCodes.OUT_OF_MEMORY_BUDGET, Main.exitCodeOf(budget));
   }
