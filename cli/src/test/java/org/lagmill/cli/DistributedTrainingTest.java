@@ -38,9 +38,9 @@ class DistributedTrainingTest {
 
   @BeforeAll
   static void shardAStore() throws IOException {
-    GeneratedScenario.generateAndIngest(dir.resolve("data"), dir.resolve("store"), SERIES, 330, 21, false);
-    MainRun.of("shard", "--store", dir.resolve("store").toString(), "--parts", "3", "--by", "article",
-        "--out", dir.resolve("shards").toString()).expectOk();
+    Path store = GeneratedScenario.generateAndIngest(dir.resolve("data"), dir.resolve("store"), SERIES, 330, 21, false);
+    MainRun.of("shard", "--store", store.toString(), "--parts", "3", "--by", "article", "--out",
+        dir.resolve("shards").toString()).expectOk();
   }
 
   @Test

@@ -33,9 +33,7 @@ class PipelineCommandsTest {
     MainRun.of("ingest", "--sales", shortSales.toString(), "--calendar",
         scenario.resolve("calendar.csv").toString(), "--prices", scenario.resolve("prices.csv").toString(), "--store",
         storeA.toString(), "--quiet").expectOk();
-    MainRun.of("ingest", "--sales", scenario.resolve("sales.csv").toString(), "--calendar",
-        scenario.resolve("calendar.csv").toString(), "--prices", scenario.resolve("prices.csv").toString(),
-        "--store", storeB.toString(), "--quiet").expectOk();
+    GeneratedScenario.ingest(scenario, storeB, false);
 
     Path model = dir.resolve("M");
     MainRun.of("train", "--store", storeA.toString(), "--model", model.toString(), "--rounds", "10",
